@@ -1,0 +1,129 @@
+// Catalogue reads for the public pages. Each takes `db` first so callers can share a transaction.
+import { type Kysely, sql } from "kysely";
+import type { Database } from "../../db/schema";
+
+type Db = Kysely<Database>;
+
+function modelsBase(db: Db) {
+  return db
+    .selectFrom("tool_models as m")
+    .innerJoin("makers as mk", "mk.id", "m.maker_id")
+    .innerJoin("tool_categories as c", "c.id", "m.category_id")
+    .select([
+      "m.id", "m.slug", "m.model_code", "m.name", "m.fitting", "m.weight_kg", "m.length_mm",
+      "m.street_price_cents", "m.rated_air_lps", "mk.name as maker_name", "mk.slug as maker_slug",
+      "c.name as category_name", "c.slug as category_slug",
+    ]);
+}
+
+export async function listModels(db: Db) {
+  return modelsBase(db)
+    .select((eb) =>
+      eb.selectFrom("reports as r").whereRef("r.tool_model_id", "=", "m.id").where("r.status", "=", "accepted")
+        .select(sql<number>`count(*)::int`.as("n")).as("accepted_reports"),
+    )
+    .orderBy("c.name").orderBy("mk.name").orderBy("m.model_code")
+    .execute();
+}
+
+export async function getModelBySlug(db: Db, slug: string) {
+  return modelsBase(db)
+    .select([
+      "m.bore_mm", "m.stroke_mm", "m.blows_per_minute", "m.free_speed_rpm", "m.max_torque_nm",
+      "m.air_inlet", "m.max_inlet_kpa", "m.measured_specs", "c.action as category_action", "m.category_id",
+    ])
+    .where("m.slug", "=", slug)
+    .executeTakeFirst();
+}
+
+/** Raw counts per job for one model (accepted reports only). Intervals come from app/stats. */
+export async function jobSummaryForModel(db: Db, modelId: number) {
+  return db
+    .selectFrom("job_types as j")
+    .leftJoin("reports as r", (join) =>
+      join.onRef("r.job_type_id", "=", "j.id").on("r.tool_model_id", "=", modelId).on("r.status", "=", "accepted"),
+    )
+    .innerJoin("tool_models as m", (join) => join.onRef("m.category_id", "=", "j.category_id").on("m.id", "=", modelId))
+    .select([
+      "j.slug", "j.name",
+      sql<number>`count(r.id)::int`.as("n"),
+      sql<number>`(count(*) filter (where r.outcome = 'freed'))::int`.as("freed"),
+      sql<number | null>`percentile_cont(0.5) within group (order by r.time_to_result_s) filter (where r.outcome = 'freed')`.as("median_time_s"),
+      sql<number | null>`percentile_cont(0.5) within group (order by r.inlet_kpa)`.as("median_inlet_kpa"),
+    ])
+    .groupBy(["j.id", "j.slug", "j.name"])
+    .orderBy("n", "desc")
+    .execute();
+}
+
+export async function listJobs(db: Db) {
+  return db
+    .selectFrom("job_types as j")
+    .innerJoin("tool_categories as c", "c.id", "j.category_id")
+    .select(["j.id", "j.slug", "j.name", "j.description", "c.name as category_name", "c.slug as category_slug", "c.action as category_action"])
+    .select((eb) =>
+      eb.selectFrom("reports as r").whereRef("r.job_type_id", "=", "j.id").where("r.status", "=", "accepted")
+        .select(sql<number>`count(*)::int`.as("n")).as("accepted_reports"),
+    )
+    .orderBy("c.name").orderBy("j.name")
+    .execute();
+}
+
+export async function getJobBySlug(db: Db, slug: string) {
+  return db
+    .selectFrom("job_types as j")
+    .innerJoin("tool_categories as c", "c.id", "j.category_id")
+    .select(["j.id", "j.slug", "j.name", "j.description", "j.seized", "c.name as category_name", "c.action as category_action"])
+    .where("j.slug", "=", slug)
+    .executeTakeFirst();
+}
+
+/** Raw counts per model for one job (accepted reports only). */
+export async function modelSummaryForJob(db: Db, jobId: number) {
+  return modelsBase(db)
+    .innerJoin("reports as r", (join) => join.onRef("r.tool_model_id", "=", "m.id").on("r.job_type_id", "=", jobId).on("r.status", "=", "accepted"))
+    .select([
+      sql<number>`count(r.id)::int`.as("n"),
+      sql<number>`(count(*) filter (where r.outcome = 'freed'))::int`.as("freed"),
+      sql<number | null>`percentile_cont(0.5) within group (order by r.time_to_result_s) filter (where r.outcome = 'freed')`.as("median_time_s"),
+      sql<number | null>`percentile_cont(0.5) within group (order by r.inlet_kpa)`.as("median_inlet_kpa"),
+    ])
+    .groupBy(["m.id", "mk.id", "c.id"])
+    .orderBy("n", "desc")
+    .execute();
+}
+
+export interface ReportFilter {
+  modelId?: number;
+  jobId?: number;
+  limit: number;
+  offset?: number;
+}
+
+export async function acceptedReports(db: Db, { modelId, jobId, limit, offset = 0 }: ReportFilter) {
+  let q = db
+    .selectFrom("reports as r")
+    .innerJoin("tool_models as m", "m.id", "r.tool_model_id")
+    .innerJoin("makers as mk", "mk.id", "m.maker_id")
+    .innerJoin("job_types as j", "j.id", "r.job_type_id")
+    .innerJoin("users as u", "u.id", "r.reporter_id")
+    .select([
+      "r.id", "r.accepted_at", "r.vehicle_class", "r.corrosion_level", "r.inlet_kpa", "r.inlet_source",
+      "r.hose_id_mm", "r.hose_length_m", "r.outcome", "r.time_to_result_s", "r.attempts",
+      "m.slug as model_slug", "m.model_code", "mk.name as maker_name", "j.slug as job_slug", "j.name as job_name",
+      "u.handle as reporter_handle",
+    ])
+    .where("r.status", "=", "accepted");
+  if (modelId != null) q = q.where("r.tool_model_id", "=", modelId);
+  if (jobId != null) q = q.where("r.job_type_id", "=", jobId);
+  return q.orderBy("r.accepted_at", "desc").orderBy("r.id", "desc").limit(limit).offset(offset).execute();
+}
+
+export async function countAccepted(db: Db, { modelId, jobId }: { modelId?: number; jobId?: number } = {}) {
+  let q = db.selectFrom("reports").select(sql<number>`count(*)::int`.as("n")).where("status", "=", "accepted");
+  if (modelId != null) q = q.where("tool_model_id", "=", modelId);
+  if (jobId != null) q = q.where("job_type_id", "=", jobId);
+  return (await q.executeTakeFirstOrThrow()).n;
+}
+
+export type AcceptedReportRow = Awaited<ReturnType<typeof acceptedReports>>[number];

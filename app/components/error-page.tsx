@@ -1,0 +1,35 @@
+import { isRouteErrorResponse, Link } from "react-router";
+
+// One rendering of thrown responses and errors for every route: per-status messages,
+// stack traces only in development.
+const STATUS_MESSAGES: Record<number, { title: string; body: string }> = {
+  400: { title: "That request didn't make sense", body: "Something in the address or the form is not valid." },
+  401: { title: "Sign in needed", body: "Sign in to see this page." },
+  403: { title: "Not allowed", body: "Your account cannot see or change this." },
+  404: { title: "Not found", body: "There is no page here. The tool, job or report may have moved or never existed." },
+};
+
+export function ErrorPage({ error }: { error: unknown }) {
+  let title = "Something went wrong";
+  let body = "The error has been logged. Try again in a moment.";
+  let detail: string | undefined;
+  let stack: string | undefined;
+  if (isRouteErrorResponse(error)) {
+    const known = STATUS_MESSAGES[error.status];
+    title = known?.title ?? `${error.status} ${error.statusText}`;
+    body = known?.body ?? body;
+    detail = typeof error.data === "string" && error.data !== known?.title ? error.data : undefined;
+  } else if (import.meta.env.DEV && error instanceof Error) {
+    detail = error.message;
+    stack = error.stack;
+  }
+  return (
+    <section className="rounded-lg border border-stone-200 bg-white p-6">
+      <h1 className="text-2xl font-bold">{title}</h1>
+      <p className="mt-2 text-stone-700">{body}</p>
+      {detail && <p className="mt-2 text-stone-700">{detail}</p>}
+      {stack && <pre className="mt-4 overflow-x-auto rounded bg-stone-100 p-3 text-xs">{stack}</pre>}
+      <p className="mt-4"><Link to="/" className="text-bay-700 underline">Back to the start page</Link></p>
+    </section>
+  );
+}

@@ -1,0 +1,185 @@
+// The typed schema Kysely checks queries against. Keep in step with migrations/.
+import type { ColumnType, Generated, Insertable, Selectable, Updateable } from "kysely";
+
+type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
+type TextArray = ColumnType<string[], string[] | undefined, string[]>;
+
+export type Trade = "automotive" | "fleet" | "heavy_equipment";
+export type PressureUnit = "psi" | "bar" | "kPa";
+export type Fitting =
+  | "shank-0.401" | "shank-0.498"
+  | "drive-1/4" | "drive-3/8" | "drive-1/2" | "drive-3/4" | "drive-1";
+export type ReportStatus = "draft" | "submitted" | "returned" | "accepted" | "rejected" | "withdrawn";
+export type VehicleClass =
+  | "passenger_car" | "light_truck" | "heavy_truck" | "bus" | "trailer" | "agricultural" | "construction";
+export type CorrosionLevel = "none" | "light" | "moderate" | "heavy" | "severe";
+export type InletSource = "measured_at_inlet" | "read_at_regulator" | "estimated";
+export type CouplerProfile = "industrial_m" | "automotive_t" | "high_flow_v" | "iso_6150_b" | "other";
+export type Outcome = "freed" | "freed_with_help" | "not_freed";
+export type EvidenceStatus = "pending" | "uploaded" | "verified" | "failed_verification";
+export type DecisionAction = "accept" | "return" | "reject";
+
+export interface ShopsTable {
+  id: Generated<number>;
+  name: string;
+  city: string;
+  region: string;
+  trade: Trade;
+}
+
+export interface UsersTable {
+  id: Generated<number>;
+  email: string;
+  handle: string;
+  shop_id: number | null;
+  pressure_unit: ColumnType<PressureUnit, PressureUnit | undefined, PressureUnit>;
+  length_unit: ColumnType<"in" | "mm", "in" | "mm" | undefined, "in" | "mm">;
+  force_unit: ColumnType<"lbf" | "N", "lbf" | "N" | undefined, "lbf" | "N">;
+  banned_at: Date | null;
+  created_at: Timestamp;
+}
+
+export interface RolesTable {
+  name: string;
+  description: string;
+}
+
+export interface UserRolesTable {
+  user_id: number;
+  role: "moderator" | "admin";
+  granted_by: number | null;
+  granted_at: Timestamp;
+}
+
+export interface MakersTable {
+  id: Generated<number>;
+  slug: string;
+  name: string;
+  country: string | null;
+}
+
+export interface ToolCategoriesTable {
+  id: Generated<number>;
+  slug: string;
+  name: string;
+  action: "percussive" | "rotary";
+  description: string;
+}
+
+export interface ToolModelsTable {
+  id: Generated<number>;
+  slug: string;
+  maker_id: number;
+  category_id: number;
+  model_code: string;
+  name: string;
+  fitting: Fitting;
+  bore_mm: number | null;
+  stroke_mm: number | null;
+  blows_per_minute: number | null;
+  free_speed_rpm: number | null;
+  max_torque_nm: number | null;
+  weight_kg: number;
+  length_mm: number;
+  street_price_cents: number | null;
+  air_inlet: string;
+  rated_air_lps: number;
+  max_inlet_kpa: ColumnType<number, number | undefined, number>;
+  measured_specs: TextArray;
+  created_at: Timestamp;
+}
+
+export interface JobTypesTable {
+  id: Generated<number>;
+  slug: string;
+  category_id: number;
+  name: string;
+  description: string;
+  seized: ColumnType<boolean, boolean | undefined, boolean>;
+}
+
+export interface ReportsTable {
+  id: Generated<number>;
+  reporter_id: number;
+  tool_model_id: number;
+  category_id: number;
+  job_type_id: number;
+  status: ColumnType<ReportStatus, ReportStatus | undefined, ReportStatus>;
+  version: ColumnType<number, number | undefined, number>;
+  vehicle_class: VehicleClass | null;
+  component_age_years: number | null;
+  corrosion_level: CorrosionLevel | null;
+  attachment: string | null;
+  attachment_length_mm: number | null;
+  regulator_kpa: number | null;
+  inlet_kpa: number | null;
+  inlet_source: InletSource | null;
+  hose_id_mm: number | null;
+  hose_length_m: number | null;
+  coupler_profile: CouplerProfile | null;
+  coupler_count: number | null;
+  compressor_lps: number | null;
+  tank_l: number | null;
+  outcome: Outcome | null;
+  time_to_result_s: number | null;
+  attempts: number | null;
+  trigger_control: number | null;
+  notes: string | null;
+  flags: TextArray;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+  submitted_at: Date | string | null;
+  decided_at: Date | string | null;
+  accepted_at: Date | string | null;
+}
+
+export interface EvidenceTable {
+  id: Generated<number>;
+  report_id: number;
+  object_key: string;
+  kind: "video" | "photo";
+  content_type: string | null;
+  size_bytes: ColumnType<string | null, number | null | undefined, number | null>;
+  sha256: string | null;
+  status: ColumnType<EvidenceStatus, EvidenceStatus | undefined, EvidenceStatus>;
+  is_public: ColumnType<boolean, boolean | undefined, boolean>;
+  created_at: Timestamp;
+}
+
+export interface DecisionsTable {
+  id: Generated<number>;
+  report_id: number;
+  moderator_id: number;
+  action: DecisionAction;
+  reason_code: string;
+  note: string | null;
+  report_version: number;
+  created_at: Timestamp;
+}
+
+export interface Database {
+  shops: ShopsTable;
+  users: UsersTable;
+  roles: RolesTable;
+  user_roles: UserRolesTable;
+  makers: MakersTable;
+  tool_categories: ToolCategoriesTable;
+  tool_models: ToolModelsTable;
+  job_types: JobTypesTable;
+  reports: ReportsTable;
+  evidence: EvidenceTable;
+  decisions: DecisionsTable;
+}
+
+export type User = Selectable<UsersTable>;
+export type NewUser = Insertable<UsersTable>;
+export type UserUpdate = Updateable<UsersTable>;
+export type ToolModel = Selectable<ToolModelsTable>;
+export type NewToolModel = Insertable<ToolModelsTable>;
+export type JobType = Selectable<JobTypesTable>;
+export type Report = Selectable<ReportsTable>;
+export type NewReport = Insertable<ReportsTable>;
+export type ReportUpdate = Updateable<ReportsTable>;
+export type Evidence = Selectable<EvidenceTable>;
+export type Decision = Selectable<DecisionsTable>;
+export type NewDecision = Insertable<DecisionsTable>;

@@ -1,0 +1,23 @@
+// Applies migrations and loads the demo scenario when the database is empty.
+import type { Kysely } from "kysely";
+import { createDb } from "../db/database";
+import { migrateToLatest } from "../db/migrate";
+import type { Database } from "../db/schema";
+import { loadDemoScenario } from "../seeds/index";
+
+export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => void = console.log) {
+  const applied = await migrateToLatest(db);
+  if (applied.length) log(`Applied migrations: ${applied.join(", ")}`);
+  const t0 = Date.now();
+  const seeded = await loadDemoScenario(db);
+  if (seeded.loaded) log(`Loaded the demo scenario: ${seeded.reports} reports in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+  else log("Demo scenario already present; left as it is");
+}
+
+// Run directly: tsx scripts/prepare-db.ts (uses DATABASE_URL).
+if (import.meta.url === `file://${process.argv[1]}`) {
+  const url = process.env.DATABASE_URL;
+  if (!url) throw new Error("DATABASE_URL is not set");
+  const db = createDb(url, 2);
+  await prepareDatabase(db).finally(() => db.destroy());
+}

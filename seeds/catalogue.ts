@@ -1,0 +1,113 @@
+// The demo catalogue: invented makers and tool models. None of these is a real brand or product.
+import type { Fitting } from "../db/schema";
+
+export const makers = [
+  { slug: "brackwater", name: "Brackwater Pneumatics", country: "Invented" },
+  { slug: "quillon", name: "Quillon Air Tools", country: "Invented" },
+  { slug: "marrowpike", name: "Marrowpike Industrial", country: "Invented" },
+  { slug: "tessaly", name: "Tessaly Tool Works", country: "Invented" },
+  { slug: "orrin", name: "Orrin & Daughters", country: "Invented" },
+  { slug: "halvard", name: "Halvard Pneumatic", country: "Invented" },
+] as const;
+
+export const categories = [
+  {
+    slug: "air-hammer",
+    name: "Air hammer",
+    action: "percussive" as const,
+    description: "Percussive hammers taking round-shank bits: forks, punches, chisels and cutters.",
+  },
+  {
+    slug: "impact-wrench",
+    name: "Impact wrench",
+    action: "rotary" as const,
+    description: "Rotary impact wrenches with a square drive, for breaking fasteners loose.",
+  },
+  {
+    slug: "air-ratchet",
+    name: "Air ratchet",
+    action: "rotary" as const,
+    description: "Ratchet wrenches for running fasteners in tight places once they are broken loose.",
+  },
+];
+
+type CategorySlug = (typeof categories)[number]["slug"];
+
+export const jobTypes: {
+  slug: string; category: CategorySlug; name: string; description: string; seized: boolean;
+  /** Demo only: how hard the job is (logit offset) and its typical time in seconds. */
+  difficulty: number; medianS: number; popularity: number;
+}[] = [
+  { slug: "ball-joint-separation", category: "air-hammer", name: "Ball joint separation", description: "Breaking a tapered ball-joint stud out of its knuckle or control arm.", seized: true, difficulty: 0.6, medianS: 45, popularity: 1.0 },
+  { slug: "tie-rod-end-release", category: "air-hammer", name: "Tie rod end release", description: "Shocking a tie rod end taper loose from the steering arm.", seized: true, difficulty: 1.0, medianS: 25, popularity: 0.8 },
+  { slug: "seized-bolt-punch-out", category: "air-hammer", name: "Seized bolt punch-out", description: "Driving a seized through-bolt out of a bushing sleeve or bracket.", seized: true, difficulty: -0.2, medianS: 90, popularity: 0.7 },
+  { slug: "exhaust-joint-split", category: "air-hammer", name: "Exhaust joint split", description: "Splitting a rusted slip joint or clamp seam on an exhaust.", seized: true, difficulty: 0.4, medianS: 60, popularity: 0.6 },
+  { slug: "rivet-shear", category: "air-hammer", name: "Rivet shear", description: "Cutting the heads off chassis or brake-lining rivets.", seized: false, difficulty: 0.9, medianS: 20, popularity: 0.35 },
+  { slug: "bushing-press-out", category: "air-hammer", name: "Bushing press-out", description: "Driving a rubber or steel bushing out of its bore.", seized: true, difficulty: -0.4, medianS: 150, popularity: 0.45 },
+  { slug: "king-pin-drive-out", category: "air-hammer", name: "King pin drive-out", description: "Driving a seized steer-axle king pin out of its knuckle (heavy truck).", seized: true, difficulty: -1.0, medianS: 600, popularity: 0.3 },
+  { slug: "lug-nut-breakaway", category: "impact-wrench", name: "Lug nut breakaway", description: "Breaking wheel nuts loose.", seized: false, difficulty: 1.6, medianS: 6, popularity: 1.0 },
+  { slug: "axle-nut-breakaway", category: "impact-wrench", name: "Axle nut breakaway", description: "Breaking a staked or rusted drive-axle nut loose.", seized: true, difficulty: 0.2, medianS: 20, popularity: 0.8 },
+  { slug: "crank-bolt-breakaway", category: "impact-wrench", name: "Crank bolt breakaway", description: "Breaking a crankshaft pulley bolt loose without holding the crank.", seized: true, difficulty: 0.0, medianS: 15, popularity: 0.5 },
+  { slug: "control-arm-bolt-breakaway", category: "impact-wrench", name: "Control arm bolt breakaway", description: "Breaking loose a rusted suspension pivot bolt.", seized: true, difficulty: 0.3, medianS: 30, popularity: 0.55 },
+  { slug: "manifold-nut-removal", category: "air-ratchet", name: "Manifold nut removal", description: "Running exhaust manifold nuts off their studs after breakaway.", seized: true, difficulty: 0.5, medianS: 40, popularity: 0.6 },
+  { slug: "caliper-bracket-bolt-removal", category: "air-ratchet", name: "Caliper bracket bolt removal", description: "Running caliper bracket bolts out once cracked loose.", seized: false, difficulty: 1.3, medianS: 12, popularity: 0.7 },
+  { slug: "water-pump-bolt-run-out", category: "air-ratchet", name: "Water pump bolt run-out", description: "Running water pump bolts out in a tight engine bay.", seized: false, difficulty: 1.1, medianS: 18, popularity: 0.4 },
+];
+
+export interface ModelSeed {
+  maker: (typeof makers)[number]["slug"];
+  category: CategorySlug;
+  code: string;
+  name: string;
+  fitting: Fitting;
+  boreMm?: number;
+  strokeMm?: number;
+  bpm?: number;
+  rpm?: number;
+  torqueNm?: number;
+  weightKg: number;
+  lengthMm: number;
+  priceUsd: number;
+  inlet: string;
+  ratedLps: number;
+  maxInletKpa?: number;
+  measured?: string[];
+  /** Demo only: how popular the model is among reporters (relative). */
+  popularity: number;
+}
+
+const NPT14 = "1/4 in NPT";
+const NPT38 = "3/8 in NPT";
+
+export const models: ModelSeed[] = [
+  // 0.401 in shank hammers
+  { maker: "brackwater", category: "air-hammer", code: "BH-150", name: "Short-barrel hammer", fitting: "shank-0.401", boreMm: 19, strokeMm: 41, bpm: 4500, weightKg: 1.05, lengthMm: 165, priceUsd: 49, inlet: NPT14, ratedLps: 1.9, popularity: 1.0 },
+  { maker: "brackwater", category: "air-hammer", code: "BH-260L", name: "Long-barrel hammer", fitting: "shank-0.401", boreMm: 19, strokeMm: 67, bpm: 3500, weightKg: 1.2, lengthMm: 245, priceUsd: 79, inlet: NPT14, ratedLps: 2.1, popularity: 0.9 },
+  { maker: "quillon", category: "air-hammer", code: "QH-3", name: "Q3 hammer", fitting: "shank-0.401", boreMm: 19, strokeMm: 76, bpm: 3000, weightKg: 1.3, lengthMm: 260, priceUsd: 135, inlet: NPT14, ratedLps: 2.2, measured: ["weight_kg"], popularity: 0.7 },
+  { maker: "tessaly", category: "air-hammer", code: "T-401V", name: "Vibration-damped hammer", fitting: "shank-0.401", boreMm: 19, strokeMm: 89, bpm: 2800, weightKg: 1.55, lengthMm: 285, priceUsd: 219, inlet: NPT14, ratedLps: 2.4, popularity: 0.5 },
+  { maker: "orrin", category: "air-hammer", code: "OD-12", name: "Pocket hammer", fitting: "shank-0.401", boreMm: 16, strokeMm: 35, bpm: 5000, weightKg: 0.85, lengthMm: 150, priceUsd: 39, inlet: NPT14, ratedLps: 1.6, popularity: 0.6 },
+  { maker: "halvard", category: "air-hammer", code: "HP-40X", name: "Extended-stroke hammer", fitting: "shank-0.401", boreMm: 19, strokeMm: 100, bpm: 2500, weightKg: 1.6, lengthMm: 300, priceUsd: 169, inlet: NPT14, ratedLps: 2.5, popularity: 0.45 },
+  // 0.498 in shank hammers
+  { maker: "marrowpike", category: "air-hammer", code: "MP-498", name: "Heavy hammer", fitting: "shank-0.498", boreMm: 25, strokeMm: 76, bpm: 2400, weightKg: 2.3, lengthMm: 290, priceUsd: 189, inlet: NPT14, ratedLps: 3.3, maxInletKpa: 758.4, popularity: 0.75 },
+  { maker: "quillon", category: "air-hammer", code: "QH-9H", name: "Q9 heavy hammer", fitting: "shank-0.498", boreMm: 27, strokeMm: 89, bpm: 2100, weightKg: 2.7, lengthMm: 320, priceUsd: 279, inlet: NPT38, ratedLps: 3.8, maxInletKpa: 758.4, measured: ["weight_kg", "length_mm"], popularity: 0.55 },
+  { maker: "tessaly", category: "air-hammer", code: "T-498S", name: "Spring-retainer heavy hammer", fitting: "shank-0.498", boreMm: 25, strokeMm: 102, bpm: 1900, weightKg: 2.9, lengthMm: 335, priceUsd: 245, inlet: NPT38, ratedLps: 4.0, maxInletKpa: 758.4, popularity: 0.35 },
+  { maker: "halvard", category: "air-hammer", code: "HP-50", name: "Frame hammer", fitting: "shank-0.498", boreMm: 29, strokeMm: 114, bpm: 1600, weightKg: 3.4, lengthMm: 360, priceUsd: 329, inlet: NPT38, ratedLps: 4.7, maxInletKpa: 758.4, popularity: 0.3 },
+  { maker: "orrin", category: "air-hammer", code: "OD-55", name: "Shop heavy hammer", fitting: "shank-0.498", boreMm: 25, strokeMm: 64, bpm: 2600, weightKg: 2.1, lengthMm: 270, priceUsd: 119, inlet: NPT14, ratedLps: 3.1, maxInletKpa: 758.4, popularity: 0.5 },
+  // 1/2 in impact wrenches
+  { maker: "brackwater", category: "impact-wrench", code: "BW-12T", name: "Twin-hammer impact", fitting: "drive-1/2", rpm: 8000, torqueNm: 880, weightKg: 2.2, lengthMm: 190, priceUsd: 89, inlet: NPT14, ratedLps: 2.4, popularity: 1.0 },
+  { maker: "quillon", category: "impact-wrench", code: "QI-1200", name: "Q1200 compact impact", fitting: "drive-1/2", rpm: 9500, torqueNm: 1200, weightKg: 1.6, lengthMm: 165, priceUsd: 199, inlet: NPT14, ratedLps: 2.8, popularity: 0.85 },
+  { maker: "orrin", category: "impact-wrench", code: "OD-I5", name: "Stubby impact", fitting: "drive-1/2", rpm: 10000, torqueNm: 650, weightKg: 1.3, lengthMm: 120, priceUsd: 129, inlet: NPT14, ratedLps: 2.1, popularity: 0.5 },
+  { maker: "marrowpike", category: "impact-wrench", code: "MP-I1600", name: "High-output impact", fitting: "drive-1/2", rpm: 8500, torqueNm: 1600, weightKg: 2.0, lengthMm: 185, priceUsd: 259, inlet: NPT14, ratedLps: 3.1, popularity: 0.7 },
+  { maker: "halvard", category: "impact-wrench", code: "HI-900", name: "Pistol-grip impact", fitting: "drive-1/2", rpm: 7500, torqueNm: 950, weightKg: 2.4, lengthMm: 200, priceUsd: 109, inlet: NPT14, ratedLps: 2.6, popularity: 0.45 },
+  // 3/4 in impact wrenches
+  { maker: "marrowpike", category: "impact-wrench", code: "MP-I34", name: "3/4 in fleet impact", fitting: "drive-3/4", rpm: 5500, torqueNm: 1900, weightKg: 4.2, lengthMm: 230, priceUsd: 349, inlet: NPT38, ratedLps: 4.5, maxInletKpa: 758.4, popularity: 0.6 },
+  { maker: "tessaly", category: "impact-wrench", code: "T-750", name: "3/4 in short impact", fitting: "drive-3/4", rpm: 6200, torqueNm: 1650, weightKg: 3.4, lengthMm: 205, priceUsd: 289, inlet: NPT38, ratedLps: 4.1, maxInletKpa: 758.4, popularity: 0.4 },
+  { maker: "brackwater", category: "impact-wrench", code: "BW-34H", name: "3/4 in heavy impact", fitting: "drive-3/4", rpm: 5000, torqueNm: 2400, weightKg: 5.1, lengthMm: 255, priceUsd: 229, inlet: NPT38, ratedLps: 5.2, maxInletKpa: 758.4, popularity: 0.45 },
+  { maker: "halvard", category: "impact-wrench", code: "HI-2700", name: "3/4 in D-handle impact", fitting: "drive-3/4", rpm: 4800, torqueNm: 2700, weightKg: 5.6, lengthMm: 270, priceUsd: 419, inlet: NPT38, ratedLps: 5.6, maxInletKpa: 758.4, popularity: 0.3 },
+  // 3/8 in ratchets
+  { maker: "quillon", category: "air-ratchet", code: "QR-38", name: "Q38 ratchet", fitting: "drive-3/8", rpm: 200, torqueNm: 75, weightKg: 1.0, lengthMm: 270, priceUsd: 79, inlet: NPT14, ratedLps: 1.7, popularity: 0.9 },
+  { maker: "orrin", category: "air-ratchet", code: "OD-R2", name: "Long-neck ratchet", fitting: "drive-3/8", rpm: 170, torqueNm: 95, weightKg: 1.25, lengthMm: 330, priceUsd: 119, inlet: NPT14, ratedLps: 1.9, popularity: 0.6 },
+  { maker: "tessaly", category: "air-ratchet", code: "T-R60", name: "Mini ratchet", fitting: "drive-1/4", rpm: 260, torqueNm: 40, weightKg: 0.7, lengthMm: 220, priceUsd: 59, inlet: NPT14, ratedLps: 1.4, popularity: 0.5 },
+  { maker: "brackwater", category: "air-ratchet", code: "BR-100", name: "High-torque ratchet", fitting: "drive-3/8", rpm: 160, torqueNm: 110, weightKg: 1.3, lengthMm: 300, priceUsd: 99, inlet: NPT14, ratedLps: 2.0, popularity: 0.55 },
+  { maker: "halvard", category: "air-ratchet", code: "HR-12", name: "1/2 in ratchet", fitting: "drive-1/2", rpm: 150, torqueNm: 135, weightKg: 1.5, lengthMm: 340, priceUsd: 139, inlet: NPT14, ratedLps: 2.1, popularity: 0.3 },
+];
