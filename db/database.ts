@@ -5,7 +5,9 @@ import type { Database } from "./schema";
 export const DEFAULT_DATABASE_URL = "postgres://bayproof@127.0.0.1:54320/bayproof";
 
 export function createDb(connectionString: string, max = 10): Kysely<Database> {
-  return new Kysely<Database>({
-    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max }) }),
-  });
+  const pool = new pg.Pool({ connectionString, max });
+  // An idle client losing its connection (a database restart) must not take the process down;
+  // the pool replaces it and the next query reports any real outage.
+  pool.on("error", (error) => console.warn(`[db] idle connection lost: ${error.message}`));
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
 }

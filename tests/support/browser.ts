@@ -1,0 +1,32 @@
+// Headless Debian Chromium through playwright-core, with the flags this machine needs, and a
+// page that fails the test on any console error or uncaught page error.
+import { type Browser, chromium } from "playwright-core";
+import { CHROMIUM } from "./system";
+
+export const CHROMIUM_FLAGS = [
+  "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking",
+  "--disable-component-update", "--disable-sync", "--no-first-run",
+];
+
+export async function launchBrowser(): Promise<Browser> {
+  // Playwright gives every launch a new, empty profile folder of its own.
+  return chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_FLAGS });
+}
+
+export async function newCheckedPage(browser: Browser, viewport = { width: 1280, height: 900 }) {
+  const context = await browser.newContext({ viewport });
+  const page = await context.newPage();
+  const problems: string[] = [];
+  page.on("console", (msg) => {
+    if (msg.type() === "error") problems.push(`console error: ${msg.text()}`);
+  });
+  page.on("pageerror", (err) => problems.push(`page error: ${err.message}`));
+  return {
+    page,
+    /** Throws if the page logged an error; call at the end of each test. */
+    assertClean() {
+      if (problems.length) throw new Error(problems.join("\n"));
+    },
+    close: () => context.close(),
+  };
+}

@@ -1,0 +1,50 @@
+// Test-side helpers to start throwaway services: a free loopback port, a temporary PostgreSQL
+// cluster with the schema and demo data, and Debian's Chromium.
+import { spawnSync } from "node:child_process";
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
+import { createServer } from "node:net";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { createDb } from "../../db/database";
+import { prepareDatabase } from "../../scripts/prepare-db";
+import { startPostgres } from "../../scripts/postgres";
+
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = createServer();
+    server.unref();
+    server.on("error", reject);
+    server.listen(0, "127.0.0.1", () => {
+      const address = server.address();
+      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
+    });
+  });
+}
+
+/** A fresh cluster in a temporary folder, never the demo data; removed on stop. */
+export async function startTestDatabase() {
+  const dataDir = mkdtempSync(path.join(tmpdir(), "bayproof-test-pg-"));
+  const server = await startPostgres({ dataDir, port: await freePort(), fast: true });
+  const db = createDb(server.url, 2);
+  await prepareDatabase(db, () => {});
+  await db.destroy();
+  return {
+    url: server.url,
+    stop() {
+      server.stop();
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+export const CHROMIUM = "/usr/bin/chromium";
+
+export function ensureChromium() {
+  if (existsSync(CHROMIUM)) return;
+  if (process.getuid?.() !== 0) {
+    throw new Error("Chromium is missing. Install Debian's package first: sudo apt-get install -y chromium");
+  }
+  spawnSync("apt-get", ["update", "-qq"], { stdio: "inherit" });
+  const r = spawnSync("apt-get", ["install", "-y", "-qq", "chromium"], { stdio: "inherit", env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
+  if (r.status !== 0 || !existsSync(CHROMIUM)) throw new Error("apt-get could not install chromium");
+}
