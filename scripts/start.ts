@@ -3,6 +3,7 @@
 import { spawn, spawnSync } from "node:child_process";
 import path from "node:path";
 import { log, onExit, root, startServices } from "./services";
+import { waitForHttp } from "./wait-http";
 
 const services = await startServices();
 let server: ReturnType<typeof spawn> | undefined;
@@ -29,4 +30,5 @@ server.on("exit", async (code) => {
   await services.stop();
   process.exit(code ?? 0);
 });
+await waitForHttp(`http://${host}:${port}/`, server, 120_000);
 log(`Bayproof is serving on http://${host}:${port}`);

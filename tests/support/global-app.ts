@@ -1,26 +1,12 @@
 // End-to-end: a throwaway database, a production build of the app, and react-router-serve on a
 // free loopback port — the same path `npm start` takes.
-import { type ChildProcess, spawn, spawnSync } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
+import { waitForHttp } from "../../scripts/wait-http";
 import { ensureChromium, freePort, startTestDatabase } from "./system";
 
 const root = path.resolve(import.meta.dirname, "../..");
-
-async function waitForHttp(url: string, server: ChildProcess, timeoutMs = 60_000) {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (server.exitCode != null) throw new Error(`the app server exited with ${server.exitCode}`);
-    try {
-      const res = await fetch(url);
-      if (res.status < 500) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`the app did not answer at ${url}`);
-}
 
 export default async function setup(project: TestProject) {
   ensureChromium();
