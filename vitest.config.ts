@@ -1,11 +1,12 @@
 import { defineConfig } from "vitest/config";
 
-// Tests run without the React Router Vite plugin; the end-to-end project builds and serves the
-// real app instead. Three projects: unit (pure), integration (real PostgreSQL), e2e (Chromium).
+// Tests run without the React Router Vite plugin; the global setup builds and serves the real
+// app instead (tests/support/global-stack.ts). Three projects: unit (pure), integration (real PostgreSQL), e2e (Chromium).
 export default defineConfig({
   resolve: { tsconfigPaths: true },
   test: {
     reporters: ["default", ["json", { outputFile: ".data/test-report.json" }]],
+    globalSetup: ["tests/support/global-stack.ts"],
     projects: [
       {
         extends: true,
@@ -16,7 +17,6 @@ export default defineConfig({
         test: {
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
-          globalSetup: ["tests/support/global-database.ts"],
           setupFiles: ["tests/support/console-guard.ts"],
           testTimeout: 20_000,
           hookTimeout: 60_000,
@@ -27,7 +27,6 @@ export default defineConfig({
         test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
-          globalSetup: ["tests/support/global-app.ts"],
           setupFiles: ["tests/support/console-guard.ts"],
           testTimeout: 60_000,
           hookTimeout: 120_000,

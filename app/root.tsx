@@ -1,9 +1,35 @@
+import { Form, Link, Links, Meta, NavLink, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
+import { getUser, hasRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
-import { Link, Links, Meta, NavLink, Outlet, Scripts, ScrollRestoration } from "react-router";
+import { applySecurityHeaders, isCrossSiteWrite, newNonce } from "~/security.server";
+import { nonceContext, useNonce } from "~/utils/nonce";
 import type { Route } from "./+types/root";
 import "./app.css";
 
+export const middleware: Route.MiddlewareFunction[] = [
+  async ({ request, context }, next) => {
+    const nonce = newNonce();
+    context.set(nonceContext, nonce);
+    const response = isCrossSiteWrite(request)
+      ? new Response("Cross-site request refused: this form must be sent from Bayproof's own pages.", {
+          status: 403,
+          headers: { "Content-Type": "text/plain; charset=utf-8" },
+        })
+      : await next();
+    applySecurityHeaders(response.headers, nonce, import.meta.env.DEV);
+    return response;
+  },
+];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await getUser(request);
+  return {
+    user: user && { handle: user.handle, isModerator: hasRole(user, "moderator"), isAdmin: hasRole(user, "admin") },
+  };
+}
+
 export function Layout({ children }: { children: React.ReactNode }) {
+  const nonce = useNonce();
   return (
     <html lang="en">
       <head>
@@ -11,14 +37,15 @@ export function Layout({ children }: { children: React.ReactNode }) {
         <meta name="viewport" content="width=device-width, initial-scale=1" />
         <link rel="icon" href="/favicon.svg" type="image/svg+xml" />
         <Meta />
-        <Links />
+        {/* Stylesheets come from our own origin and need no nonce; an empty one keeps hydration in step. */}
+        <Links nonce="" />
       </head>
       <body className="min-h-screen bg-bay-50 font-sans text-stone-900 antialiased">
         <SiteHeader />
         <main className="mx-auto w-full max-w-5xl px-4 py-6">{children}</main>
         <SiteFooter />
-        <ScrollRestoration />
-        <Scripts />
+        <ScrollRestoration nonce={nonce} />
+        <Scripts nonce={nonce} />
       </body>
     </html>
   );
@@ -29,6 +56,7 @@ export default function App() {
 }
 
 function SiteHeader() {
+  const user = useRouteLoaderData<typeof loader>("root")?.user;
   const link = ({ isActive }: { isActive: boolean }) =>
     `rounded px-3 py-2 ${isActive ? "bg-bay-700 text-white" : "text-bay-50 hover:bg-bay-700"}`;
   return (
@@ -41,6 +69,17 @@ function SiteHeader() {
         <nav aria-label="Main" className="flex gap-1 text-sm font-semibold">
           <NavLink to="/models" className={link}>Tools</NavLink>
           <NavLink to="/jobs" className={link}>Jobs</NavLink>
+          {user?.isAdmin && <NavLink to="/admin/users" className={link}>Users</NavLink>}
+          {user ? (
+            <>
+              <NavLink to="/account" className={link}>{user.handle}</NavLink>
+              <Form method="post" action="/sign-out">
+                <button type="submit" className="rounded px-3 py-2 text-bay-50 hover:bg-bay-700">Sign out</button>
+              </Form>
+            </>
+          ) : (
+            <NavLink to="/sign-in" className={link}>Sign in</NavLink>
+          )}
         </nav>
       </div>
     </header>

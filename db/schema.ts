@@ -169,6 +169,11 @@ export interface Database {
   reports: ReportsTable;
   evidence: EvidenceTable;
   decisions: DecisionsTable;
+  sessions: SessionsTable;
+  oauth_accounts: OauthAccountsTable;
+  sign_in_links: SignInLinksTable;
+  api_keys: ApiKeysTable;
+  role_changes: RoleChangesTable;
 }
 
 export type User = Selectable<UsersTable>;
@@ -183,3 +188,54 @@ export type ReportUpdate = Updateable<ReportsTable>;
 export type Evidence = Selectable<EvidenceTable>;
 export type Decision = Selectable<DecisionsTable>;
 export type NewDecision = Insertable<DecisionsTable>;
+
+// Sign-in (migration 2026-12-01T00.02).
+export interface SessionsTable {
+  id_hash: string;
+  user_id: number;
+  created_at: Timestamp;
+  last_seen_at: Timestamp;
+  expires_at: Date | string;
+  user_agent: string | null;
+  sign_in_method: "oidc" | "email_link";
+}
+
+export interface OauthAccountsTable {
+  provider: string;
+  subject: string;
+  user_id: number;
+  email_at_link: string | null;
+  created_at: Timestamp;
+}
+
+export interface SignInLinksTable {
+  token_hash: string;
+  email: string;
+  client_key: string;
+  created_at: Timestamp;
+  expires_at: Date | string;
+  used_at: Date | string | null;
+}
+
+export interface ApiKeysTable {
+  id: Generated<number>;
+  user_id: number;
+  name: string;
+  key_hash: string;
+  key_prefix: string;
+  created_at: Timestamp;
+  last_used_at: Date | string | null;
+  revoked_at: Date | string | null;
+}
+
+export interface RoleChangesTable {
+  id: Generated<number>;
+  user_id: number;
+  role: "moderator" | "admin";
+  change: "grant" | "revoke";
+  changed_by: number | null;
+  created_at: Timestamp;
+}
+
+export type Session = Selectable<SessionsTable>;
+export type ApiKey = Selectable<ApiKeysTable>;

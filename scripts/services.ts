@@ -2,6 +2,7 @@
 // elsewhere) with migrations and demo data, and the local fakes of hosted services.
 import path from "node:path";
 import { createDb } from "../db/database";
+import { startFakes } from "../fakes/index";
 import { prepareDatabase } from "./prepare-db";
 import { startPostgres } from "./postgres";
 
@@ -10,13 +11,19 @@ const log = (s: string) => console.log(`[bayproof] ${s}`);
 
 export async function startServices() {
   const stops: (() => void | Promise<void>)[] = [];
+  const dataDir = path.resolve(process.env.BAYPROOF_DATA_DIR ?? path.join(root, ".data"));
   let databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {
-    const dataDir = path.resolve(process.env.BAYPROOF_DATA_DIR ?? path.join(root, ".data"), "postgres");
-    const pgServer = await startPostgres({ dataDir, port: Number(process.env.BAYPROOF_PGPORT ?? 54320), log });
+    const pgServer = await startPostgres({ dataDir: path.join(dataDir, "postgres"), port: Number(process.env.BAYPROOF_PGPORT ?? 54320), log });
     stops.push(() => pgServer.stop());
     databaseUrl = pgServer.url;
   }
+  const fakes = await startFakes({
+    ports: { oidc: Number(process.env.BAYPROOF_OIDC_PORT ?? 54330), smtp: Number(process.env.BAYPROOF_SMTP_PORT ?? 54325) },
+    dataDir,
+  });
+  stops.push(() => fakes.stop());
+  log(`Local fakes: sign-in provider ${fakes.env.OIDC_ISSUER}, mail catcher ${fakes.env.SMTP_URL} (read it at /dev/mail)`);
   const db = createDb(databaseUrl, 2);
   try {
     await prepareDatabase(db, log);
@@ -24,7 +31,7 @@ export async function startServices() {
     await db.destroy();
   }
   return {
-    env: { DATABASE_URL: databaseUrl },
+    env: { DATABASE_URL: databaseUrl, ...fakes.env },
     async stop() {
       for (const stop of stops.reverse()) await stop();
     },

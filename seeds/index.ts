@@ -3,7 +3,7 @@
 import { type Kysely, sql } from "kysely";
 import type { Database, NewDecision, NewReport } from "../db/schema";
 import { categories, jobTypes, makers, models } from "./catalogue";
-import { people, shops } from "./people";
+import { DEMO_OIDC_PROVIDER, demoSubject, people, shops } from "./people";
 import { generateReports, makeRng } from "./reports";
 
 const slugify = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "");
@@ -33,6 +33,9 @@ export async function loadDemoScenario(db: Kysely<Database>): Promise<{ loaded: 
       .execute();
     const roleRows = people.flatMap((p, i) => p.roles.map((role) => ({ user_id: userRows[i]!.id, role })));
     await trx.insertInto("user_roles").values(roleRows).execute();
+    await trx.insertInto("oauth_accounts").values(people.map((p, i) => ({
+      provider: DEMO_OIDC_PROVIDER, subject: demoSubject(p.handle), user_id: userRows[i]!.id, email_at_link: p.email,
+    }))).execute();
 
     const makerRows = await trx.insertInto("makers").values(makers.map((m) => ({ ...m }))).returning(["id", "slug"]).execute();
     const makerId = new Map(makerRows.map((m) => [m.slug, m.id]));

@@ -57,3 +57,7 @@ export const people: PersonSeed[] = [
   { handle: "mod-odalys", email: `moderator3@${DOMAIN}`, shopIndex: 5, roles: ["moderator"], pressureUnit: "psi", lengthUnit: "in" },
   { handle: "admin-bertil", email: `admin@${DOMAIN}`, shopIndex: 0, roles: ["admin", "moderator"], pressureUnit: "psi", lengthUnit: "in" },
 ];
+
+/** The local fake OpenID provider's id and the subjects it signs the demo people in as. */
+export const DEMO_OIDC_PROVIDER = "local";
+export const demoSubject = (handle: string) => `demo-${handle}`;

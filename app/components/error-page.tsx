@@ -6,6 +6,8 @@ const STATUS_MESSAGES: Record<number, { title: string; body: string }> = {
   400: { title: "That request didn't make sense", body: "Something in the address or the form is not valid." },
   401: { title: "Sign in needed", body: "Sign in to see this page." },
   403: { title: "Not allowed", body: "Your account cannot see or change this." },
+  409: { title: "That clashes with something already there", body: "Nothing was changed." },
+  429: { title: "Too many tries", body: "Wait a few minutes and try again." },
   404: { title: "Not found", body: "There is no page here. The tool, job or report may have moved or never existed." },
 };
 

@@ -1,8 +1,10 @@
-// Values the global setups hand to tests through inject().
+// Values the global setup hands to tests through inject().
 declare module "vitest" {
   export interface ProvidedContext {
     databaseUrl: string;
     baseUrl: string;
+    mailDir: string;
+    oidcUrl: string;
   }
 }
 export {};

@@ -1,0 +1,116 @@
+// Sessions in PostgreSQL: the cookie carries a random id, the database only its SHA-256.
+// Idle timeout 14 days (extended as the user comes back), absolute lifetime 60 days.
+import { createCookie, redirect } from "react-router";
+import { sql } from "kysely";
+import { db } from "~/db.server";
+import { isHttps } from "~/config.server";
+import { invariantResponse } from "~/utils/http";
+import { randomToken, sha256Hex } from "./tokens.server";
+
+export const IDLE_TIMEOUT_MS = 14 * 24 * 3600_000;
+export const ABSOLUTE_LIFETIME_MS = 60 * 24 * 3600_000;
+const TOUCH_EVERY_MS = 10 * 60_000;
+
+export const sessionCookie = createCookie(isHttps ? "__Host-bayproof_session" : "bayproof_session", {
+  httpOnly: true,
+  sameSite: "lax",
+  secure: isHttps,
+  path: "/",
+  maxAge: ABSOLUTE_LIFETIME_MS / 1000,
+});
+
+export type Role = "moderator" | "admin";
+
+export interface SessionUser {
+  id: number;
+  handle: string;
+  email: string;
+  roles: Role[];
+  pressureUnit: "psi" | "bar" | "kPa";
+  lengthUnit: "in" | "mm";
+  forceUnit: "lbf" | "N";
+  sessionHash: string;
+}
+
+export async function createSession(userId: number, method: "oidc" | "email_link", request: Request) {
+  const token = randomToken();
+  await db
+    .insertInto("sessions")
+    .values({
+      id_hash: sha256Hex(token),
+      user_id: userId,
+      expires_at: new Date(Date.now() + ABSOLUTE_LIFETIME_MS),
+      user_agent: request.headers.get("user-agent")?.slice(0, 400) ?? null,
+      sign_in_method: method,
+    })
+    .execute();
+  return sessionCookie.serialize(token);
+}
+
+async function readToken(request: Request): Promise<string | null> {
+  const value: unknown = await sessionCookie.parse(request.headers.get("cookie"));
+  return typeof value === "string" && /^[A-Za-z0-9_-]{43}$/.test(value) ? value : null;
+}
+
+/** The signed-in user, or null. A tampered, expired or revoked cookie is simply no session. */
+export async function getUser(request: Request): Promise<SessionUser | null> {
+  const token = await readToken(request);
+  if (!token) return null;
+  const hash = sha256Hex(token);
+  const row = await db
+    .selectFrom("sessions as s")
+    .innerJoin("users as u", "u.id", "s.user_id")
+    .select([
+      "u.id", "u.handle", "u.email", "u.pressure_unit", "u.length_unit", "u.force_unit", "s.last_seen_at",
+      sql<Role[]>`coalesce((select array_agg(ur.role order by ur.role) from user_roles ur where ur.user_id = u.id), '{}')`.as("roles"),
+    ])
+    .where("s.id_hash", "=", hash)
+    .where("s.expires_at", ">", sql<Date>`now()`)
+    .where("s.last_seen_at", ">", sql<Date>`now() - ${`${IDLE_TIMEOUT_MS / 1000} seconds`}::interval`)
+    .where("u.banned_at", "is", null)
+    .executeTakeFirst();
+  if (!row) return null;
+  if (Date.now() - new Date(row.last_seen_at).getTime() > TOUCH_EVERY_MS) {
+    await db.updateTable("sessions").set({ last_seen_at: sql`now()` }).where("id_hash", "=", hash).execute();
+  }
+  return {
+    id: row.id, handle: row.handle, email: row.email, roles: row.roles,
+    pressureUnit: row.pressure_unit, lengthUnit: row.length_unit, forceUnit: row.force_unit, sessionHash: hash,
+  };
+}
+
+function signInRedirect(request: Request) {
+  const url = new URL(request.url);
+  const back = url.pathname.replace(/\.data$/, "") + url.search;
+  return redirect(`/sign-in?redirectTo=${encodeURIComponent(back)}`);
+}
+
+/** Pages: a visitor is sent to /sign-in and brought back afterwards. */
+export async function requireUser(request: Request): Promise<SessionUser> {
+  const user = await getUser(request);
+  if (!user) throw signInRedirect(request);
+  return user;
+}
+
+export const hasRole = (user: SessionUser | null, role: Role) =>
+  !!user && (user.roles.includes(role) || user.roles.includes("admin"));
+
+/** Admins hold every right; a moderator page admits moderators and admins. */
+export async function requireRole(request: Request, role: Role): Promise<SessionUser> {
+  const user = await requireUser(request);
+  invariantResponse(hasRole(user, role), `This needs the ${role} role`, 403);
+  return user;
+}
+
+/** Ends the current session; returns the Set-Cookie that clears it. */
+export async function destroySession(request: Request) {
+  const token = await readToken(request);
+  if (token) await db.deleteFrom("sessions").where("id_hash", "=", sha256Hex(token)).execute();
+  return sessionCookie.serialize("", { maxAge: 0 });
+}
+
+/** Only same-site paths may follow sign-in, never another origin. */
+export function safeRedirectPath(value: unknown, fallback = "/account"): string {
+  if (typeof value !== "string" || !value.startsWith("/") || value.startsWith("//") || value.startsWith("/\\")) return fallback;
+  return value;
+}

@@ -1,0 +1,198 @@
+import { data, Form, useNavigation } from "react-router";
+import { z } from "zod";
+import { endOtherSessions, endSession, handleTaken, listSessions } from "~/auth/account.server";
+import { countActiveKeys, createApiKey, listApiKeys, MAX_KEYS_PER_USER, revokeApiKey } from "~/auth/api-keys.server";
+import { requireUser } from "~/auth/session.server";
+import { formatDate } from "~/catalogue/format";
+import { ErrorPage } from "~/components/error-page";
+import { db } from "~/db.server";
+import { type FieldErrors, invalid, parseForm } from "~/utils/forms";
+import type { Route } from "./+types/account";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  const [sessions, keys] = await Promise.all([listSessions(db, user.id), listApiKeys(db, user.id)]);
+  return {
+    user: { handle: user.handle, email: user.email, pressureUnit: user.pressureUnit, lengthUnit: user.lengthUnit, forceUnit: user.forceUnit, roles: user.roles },
+    sessions: sessions.map((s) => ({
+      ref: s.id_hash.slice(0, 16), current: s.id_hash === user.sessionHash, createdAt: s.created_at,
+      lastSeenAt: s.last_seen_at, userAgent: s.user_agent, method: s.sign_in_method,
+    })),
+    keys,
+  };
+}
+
+const profileSchema = z.object({
+  intent: z.literal("profile"),
+  handle: z.string().trim().toLowerCase().regex(/^[a-z0-9][a-z0-9_-]{2,29}$/, "3–30 characters: letters, digits, - and _, starting with a letter or digit"),
+  pressureUnit: z.enum(["psi", "bar", "kPa"]),
+  lengthUnit: z.enum(["in", "mm"]),
+  forceUnit: z.enum(["lbf", "N"]),
+});
+const endSessionSchema = z.object({ intent: z.literal("end-session"), ref: z.string().regex(/^[0-9a-f]{16}$/) });
+const endOthersSchema = z.object({ intent: z.literal("end-other-sessions") });
+const createKeySchema = z.object({ intent: z.literal("create-key"), name: z.string().trim().min(1, "Give the key a name, e.g. the project it is for").max(60) });
+const revokeKeySchema = z.object({ intent: z.literal("revoke-key"), keyId: z.coerce.number().int().positive() });
+const accountSchema = z.discriminatedUnion("intent", [profileSchema, endSessionSchema, endOthersSchema, createKeySchema, revokeKeySchema]);
+
+export async function action({ request }: Route.ActionArgs) {
+  const user = await requireUser(request);
+  const form = parseForm(accountSchema, await request.formData());
+  if (!form.ok) return invalid(form.errors, form.values);
+  const input = form.data;
+  switch (input.intent) {
+    case "profile": {
+      if (await handleTaken(db, input.handle, user.id)) return invalid({ handle: ["That handle is taken"] }, form.values);
+      await db.updateTable("users").set({ handle: input.handle, pressure_unit: input.pressureUnit, length_unit: input.lengthUnit, force_unit: input.forceUnit })
+        .where("id", "=", user.id).execute();
+      return { ok: true as const, message: "Profile saved." };
+    }
+    case "end-session":
+      if (!(await endSession(db, user.id, input.ref))) throw data("No such session on your account", { status: 404 });
+      return { ok: true as const, message: "That session is signed out." };
+    case "end-other-sessions":
+      await endOtherSessions(db, user.id, user.sessionHash);
+      return { ok: true as const, message: "Every other session is signed out." };
+    case "create-key": {
+      if ((await countActiveKeys(db, user.id)) >= MAX_KEYS_PER_USER) {
+        return invalid({ name: [`At most ${MAX_KEYS_PER_USER} active keys; revoke one first`] }, form.values);
+      }
+      const key = await createApiKey(db, user.id, input.name);
+      return { ok: true as const, message: "Key created.", newKey: { name: input.name, key } };
+    }
+    case "revoke-key":
+      if (!(await revokeApiKey(db, user.id, input.keyId))) throw data("No such active key on your account", { status: 404 });
+      return { ok: true as const, message: "Key revoked." };
+  }
+}
+
+const input = "mt-1 block w-full rounded border border-stone-300 px-3 py-3 text-base";
+const card = "rounded-lg border border-stone-200 bg-white p-4";
+
+export default function Account({ loaderData, actionData }: Route.ComponentProps) {
+  const { user, sessions, keys } = loaderData;
+  const busy = useNavigation().state !== "idle";
+  const errors: FieldErrors = actionData && !actionData.ok ? actionData.errors : {};
+  const values: Record<string, unknown> = actionData && !actionData.ok ? actionData.values : {};
+  const typed = (k: string, fallback: string) => String(values.intent === "profile" && values[k] != null ? values[k] : fallback);
+  return (
+    <div className="space-y-6">
+      <h1 className="text-2xl font-bold">Your account</h1>
+      {actionData?.ok && <p role="status" className="rounded bg-bay-100 px-3 py-2">{actionData.message}</p>}
+
+      <section className={card} aria-labelledby="profile-heading">
+        <h2 id="profile-heading" className="mb-2 text-lg font-semibold">Profile</h2>
+        <p className="mb-3 text-sm text-stone-600">Your handle is the only name shown publicly. Your e-mail ({user.email}) is never shown or shared.</p>
+        <Form method="post" className="grid gap-3 sm:grid-cols-2">
+          <input type="hidden" name="intent" value="profile" />
+          <label className="sm:col-span-2">
+            <span className="font-semibold">Public handle</span>
+            <input name="handle" defaultValue={typed("handle", user.handle)} className={input} aria-invalid={errors.handle ? true : undefined} />
+            {errors.handle && <span className="text-sm text-red-700">{errors.handle[0]}</span>}
+          </label>
+          <UnitSelect name="pressureUnit" label="Pressure" options={["psi", "bar", "kPa"]} value={typed("pressureUnit", user.pressureUnit)} />
+          <UnitSelect name="lengthUnit" label="Hose and bit sizes" options={["in", "mm"]} value={typed("lengthUnit", user.lengthUnit)} />
+          <UnitSelect name="forceUnit" label="Force" options={["lbf", "N"]} value={typed("forceUnit", user.forceUnit)} />
+          <div className="sm:col-span-2">
+            <button type="submit" disabled={busy} className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Save profile</button>
+          </div>
+        </Form>
+      </section>
+
+      <section className={card} aria-labelledby="sessions-heading">
+        <h2 id="sessions-heading" className="mb-2 text-lg font-semibold">Where you are signed in</h2>
+        <p className="mb-3 text-sm text-stone-600">A session ends after 14 days without use, and after 60 days in any case.</p>
+        <ul className="divide-y divide-stone-100">
+          {sessions.map((s) => (
+            <li key={s.ref} className="flex flex-wrap items-center justify-between gap-2 py-2 text-sm">
+              <span>
+                <span className="font-semibold">{s.current ? "This device" : describeAgent(s.userAgent)}</span>{" "}
+                <span className="text-stone-600">· {s.method === "oidc" ? "provider" : "e-mail link"} · since {formatDate(s.createdAt)} · last seen {formatDate(s.lastSeenAt)}</span>
+              </span>
+              {!s.current && (
+                <Form method="post">
+                  <input type="hidden" name="intent" value="end-session" />
+                  <input type="hidden" name="ref" value={s.ref} />
+                  <button type="submit" className="rounded border border-stone-300 px-3 py-2">Sign out</button>
+                </Form>
+              )}
+            </li>
+          ))}
+        </ul>
+        {sessions.length > 1 && (
+          <Form method="post" className="mt-3">
+            <input type="hidden" name="intent" value="end-other-sessions" />
+            <button type="submit" className="rounded border border-stone-300 px-3 py-2 text-sm">Sign out everywhere else</button>
+          </Form>
+        )}
+      </section>
+
+      <section className={card} aria-labelledby="keys-heading">
+        <h2 id="keys-heading" className="mb-2 text-lg font-semibold">API keys for the open data feed</h2>
+        <p className="mb-3 text-sm text-stone-600">A key raises your feed limits and opens the bulk files. It is shown once; keep it secret.</p>
+        {actionData?.ok && "newKey" in actionData && actionData.newKey && (
+          <div className="mb-3 rounded border border-signal-500 bg-signal-100 p-3">
+            <p className="text-sm font-semibold">Your new key “{actionData.newKey.name}” — copy it now, it will not be shown again:</p>
+            <code className="mt-1 block break-all rounded bg-white px-2 py-1 text-sm" data-testid="new-api-key">{actionData.newKey.key}</code>
+          </div>
+        )}
+        <Form method="post" className="flex flex-wrap items-end gap-2">
+          <input type="hidden" name="intent" value="create-key" />
+          <label className="flex-1">
+            <span className="text-sm font-semibold">Key name</span>
+            <input name="name" defaultValue={values.intent === "create-key" ? String(values.name ?? "") : ""} className={input} aria-invalid={errors.name ? true : undefined} />
+          </label>
+          <button type="submit" disabled={busy} className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Create key</button>
+        </Form>
+        {errors.name && <p className="text-sm text-red-700">{errors.name[0]}</p>}
+        {keys.length > 0 && (
+          <ul className="mt-3 divide-y divide-stone-100 text-sm">
+            {keys.map((k) => (
+              <li key={k.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                <span>
+                  <span className="font-semibold">{k.name}</span> <code className="text-stone-600">{k.key_prefix}…</code>{" "}
+                  <span className="text-stone-600">· created {formatDate(k.created_at)} · last used {k.last_used_at ? formatDate(k.last_used_at) : "never"}</span>
+                </span>
+                {k.revoked_at ? <span className="text-stone-500">revoked {formatDate(k.revoked_at)}</span> : (
+                  <Form method="post">
+                    <input type="hidden" name="intent" value="revoke-key" />
+                    <input type="hidden" name="keyId" value={k.id} />
+                    <button type="submit" className="rounded border border-stone-300 px-3 py-2">Revoke</button>
+                  </Form>
+                )}
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+    </div>
+  );
+}
+
+function UnitSelect({ name, label, options, value }: { name: string; label: string; options: string[]; value: string }) {
+  return (
+    <label>
+      <span className="font-semibold">{label}</span>
+      <select name={name} defaultValue={value} className={input}>
+        {options.map((o) => <option key={o} value={o}>{o}</option>)}
+      </select>
+    </label>
+  );
+}
+
+function describeAgent(ua: string | null) {
+  if (!ua) return "Unknown device";
+  if (/iPhone|Android/.test(ua)) return "Phone";
+  if (/Chrome|Chromium/.test(ua)) return "Chromium-based browser";
+  if (/Firefox/.test(ua)) return "Firefox";
+  if (/Safari/.test(ua)) return "Safari";
+  return "Other device";
+}
+
+export function meta() {
+  return [{ title: "Your account — Bayproof" }];
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

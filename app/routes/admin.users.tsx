@@ -1,0 +1,110 @@
+import { data, Form } from "react-router";
+import { z } from "zod";
+import { changeRole, recentRoleChanges, RoleChangeError, searchUsers } from "~/auth/roles.server";
+import { requireRole } from "~/auth/session.server";
+import { formatDate } from "~/catalogue/format";
+import { ErrorPage } from "~/components/error-page";
+import { db } from "~/db.server";
+import { parseForm } from "~/utils/forms";
+import type { Route } from "./+types/admin.users";
+
+const searchSchema = z.object({ q: z.string().trim().max(100).default("") });
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const admin = await requireRole(request, "admin");
+  const parsed = searchSchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  if (!parsed.success) throw data("The search must be at most 100 characters", { status: 400 });
+  const [users, changes] = await Promise.all([searchUsers(db, parsed.data.q), recentRoleChanges(db)]);
+  return { q: parsed.data.q, users, changes, adminId: admin.id };
+}
+
+const roleSchema = z.object({
+  intent: z.enum(["grant", "revoke"]),
+  userId: z.coerce.number().int().positive(),
+  role: z.enum(["moderator", "admin"]),
+});
+
+export async function action({ request }: Route.ActionArgs) {
+  const admin = await requireRole(request, "admin");
+  const form = parseForm(roleSchema, await request.formData());
+  if (!form.ok) throw data("That role change is not valid", { status: 400 });
+  try {
+    const changed = await changeRole(db, admin.id, form.data.userId, form.data.role, form.data.intent);
+    return { ok: true as const, message: changed ? "Role updated and logged." : "Nothing to change." };
+  } catch (error) {
+    if (error instanceof RoleChangeError) return data({ ok: false as const, message: error.message }, { status: 400 });
+    throw error;
+  }
+}
+
+export default function AdminUsers({ loaderData, actionData }: Route.ComponentProps) {
+  const { q, users, changes, adminId } = loaderData;
+  return (
+    <div className="space-y-6">
+      <h1 className="text-2xl font-bold">Users and roles</h1>
+      {actionData && (
+        <p role={actionData.ok ? "status" : "alert"} className={`rounded px-3 py-2 ${actionData.ok ? "bg-bay-100" : "bg-red-100 text-red-900"}`}>{actionData.message}</p>
+      )}
+      <Form method="get" className="flex gap-2">
+        <label className="sr-only" htmlFor="q">Search by handle or e-mail</label>
+        <input id="q" name="q" defaultValue={q} placeholder="Handle or e-mail" className="flex-1 rounded border border-stone-300 px-3 py-3" />
+        <button type="submit" className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Search</button>
+      </Form>
+      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
+        <table className="w-full min-w-[40rem] text-left text-sm">
+          <thead className="bg-stone-100 text-xs uppercase text-stone-600">
+            <tr><th className="px-3 py-2">Handle</th><th className="px-3 py-2">E-mail</th><th className="px-3 py-2">Shop</th><th className="px-3 py-2">Roles</th></tr>
+          </thead>
+          <tbody className="divide-y divide-stone-100">
+            {users.map((u) => (
+              <tr key={u.id}>
+                <td className="px-3 py-2 font-semibold">{u.handle}</td>
+                <td className="px-3 py-2">{u.email}</td>
+                <td className="px-3 py-2">{u.shop_name ?? "—"}</td>
+                <td className="px-3 py-2">
+                  <div className="flex flex-wrap gap-2">
+                    {(["moderator", "admin"] as const).map((role) => {
+                      const has = u.roles.includes(role);
+                      const self = role === "admin" && has && u.id === adminId;
+                      return (
+                        <Form method="post" key={role}>
+                          <input type="hidden" name="userId" value={u.id} />
+                          <input type="hidden" name="role" value={role} />
+                          <button type="submit" name="intent" value={has ? "revoke" : "grant"} disabled={self}
+                            title={self ? "You cannot remove your own admin role" : undefined}
+                            className={`rounded border px-2 py-1 ${has ? "border-bay-700 bg-bay-100" : "border-stone-300"} disabled:opacity-50`}>
+                            {has ? `✓ ${role} — remove` : `make ${role}`}
+                          </button>
+                        </Form>
+                      );
+                    })}
+                  </div>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <section aria-labelledby="log-heading">
+        <h2 id="log-heading" className="mb-2 text-lg font-semibold">Recent role changes</h2>
+        {changes.length === 0 ? <p className="text-stone-600">None yet.</p> : (
+          <ul className="rounded-lg border border-stone-200 bg-white text-sm">
+            {changes.map((c) => (
+              <li key={c.id} className="border-b border-stone-100 px-3 py-2 last:border-0">
+                {formatDate(c.created_at)}: {c.actor_handle ?? "someone"} {c.change === "grant" ? "made" : "removed"} {c.user_handle} {c.change === "grant" ? "a" : "as"} {c.role}
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+    </div>
+  );
+}
+
+export function meta() {
+  return [{ title: "Users and roles — Bayproof" }];
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

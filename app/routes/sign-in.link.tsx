@@ -1,0 +1,55 @@
+import { data, Form, redirect } from "react-router";
+import { z } from "zod";
+import { consumeSignInLink } from "~/auth/email-link.server";
+import { createSession, safeRedirectPath } from "~/auth/session.server";
+import { ErrorPage } from "~/components/error-page";
+import type { Route } from "./+types/sign-in.link";
+
+const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{43}$/);
+
+// Opening the link only shows a button: mail scanners that fetch links must not spend it.
+export async function loader({ request }: Route.LoaderArgs) {
+  const url = new URL(request.url);
+  const token = tokenSchema.safeParse(url.searchParams.get("token"));
+  if (!token.success) throw data("This sign-in link is incomplete. Copy the whole link from the message.", { status: 400 });
+  return { token: token.data, redirectTo: safeRedirectPath(url.searchParams.get("redirectTo")) };
+}
+
+const REASONS = {
+  unknown: "This sign-in link is not valid. Ask for a new one.",
+  used: "This sign-in link has already been used. Each link works once; ask for a new one.",
+  expired: "This sign-in link has expired (links last 10 minutes). Ask for a new one.",
+  banned: "This account is suspended.",
+} as const;
+
+export async function action({ request }: Route.ActionArgs) {
+  const form = await request.formData();
+  const token = tokenSchema.safeParse(form.get("token"));
+  if (!token.success) throw data(REASONS.unknown, { status: 400 });
+  const result = await consumeSignInLink(token.data);
+  if (!result.ok) throw data(REASONS[result.reason], { status: result.reason === "banned" ? 403 : 400 });
+  const cookie = await createSession(result.userId, "email_link", request);
+  return redirect(safeRedirectPath(form.get("redirectTo")), { headers: { "Set-Cookie": cookie } });
+}
+
+export default function SignInLink({ loaderData }: Route.ComponentProps) {
+  return (
+    <section className="mx-auto max-w-md rounded-lg border border-stone-200 bg-white p-6">
+      <h1 className="text-2xl font-bold">Finish signing in</h1>
+      <p className="mt-2 text-stone-700">Press the button to sign in on this device.</p>
+      <Form method="post" className="mt-4">
+        <input type="hidden" name="token" value={loaderData.token} />
+        <input type="hidden" name="redirectTo" value={loaderData.redirectTo} />
+        <button type="submit" className="w-full rounded bg-bay-700 px-4 py-3 font-semibold text-white">Sign in</button>
+      </Form>
+    </section>
+  );
+}
+
+export function meta() {
+  return [{ title: "Finish signing in — Bayproof" }];
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

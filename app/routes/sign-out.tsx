@@ -1,0 +1,12 @@
+import { redirect } from "react-router";
+import { destroySession } from "~/auth/session.server";
+import type { Route } from "./+types/sign-out";
+
+// Signing out changes state, so it is a POST only; a plain visit just goes home.
+export async function loader() {
+  return redirect("/");
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  return redirect("/", { headers: { "Set-Cookie": await destroySession(request) } });
+}

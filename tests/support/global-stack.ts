@@ -1,0 +1,62 @@
+// The whole stack for integration and end-to-end tests, started once per run: a throwaway
+// PostgreSQL with migrations and the demo scenario, the local fakes on free ports, a production
+// build of the app, and react-router-serve on a free loopback port — the path `npm start` takes.
+// A run of only the unit project starts nothing.
+import { spawn, spawnSync } from "node:child_process";
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import type { TestProject } from "vitest/node";
+import { startFakes } from "../../fakes/index";
+import { waitForHttp } from "../../scripts/wait-http";
+import { ensureChromium, freePort, startTestDatabase } from "./system";
+
+const root = path.resolve(import.meta.dirname, "../..");
+
+export default async function setup(project: TestProject) {
+  const running = project.vitest.projects.map((p) => p.name);
+  if (!running.some((name) => name === "integration" || name === "e2e")) return;
+  if (running.includes("e2e")) ensureChromium();
+
+  const cleanups: (() => Promise<void> | void)[] = [];
+  const teardown = async () => {
+    for (const c of cleanups.reverse()) await c();
+  };
+  try {
+    const database = await startTestDatabase();
+    cleanups.push(() => database.stop());
+    const dataDir = mkdtempSync(path.join(tmpdir(), "bayproof-test-data-"));
+    cleanups.push(() => rmSync(dataDir, { recursive: true, force: true }));
+    const fakes = await startFakes({ ports: { oidc: await freePort(), smtp: await freePort() }, dataDir });
+    cleanups.push(() => fakes.stop());
+
+    const build = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], { cwd: root, encoding: "utf8" });
+    if (build.status !== 0) throw new Error(`react-router build failed:\n${build.stdout}\n${build.stderr}`);
+    const port = await freePort();
+    const baseUrl = `http://127.0.0.1:${port}`;
+    const server = spawn(path.join(root, "node_modules/.bin/react-router-serve"), ["./build/server/index.js"], {
+      cwd: root,
+      env: {
+        ...process.env, ...fakes.env, DATABASE_URL: database.url, HOST: "127.0.0.1", PORT: String(port),
+        APP_ORIGIN: baseUrl, NODE_ENV: "production",
+      },
+      stdio: ["ignore", "ignore", "inherit"],
+    });
+    cleanups.push(async () => {
+      if (server.exitCode != null) return;
+      const exited = new Promise((resolve) => server.once("exit", resolve));
+      server.kill("SIGTERM");
+      await exited;
+    });
+    await waitForHttp(baseUrl, server);
+
+    project.provide("databaseUrl", database.url);
+    project.provide("baseUrl", baseUrl);
+    project.provide("mailDir", fakes.env.BAYPROOF_MAIL_CATCHER_DIR);
+    project.provide("oidcUrl", fakes.env.OIDC_ISSUER);
+  } catch (error) {
+    await teardown();
+    throw error;
+  }
+  return teardown;
+}
