@@ -61,6 +61,10 @@ export async function startOidcProvider({ port, accounts }: { port: number; acco
 
   const server = http.createServer((req, res) => {
     const url = new URL(req.url ?? "/", base);
+    if (url.pathname === "/favicon.ico") {
+      res.writeHead(204).end();
+      return;
+    }
     if (req.method === "GET" && url.pathname === "/authorize") {
       const account = url.searchParams.get("account");
       if (!account) {

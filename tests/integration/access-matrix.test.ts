@@ -1,0 +1,71 @@
+// Every protected route with each role, and the status it must answer. Guards run on the server:
+// these requests skip every page and button.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { testDb } from "../support/db";
+import { Browserish, signedInAs } from "../support/http";
+
+const db = testDb();
+afterAll(() => db.destroy());
+
+type Who = "visitor" | "reporter" | "moderator" | "admin";
+const clients = {} as Record<Who, Browserish>;
+let targetId = "0";
+
+beforeAll(async () => {
+  // Role changes in the matrix land on a user of the test's own, not on the demo people.
+  const target = await db.insertInto("users").values({ email: `matrix-${Date.now()}@demo.bayproof.test`, handle: `matrix-${Date.now() % 1e8}` })
+    .returning("id").executeTakeFirstOrThrow();
+  targetId = String(target.id);
+  clients.visitor = new Browserish();
+  clients.reporter = await signedInAs(db, "reporter@demo.bayproof.test");
+  clients.moderator = await signedInAs(db, "moderator@demo.bayproof.test");
+  clients.admin = await signedInAs(db, "admin@demo.bayproof.test");
+});
+
+const SIGN_IN = 302; // a visitor is sent to /sign-in for any page that needs an account
+
+// [method, path, form (for POST), expected status per role]
+const matrix: [string, string, (() => Record<string, string>) | null, Record<Who, number>][] = [
+  ["GET", "/account", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
+  ["POST", "/account", () => ({ intent: "end-other-sessions" }), { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
+  ["GET", "/admin/users", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
+  ["GET", "/admin/users?q=mod", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
+  ["POST", "/admin/users", () => ({ intent: "grant", userId: targetId, role: "moderator" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
+  ["GET", "/", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
+  ["GET", "/models", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
+  ["GET", "/sign-in", null, { visitor: 200, reporter: 302, moderator: 302, admin: 302 }],
+];
+
+describe("access by role", () => {
+  for (const [method, path, form, expected] of matrix) {
+    for (const who of Object.keys(expected) as Who[]) {
+      it(`${method} ${path} as ${who} → ${expected[who]}`, async () => {
+        const client = clients[who];
+        const res = method === "GET" ? await client.get(path) : await client.post(path, form!());
+        expect(res.status).toBe(expected[who]);
+        if (expected[who] === SIGN_IN && who === "visitor") {
+          expect(res.headers.get("location")).toMatch(/^\/sign-in\?redirectTo=/);
+        }
+      });
+    }
+  }
+
+  it("logs who changed a role and when", async () => {
+    const target = { id: Number(targetId) };
+    await clients.admin.post("/admin/users", { intent: "revoke", userId: targetId, role: "moderator" });
+    const res = await clients.admin.post("/admin/users", { intent: "grant", userId: String(target.id), role: "moderator" });
+    expect(res.status).toBe(200);
+    const log = await db.selectFrom("role_changes as rc").innerJoin("users as a", "a.id", "rc.changed_by")
+      .select(["rc.change", "rc.role", "a.email"]).where("rc.user_id", "=", target.id).orderBy("rc.id", "desc").executeTakeFirstOrThrow();
+    expect(log).toEqual({ change: "grant", role: "moderator", email: "admin@demo.bayproof.test" });
+    await clients.admin.post("/admin/users", { intent: "revoke", userId: String(target.id), role: "moderator" });
+  });
+
+  it("does not let an admin remove their own admin role", async () => {
+    const me = await db.selectFrom("users").select("id").where("email", "=", "admin@demo.bayproof.test").executeTakeFirstOrThrow();
+    const res = await clients.admin.post("/admin/users", { intent: "revoke", userId: String(me.id), role: "admin" });
+    expect(res.status).toBe(400);
+    const still = await db.selectFrom("user_roles").select("role").where("user_id", "=", me.id).where("role", "=", "admin").executeTakeFirst();
+    expect(still).toBeTruthy();
+  });
+});
