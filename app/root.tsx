@@ -69,6 +69,7 @@ function SiteHeader() {
         <nav aria-label="Main" className="flex gap-1 text-sm font-semibold">
           <NavLink to="/models" className={link}>Tools</NavLink>
           <NavLink to="/jobs" className={link}>Jobs</NavLink>
+          <NavLink to="/air" className={link}>Air</NavLink>
           {user?.isAdmin && <NavLink to="/admin/users" className={link}>Users</NavLink>}
           {user ? (
             <>

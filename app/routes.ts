@@ -6,6 +6,7 @@ export default [
   route("models/:slug", "routes/models.$slug.tsx"),
   route("jobs", "routes/jobs._index.tsx"),
   route("jobs/:slug", "routes/jobs.$slug.tsx"),
+  route("air", "routes/air.tsx"),
   route("sign-in", "routes/sign-in.tsx"),
   route("sign-in/link", "routes/sign-in.link.tsx"),
   route("sign-out", "routes/sign-out.tsx"),

@@ -9,11 +9,11 @@ export type CouplerProfile = "industrial_m" | "automotive_t" | "high_flow_v" | "
  * treat the result as an estimate and prefer a gauge at the tool inlet.
  */
 export const COUPLER_PROFILES: Record<CouplerProfile, { label: string; throatMm: number; equivalentLengthM: number }> = {
-  industrial_m: { label: "Industrial (M-style)", throatMm: 6.5, equivalentLengthM: 1.0 },
-  automotive_t: { label: "Automotive (T-style)", throatMm: 6.0, equivalentLengthM: 1.0 },
-  high_flow_v: { label: "High-flow (V-style)", throatMm: 8.5, equivalentLengthM: 1.0 },
-  iso_6150_b: { label: "ISO 6150 B", throatMm: 7.0, equivalentLengthM: 1.0 },
-  other: { label: "Other / unknown", throatMm: 6.0, equivalentLengthM: 1.2 },
+  industrial_m: { label: "Industrial (M-style)", throatMm: 6.5, equivalentLengthM: 3.0 },
+  automotive_t: { label: "Automotive (T-style)", throatMm: 6.0, equivalentLengthM: 4.0 },
+  high_flow_v: { label: "High-flow (V-style)", throatMm: 8.5, equivalentLengthM: 1.5 },
+  iso_6150_b: { label: "ISO 6150 B", throatMm: 7.0, equivalentLengthM: 2.5 },
+  other: { label: "Other / unknown", throatMm: 6.0, equivalentLengthM: 4.0 },
 };
 
 export function couplerPressureDropBar(profile: CouplerProfile, count: number, flowLps: number, inletAbsBar: number): number {

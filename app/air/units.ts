@@ -52,3 +52,8 @@ export const kgToLb = (kg: number) => kg / KG_PER_LB;
 
 /** The trade's rating point: 90 psi (6.2 bar) gauge at the tool inlet while running (common practice). */
 export const RATED_INLET_KPA = psiToKpa(90);
+
+/** 1 US gallon = 231 in³ = 3.785411784 l exactly. */
+export const L_PER_US_GAL = 3.785411784;
+export const galToL = (gal: number) => gal * L_PER_US_GAL;
+export const lToGal = (l: number) => l / L_PER_US_GAL;

@@ -1,3 +1,4 @@
+import { Link } from "react-router";
 import { db } from "~/db.server";
 import { ErrorPage } from "~/components/error-page";
 import { CountsTable } from "~/components/job-counts";
@@ -75,6 +76,12 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
           rows={jobs.map((j) => ({ key: j.slug, href: `/jobs/${j.slug}`, label: j.name, ...j }))}
         />
       </section>
+
+      <p>
+        <Link to={`/air?tool=${model.slug}`} className="inline-block rounded border border-bay-700 px-4 py-3 font-semibold text-bay-700">
+          Will my air supply feed this tool? →
+        </Link>
+      </p>
 
       <SafetyCautions action={model.category_action} />
 

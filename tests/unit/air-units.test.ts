@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { airDemandLps } from "~/air/demand";
 import { hosePressureDropBar } from "~/air/hose";
 import {
-  barToKpa, inToMm, kpaToPsi, lbfToN, lpsToScfm, psiToKpa, RATED_INLET_KPA, scfmToLps,
+  absoluteToGaugeKpa, barToKpa, galToL, gaugeToAbsoluteKpa, inToMm, kpaToPsi, lbfToN, lpsToScfm, psiToKpa, RATED_INLET_KPA, scfmToLps,
 } from "~/air/units";
 
 describe("unit conversions", () => {
@@ -15,6 +15,11 @@ describe("unit conversions", () => {
     expect(scfmToLps(1)).toBeCloseTo(0.4719474, 7);
     // 1 lbf = 4.448222 N (NIST SP 811, Appendix B)
     expect(lbfToN(1)).toBeCloseTo(4.448222, 6);
+    // 1 US gallon = 231 in³ exactly = 3.785411784 l (from the exact inch)
+    expect(galToL(1)).toBeCloseTo(231 * 25.4 ** 3 / 1e6, 12);
+    // gauge ↔ absolute with the standard atmosphere, 101.325 kPa (exact by definition)
+    expect(gaugeToAbsoluteKpa(0)).toBe(101.325);
+    expect(absoluteToGaugeKpa(gaugeToAbsoluteKpa(620))).toBeCloseTo(620, 10);
   });
 
   it("round-trips", () => {

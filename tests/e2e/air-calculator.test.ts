@@ -1,0 +1,53 @@
+// "What reaches my tool?" with JavaScript (live figures) and without (plain GET form).
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { launchBrowser, newCheckedPage } from "../support/browser";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+
+const psi = (text: string | null) => Number(text?.match(/(\d+(\.\d+)?) psi/)?.[1]);
+
+describe("the air calculator", () => {
+  it("moves the inlet figure as the hose changes, without a reload", async () => {
+    const { page, assertClean, close } = await newCheckedPage(browser, { width: 390, height: 844 });
+    await page.goto(`${baseUrl}/air`);
+    const figure = page.getByTestId("inlet-pressure");
+    const before = psi(await figure.textContent());
+    expect(before).toBeGreaterThan(0);
+    await page.getByLabel("Hose inside diameter, in").fill("1/4");
+    await page.getByLabel("Hose length, ft").fill("150");
+    await page.waitForFunction((b) => {
+      const t = document.querySelector("[data-testid=inlet-pressure]")?.textContent ?? "";
+      return Number(t.match(/(\d+) psi/)?.[1]) < b;
+    }, before);
+    expect(psi(await figure.textContent())).toBeLessThan(before);
+    expect(page.url()).toBe(`${baseUrl}/air`);
+
+    await page.getByLabel("Hose length, ft").fill("-3");
+    await page.getByText("More than 0, at most 330 ft").waitFor();
+    assertClean();
+    await close();
+  });
+
+  it("works as a plain GET form without JavaScript", async () => {
+    const context = await browser.newContext({ javaScriptEnabled: false });
+    const page = await context.newPage();
+    await page.goto(`${baseUrl}/air`);
+    const before = psi(await page.getByTestId("inlet-pressure").textContent());
+    await page.getByLabel("Hose inside diameter, in").fill("1/4");
+    await page.getByLabel("Hose length, ft").fill("150");
+    await page.getByRole("button", { name: /Work it out/ }).click();
+    await page.waitForURL(/hid=1%2F4/);
+    expect(psi(await page.getByTestId("inlet-pressure").textContent())).toBeLessThan(before);
+    const bad = await page.goto(`${baseUrl}/air?hid=abc&hlen=50`);
+    expect(bad?.status()).toBe(400);
+    await page.getByText("Enter the hose inside diameter, e.g. 3/8").waitFor();
+    await context.close();
+  });
+});
