@@ -66,13 +66,14 @@ function SiteHeader() {
           <img src="/favicon.svg" alt="" width={28} height={28} />
           Bayproof
         </Link>
-        <nav aria-label="Main" className="flex gap-1 text-sm font-semibold">
+        <nav aria-label="Main" className="-mx-1 flex max-w-full gap-1 overflow-x-auto whitespace-nowrap text-sm font-semibold">
           <NavLink to="/models" className={link}>Tools</NavLink>
           <NavLink to="/jobs" className={link}>Jobs</NavLink>
           <NavLink to="/air" className={link}>Air</NavLink>
           {user?.isAdmin && <NavLink to="/admin/users" className={link}>Users</NavLink>}
           {user ? (
             <>
+              <NavLink to="/me/reports" className={link}>My reports</NavLink>
               <NavLink to="/account" className={link}>{user.handle}</NavLink>
               <Form method="post" action="/sign-out">
                 <button type="submit" className="rounded px-3 py-2 text-bay-50 hover:bg-bay-700">Sign out</button>

@@ -2,6 +2,7 @@
 // middleware.
 import { randomBytes } from "node:crypto";
 import { config } from "~/config.server";
+import { storageOrigin } from "~/storage/s3.server";
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
@@ -24,10 +25,11 @@ export function contentSecurityPolicy(nonce: string, dev: boolean): string {
     "default-src": ["'self'"],
     "script-src": ["'self'", `'nonce-${nonce}'`, ...(dev ? ["'unsafe-inline'"] : [])],
     "style-src": ["'self'", "'unsafe-inline'"],
-    "img-src": ["'self'", "data:", "blob:"],
-    "media-src": ["'self'", "blob:"],
+    "img-src": ["'self'", "data:", "blob:", storageOrigin],
+    "media-src": ["'self'", "blob:", storageOrigin],
     "font-src": ["'self'"],
-    "connect-src": ["'self'", ...(dev ? ["ws:"] : [])],
+    // Evidence goes from the browser straight to object storage.
+    "connect-src": ["'self'", storageOrigin, ...(dev ? ["ws:"] : [])],
     "form-action": ["'self'"],
     "frame-ancestors": ["'none'"],
     "base-uri": ["'self'"],

@@ -174,6 +174,7 @@ export interface Database {
   sign_in_links: SignInLinksTable;
   api_keys: ApiKeysTable;
   role_changes: RoleChangesTable;
+  report_versions: ReportVersionsTable;
 }
 
 export type User = Selectable<UsersTable>;
@@ -239,3 +240,11 @@ export interface RoleChangesTable {
 
 export type Session = Selectable<SessionsTable>;
 export type ApiKey = Selectable<ApiKeysTable>;
+
+// Report versions (migration 2026-12-01T00.03).
+export interface ReportVersionsTable {
+  report_id: number;
+  version: number;
+  snapshot: ColumnType<Record<string, unknown>, string, never>;
+  created_at: Timestamp;
+}

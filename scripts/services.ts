@@ -19,11 +19,16 @@ export async function startServices() {
     databaseUrl = pgServer.url;
   }
   const fakes = await startFakes({
-    ports: { oidc: Number(process.env.BAYPROOF_OIDC_PORT ?? 54330), smtp: Number(process.env.BAYPROOF_SMTP_PORT ?? 54325) },
+    ports: {
+      oidc: Number(process.env.BAYPROOF_OIDC_PORT ?? 54330),
+      smtp: Number(process.env.BAYPROOF_SMTP_PORT ?? 54325),
+      s3: Number(process.env.BAYPROOF_S3_PORT ?? 54340),
+    },
     dataDir,
+    appOrigins: appOrigins(),
   });
   stops.push(() => fakes.stop());
-  log(`Local fakes: sign-in provider ${fakes.env.OIDC_ISSUER}, mail catcher ${fakes.env.SMTP_URL} (read it at /dev/mail)`);
+  log(`Local fakes: sign-in provider ${fakes.env.OIDC_ISSUER}, mail catcher ${fakes.env.SMTP_URL} (read it at /dev/mail), object store ${fakes.env.S3_ENDPOINT}`);
   const db = createDb(databaseUrl, 2);
   try {
     await prepareDatabase(db, log);
@@ -36,6 +41,12 @@ export async function startServices() {
       for (const stop of stops.reverse()) await stop();
     },
   };
+}
+
+/** The origins a browser may reach the app at locally, for the object store's CORS rules. */
+function appOrigins() {
+  const port = process.env.PORT ?? "3000";
+  return [process.env.APP_ORIGIN, `http://127.0.0.1:${port}`, `http://localhost:${port}`].filter((o): o is string => !!o);
 }
 
 export function onExit(cleanup: () => Promise<void> | void) {

@@ -158,10 +158,7 @@ export function generateReports(seed = "bayproof-demo-v1"): GeneratedReport[] {
       const timeS = Math.min(28800, Math.max(2, Math.round(job.medianS * speed * giveUp * Math.exp(0.75 * normal(rng)))));
       const attempts = Math.min(50, 1 + Math.floor(-Math.log(1 - rng()) * (outcome === "freed" ? 0.8 : 2.2)));
 
-      const flags = plausibilityFlags({
-        inletKpa, regulatorKpa, inletSource, hoseIdMm, hoseLengthM, timeToResultS: timeS,
-        seizedJob: job.seized, maxInletKpa: model.maxInletKpa ?? 689.5,
-      });
+      const flags: string[] = plausibilityFlags({ inletKpa, regulatorKpa, maxInletKpa: model.maxInletKpa ?? 689.5 });
       const s = rng();
       const status: ReportStatus = s < 0.86 ? "accepted" : s < 0.92 ? "submitted" : s < 0.95 ? "returned" : s < 0.985 ? "rejected" : "withdrawn";
 

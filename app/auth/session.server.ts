@@ -114,3 +114,10 @@ export function safeRedirectPath(value: unknown, fallback = "/account"): string 
   if (typeof value !== "string" || !value.startsWith("/") || value.startsWith("//") || value.startsWith("/\\")) return fallback;
   return value;
 }
+
+/** Resource routes: a visitor gets a 401 with a reason, not a redirect. */
+export async function requireApiUser(request: Request): Promise<SessionUser> {
+  const user = await getUser(request);
+  if (!user) throw Response.json({ error: "Sign in first" }, { status: 401 });
+  return user;
+}

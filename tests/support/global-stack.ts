@@ -27,13 +27,17 @@ export default async function setup(project: TestProject) {
     cleanups.push(() => database.stop());
     const dataDir = mkdtempSync(path.join(tmpdir(), "bayproof-test-data-"));
     cleanups.push(() => rmSync(dataDir, { recursive: true, force: true }));
-    const fakes = await startFakes({ ports: { oidc: await freePort(), smtp: await freePort() }, dataDir });
+    const port = await freePort();
+    const baseUrl = `http://127.0.0.1:${port}`;
+    const fakes = await startFakes({
+      ports: { oidc: await freePort(), smtp: await freePort(), s3: await freePort() },
+      dataDir,
+      appOrigins: [baseUrl],
+    });
     cleanups.push(() => fakes.stop());
 
     const build = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], { cwd: root, encoding: "utf8" });
     if (build.status !== 0) throw new Error(`react-router build failed:\n${build.stdout}\n${build.stderr}`);
-    const port = await freePort();
-    const baseUrl = `http://127.0.0.1:${port}`;
     const server = spawn(path.join(root, "node_modules/.bin/react-router-serve"), ["./build/server/index.js"], {
       cwd: root,
       env: {
@@ -54,6 +58,7 @@ export default async function setup(project: TestProject) {
     project.provide("baseUrl", baseUrl);
     project.provide("mailDir", fakes.env.BAYPROOF_MAIL_CATCHER_DIR);
     project.provide("oidcUrl", fakes.env.OIDC_ISSUER);
+    project.provide("s3", { endpoint: fakes.env.S3_ENDPOINT, bucket: fakes.env.S3_BUCKET });
   } catch (error) {
     await teardown();
     throw error;

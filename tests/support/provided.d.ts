@@ -5,6 +5,7 @@ declare module "vitest" {
     baseUrl: string;
     mailDir: string;
     oidcUrl: string;
+    s3: { endpoint: string; bucket: string };
   }
 }
 export {};

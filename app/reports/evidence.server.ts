@@ -1,0 +1,77 @@
+// Evidence uploads: the browser PUTs straight to object storage through a presigned URL this
+// module hands out, then asks for the upload to be checked. The server names every object, checks
+// the real type from the bytes, hashes it, and deletes what it refuses.
+import { sql, type Kysely } from "kysely";
+import type { Database } from "../../db/schema";
+import { randomToken } from "~/auth/tokens.server";
+import { EVIDENCE_TYPES, isEvidenceType, MAX_BYTES } from "~/storage/evidence-types";
+import { deleteObject, objectSize, presignPut, readHead, sha256OfObject } from "~/storage/s3.server";
+import { sniffEvidenceType } from "~/storage/sniff.server";
+import { EDITABLE } from "./status";
+
+type Db = Kysely<Database>;
+export const MAX_EVIDENCE_PER_REPORT = 12;
+
+export class EvidenceError extends Error {
+  constructor(message: string, readonly status: 400 | 404 | 409 | 413 | 415 | 422) {
+    super(message);
+  }
+}
+
+const mb = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
+
+export async function createUpload(db: Db, userId: number, reportId: number, claimed: { type: string; size: number }) {
+  const report = await db.selectFrom("reports").select(["status"]).where("id", "=", reportId).where("reporter_id", "=", userId).executeTakeFirst();
+  if (!report) throw new EvidenceError("No such report among yours", 404);
+  if (!EDITABLE.includes(report.status)) throw new EvidenceError("Evidence can only be added while the report is a draft or returned", 409);
+  if (!isEvidenceType(claimed.type)) throw new EvidenceError("Only video (mp4, mov, webm) and photos (jpeg, png, heic) are accepted", 415);
+  const kind = EVIDENCE_TYPES[claimed.type].kind;
+  if (claimed.size > MAX_BYTES[kind]) throw new EvidenceError(`A ${kind} may be at most ${mb(MAX_BYTES[kind])}`, 413);
+  const count = await db.selectFrom("evidence").select(sql<number>`count(*)::int`.as("n")).where("report_id", "=", reportId).executeTakeFirstOrThrow();
+  if (count.n >= MAX_EVIDENCE_PER_REPORT) throw new EvidenceError(`At most ${MAX_EVIDENCE_PER_REPORT} files per report`, 409);
+
+  // Our own random name under the report's prefix; the client's file name is never used.
+  const key = `reports/${reportId}/${randomToken(18)}`;
+  const row = await db.insertInto("evidence").values({ report_id: reportId, object_key: key, kind, status: "pending" }).returning("id").executeTakeFirstOrThrow();
+  return { evidenceId: row.id, key, url: await presignPut(key, claimed.type), headers: { "Content-Type": claimed.type } };
+}
+
+export async function completeUpload(db: Db, userId: number, evidenceId: number) {
+  const item = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
+    .select(["e.id", "e.object_key", "e.status", "r.reporter_id"]).where("e.id", "=", evidenceId).executeTakeFirst();
+  if (!item || item.reporter_id !== userId) throw new EvidenceError("No such upload among yours", 404);
+  if (item.status !== "pending") throw new EvidenceError("This upload was already checked", 409);
+
+  const size = await objectSize(item.object_key);
+  if (size == null) throw new EvidenceError("The file has not arrived in storage yet", 409);
+  const refuse = async (message: string, status: 413 | 422) => {
+    await deleteObject(item.object_key);
+    await db.deleteFrom("evidence").where("id", "=", item.id).execute();
+    throw new EvidenceError(message, status);
+  };
+  const type = size > 0 ? await sniffEvidenceType(await readHead(item.object_key)) : null;
+  if (!type) return refuse("This file is not a video or photo we accept, whatever its name says; it was removed", 422);
+  const kind = EVIDENCE_TYPES[type].kind;
+  if (size > MAX_BYTES[kind]) return refuse(`A ${kind} may be at most ${mb(MAX_BYTES[kind])}; it was removed`, 413);
+
+  const sha256 = await sha256OfObject(item.object_key);
+  await db.updateTable("evidence").set({ status: "uploaded", content_type: type, kind, size_bytes: size, sha256 }).where("id", "=", item.id).execute();
+  return { id: item.id, kind, contentType: type, size, sha256 };
+}
+
+/**
+ * Removes objects that never became part of a submitted report: uploads left pending, and files of
+ * drafts abandoned, older than `olderThanHours`. Run by the background worker.
+ */
+export async function removeOrphanedEvidence(db: Db, olderThanHours = 24) {
+  const stale = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
+    .select(["e.id", "e.object_key"])
+    .where("e.created_at", "<", sql<Date>`now() - ${`${olderThanHours} hours`}::interval`)
+    .where((eb) => eb.or([eb("e.status", "=", "pending"), eb.and([eb("r.status", "in", ["draft", "withdrawn"]), eb("r.submitted_at", "is", null)])]))
+    .limit(500).execute();
+  for (const item of stale) {
+    await deleteObject(item.object_key).catch(() => {});
+    await db.deleteFrom("evidence").where("id", "=", item.id).execute();
+  }
+  return stale.length;
+}

@@ -1,0 +1,100 @@
+import { useEffect } from "react";
+import { Form, Link } from "react-router";
+import { requireUser } from "~/auth/session.server";
+import { formatDate } from "~/catalogue/format";
+import { ErrorPage } from "~/components/error-page";
+import { OutcomeBadge } from "~/components/report-table";
+import { db } from "~/db.server";
+import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
+import { listOwnReports } from "~/reports/reports.server";
+import { EDITABLE, WITHDRAWABLE } from "~/reports/status";
+import { groupBy } from "~/utils/group";
+import type { Route } from "./+types/me.reports";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  const url = new URL(request.url);
+  const submitted = Number(url.searchParams.get("submitted")) || null;
+  return { reports: await listOwnReports(db, user.id), submitted, withdrawn: url.searchParams.has("withdrawn") };
+}
+
+const STATUS_ORDER = ["returned", "draft", "submitted", "accepted", "rejected", "withdrawn"] as const;
+const STATUS_LABELS: Record<string, string> = {
+  returned: "Returned to you for changes",
+  draft: "Drafts",
+  submitted: "Waiting for a moderator",
+  accepted: "Accepted",
+  rejected: "Rejected",
+  withdrawn: "Withdrawn",
+};
+const ACTION_LABELS: Record<string, string> = { accept: "Accepted", return: "Returned", reject: "Rejected" };
+
+export default function MyReports({ loaderData }: Route.ComponentProps) {
+  const { reports, submitted, withdrawn } = loaderData;
+  const byStatus = groupBy(reports, (r) => r.status);
+  useEffect(() => {
+    if (!submitted) return;
+    localStorage.removeItem("bayproof:report-form:new");
+    localStorage.removeItem(`bayproof:report-form:${submitted}`);
+  }, [submitted]);
+  return (
+    <div className="space-y-6">
+      <header className="flex flex-wrap items-center justify-between gap-3">
+        <h1 className="text-2xl font-bold">Your reports</h1>
+        <Link to="/reports/new" className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">File a new report</Link>
+      </header>
+      {submitted && <p role="status" className="rounded bg-bay-100 px-3 py-2">Report #{submitted} is submitted. A moderator will check the evidence.</p>}
+      {withdrawn && <p role="status" className="rounded bg-bay-100 px-3 py-2">The report is withdrawn.</p>}
+      {reports.length === 0 && <p className="text-stone-600">No reports yet.</p>}
+      {STATUS_ORDER.filter((s) => byStatus.has(s)).map((status) => (
+        <section key={status} aria-labelledby={`st-${status}`}>
+          <h2 id={`st-${status}`} className="mb-2 text-lg font-semibold">{STATUS_LABELS[status]} <span className="text-stone-500">({byStatus.get(status)!.length})</span></h2>
+          <ul className="space-y-2">
+            {byStatus.get(status)!.map((r) => (
+              <li key={r.id} className="rounded-lg border border-stone-200 bg-white p-3" data-testid={`report-${r.id}`}>
+                <div className="flex flex-wrap items-center gap-2">
+                  <span className="font-semibold">#{r.id}</span>
+                  <span>{r.maker_name} {r.model_code}</span>
+                  <span className="text-stone-600">· {r.job_name}</span>
+                  <OutcomeBadge outcome={r.outcome} />
+                  <span className="ml-auto text-xs text-stone-500">{r.submitted_at ? `submitted ${formatDate(r.submitted_at)}` : `started ${formatDate(r.created_at)}`} · v{r.version} · {r.evidence} files</span>
+                </div>
+                {r.flags.length > 0 && (
+                  <ul className="mt-2 space-y-1 text-sm" aria-label="Flags">
+                    {r.flags.map((f) => (
+                      <li key={f} className="rounded bg-amber-50 px-2 py-1"><span className="font-semibold">⚑ {f.replaceAll("_", " ")}</span> — {FLAG_EXPLANATIONS[f as FlagCode] ?? ""}</li>
+                    ))}
+                  </ul>
+                )}
+                {r.decisions.length > 0 && (
+                  <ul className="mt-2 space-y-1 text-sm">
+                    {r.decisions.map((d, i) => (
+                      <li key={i}>{formatDate(d.created_at)}: <span className="font-semibold">{ACTION_LABELS[d.action]}</span> ({d.reason_code.replaceAll("_", " ")}){d.note ? ` — ${d.note}` : ""}</li>
+                    ))}
+                  </ul>
+                )}
+                <div className="mt-2 flex gap-2">
+                  {EDITABLE.includes(r.status) && <Link to={`/reports/${r.id}/edit`} className="rounded border border-bay-700 px-3 py-2 text-sm text-bay-700">{r.status === "returned" ? "Fix and resubmit" : "Continue"}</Link>}
+                  {WITHDRAWABLE.includes(r.status) && (
+                    <Form method="post" action={`/reports/${r.id}/edit`}>
+                      <input type="hidden" name="reportId" value={r.id} />
+                      <button type="submit" name="intent" value="withdraw" className="rounded border border-stone-300 px-3 py-2 text-sm">Withdraw</button>
+                    </Form>
+                  )}
+                </div>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ))}
+    </div>
+  );
+}
+
+export function meta() {
+  return [{ title: "Your reports — Bayproof" }];
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

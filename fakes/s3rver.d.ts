@@ -1,0 +1,17 @@
+// Just the part of s3rver's API the fake uses (the package ships no types).
+declare module "s3rver" {
+  interface S3rverOptions {
+    address?: string;
+    port?: number;
+    directory?: string;
+    silent?: boolean;
+    resetOnClose?: boolean;
+    allowMismatchedSignatures?: boolean;
+    configureBuckets?: { name: string; configs: (string | Buffer)[] }[];
+  }
+  export default class S3rver {
+    constructor(options: S3rverOptions);
+    run(): Promise<{ address: string; port: number }>;
+    close(): Promise<void>;
+  }
+}
