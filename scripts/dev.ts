@@ -9,8 +9,10 @@ const dev = spawn(path.join(root, "node_modules/.bin/react-router"), ["dev", "--
   stdio: "inherit",
   env: { ...process.env, ...services.env },
 });
+const worker = spawn(path.join(root, "node_modules/.bin/tsx"), ["scripts/worker.ts"], { cwd: root, stdio: "inherit", env: { ...process.env, ...services.env } });
 onExit(async () => {
   dev.kill("SIGTERM");
+  worker.kill("SIGTERM");
   await services.stop();
 });
 dev.on("exit", async (code) => {

@@ -7,8 +7,10 @@ import { waitForHttp } from "./wait-http";
 
 const services = await startServices();
 let server: ReturnType<typeof spawn> | undefined;
+let worker: ReturnType<typeof spawn> | undefined;
 onExit(async () => {
   server?.kill("SIGTERM");
+  worker?.kill("SIGTERM");
   await services.stop();
 });
 
@@ -26,7 +28,13 @@ server = spawn(path.join(root, "node_modules/.bin/react-router-serve"), ["./buil
   stdio: ["ignore", "inherit", "inherit"],
   env: { ...process.env, ...services.env, HOST: host, PORT: port, NODE_ENV: "production" },
 });
+worker = spawn(path.join(root, "node_modules/.bin/tsx"), ["scripts/worker.ts"], {
+  cwd: root,
+  stdio: ["ignore", "inherit", "inherit"],
+  env: { ...process.env, ...services.env },
+});
 server.on("exit", async (code) => {
+  worker?.kill("SIGTERM");
   await services.stop();
   process.exit(code ?? 0);
 });

@@ -1,0 +1,17 @@
+// The background worker: `npm start` runs one beside the web server; in production run as many as
+// needed, each with DATABASE_URL and the storage variables.
+import { createDb, DEFAULT_DATABASE_URL } from "../db/database";
+import { startWorker } from "../app/jobs/worker.server";
+
+const url = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
+const db = createDb(url, 4);
+const log = (s: string) => console.log(`[worker] ${s}`);
+const worker = await startWorker(url, db, log);
+log("waiting for jobs");
+for (const signal of ["SIGINT", "SIGTERM"] as const) {
+  process.on(signal, async () => {
+    await worker.stop();
+    await db.destroy();
+    process.exit(0);
+  });
+}

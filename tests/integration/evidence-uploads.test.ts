@@ -1,0 +1,145 @@
+// Evidence: presigned uploads straight to the fake object store, the completion check on the
+// bytes, shared-file flags, and the clean-up of orphaned objects.
+import { HeadObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { createHash } from "node:crypto";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { testDb } from "../support/db";
+import { fakeExecutable, tinyMp4, tinyPng } from "../support/files";
+import { Browserish, signedInAs } from "../support/http";
+import { validReport } from "../support/reports";
+
+const db = testDb();
+const { endpoint, bucket } = inject("s3");
+const s3 = new S3Client({ endpoint, region: "us-east-1", forcePathStyle: true, credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" } });
+let owner: Browserish;
+let stranger: Browserish;
+let draftId: number;
+
+const exists = async (key: string) => s3.send(new HeadObjectCommand({ Bucket: bucket, Key: key })).then(() => true, () => false);
+
+async function newDraft(client: Browserish) {
+  const res = await client.post("/reports/new", { intent: "save-draft", pu: "psi", lu: "in", toolModel: "brackwater-bh-150", jobType: "ball-joint-separation" });
+  return Number(res.headers.get("location")!.match(/\/reports\/(\d+)\/edit/)![1]);
+}
+
+async function presign(client: Browserish, reportId: number, body: unknown) {
+  return fetch(new URL(`/api/reports/${reportId}/evidence`, client.origin), {
+    method: "POST",
+    headers: { cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join("; "), origin: client.origin, "content-type": "application/json" },
+    body: JSON.stringify(body),
+  });
+}
+
+async function complete(client: Browserish, evidenceId: number) {
+  return fetch(new URL(`/api/evidence/${evidenceId}/complete`, client.origin), {
+    method: "POST",
+    headers: { cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join("; "), origin: client.origin },
+  });
+}
+
+/** The browser's side: presign, PUT the bytes to storage, then ask for the check. */
+async function upload(client: Browserish, reportId: number, bytes: Buffer, claimedType: string) {
+  const signed = await presign(client, reportId, { type: claimedType, size: bytes.length });
+  expect(signed.status).toBe(200);
+  const { url, key, evidenceId, headers } = await signed.json();
+  const put = await fetch(url, { method: "PUT", headers, body: new Uint8Array(bytes) });
+  expect(put.status).toBe(200);
+  return { key, evidenceId, check: await complete(client, evidenceId) };
+}
+
+beforeAll(async () => {
+  owner = await signedInAs(db, "reporter@demo.bayproof.test");
+  stranger = await signedInAs(db, "torque-omar@demo.bayproof.test");
+  draftId = await newDraft(owner);
+});
+afterAll(() => db.destroy());
+
+describe("presigned upload URLs", () => {
+  it("names the object itself, under the report's prefix", async () => {
+    const res = await presign(owner, draftId, { type: "video/mp4", size: 1000 });
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body.key).toMatch(new RegExp(`^reports/${draftId}/[A-Za-z0-9_-]{24}$`));
+    expect(new URL(body.url).pathname).toBe(`/${bucket}/${body.key}`);
+  });
+
+  it("refuses another user's draft, forbidden types, oversized files and visitors", async () => {
+    expect((await presign(stranger, draftId, { type: "video/mp4", size: 1000 })).status).toBe(404);
+    const exe = await presign(owner, draftId, { type: "application/x-msdownload", size: 1000 });
+    expect(exe.status).toBe(415);
+    expect((await exe.json()).error).toMatch(/Only video/);
+    const huge = await presign(owner, draftId, { type: "video/mp4", size: 2 * 1024 ** 3 });
+    expect(huge.status).toBe(413);
+    expect((await presign(owner, draftId, { type: "image/png", size: 30 * 1024 * 1024 })).status).toBe(413);
+    expect((await presign(new Browserish(), draftId, { type: "video/mp4", size: 1000 })).status).toBe(401);
+    expect((await presign(owner, draftId, { type: 5 })).status).toBe(400);
+  });
+
+  it("refuses uploads to a report that is already submitted", async () => {
+    const submitted = await db.selectFrom("reports").select("id").where("reporter_id", "=", (await db.selectFrom("users").select("id").where("email", "=", "torque-omar@demo.bayproof.test").executeTakeFirstOrThrow()).id)
+      .where("status", "=", "submitted").executeTakeFirstOrThrow();
+    expect((await presign(stranger, submitted.id, { type: "video/mp4", size: 1000 })).status).toBe(409);
+  });
+});
+
+describe("the completion check", () => {
+  it("records a real video with its sniffed type, size and SHA-256", async () => {
+    const bytes = tinyMp4();
+    const { evidenceId, check } = await upload(owner, draftId, bytes, "video/mp4");
+    expect(check.status).toBe(200);
+    const row = await db.selectFrom("evidence").selectAll().where("id", "=", evidenceId).executeTakeFirstOrThrow();
+    expect(row.status).toBe("uploaded");
+    expect(row.content_type).toBe("video/mp4");
+    expect(Number(row.size_bytes)).toBe(bytes.length);
+    expect(row.sha256).toBe(createHash("sha256").update(bytes).digest("hex"));
+  });
+
+  it("refuses a renamed executable and deletes it from storage", async () => {
+    const { key, evidenceId, check } = await upload(owner, draftId, fakeExecutable(), "video/mp4");
+    expect(check.status).toBe(422);
+    expect((await check.json()).error).toMatch(/not a video or photo/);
+    expect(await exists(key)).toBe(false);
+    expect(await db.selectFrom("evidence").select("id").where("id", "=", evidenceId).executeTakeFirst()).toBeUndefined();
+  });
+
+  it("takes the type from the bytes, not the claim", async () => {
+    const { evidenceId, check } = await upload(owner, draftId, tinyPng(), "video/mp4");
+    expect(check.status).toBe(200);
+    const row = await db.selectFrom("evidence").select(["kind", "content_type"]).where("id", "=", evidenceId).executeTakeFirstOrThrow();
+    expect(row).toEqual({ kind: "photo", content_type: "image/png" });
+  });
+
+  it("answers 409 when nothing arrived, and 404 for someone else's upload", async () => {
+    const signed = await (await presign(owner, draftId, { type: "video/mp4", size: 100 })).json();
+    expect((await complete(owner, signed.evidenceId)).status).toBe(409);
+    expect((await complete(stranger, signed.evidenceId)).status).toBe(404);
+  });
+});
+
+describe("flags from shared files", () => {
+  it("flags evidence that is byte-for-byte another report's", async () => {
+    const other = await signedInAs(db, "bay3-lenka@demo.bayproof.test");
+    const theirDraft = await newDraft(other);
+    await upload(other, theirDraft, tinyMp4(), "video/mp4"); // same bytes as the owner's video above
+    const res = await other.post(`/reports/${theirDraft}/edit`, { ...validReport(), reportId: String(theirDraft) });
+    expect(res.status).toBe(302);
+    const row = await db.selectFrom("reports").select("flags").where("id", "=", theirDraft).executeTakeFirstOrThrow();
+    expect(row.flags).toContain("duplicate_evidence");
+    expect(row.flags).not.toContain("no_evidence");
+  });
+});
+
+describe("clean-up of orphaned objects", () => {
+  it("removes day-old uploads never attached to a submitted report", async () => {
+    process.env.S3_ENDPOINT = endpoint;
+    process.env.S3_BUCKET = bucket;
+    const { removeOrphanedEvidence } = await import("../../app/reports/evidence.server");
+    const draft = await newDraft(owner);
+    const { key, evidenceId } = await upload(owner, draft, tinyMp4(512), "video/mp4");
+    await db.updateTable("evidence").set({ created_at: new Date(Date.now() - 25 * 3600_000) }).where("id", "=", evidenceId).execute();
+    const removed = await removeOrphanedEvidence(db);
+    expect(removed).toBeGreaterThanOrEqual(1);
+    expect(await exists(key)).toBe(false);
+    expect(await db.selectFrom("evidence").select("id").where("id", "=", evidenceId).executeTakeFirst()).toBeUndefined();
+  });
+});
