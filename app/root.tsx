@@ -70,6 +70,7 @@ function SiteHeader() {
           <NavLink to="/models" className={link}>Tools</NavLink>
           <NavLink to="/jobs" className={link}>Jobs</NavLink>
           <NavLink to="/air" className={link}>Air</NavLink>
+          {user?.isModerator && <NavLink to="/review" className={link}>Review</NavLink>}
           {user?.isAdmin && <NavLink to="/admin/users" className={link}>Users</NavLink>}
           {user ? (
             <>

@@ -17,7 +17,7 @@ export type InletSource = "measured_at_inlet" | "read_at_regulator" | "estimated
 export type CouplerProfile = "industrial_m" | "automotive_t" | "high_flow_v" | "iso_6150_b" | "other";
 export type Outcome = "freed" | "freed_with_help" | "not_freed";
 export type EvidenceStatus = "pending" | "uploaded" | "verified" | "failed_verification";
-export type DecisionAction = "accept" | "return" | "reject";
+export type DecisionAction = "accept" | "return" | "reject" | "claim" | "verify_evidence" | "fail_evidence";
 
 export interface ShopsTable {
   id: Generated<number>;
@@ -155,6 +155,24 @@ export interface DecisionsTable {
   note: string | null;
   report_version: number;
   created_at: Timestamp;
+  evidence_id: number | null;
+  checklist: ColumnType<Record<string, boolean> | null, string | null | undefined, never>;
+}
+
+export interface ReportClaimsTable {
+  report_id: number;
+  moderator_id: number;
+  claimed_at: Timestamp;
+  expires_at: Date | string;
+}
+
+export interface NoticesTable {
+  id: Generated<number>;
+  user_id: number;
+  report_id: number | null;
+  message: string;
+  created_at: Timestamp;
+  read_at: Date | string | null;
 }
 
 export interface Database {
@@ -175,6 +193,8 @@ export interface Database {
   api_keys: ApiKeysTable;
   role_changes: RoleChangesTable;
   report_versions: ReportVersionsTable;
+  report_claims: ReportClaimsTable;
+  notices: NoticesTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -1,6 +1,6 @@
 // A local mail catcher: accepts SMTP on loopback and keeps every message as an .eml file.
 import { randomBytes } from "node:crypto";
-import { createWriteStream, mkdirSync } from "node:fs";
+import { createWriteStream, existsSync, mkdirSync, rmSync } from "node:fs";
 import path from "node:path";
 import { SMTPServer } from "smtp-server";
 
@@ -11,7 +11,18 @@ export async function startMailCatcher({ port, dir }: { port: number; dir: strin
     disabledCommands: ["STARTTLS", "AUTH"],
     banner: "Bayproof local mail catcher",
     logger: false,
-    onData(stream, _session, callback) {
+    onData(stream, session, callback) {
+      // Tests drop a `.reject-next-<address>` file here to make the next delivery to that address
+      // fail once (451), as a relay under load would; the sender must retry.
+      const rejectFlag = session.envelope.rcptTo
+        .map((r) => path.join(dir, `.reject-next-${r.address.toLowerCase()}`))
+        .find((f) => existsSync(f));
+      if (rejectFlag) {
+        rmSync(rejectFlag, { force: true });
+        stream.resume();
+        stream.on("end", () => callback(Object.assign(new Error("Try again later"), { responseCode: 451 })));
+        return;
+      }
       const file = path.join(dir, `${Date.now()}-${randomBytes(6).toString("hex")}.eml`);
       const out = createWriteStream(file);
       stream.pipe(out);

@@ -36,7 +36,7 @@ export async function startServices() {
     await db.destroy();
   }
   return {
-    env: { DATABASE_URL: databaseUrl, ...fakes.env },
+    env: { DATABASE_URL: databaseUrl, ...fakes.env, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true" },
     async stop() {
       for (const stop of stops.reverse()) await stop();
     },

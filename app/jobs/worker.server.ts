@@ -4,21 +4,26 @@ import PgBoss from "pg-boss";
 import type { Kysely } from "kysely";
 import type { Database } from "../../db/schema";
 import { removeOrphanedEvidence } from "~/reports/evidence.server";
-
-export const QUEUES = {
-  evidenceCleanup: "evidence-cleanup",
-} as const;
+import { sendDecisionMail } from "~/moderation/mail.server";
+import { QUEUES } from "./queue.server";
 
 export async function startWorker(connectionString: string, db: Kysely<Database>, log: (s: string) => void) {
   const boss = new PgBoss({ connectionString, schema: "pgboss" });
   boss.on("error", (error) => log(`queue error: ${error.message}`));
   await boss.start();
-  await boss.createQueue(QUEUES.evidenceCleanup);
+  for (const name of Object.values(QUEUES)) await boss.createQueue(name);
   // Hourly: uploads older than a day that never joined a submitted report.
   await boss.schedule(QUEUES.evidenceCleanup, "17 * * * *");
   await boss.work(QUEUES.evidenceCleanup, async () => {
     const removed = await removeOrphanedEvidence(db);
     if (removed) log(`removed ${removed} orphaned evidence objects`);
   });
+  await boss.work<{ decisionId: number }>(QUEUES.decisionMail, async ([job]) => {
+    await sendDecisionMail(db, job!.data.decisionId);
+    log(`mailed decision ${job!.data.decisionId}`);
+  });
+  // Accepting a report asks for these; their handlers come with the stats and search features.
+  await boss.work(QUEUES.statsRefresh, async () => {});
+  await boss.work(QUEUES.searchIndex, async () => {});
   return { boss, stop: () => boss.stop({ graceful: true, timeout: 10_000 }) };
 }

@@ -1,5 +1,6 @@
 import { useEffect } from "react";
-import { Form, Link } from "react-router";
+import { sql } from "kysely";
+import { data, Form, Link } from "react-router";
 import { requireUser } from "~/auth/session.server";
 import { formatDate } from "~/catalogue/format";
 import { ErrorPage } from "~/components/error-page";
@@ -15,7 +16,20 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const url = new URL(request.url);
   const submitted = Number(url.searchParams.get("submitted")) || null;
-  return { reports: await listOwnReports(db, user.id), submitted, withdrawn: url.searchParams.has("withdrawn") };
+  const [reports, notices] = await Promise.all([
+    listOwnReports(db, user.id),
+    db.selectFrom("notices").select(["id", "message", "created_at", "read_at", "report_id"]).where("user_id", "=", user.id)
+      .orderBy("created_at", "desc").limit(10).execute(),
+  ]);
+  return { reports, notices, submitted, withdrawn: url.searchParams.has("withdrawn") };
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const user = await requireUser(request);
+  const form = await request.formData();
+  if (form.get("intent") !== "read-notices") throw data("Unknown request", { status: 400 });
+  await db.updateTable("notices").set({ read_at: sql`now()` }).where("user_id", "=", user.id).where("read_at", "is", null).execute();
+  return { ok: true };
 }
 
 const STATUS_ORDER = ["returned", "draft", "submitted", "accepted", "rejected", "withdrawn"] as const;
@@ -30,7 +44,8 @@ const STATUS_LABELS: Record<string, string> = {
 const ACTION_LABELS: Record<string, string> = { accept: "Accepted", return: "Returned", reject: "Rejected" };
 
 export default function MyReports({ loaderData }: Route.ComponentProps) {
-  const { reports, submitted, withdrawn } = loaderData;
+  const { reports, notices, submitted, withdrawn } = loaderData;
+  const unread = notices.filter((n) => !n.read_at);
   const byStatus = groupBy(reports, (r) => r.status);
   useEffect(() => {
     if (!submitted) return;
@@ -45,6 +60,15 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
       </header>
       {submitted && <p role="status" className="rounded bg-bay-100 px-3 py-2">Report #{submitted} is submitted. A moderator will check the evidence.</p>}
       {withdrawn && <p role="status" className="rounded bg-bay-100 px-3 py-2">The report is withdrawn.</p>}
+      {unread.length > 0 && (
+        <section aria-labelledby="notices-heading" className="rounded-lg border border-signal-500 bg-signal-100 p-3">
+          <h2 id="notices-heading" className="font-semibold">News on your reports</h2>
+          <ul className="mt-1 space-y-1 text-sm">{unread.map((n) => <li key={n.id}>{formatDate(n.created_at)}: {n.message}</li>)}</ul>
+          <Form method="post" className="mt-2">
+            <button type="submit" name="intent" value="read-notices" className="rounded border border-stone-400 px-3 py-1 text-sm">Mark as read</button>
+          </Form>
+        </section>
+      )}
       {reports.length === 0 && <p className="text-stone-600">No reports yet.</p>}
       {STATUS_ORDER.filter((s) => byStatus.has(s)).map((status) => (
         <section key={status} aria-labelledby={`st-${status}`}>
@@ -73,7 +97,8 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
                     ))}
                   </ul>
                 )}
-                <div className="mt-2 flex gap-2">
+                <div className="mt-2 flex flex-wrap gap-2">
+                  {r.status !== "draft" && <Link to={`/reports/${r.id}/history`} className="rounded border border-stone-300 px-3 py-2 text-sm">History</Link>}
                   {EDITABLE.includes(r.status) && <Link to={`/reports/${r.id}/edit`} className="rounded border border-bay-700 px-3 py-2 text-sm text-bay-700">{r.status === "returned" ? "Fix and resubmit" : "Continue"}</Link>}
                   {WITHDRAWABLE.includes(r.status) && (
                     <Form method="post" action={`/reports/${r.id}/edit`}>

@@ -42,7 +42,7 @@ export default async function setup(project: TestProject) {
       cwd: root,
       env: {
         ...process.env, ...fakes.env, DATABASE_URL: database.url, HOST: "127.0.0.1", PORT: String(port),
-        APP_ORIGIN: baseUrl, NODE_ENV: "production",
+        APP_ORIGIN: baseUrl, NODE_ENV: "production", AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
       },
       stdio: ["ignore", "ignore", "inherit"],
     });
@@ -53,6 +53,17 @@ export default async function setup(project: TestProject) {
       await exited;
     });
     await waitForHttp(baseUrl, server);
+    const worker = spawn(path.join(root, "node_modules/.bin/tsx"), ["scripts/worker.ts"], {
+      cwd: root,
+      env: { ...process.env, ...fakes.env, DATABASE_URL: database.url, APP_ORIGIN: baseUrl },
+      stdio: ["ignore", "ignore", "inherit"],
+    });
+    cleanups.push(async () => {
+      if (worker.exitCode != null) return;
+      const exited = new Promise((resolve) => worker.once("exit", resolve));
+      worker.kill("SIGTERM");
+      await exited;
+    });
 
     project.provide("databaseUrl", database.url);
     project.provide("baseUrl", baseUrl);

@@ -1,0 +1,32 @@
+// Trust levels from a reporter's decided reports. Pure; shown in the review queue.
+
+export type TrustLevel = "new" | "building" | "trusted" | "held";
+
+export interface History {
+  accepted: number;
+  returned: number;
+  rejected: number;
+  /** Rejections in a row, newest first, before any accept. */
+  rejectStreak: number;
+}
+
+/** Several rejections in a row hold a reporter's next reports for a second look. */
+export const HOLD_AFTER_REJECTIONS = 3;
+
+export function trustLevel(h: History): TrustLevel {
+  if (h.rejectStreak >= HOLD_AFTER_REJECTIONS) return "held";
+  if (h.accepted === 0) return "new";
+  const decided = h.accepted + h.returned + h.rejected;
+  const badShare = (h.returned + 2 * h.rejected) / decided;
+  return h.accepted >= 10 && badShare < 0.2 ? "trusted" : "building";
+}
+
+export const TRUST_LABELS: Record<TrustLevel, string> = {
+  new: "New reporter (no accepted report yet)",
+  building: "Building a record",
+  trusted: "Long good record",
+  held: "Held: several rejections in a row",
+};
+
+/** A report needs two accepting moderators when flagged, or when its reporter is new or held. */
+export const needsSecondLook = (flags: string[], level: TrustLevel) => flags.length > 0 || level === "new" || level === "held";

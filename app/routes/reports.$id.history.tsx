@@ -1,0 +1,32 @@
+import { data } from "react-router";
+import { z } from "zod";
+import { hasRole, requireUser } from "~/auth/session.server";
+import { LogList } from "~/components/decision-log";
+import { ErrorPage } from "~/components/error-page";
+import { db } from "~/db.server";
+import { reportLog } from "~/moderation/decide.server";
+import type { Route } from "./+types/reports.$id.history";
+
+// A report's moderation log, for its reporter and for moderators.
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  const id = z.coerce.number().int().positive().safeParse(params.id);
+  if (!id.success) throw data("No such report", { status: 404 });
+  const report = await db.selectFrom("reports").select(["id", "reporter_id", "status", "version"]).where("id", "=", id.data).executeTakeFirst();
+  if (!report || (report.reporter_id !== user.id && !hasRole(user, "moderator"))) throw data("No such report among yours", { status: 404 });
+  return { report, log: await reportLog(db, id.data) };
+}
+
+export default function ReportHistory({ loaderData }: Route.ComponentProps) {
+  return (
+    <div className="space-y-3">
+      <h1 className="text-2xl font-bold">History of report #{loaderData.report.id}</h1>
+      <p className="text-sm text-stone-600">Status {loaderData.report.status}, version {loaderData.report.version}. Every claim, evidence check and decision is kept; nothing here can be edited.</p>
+      <LogList log={loaderData.log} />
+    </div>
+  );
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

@@ -1,0 +1,65 @@
+import { requireRole } from "~/auth/session.server";
+import { ErrorPage } from "~/components/error-page";
+import { db } from "~/db.server";
+import { reviewStats } from "~/moderation/queue.server";
+import type { Route } from "./+types/review.stats";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  await requireRole(request, "moderator");
+  return reviewStats(db);
+}
+
+export default function ReviewStats({ loaderData }: Route.ComponentProps) {
+  const { weeks, medianHours, perModerator } = loaderData;
+  const max = Math.max(1, ...weeks.map((w) => Math.max(w.backlog, w.submitted, w.decided)));
+  const moderators = [...new Set(perModerator.map((r) => r.moderator))];
+  const modWeeks = [...new Set(perModerator.map((r) => r.week))];
+  return (
+    <div className="space-y-6">
+      <h1 className="text-2xl font-bold">Review workload</h1>
+      <p>Median time from submission to decision, last 90 days: <strong>{medianHours.hours == null ? "—" : `${medianHours.hours.toFixed(1)} hours`}</strong> ({medianHours.n} decisions).</p>
+      <section aria-labelledby="weeks-heading">
+        <h2 id="weeks-heading" className="mb-2 text-lg font-semibold">Queue by week (last 12 weeks)</h2>
+        <table className="w-full rounded-lg border border-stone-200 bg-white text-sm">
+          <thead className="bg-stone-100 text-xs uppercase text-stone-600"><tr><th className="px-3 py-2 text-left">Week of</th><th className="px-3 py-2 text-left">Waiting at week's end</th><th className="px-3 py-2 text-right">Submitted</th><th className="px-3 py-2 text-right">Decided</th></tr></thead>
+          <tbody className="divide-y divide-stone-100">
+            {weeks.map((w) => (
+              <tr key={w.week}>
+                <td className="px-3 py-1.5">{w.week}</td>
+                <td className="px-3 py-1.5">
+                  <div className="flex items-center gap-2">
+                    <div className="h-2 rounded bg-bay-600" style={{ width: `${(100 * w.backlog) / max}%`, minWidth: 2 }} aria-hidden />
+                    {w.backlog}
+                  </div>
+                </td>
+                <td className="px-3 py-1.5 text-right">{w.submitted}</td>
+                <td className="px-3 py-1.5 text-right">{w.decided}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+      <section aria-labelledby="mods-heading">
+        <h2 id="mods-heading" className="mb-2 text-lg font-semibold">Decisions per moderator per week</h2>
+        <div className="overflow-x-auto">
+          <table className="w-full rounded-lg border border-stone-200 bg-white text-sm">
+            <thead className="bg-stone-100 text-xs uppercase text-stone-600"><tr><th className="px-3 py-2 text-left">Moderator</th>{modWeeks.map((w) => <th key={w} className="px-3 py-2 text-right">{w}</th>)}</tr></thead>
+            <tbody className="divide-y divide-stone-100">
+              {moderators.map((m) => (
+                <tr key={m}><td className="px-3 py-1.5 font-semibold">{m}</td>{modWeeks.map((w) => <td key={w} className="px-3 py-1.5 text-right">{perModerator.find((r) => r.moderator === m && r.week === w)?.decisions ?? 0}</td>)}</tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </section>
+    </div>
+  );
+}
+
+export function meta() {
+  return [{ title: "Review workload — Bayproof" }];
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}
