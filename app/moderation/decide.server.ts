@@ -45,7 +45,12 @@ export async function claim(db: Db, moderatorId: number, reportId: number) {
   return db.transaction().execute(async (trx) => {
     const report = await trx.selectFrom("reports").select(["id", "status", "reporter_id", "version"]).where("id", "=", reportId).executeTakeFirst();
     if (!report) throw new DecisionError("No such report", 404);
-    if (report.reporter_id === moderatorId || report.status !== "submitted") return { held: false as const, mine: false, expiresAt: null, holder: null };
+    const none = { held: false as const, mine: false, expiresAt: null, holder: null };
+    if (report.reporter_id === moderatorId || report.status !== "submitted") return none;
+    // Whoever gave the first accept leaves the report free for the second look.
+    const accepted = await trx.selectFrom("decisions").select("id").where("report_id", "=", reportId)
+      .where("moderator_id", "=", moderatorId).where("action", "=", "accept").where("report_version", "=", report.version).executeTakeFirst();
+    if (accepted) return { ...none, alreadyAccepted: true };
     const taken = await sql<{ moderator_id: number; expires_at: Date; fresh: boolean }>`
       insert into report_claims (report_id, moderator_id, expires_at)
       values (${reportId}, ${moderatorId}, now() + ${`${CLAIM_MINUTES} minutes`}::interval)

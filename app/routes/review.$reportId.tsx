@@ -77,7 +77,7 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
   const rows: [string, string][] = [
     ["Tool", `${r.maker} ${r.model_code} (${r.category})`], ["Job", r.job],
     ["Vehicle", VEHICLE_LABELS[r.vehicle_class ?? ""] ?? "—"], ["Part age", r.component_age_years == null ? "—" : `${r.component_age_years} years`],
-    ["Corrosion", r.corrosion_level ?? "—"], ["Bit or socket", `${r.attachment ?? "—"}${r.attachment_length_mm ? `, ${r.attachment_length_mm} mm` : ""}`],
+    ["Corrosion", r.corrosion_level ?? "—"], ["Bit or socket", `${r.attachment ?? "—"}${r.attachment_length_mm ? `, ${Math.round(r.attachment_length_mm)} mm` : ""}`],
     ["Regulator", p(r.regulator_kpa)], ["At the tool inlet", `${p(r.inlet_kpa)} (${INLET_SOURCE_LABELS[r.inlet_source ?? ""] ?? "—"})`],
     ["Hose", `${formatHoseId(r.hose_id_mm, units.lu)} × ${r.hose_length_m?.toFixed(1) ?? "—"} m`],
     ["Couplers", `${r.coupler_count ?? "—"} × ${r.coupler_profile?.replaceAll("_", " ") ?? "unknown"}`],
@@ -100,6 +100,7 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
           <p role="alert" className="mt-2 rounded bg-amber-100 px-3 py-2">{claim.holder} has this report open until {new Date(claim.expiresAt!).toLocaleTimeString()}. You can read it; deciding waits.</p>
         )}
         {claim?.mine && <p className="mt-2 text-sm text-stone-600">Held for you until {new Date(claim.expiresAt!).toLocaleTimeString()}.</p>}
+        {claim && "alreadyAccepted" in claim && waiting && <p className="mt-2 text-sm text-stone-600">You accepted this version; the second look is another moderator's.</p>}
       </header>
 
       {actionData && (

@@ -7,6 +7,7 @@ import { testDb } from "../support/db";
 import { fakeExecutable, tinyMp4, tinyPng } from "../support/files";
 import { Browserish, signedInAs } from "../support/http";
 import { validReport } from "../support/reports";
+import { complete, newDraft, presign, upload } from "../support/evidence";
 
 const db = testDb();
 const { endpoint, bucket } = inject("s3");
@@ -16,36 +17,6 @@ let stranger: Browserish;
 let draftId: number;
 
 const exists = async (key: string) => s3.send(new HeadObjectCommand({ Bucket: bucket, Key: key })).then(() => true, () => false);
-
-async function newDraft(client: Browserish) {
-  const res = await client.post("/reports/new", { intent: "save-draft", pu: "psi", lu: "in", toolModel: "brackwater-bh-150", jobType: "ball-joint-separation" });
-  return Number(res.headers.get("location")!.match(/\/reports\/(\d+)\/edit/)![1]);
-}
-
-async function presign(client: Browserish, reportId: number, body: unknown) {
-  return fetch(new URL(`/api/reports/${reportId}/evidence`, client.origin), {
-    method: "POST",
-    headers: { cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join("; "), origin: client.origin, "content-type": "application/json" },
-    body: JSON.stringify(body),
-  });
-}
-
-async function complete(client: Browserish, evidenceId: number) {
-  return fetch(new URL(`/api/evidence/${evidenceId}/complete`, client.origin), {
-    method: "POST",
-    headers: { cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join("; "), origin: client.origin },
-  });
-}
-
-/** The browser's side: presign, PUT the bytes to storage, then ask for the check. */
-async function upload(client: Browserish, reportId: number, bytes: Buffer, claimedType: string) {
-  const signed = await presign(client, reportId, { type: claimedType, size: bytes.length });
-  expect(signed.status).toBe(200);
-  const { url, key, evidenceId, headers } = await signed.json();
-  const put = await fetch(url, { method: "PUT", headers, body: new Uint8Array(bytes) });
-  expect(put.status).toBe(200);
-  return { key, evidenceId, check: await complete(client, evidenceId) };
-}
 
 beforeAll(async () => {
   owner = await signedInAs(db, "reporter@demo.bayproof.test");
