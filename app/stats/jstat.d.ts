@@ -1,0 +1,9 @@
+// The part of jStat's API the stats module uses (the package ships no types).
+declare module "jstat" {
+  export const jStat: {
+    normal: { inv(p: number, mean: number, sd: number): number; cdf(x: number, mean: number, sd: number): number };
+    studentt: { inv(p: number, dof: number): number };
+    beta: { inv(p: number, a: number, b: number): number };
+    betaln(a: number, b: number): number;
+  };
+}

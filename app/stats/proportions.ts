@@ -1,0 +1,127 @@
+// Intervals for success rates. Pure functions.
+import { betaQuantile, checkConfidence, logBeta, zCritical } from "./distributions";
+
+export interface Interval {
+  estimate: number;
+  lower: number;
+  upper: number;
+}
+
+function checkCounts(successes: number, trials: number) {
+  if (!Number.isInteger(successes) || !Number.isInteger(trials) || trials < 1 || successes < 0 || successes > trials) {
+    throw new RangeError("need whole numbers with 0 ≤ successes ≤ trials and trials ≥ 1");
+  }
+}
+
+/**
+ * Wilson score interval, no continuity correction (Wilson 1927; Newcombe 1998, method 3):
+ * (p + z²/2n ± z·√(p(1−p)/n + z²/4n²)) / (1 + z²/n).
+ */
+export function wilsonInterval(successes: number, trials: number, confidence = 0.95): Interval {
+  checkCounts(successes, trials);
+  checkConfidence(confidence);
+  const z = zCritical(confidence);
+  const n = trials;
+  const p = successes / n;
+  const z2 = z * z;
+  const centre = p + z2 / (2 * n);
+  const half = z * Math.sqrt((p * (1 - p)) / n + z2 / (4 * n * n));
+  const denom = 1 + z2 / n;
+  return {
+    estimate: p,
+    lower: successes === 0 ? 0 : (centre - half) / denom,
+    upper: successes === n ? 1 : (centre + half) / denom,
+  };
+}
+
+/**
+ * Difference p1 − p2 of independent proportions by Newcombe's hybrid score method (Newcombe 1998,
+ * "Interval estimation for the difference between independent proportions", method 10): the
+ * Wilson limits of each proportion combined as δ − √((p1−l1)² + (u2−p2)²), δ + √((u1−p1)² + (p2−l2)²).
+ */
+export function differenceInterval(s1: number, n1: number, s2: number, n2: number, confidence = 0.95): Interval {
+  const a = wilsonInterval(s1, n1, confidence);
+  const b = wilsonInterval(s2, n2, confidence);
+  const d = a.estimate - b.estimate;
+  return {
+    estimate: d,
+    lower: d - Math.sqrt((a.estimate - a.lower) ** 2 + (b.upper - b.estimate) ** 2),
+    upper: d + Math.sqrt((a.upper - a.estimate) ** 2 + (b.estimate - b.lower) ** 2),
+  };
+}
+
+/**
+ * P(p1 > p2) when p1 ~ Beta(1 + s1, 1 + n1 − s1) and p2 ~ Beta(1 + s2, 1 + n2 − s2) (uniform
+ * priors), by the exact finite sum for integer Beta parameters:
+ * P(X > Y) = Σ_{i=0}^{a1−1} B(a2 + i, b1 + b2) / ((b1 + i) · B(1 + i, b1) · B(a2, b2)).
+ */
+export function probabilityGreater(s1: number, n1: number, s2: number, n2: number): number {
+  checkCounts(s1, n1);
+  checkCounts(s2, n2);
+  const [a1, b1, a2, b2] = [1 + s1, 1 + n1 - s1, 1 + s2, 1 + n2 - s2];
+  let total = 0;
+  for (let i = 0; i < a1; i++) {
+    total += Math.exp(logBeta(a2 + i, b1 + b2) - Math.log(b1 + i) - logBeta(1 + i, b1) - logBeta(a2, b2));
+  }
+  return Math.min(1, Math.max(0, total));
+}
+
+export interface Group {
+  successes: number;
+  trials: number;
+}
+
+export interface ShrinkResult {
+  prior: { alpha: number; beta: number; mean: number };
+  groups: (Interval & { raw: number })[];
+}
+
+/**
+ * Empirical-Bayes beta-binomial shrinkage: the Beta(α, β) prior maximising the beta-binomial
+ * marginal likelihood of all groups (searched over mean and log concentration), then each group's
+ * posterior Beta(α + s, β + n − s): its mean and central 95 % interval.
+ */
+export function shrinkProportions(groups: Group[], confidence = 0.95): ShrinkResult {
+  if (groups.length === 0) throw new RangeError("need at least one group");
+  for (const g of groups) checkCounts(g.successes, g.trials);
+  const loglik = (mu: number, logK: number) => {
+    const k = Math.exp(logK);
+    const a = mu * k;
+    const b = (1 - mu) * k;
+    let l = 0;
+    for (const g of groups) l += logBeta(a + g.successes, b + g.trials - g.successes) - logBeta(a, b);
+    return l;
+  };
+  const pooled = groups.reduce((s, g) => s + g.successes, 0) / groups.reduce((s, g) => s + g.trials, 0);
+  let mu = Math.min(0.99, Math.max(0.01, pooled));
+  let logK = Math.log(10);
+  // Alternate golden-section searches on each coordinate; the likelihood is smooth and unimodal
+  // enough in each for this to settle in a few rounds.
+  const golden = (f: (x: number) => number, lo: number, hi: number) => {
+    const g = (Math.sqrt(5) - 1) / 2;
+    let a = lo, b = hi, c = b - g * (b - a), d = a + g * (b - a);
+    for (let i = 0; i < 60; i++) {
+      if (f(c) > f(d)) b = d;
+      else a = c;
+      c = b - g * (b - a);
+      d = a + g * (b - a);
+    }
+    return (a + b) / 2;
+  };
+  for (let round = 0; round < 8; round++) {
+    mu = golden((m) => loglik(m, logK), 1e-4, 1 - 1e-4);
+    logK = golden((k) => loglik(mu, k), Math.log(0.5), Math.log(1e5));
+  }
+  const k = Math.exp(logK);
+  const alpha = mu * k;
+  const beta = (1 - mu) * k;
+  const tail = (1 - confidence) / 2;
+  return {
+    prior: { alpha, beta, mean: mu },
+    groups: groups.map((g) => {
+      const a = alpha + g.successes;
+      const b = beta + g.trials - g.successes;
+      return { raw: g.successes / g.trials, estimate: a / (a + b), lower: betaQuantile(tail, a, b), upper: betaQuantile(1 - tail, a, b) };
+    }),
+  };
+}
