@@ -18,7 +18,7 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           setupFiles: ["tests/support/console-guard.ts"],
-          testTimeout: 20_000,
+          testTimeout: 40_000,
           hookTimeout: 60_000,
         },
       },

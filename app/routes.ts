@@ -7,6 +7,8 @@ export default [
   route("jobs", "routes/jobs._index.tsx"),
   route("jobs/:slug", "routes/jobs.$slug.tsx"),
   route("air", "routes/air.tsx"),
+  route("compare", "routes/compare.tsx"),
+  route("api/stats/cell", "routes/api.stats.cell.ts"),
   route("sign-in", "routes/sign-in.tsx"),
   route("sign-in/link", "routes/sign-in.link.tsx"),
   route("sign-out", "routes/sign-out.tsx"),

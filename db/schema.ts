@@ -195,6 +195,7 @@ export interface Database {
   report_versions: ReportVersionsTable;
   report_claims: ReportClaimsTable;
   notices: NoticesTable;
+  stats_cells: StatsCellsTable;
 }
 
 export type User = Selectable<UsersTable>;
@@ -268,3 +269,40 @@ export interface ReportVersionsTable {
   snapshot: ColumnType<Record<string, unknown>, string, never>;
   created_at: Timestamp;
 }
+
+// Stats cells (migration 2026-12-01T00.05).
+export interface StatsCellsTable {
+  tool_model_id: number;
+  job_type_id: number;
+  n: number;
+  successes: number;
+  estimate: number;
+  lower: number;
+  upper: number;
+  shrunk_estimate: number | null;
+  shrunk_lower: number | null;
+  shrunk_upper: number | null;
+  time_n: number;
+  time_median_s: number | null;
+  time_lower_s: number | null;
+  time_upper_s: number | null;
+  adj_estimate: number | null;
+  adj_lower: number | null;
+  adj_upper: number | null;
+  adj_reason: string | null;
+  fit: ColumnType<PressureFit | null, string | null, string | null>;
+  measured_share: number;
+  estimated_share: number;
+  confidence: ColumnType<number, number | undefined, number>;
+  computed_at: Timestamp;
+}
+
+export interface PressureFit {
+  intercept: number;
+  slope: number;
+  covariance: [[number, number], [number, number]];
+  /** x = inlet bar gauge − 6.2; the reports' inlet range, kPa. */
+  minKpa: number;
+  maxKpa: number;
+}
+export type StatsCell = Selectable<StatsCellsTable>;

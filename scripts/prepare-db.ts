@@ -4,6 +4,7 @@ import { createDb } from "../db/database";
 import { migrateToLatest } from "../db/migrate";
 import type { Database } from "../db/schema";
 import { loadDemoScenario } from "../seeds/index";
+import { refreshAll } from "../app/stats/refresh.server";
 
 export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => void = console.log) {
   const applied = await migrateToLatest(db);
@@ -12,6 +13,11 @@ export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => 
   const seeded = await loadDemoScenario(db);
   if (seeded.loaded) log(`Loaded the demo scenario: ${seeded.reports} reports in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
   else log("Demo scenario already present; left as it is");
+  const cells = await db.selectFrom("stats_cells").select((eb) => eb.fn.countAll<string>().as("n")).executeTakeFirstOrThrow();
+  if (Number(cells.n) === 0) {
+    const t1 = Date.now();
+    log(`Computed ${await refreshAll(db)} stats cells in ${((Date.now() - t1) / 1000).toFixed(1)} s`);
+  }
 }
 
 // Run directly: tsx scripts/prepare-db.ts (uses DATABASE_URL).

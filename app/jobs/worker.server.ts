@@ -5,6 +5,7 @@ import type { Kysely } from "kysely";
 import type { Database } from "../../db/schema";
 import { removeOrphanedEvidence } from "~/reports/evidence.server";
 import { sendDecisionMail } from "~/moderation/mail.server";
+import { refreshCell } from "~/stats/refresh.server";
 import { QUEUES } from "./queue.server";
 
 export async function startWorker(connectionString: string, db: Kysely<Database>, log: (s: string) => void) {
@@ -22,8 +23,10 @@ export async function startWorker(connectionString: string, db: Kysely<Database>
     await sendDecisionMail(db, job!.data.decisionId);
     log(`mailed decision ${job!.data.decisionId}`);
   });
-  // Accepting a report asks for these; their handlers come with the stats and search features.
-  await boss.work(QUEUES.statsRefresh, async () => {});
+  await boss.work<{ modelId: number; jobTypeId: number }>(QUEUES.statsRefresh, async ([job]) => {
+    await refreshCell(db, job!.data.modelId, job!.data.jobTypeId);
+  });
+  // Accepting a report asks for indexing too; its handler comes with search.
   await boss.work(QUEUES.searchIndex, async () => {});
   return { boss, stop: () => boss.stop({ graceful: true, timeout: 10_000 }) };
 }

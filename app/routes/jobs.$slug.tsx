@@ -1,12 +1,15 @@
 import { db } from "~/db.server";
-import { CountsTable } from "~/components/job-counts";
+import { Link } from "react-router";
+import { CellTable } from "~/components/cell-table";
+import { IntervalChart, IntervalsExplained } from "~/components/intervals";
 import { ErrorPage } from "~/components/error-page";
 import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { FITTING_LABELS, formatPrice } from "~/catalogue/format";
 import { acceptedReports, countAccepted, getJobBySlug } from "~/catalogue/queries.server";
-import { modelSummaryForJob } from "~/stats/counts.server";
+import { FEW_REPORTS } from "~/stats/cells";
+import { cellsForJob, type JobCell } from "~/stats/cells.server";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/jobs.$slug";
@@ -19,7 +22,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const job = await getJobBySlug(db, slug);
   invariantResponse(job, "No such job type", 404);
   const [models, reports, total] = await Promise.all([
-    modelSummaryForJob(db, job.id),
+    cellsForJob(db, job.id),
     acceptedReports(db, { jobId: job.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { jobId: job.id }),
   ]);
@@ -38,17 +41,34 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
 
       <SafetyCautions action={job.category_action} />
 
-      <section aria-labelledby="tools-heading">
-        <h2 id="tools-heading" className="mb-1 text-lg font-semibold">Tools used on this job</h2>
-        <p className="mb-2 text-sm text-stone-600">Listed by number of accepted reports, not ranked. Pressure matters: compare the median inlet pressure too.</p>
-        <CountsTable
-          firstColumn="Tool"
-          rows={models.map((m) => ({
-            key: m.slug, href: `/models/${m.slug}`, label: `${m.maker_name} ${m.model_code}`,
-            sublabel: `${FITTING_LABELS[m.fitting]} · ${m.weight_kg} kg · ${formatPrice(m.street_price_cents)}`,
-            ...m,
-          }))}
-        />
+      <section aria-labelledby="tools-heading" className="space-y-3">
+        <h2 id="tools-heading" className="text-lg font-semibold">Tools used on this job</h2>
+        <IntervalsExplained />
+        {models.length === 0 ? <p className="text-stone-600">No accepted reports yet.</p> : (
+          <>
+            <p className="text-sm text-stone-600">
+              Ordered by the lower end of each 95 % interval — the rate each tool has shown at the least — not by its point.
+              Tools whose interval overlaps the first one's cannot be told apart from it yet; tools with fewer than {FEW_REPORTS} reports are greyed.
+            </p>
+            <div className="rounded-lg border border-stone-200 bg-white p-3">
+              <IntervalChart title={`Share of ${job.name.toLowerCase()} jobs freed, per tool, with 95 % intervals`} rows={chartRows(models)} />
+            </div>
+            {models.length >= 2 && (
+              <p>
+                <Link to={`/compare?job=${job.slug}&models=${models.slice(0, 3).map((m) => m.model_slug).join(",")}`} className="text-bay-700 underline">
+                  Compare the first three side by side →
+                </Link>
+              </p>
+            )}
+            <CellTable
+              firstColumn="Tool"
+              rows={models.map((m, i) => ({
+                key: m.model_slug, href: `/models/${m.model_slug}`, label: `${m.maker_name} ${m.model_code}`,
+                sub: `${FITTING_LABELS[m.fitting]} · ${m.weight_kg} kg · ${formatPrice(m.street_price_cents)}`, tag: tagFor(models, i), ...m,
+              }))}
+            />
+          </>
+        )}
       </section>
 
       <section aria-labelledby="reports-heading">
@@ -58,6 +78,22 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
       </section>
     </div>
   );
+}
+
+/** The first tool with enough reports leads; others overlapping its interval are not distinguishable from it. */
+function tagFor(models: JobCell[], i: number): string | undefined {
+  const m = models[i]!;
+  if (m.n < FEW_REPORTS) return "too few to compare";
+  const leader = models.find((x) => x.n >= FEW_REPORTS);
+  if (!leader || leader === m) return undefined;
+  return m.upper >= leader.lower ? "not distinguishable from the first" : undefined;
+}
+
+function chartRows(models: JobCell[]) {
+  return models.map((m, i) => ({
+    key: m.model_slug, label: `${m.maker_name} ${m.model_code}`, estimate: m.estimate, lower: m.lower, upper: m.upper, n: m.n,
+    tag: tagFor(models, i), muted: m.n < FEW_REPORTS,
+  }));
 }
 
 export function meta({ data }: Route.MetaArgs) {

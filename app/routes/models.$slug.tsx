@@ -1,13 +1,14 @@
 import { Link } from "react-router";
 import { db } from "~/db.server";
 import { ErrorPage } from "~/components/error-page";
-import { CountsTable } from "~/components/job-counts";
+import { CellTable } from "~/components/cell-table";
+import { IntervalsExplained } from "~/components/intervals";
 import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { FITTING_LABELS, formatPressure, formatPrice } from "~/catalogue/format";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
-import { jobSummaryForModel } from "~/stats/counts.server";
+import { cellsForModel } from "~/stats/cells.server";
 import { lpsToScfm } from "~/air/units";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
@@ -21,7 +22,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const model = await getModelBySlug(db, slug);
   invariantResponse(model, "No such tool model", 404);
   const [jobs, reports, total] = await Promise.all([
-    jobSummaryForModel(db, model.id),
+    cellsForModel(db, model.id),
     acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { modelId: model.id }),
   ]);
@@ -70,11 +71,12 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
 
       <section aria-labelledby="jobs-heading">
         <h2 id="jobs-heading" className="mb-1 text-lg font-semibold">On the job</h2>
-        <p className="mb-2 text-sm text-stone-600">Counts of accepted reports. Shares with intervals and pressure adjustment come from the stats pages.</p>
-        <CountsTable
-          firstColumn="Job"
-          rows={jobs.map((j) => ({ key: j.slug, href: `/jobs/${j.slug}`, label: j.name, ...j }))}
-        />
+        <IntervalsExplained />
+        {jobs.length === 0 ? <p className="mt-2 text-stone-600">No accepted reports yet.</p> : (
+          <div className="mt-2">
+            <CellTable firstColumn="Job" rows={jobs.map((j) => ({ key: j.job_slug, href: `/jobs/${j.job_slug}`, label: j.job_name, ...j }))} />
+          </div>
+        )}
       </section>
 
       <p>

@@ -1,5 +1,8 @@
 // Distribution quantiles from jStat (a well-known reference library), not hand-rolled formulas.
-import { jStat } from "jstat";
+import jStatModule from "jstat";
+
+// jstat is CommonJS: its default export is the jStat object itself under every loader.
+const jStat = jStatModule.jStat ?? jStatModule;
 
 /** Two-sided critical value of the standard normal: z with P(|Z| < z) = confidence. */
 export const zCritical = (confidence: number) => jStat.normal.inv(1 - (1 - confidence) / 2, 0, 1);

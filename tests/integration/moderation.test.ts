@@ -107,7 +107,7 @@ describe("claims and concurrency", () => {
 });
 
 describe("the second look", () => {
-  it("needs two different moderators to accept a flagged report", async () => {
+  it("needs two different moderators to accept a flagged report, then refreshes its stats", async () => {
     const { id } = await freshReport();
     const first = await decideAs(mod1, id, { action: "accept", reasonCode: "evidence_clear", ...CHECKS });
     expect(first.status).toBe(200);
@@ -119,6 +119,17 @@ describe("the second look", () => {
     const second = await decideAs(mod2, id, { action: "accept", reasonCode: "second_look_agrees", ...CHECKS });
     expect(second.status).toBe(200);
     expect((await state(id)).status).toBe("accepted");
+
+    // The accept asked the worker to refresh the report's stats cell.
+    const report = await db.selectFrom("reports").select(["tool_model_id", "job_type_id", "accepted_at"]).where("id", "=", id).executeTakeFirstOrThrow();
+    const deadline = Date.now() + 15_000;
+    let cell;
+    do {
+      cell = await db.selectFrom("stats_cells").select("computed_at").where("tool_model_id", "=", report.tool_model_id).where("job_type_id", "=", report.job_type_id).executeTakeFirst();
+      if (cell && new Date(cell.computed_at) >= new Date(report.accepted_at!)) break;
+      await new Promise((r) => setTimeout(r, 250));
+    } while (Date.now() < deadline);
+    expect(new Date(cell!.computed_at).getTime()).toBeGreaterThanOrEqual(new Date(report.accepted_at!).getTime());
   });
 
   it("ends with a reject from either moderator", async () => {

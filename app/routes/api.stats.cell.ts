@@ -1,0 +1,29 @@
+import { z } from "zod";
+import { db } from "~/db.server";
+import { predictAt } from "~/stats/cells";
+import { cellBySlugs } from "~/stats/cells.server";
+import type { Route } from "./+types/api.stats.cell";
+
+const query = z.object({
+  model: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/).max(80),
+  job: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/).max(80),
+  inlet_kpa: z.coerce.number().min(0).max(2000).optional(),
+});
+
+// One stored cell as JSON, with the pressure-adjusted success at `inlet_kpa` where a fit exists.
+export async function loader({ request }: Route.LoaderArgs) {
+  const parsed = query.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  if (!parsed.success) return Response.json({ error: "Give model and job as slugs, and inlet_kpa between 0 and 2000" }, { status: 400 });
+  const cell = await cellBySlugs(db, parsed.data.model, parsed.data.job);
+  if (!cell) return Response.json({ error: "No accepted reports for this tool on this job" }, { status: 404 });
+  const at = parsed.data.inlet_kpa;
+  return Response.json({
+    model: cell.model_slug, job: cell.job_slug, n: cell.n, successes: cell.successes,
+    estimate: cell.estimate, lower: cell.lower, upper: cell.upper, method: "Wilson score", confidence: cell.confidence,
+    shrunk_estimate: cell.shrunk_estimate,
+    pressure_adjusted: cell.adj_estimate == null ? null : { inlet_kpa: 620.5, estimate: cell.adj_estimate, lower: cell.adj_lower, upper: cell.adj_upper },
+    pressure_adjusted_reason: cell.adj_reason,
+    at_inlet: at != null && cell.fit ? { inlet_kpa: at, ...predictAt(cell.fit, at) } : null,
+    computed_at: cell.computed_at,
+  }, { headers: { "Cache-Control": "public, max-age=60" } });
+}

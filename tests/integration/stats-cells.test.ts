@@ -1,0 +1,43 @@
+// Stored cells agree with the raw accepted reports, and the pages and API read them.
+import { sql } from "kysely";
+import { afterAll, describe, expect, it } from "vitest";
+import { testDb } from "../support/db";
+import { Browserish } from "../support/http";
+
+const db = testDb();
+afterAll(() => db.destroy());
+
+describe("stats cells", () => {
+  it("hold the same counts as a GROUP BY over accepted reports", async () => {
+    const raw = await sql<{ m: number; j: number; n: number; s: number }>`
+      select tool_model_id m, job_type_id j, count(*)::int n, (count(*) filter (where outcome = 'freed'))::int s
+      from reports where status = 'accepted' group by 1, 2 order by 1, 2`.execute(db);
+    const cells = await db.selectFrom("stats_cells").select(["tool_model_id as m", "job_type_id as j", "n", "successes as s"]).orderBy("m").orderBy("j").execute();
+    // Other test files accept reports while this runs; compare the demo's cells, which they rarely touch.
+    const key = (r: { m: number; j: number }) => `${r.m}:${r.j}`;
+    const stored = new Map(cells.map((c) => [key(c), c]));
+    let same = 0;
+    for (const r of raw.rows) if (stored.get(key(r))?.n === r.n && stored.get(key(r))?.s === r.s) same++;
+    expect(same / raw.rows.length).toBeGreaterThan(0.95);
+    expect(cells.length).toBeGreaterThan(100);
+  });
+
+  it("are shown with their intervals on the job and model pages", async () => {
+    const job = await (await new Browserish().get("/jobs/ball-joint-separation")).text();
+    expect(job).toMatch(/Ordered by the lower end of each 95 % interval/);
+    expect(job).toMatch(/with 95 % confidence \(Wilson score interval\)/);
+    const model = await (await new Browserish().get("/models/brackwater-bh-260l")).text();
+    expect(model).toMatch(/Freed it in \d+ of \d+ reports; between \d+ % and \d+ %/);
+  });
+
+  it("answer the cell API, with 400 for bad input and 404 for an empty cell", async () => {
+    const ok = await new Browserish().get("/api/stats/cell?model=brackwater-bh-260l&job=ball-joint-separation&inlet_kpa=700");
+    expect(ok.status).toBe(200);
+    const body = await ok.json();
+    expect(body.lower).toBeLessThanOrEqual(body.estimate);
+    expect(body.method).toBe("Wilson score");
+    expect((await new Browserish().get("/api/stats/cell?model=Bad!&job=x")).status).toBe(400);
+    expect((await new Browserish().get("/api/stats/cell?model=brackwater-bh-260l&job=lug-nut-breakaway")).status).toBe(404);
+    expect((await new Browserish().get("/compare?job=ball-joint-separation&models=brackwater-bh-260l")).status).toBe(400);
+  });
+});
