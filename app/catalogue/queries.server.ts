@@ -86,8 +86,9 @@ export async function acceptedReports(db: Db, { modelId, jobId, limit, offset = 
   return q.orderBy("r.accepted_at", "desc").orderBy("r.id", "desc").limit(limit).offset(offset).execute();
 }
 
+/** Accepted reports, counted from the stored stats cells (kept in step by the refresh job). */
 export async function countAccepted(db: Db, { modelId, jobId }: { modelId?: number; jobId?: number } = {}) {
-  let q = db.selectFrom("reports").select(sql<number>`count(*)::int`.as("n")).where("status", "=", "accepted");
+  let q = db.selectFrom("stats_cells").select(sql<number>`coalesce(sum(n), 0)::int`.as("n"));
   if (modelId != null) q = q.where("tool_model_id", "=", modelId);
   if (jobId != null) q = q.where("job_type_id", "=", jobId);
   return (await q.executeTakeFirstOrThrow()).n;

@@ -1,6 +1,6 @@
 // One (tool model, job type) cell's figures from its accepted reports. Pure; the refresh job
 // (refresh.server.ts) feeds it and stores the result.
-import { bootstrapInterval, median } from "./continuous";
+import { bootstrapMedianInterval } from "./continuous";
 import { logisticFit, logisticPredict } from "./logistic";
 import { wilsonInterval } from "./proportions";
 
@@ -40,7 +40,7 @@ export function cellFigures(reports: CellReport[], seed: string, resamples = 100
   const times = reports.filter((r) => r.freed).map((r) => r.timeS);
   const time = times.length >= 3
     ? (() => {
-        const b = bootstrapInterval(times, median, { resamples, seed });
+        const b = bootstrapMedianInterval(times, { resamples, seed });
         return { n: times.length, median: b.estimate, lower: b.lower, upper: b.upper };
       })()
     : null;

@@ -2,24 +2,14 @@
 // cluster with the schema and demo data, and Debian's Chromium.
 import { spawnSync } from "node:child_process";
 import { existsSync, mkdtempSync, rmSync } from "node:fs";
-import { createServer } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { createDb } from "../../db/database";
 import { prepareDatabase } from "../../scripts/prepare-db";
+import { freePort } from "../../scripts/free-port";
 import { startPostgres } from "../../scripts/postgres";
 
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.unref();
-    server.on("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
+export { freePort };
 
 /** A fresh cluster in a temporary folder, never the demo data; removed on stop. */
 export async function startTestDatabase() {

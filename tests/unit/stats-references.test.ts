@@ -152,3 +152,25 @@ describe("empirical-Bayes shrinkage", () => {
     expect(r.prior.beta).toBeGreaterThan(0);
   });
 });
+
+describe("median", () => {
+  it("equals the middle of the sorted values, ties and even counts included (property)", async () => {
+    const { median } = await import("~/stats");
+    fc.assert(fc.property(fc.array(fc.integer({ min: 0, max: 30 }), { minLength: 1, maxLength: 60 }), (v) => {
+      const s = [...v].sort((a, b) => a - b);
+      const n = s.length;
+      return median(v) === (n % 2 ? s[n >> 1]! : (s[(n >> 1) - 1]! + s[n >> 1]!) / 2);
+    }));
+  });
+});
+
+describe("fast bootstrap of the median", () => {
+  it("gives exactly what the general bootstrap gives for the same seed (property)", async () => {
+    const { bootstrapMedianInterval, median } = await import("~/stats");
+    fc.assert(fc.property(fc.array(fc.integer({ min: 1, max: 500 }), { minLength: 1, maxLength: 40 }), fc.integer(), (v, seed) => {
+      const a = bootstrapInterval(v, median, { resamples: 50, seed });
+      const b = bootstrapMedianInterval(v, { resamples: 50, seed });
+      return a.lower === b.lower && a.upper === b.upper && a.estimate === b.estimate && Math.abs(a.se - b.se) < 1e-9;
+    }), { numRuns: 200 });
+  });
+});
