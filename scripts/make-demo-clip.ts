@@ -1,6 +1,6 @@
 // Records a two-second demo clip (a moving gauge needle drawn on a canvas) with Chromium's own
 // MediaRecorder, so tests and the demo have a real, playable, invented video. Run once:
-//   tsx scripts/make-demo-clip.ts  → seeds/media/demo-clip.webm
+//   tsx scripts/make-demo-clip.ts  → seeds/media/demo-clip.webm and demo-gauge.png
 import { writeFileSync } from "node:fs";
 import path from "node:path";
 import { chromium } from "playwright-core";
@@ -38,6 +38,15 @@ const base64: string = await page.evaluate(`(async () => {
   for (const b of new Uint8Array(buf)) s += String.fromCharCode(b);
   return btoa(s);
 })()`);
+// A still of the same gauge, for photo evidence.
+await page.setContent(`<canvas width=320 height=240></canvas><script>
+  const c = document.querySelector("canvas").getContext("2d");
+  c.fillStyle = "#14302a"; c.fillRect(0, 0, 320, 240);
+  c.strokeStyle = "#fbeedf"; c.lineWidth = 6; c.beginPath(); c.arc(160, 130, 90, Math.PI, 2 * Math.PI); c.stroke();
+  const a = Math.PI * 1.62; c.strokeStyle = "#d9822b"; c.beginPath(); c.moveTo(160, 130); c.lineTo(160 + 80 * Math.cos(a), 130 + 80 * Math.sin(a)); c.stroke();
+  c.fillStyle = "#fbeedf"; c.font = "20px sans-serif"; c.fillText("demo gauge", 110, 200);
+</script>`);
+await page.locator("canvas").screenshot({ path: path.resolve(import.meta.dirname, "../seeds/media/demo-gauge.png") });
 await browser.close();
 const out = path.resolve(import.meta.dirname, "../seeds/media/demo-clip.webm");
 writeFileSync(out, Buffer.from(base64, "base64"));

@@ -3,6 +3,7 @@
 import path from "node:path";
 import { createDb } from "../db/database";
 import { startFakes } from "../fakes/index";
+import { ensureDemoEvidence } from "../seeds/demo-evidence";
 import { prepareDatabase } from "./prepare-db";
 import { startPostgres } from "./postgres";
 
@@ -32,6 +33,8 @@ export async function startServices() {
   const db = createDb(databaseUrl, 2);
   try {
     await prepareDatabase(db, log);
+    const placed = await ensureDemoEvidence(db, fakes.env);
+    if (placed) log(`Placed ${placed} demo evidence files in the local object store`);
   } finally {
     await db.destroy();
   }
