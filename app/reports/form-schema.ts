@@ -3,9 +3,9 @@
 // as the SI columns of the reports table.
 import { z } from "zod";
 import { parseMeasure } from "~/air/calculator-form";
-import { ftToM, galToL, inToMm, pressureToKpa, scfmToLps } from "~/air/units";
+import { ftToM, galToL, inToMm, kpaTo, lpsToScfm, lToGal, mmToIn, mToFt, pressureToKpa, scfmToLps } from "~/air/units";
 import { GAUGE_ERROR_KPA } from "~/moderation/flags";
-import type { CorrosionLevel, CouplerProfile, InletSource, Outcome, VehicleClass } from "../../db/schema";
+import type { Report } from "../../db/schema";
 
 export const VEHICLE_CLASSES = ["passenger_car", "light_truck", "heavy_truck", "bus", "trailer", "agricultural", "construction"] as const;
 export const CORROSION_LEVELS = ["none", "light", "moderate", "heavy", "severe"] as const;
@@ -117,27 +117,11 @@ export function parseDraft(values: Record<string, unknown>): Partial<Fields> {
   return out as Partial<Fields>;
 }
 
-export interface ReportColumns {
-  vehicle_class: VehicleClass | null;
-  component_age_years: number | null;
-  corrosion_level: CorrosionLevel | null;
-  attachment: string | null;
-  attachment_length_mm: number | null;
-  regulator_kpa: number | null;
-  inlet_kpa: number | null;
-  inlet_source: InletSource | null;
-  hose_id_mm: number | null;
-  hose_length_m: number | null;
-  coupler_profile: CouplerProfile | null;
-  coupler_count: number | null;
-  compressor_lps: number | null;
-  tank_l: number | null;
-  outcome: Outcome | null;
-  time_to_result_s: number | null;
-  attempts: number | null;
-  trigger_control: number | null;
-  notes: string | null;
-}
+/** The SI columns a report form fills, typed from the table itself. */
+export type ReportColumns = Pick<Report,
+  | "vehicle_class" | "component_age_years" | "corrosion_level" | "attachment" | "attachment_length_mm" | "regulator_kpa"
+  | "inlet_kpa" | "inlet_source" | "hose_id_mm" | "hose_length_m" | "coupler_profile" | "coupler_count" | "compressor_lps"
+  | "tank_l" | "outcome" | "time_to_result_s" | "attempts" | "trigger_control" | "notes">;
 
 /** The form's values (typed units) as the SI columns; missing values become null. */
 export function toColumns(v: Partial<Fields>): ReportColumns {
@@ -173,17 +157,17 @@ const round = (x: number, digits: number) => String(Number(x.toFixed(digits)));
 /** A stored report's columns back as form values in the reporter's units, for editing. */
 export function toFormValues(r: Partial<ReportColumns>, pu: "psi" | "bar" | "kPa", lu: "in" | "mm"): Record<string, string> {
   const metric = lu === "mm";
-  const p = (kpa: number | null | undefined) => (kpa == null ? "" : round(kpa / (pu === "psi" ? 6.894757 : pu === "bar" ? 100 : 1), pu === "bar" ? 2 : 1));
-  const l = (x: number | null | undefined, fromSi: number, digits: number) => (x == null ? "" : round(metric ? x : x / fromSi, digits));
+  const p = (kpa: number | null | undefined) => (kpa == null ? "" : round(kpaTo(kpa, pu), pu === "bar" ? 2 : 1));
+  const l = (x: number | null | undefined, toImperial: (si: number) => number, digits: number) => (x == null ? "" : round(metric ? x : toImperial(x), digits));
   const s = (x: string | number | null | undefined) => (x == null ? "" : String(x));
   return {
     pu, lu,
     vehicleClass: s(r.vehicle_class), componentAge: s(r.component_age_years), corrosion: s(r.corrosion_level),
-    attachment: s(r.attachment), attachmentLength: l(r.attachment_length_mm, 25.4, metric ? 0 : 2),
+    attachment: s(r.attachment), attachmentLength: l(r.attachment_length_mm, mmToIn, metric ? 0 : 2),
     regulator: p(r.regulator_kpa), inlet: p(r.inlet_kpa), inletSource: s(r.inlet_source),
-    hoseId: l(r.hose_id_mm, 25.4, metric ? 1 : 4), hoseLength: l(r.hose_length_m, 0.3048, metric ? 1 : 0),
+    hoseId: l(r.hose_id_mm, mmToIn, metric ? 1 : 4), hoseLength: l(r.hose_length_m, mToFt, metric ? 1 : 0),
     couplerProfile: s(r.coupler_profile), couplerCount: s(r.coupler_count),
-    compressor: l(r.compressor_lps, 0.4719474, 1), tank: l(r.tank_l, 3.785411784, 0),
+    compressor: l(r.compressor_lps, lpsToScfm, 1), tank: l(r.tank_l, lToGal, 0),
     outcome: s(r.outcome), time: s(r.time_to_result_s), attempts: s(r.attempts), triggerControl: s(r.trigger_control), notes: s(r.notes),
   };
 }
