@@ -1,5 +1,11 @@
 import { db } from "~/db.server";
 import { Link } from "react-router";
+import { z } from "zod";
+import { parseMeasure } from "~/air/calculator-form";
+import { ftToM, inToMm, psiToKpa } from "~/air/units";
+import { getUser } from "~/auth/session.server";
+import { WhichToolPanel, type WhichToolRow } from "~/components/which-tool-panel";
+import { atSupply } from "~/stats/which-tool";
 import { CellTable } from "~/components/cell-table";
 import { IntervalChart, IntervalsExplained } from "~/components/intervals";
 import { ErrorPage } from "~/components/error-page";
@@ -16,9 +22,18 @@ import type { Route } from "./+types/jobs.$slug";
 
 const PER_PAGE = 20;
 
+const supplySchema = z.object({
+  reg: z.preprocess(parseMeasure, z.number({ error: "Regulator: a number of psi" }).min(10, "Regulator: 10–290 psi").max(290, "Regulator: 10–290 psi")),
+  hid: z.preprocess(parseMeasure, z.number({ error: "Hose ID: inches, e.g. 3/8" }).min(0.16, "Hose ID: 5/32–1 in").max(1, "Hose ID: 5/32–1 in")),
+  hlen: z.preprocess(parseMeasure, z.number({ error: "Hose length: a number of feet" }).gt(0, "Hose length: up to 330 ft").max(330, "Hose length: up to 330 ft")),
+  cc: z.preprocess((v) => (v === "" || v == null ? 2 : Number(v)), z.number({ error: "Couplers: 0–10" }).int("Couplers: 0–10").min(0, "Couplers: 0–10").max(10, "Couplers: 0–10")),
+  bits: z.enum(["", "shank-0.401", "shank-0.498"], { error: "Bits: 0.401 or 0.498 in shank" }).default(""),
+});
+
 export async function loader({ params, request }: Route.LoaderArgs) {
   const slug = parseSlug(params.slug);
   const page = parsePage(request);
+  const search = Object.fromEntries(new URL(request.url).searchParams);
   const job = await getJobBySlug(db, slug);
   invariantResponse(job, "No such job type", 404);
   const [models, reports, total] = await Promise.all([
@@ -26,7 +41,22 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     acceptedReports(db, { jobId: job.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { jobId: job.id }),
   ]);
-  return { job, models, reports, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
+  // The shopper's supply: read what parses, and say what did not rather than fail the page.
+  let which: WhichToolRow[] | null = null;
+  let note: string | null = null;
+  if (search.reg !== undefined) {
+    const supply = supplySchema.safeParse(search);
+    if (!supply.success) note = `Could not use your supply: ${supply.error.issues.map((i) => i.message).join("; ")}.`;
+    else {
+      const line = { hoseIdMm: inToMm(supply.data.hid), hoseLengthM: ftToM(supply.data.hlen), couplerProfile: "industrial_m" as const, couplerCount: supply.data.cc };
+      which = models.map((m) => {
+        const r = atSupply({ slug: m.model_slug, fitting: m.fitting, ratedLps: m.rated_air_lps, fit: m.fit }, { regulatorKpa: psiToKpa(supply.data.reg), line, bits: supply.data.bits || null });
+        return { slug: m.model_slug, label: `${m.maker_name} ${m.model_code}`, price: m.street_price_cents, weightKg: m.weight_kg, inletKpa: r.inletKpa, predicted: r.predicted, reason: m.adj_reason, needs: r.needs };
+      }).sort((a, b) => (b.predicted?.lower ?? -1) - (a.predicted?.lower ?? -1));
+    }
+  }
+  const user = await getUser(request);
+  return { job, models, reports, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), which, note, search, pu: user?.pressureUnit ?? "psi" };
 }
 
 export default function JobPage({ loaderData }: Route.ComponentProps) {
@@ -40,6 +70,8 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
       </header>
 
       <SafetyCautions action={job.category_action} />
+
+      <WhichToolPanel jobSlug={job.slug} percussive={job.category_action === "percussive"} values={loaderData.search} note={loaderData.note} rows={loaderData.which} pu={loaderData.pu} />
 
       <section aria-labelledby="tools-heading" className="space-y-3">
         <h2 id="tools-heading" className="text-lg font-semibold">Tools used on this job</h2>

@@ -41,3 +41,20 @@ describe("stats cells", () => {
     expect((await new Browserish().get("/compare?job=ball-joint-separation&models=brackwater-bh-260l")).status).toBe(400);
   });
 });
+
+describe("which tool on my air", () => {
+  it("shows what reaches each tool and its fitted chance, and what else it needs", async () => {
+    const html = await (await new Browserish().get("/jobs/ball-joint-separation?reg=100&hid=3%2F8&hlen=50&cc=2&bits=shank-0.401")).text();
+    expect(html).toContain("Reaches the tool");
+    expect(html).toMatch(/0\.498 in shank bits \(yours will not fit; never use a shank adapter\)/);
+  });
+
+  it("reads what it can of a bad supply and says what it could not", async () => {
+    const res = await new Browserish().get("/jobs/ball-joint-separation?reg=abc&hid=9&hlen=-1&bits=zzz");
+    expect(res.status).toBe(200);
+    const html = await res.text();
+    expect(html).toMatch(/Could not use your supply: Regulator: a number of psi; Hose ID: 5\/32–1 in; Hose length: up to 330 ft/);
+    expect((await new Browserish().get(`/jobs/ball-joint-separation?reg=${"9".repeat(1000)}`)).status).toBe(200);
+    expect((await new Browserish().get("/jobs/no-such-job?reg=100")).status).toBe(404);
+  });
+});

@@ -44,3 +44,18 @@ describe("a cell's figures", () => {
     expect(predictAt(f.fit!, 1000).extrapolating).toBe(true);
   });
 });
+
+describe("which tool at my air", () => {
+  it("predicts at the pressure the line delivers and lists what else the tool needs", async () => {
+    const { atSupply } = await import("~/stats/which-tool");
+    const f = cellFigures(reports(60, 450, 800), "s");
+    const line = { hoseIdMm: 6.35, hoseLengthM: 30, couplerProfile: "automotive_t" as const, couplerCount: 3 };
+    const weak = atSupply({ slug: "x", fitting: "shank-0.498", ratedLps: 4.7, fit: f.fit }, { regulatorKpa: 620, line, bits: "shank-0.401" });
+    expect(weak.inletKpa).toBeLessThan(620);
+    expect(weak.needs.join(" ")).toMatch(/0.498 in shank bits/);
+    expect(weak.needs.join(" ")).toMatch(/bigger air supply/);
+    const strong = atSupply({ slug: "x", fitting: "shank-0.401", ratedLps: 1.9, fit: f.fit }, { regulatorKpa: 760, line: { ...line, hoseIdMm: 12.7, hoseLengthM: 8 }, bits: "shank-0.401" });
+    expect(strong.needs).toEqual([]);
+    expect(strong.predicted!.estimate).toBeGreaterThan(weak.predicted!.estimate);
+  });
+});
