@@ -23,6 +23,7 @@ export default [
   route("review", "routes/review._index.tsx"),
   route("review/stats", "routes/review.stats.tsx"),
   route("review/:reportId", "routes/review.$reportId.tsx"),
+  route("api/models", "routes/api.models.ts"),
   route("api/models/suggest", "routes/api.models.suggest.ts"),
   route("api/reports/:id/evidence", "routes/api.reports.$id.evidence.ts"),
   route("api/evidence/:id/complete", "routes/api.evidence.$id.complete.ts"),

@@ -43,6 +43,22 @@ describe("browsing as a visitor", () => {
     await close();
   });
 
+  it("filters and sorts the tools table in place, with the filters in the address", async () => {
+    const { page, assertClean, close } = await newCheckedPage(browser);
+    await page.goto(`${baseUrl}/models`);
+    await page.locator("select[name=job]").selectOption("ball-joint-separation");
+    await page.waitForURL(/job=ball-joint-separation/);
+    await page.getByRole("button", { name: /Freed on ball joint separation/ }).waitFor();
+    await page.getByRole("button", { name: /Freed on ball joint separation/ }).click();
+    await page.waitForURL(/sort=success&dir=(asc|desc)/);
+    const rows = await page.getByTestId("model-row").count();
+    expect(rows).toBeGreaterThan(3);
+    await page.goBack();
+    await page.waitForURL((u) => !u.search.includes("sort="));
+    assertClean();
+    await close();
+  });
+
   it("fits a phone screen without sideways scrolling", async () => {
     const { page, assertClean, close } = await newCheckedPage(browser, { width: 390, height: 844 });
     for (const path of ["/", "/models/brackwater-bh-150", "/jobs/lug-nut-breakaway"]) {
