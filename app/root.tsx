@@ -1,6 +1,7 @@
 import { Form, Link, Links, Meta, NavLink, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import { getUser, hasRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { SearchBox } from "~/components/search-box";
 import { applySecurityHeaders, isCrossSiteWrite, newNonce } from "~/security.server";
 import { nonceContext, useNonce } from "~/utils/nonce";
 import type { Route } from "./+types/root";
@@ -66,6 +67,7 @@ function SiteHeader() {
           <img src="/favicon.svg" alt="" width={28} height={28} />
           Bayproof
         </Link>
+        <SearchBox />
         <nav aria-label="Main" className="-mx-1 flex max-w-full gap-1 overflow-x-auto whitespace-nowrap text-sm font-semibold">
           <NavLink to="/models" className={link}>Tools</NavLink>
           <NavLink to="/jobs" className={link}>Jobs</NavLink>

@@ -8,6 +8,8 @@ export default [
   route("jobs/:slug", "routes/jobs.$slug.tsx"),
   route("air", "routes/air.tsx"),
   route("compare", "routes/compare.tsx"),
+  route("search", "routes/search.tsx"),
+  route("api/search", "routes/api.search.ts"),
   route("api/stats/cell", "routes/api.stats.cell.ts"),
   route("sign-in", "routes/sign-in.tsx"),
   route("sign-in/link", "routes/sign-in.link.tsx"),

@@ -3,6 +3,7 @@ import path from "node:path";
 import { demoSubject, people } from "../seeds/people";
 import { startMailCatcher } from "./mail";
 import { startOidcProvider } from "./oidc";
+import { startSearchService } from "./search";
 import { FAKE_S3_CREDENTIALS, startObjectStore } from "./storage";
 
 const wellKnown = (email: string) => (/^(reporter|moderator|moderator2|admin)@/.test(email) ? 1 : 0);
@@ -11,12 +12,14 @@ export interface FakePorts {
   oidc: number;
   smtp: number;
   s3: number;
+  search: number;
 }
 
 const BUCKET = "bayproof-evidence";
 
 /** `appOrigins`: where the app is served, for the object store's CORS rules. */
 export async function startFakes({ ports, dataDir, appOrigins }: { ports: FakePorts; dataDir: string; appOrigins: string[] }) {
+  const searchService = await startSearchService({ port: ports.search });
   const store = await startObjectStore({ port: ports.s3, dir: path.join(dataDir, "objects"), bucket: BUCKET, origins: appOrigins });
   const mailDir = path.join(dataDir, "mail");
   const mail = await startMailCatcher({ port: ports.smtp, dir: mailDir });
@@ -34,6 +37,7 @@ export async function startFakes({ ports, dataDir, appOrigins }: { ports: FakePo
       OIDC_TOKEN_URL: `${oidc.url}/token`,
       OIDC_CLIENT_ID: "bayproof-local",
       OIDC_CLIENT_SECRET: "local-secret",
+      SEARCH_URL: searchService.url,
       S3_ENDPOINT: store.url,
       S3_BUCKET: BUCKET,
       S3_REGION: "us-east-1",
@@ -41,7 +45,7 @@ export async function startFakes({ ports, dataDir, appOrigins }: { ports: FakePo
       S3_SECRET_ACCESS_KEY: FAKE_S3_CREDENTIALS.secretAccessKey,
     },
     async stop() {
-      await Promise.all([mail.stop(), oidc.stop(), store.stop()]);
+      await Promise.all([mail.stop(), oidc.stop(), store.stop(), searchService.stop()]);
     },
   };
 }

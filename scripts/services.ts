@@ -4,6 +4,7 @@ import path from "node:path";
 import { createDb } from "../db/database";
 import { startFakes } from "../fakes/index";
 import { ensureDemoEvidence } from "../seeds/demo-evidence";
+import { reindexAll, searchClient } from "../app/search/search.server";
 import { prepareDatabase } from "./prepare-db";
 import { startPostgres } from "./postgres";
 
@@ -24,17 +25,20 @@ export async function startServices() {
       oidc: Number(process.env.BAYPROOF_OIDC_PORT ?? 54330),
       smtp: Number(process.env.BAYPROOF_SMTP_PORT ?? 54325),
       s3: Number(process.env.BAYPROOF_S3_PORT ?? 54340),
+      search: Number(process.env.BAYPROOF_SEARCH_PORT ?? 54350),
     },
     dataDir,
     appOrigins: appOrigins(),
   });
   stops.push(() => fakes.stop());
-  log(`Local fakes: sign-in provider ${fakes.env.OIDC_ISSUER}, mail catcher ${fakes.env.SMTP_URL} (read it at /dev/mail), object store ${fakes.env.S3_ENDPOINT}`);
+  log(`Local fakes: sign-in provider ${fakes.env.OIDC_ISSUER}, mail catcher ${fakes.env.SMTP_URL} (read it at /dev/mail), object store ${fakes.env.S3_ENDPOINT}, search ${fakes.env.SEARCH_URL}`);
   const db = createDb(databaseUrl, 2);
   try {
     await prepareDatabase(db, log);
     const placed = await ensureDemoEvidence(db, fakes.env);
     if (placed) log(`Placed ${placed} demo evidence files in the local object store`);
+    // The local search fake keeps its index in memory: fill it on every start.
+    log(`Indexed ${await reindexAll(db, searchClient(fakes.env.SEARCH_URL))} documents in the local search service`);
   } finally {
     await db.destroy();
   }

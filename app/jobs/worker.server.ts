@@ -6,6 +6,7 @@ import type { Database } from "../../db/schema";
 import { removeOrphanedEvidence } from "~/reports/evidence.server";
 import { sendDecisionMail } from "~/moderation/mail.server";
 import { refreshCell } from "~/stats/refresh.server";
+import { indexReport } from "~/search/search.server";
 import { QUEUES } from "./queue.server";
 
 export async function startWorker(connectionString: string, db: Kysely<Database>, log: (s: string) => void) {
@@ -26,7 +27,8 @@ export async function startWorker(connectionString: string, db: Kysely<Database>
   await boss.work<{ modelId: number; jobTypeId: number }>(QUEUES.statsRefresh, async ([job]) => {
     await refreshCell(db, job!.data.modelId, job!.data.jobTypeId);
   });
-  // Accepting a report asks for indexing too; its handler comes with search.
-  await boss.work(QUEUES.searchIndex, async () => {});
+  await boss.work<{ reportId: number }>(QUEUES.searchIndex, async ([job]) => {
+    await indexReport(db, job!.data.reportId);
+  });
   return { boss, stop: () => boss.stop({ graceful: true, timeout: 10_000 }) };
 }

@@ -8,6 +8,8 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { startFakes } from "../../fakes/index";
+import { reindexAll, searchClient } from "../../app/search/search.server";
+import { createDb } from "../../db/database";
 import { waitForHttp } from "../../scripts/wait-http";
 import { ensureChromium, freePort, startTestDatabase } from "./system";
 
@@ -30,12 +32,16 @@ export default async function setup(project: TestProject) {
     const port = await freePort();
     const baseUrl = `http://127.0.0.1:${port}`;
     const fakes = await startFakes({
-      ports: { oidc: await freePort(), smtp: await freePort(), s3: await freePort() },
+      ports: { oidc: await freePort(), smtp: await freePort(), s3: await freePort(), search: await freePort() },
       dataDir,
       appOrigins: [baseUrl],
     });
     cleanups.push(() => fakes.stop());
 
+    {
+      const db = createDb(database.url, 2);
+      await reindexAll(db, searchClient(fakes.env.SEARCH_URL)).finally(() => db.destroy());
+    }
     const build = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], { cwd: root, encoding: "utf8" });
     if (build.status !== 0) throw new Error(`react-router build failed:\n${build.stdout}\n${build.stderr}`);
     const server = spawn(path.join(root, "node_modules/.bin/react-router-serve"), ["./build/server/index.js"], {
@@ -70,6 +76,7 @@ export default async function setup(project: TestProject) {
     project.provide("mailDir", fakes.env.BAYPROOF_MAIL_CATCHER_DIR);
     project.provide("oidcUrl", fakes.env.OIDC_ISSUER);
     project.provide("s3", { endpoint: fakes.env.S3_ENDPOINT, bucket: fakes.env.S3_BUCKET });
+    project.provide("searchUrl", fakes.env.SEARCH_URL);
   } catch (error) {
     await teardown();
     throw error;

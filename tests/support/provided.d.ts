@@ -6,6 +6,7 @@ declare module "vitest" {
     mailDir: string;
     oidcUrl: string;
     s3: { endpoint: string; bucket: string };
+    searchUrl: string;
   }
 }
 export {};

@@ -1,0 +1,12 @@
+import { db } from "~/db.server";
+import { parseSearch } from "~/search/query";
+import { search } from "~/search/search.server";
+import type { Route } from "./+types/api.search";
+
+// Suggestions as you type, for the header's search box.
+export async function loader({ request }: Route.LoaderArgs) {
+  const { q, filters } = parseSearch(new URL(request.url).searchParams);
+  if (!q) return Response.json({ source: "search", hits: [] });
+  const r = await search(db, q, filters, 8);
+  return Response.json({ source: r.source, hits: r.hits.map((h) => ({ id: h.id, title: h.title, url: h.url, kind: h.kind, detail: h.kind === "report" ? h.job_name : h.category_name })) });
+}
