@@ -1,3 +1,4 @@
+import { useEffect } from "react";
 import { Form, Link, Links, Meta, NavLink, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import { getUser, hasRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
@@ -53,6 +54,10 @@ export function Layout({ children }: { children: React.ReactNode }) {
 }
 
 export default function App() {
+  // Marks the page as interactive; end-to-end tests wait for it before typing.
+  useEffect(() => {
+    document.documentElement.dataset.hydrated = "true";
+  }, []);
   return <Outlet />;
 }
 

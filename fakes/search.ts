@@ -57,7 +57,7 @@ export async function startSearchService({ port }: { port: number }) {
       idField: index.primaryKey, fields,
       extractField: (doc, field) => { const v = doc[field]; return Array.isArray(v) ? v.join(" ") : v == null ? "" : String(v); },
       // Like the service's attribute ranking rule: earlier searchable attributes weigh more.
-      searchOptions: { fuzzy: 0.25, prefix: true, combineWith: "AND", boost: Object.fromEntries(fields.map((f, i) => [f, 2 ** Math.max(0, 4 - i)])) },
+      searchOptions: { fuzzy: (term) => (term.length > 3 ? 0.25 : false), prefix: true, combineWith: "AND", boost: Object.fromEntries(fields.map((f, i) => [f, 2 ** Math.max(0, 4 - i)])) },
     });
     mini.addAll([...index.docs.values()]);
     index.mini = mini;

@@ -90,10 +90,10 @@ export interface SearchResult {
 
 const FACETS = ["category", "job", "shank"];
 
-export async function search(db: Db, q: string, filters: SearchFilters = {}, limit = 20, client = searchClient()): Promise<SearchResult> {
+export async function search(db: Db, q: string, filters: SearchFilters = {}, limit = 20, client = searchClient(), { facets = true } = {}): Promise<SearchResult> {
   const filter = Object.entries(filters).filter(([, v]) => v).map(([k, v]) => `${k} = '${String(v).replace(/'/g, "")}'`);
   try {
-    const r = await client.index(INDEX).search<SearchDoc>(q, { filter, facets: FACETS, limit });
+    const r = await client.index(INDEX).search<SearchDoc>(q, { filter, facets: facets ? FACETS : [], limit });
     return { source: "search", hits: r.hits, total: r.estimatedTotalHits ?? r.hits.length, facets: r.facetDistribution ?? {} };
   } catch {
     return databaseSearch(db, q, filters, limit);

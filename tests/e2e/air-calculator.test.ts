@@ -1,7 +1,7 @@
 // "What reaches my tool?" with JavaScript (live figures) and without (plain GET form).
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launchBrowser, newCheckedPage } from "../support/browser";
+import { hydrated, launchBrowser, newCheckedPage } from "../support/browser";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
@@ -17,6 +17,7 @@ describe("the air calculator", () => {
   it("moves the inlet figure as the hose changes, without a reload", async () => {
     const { page, assertClean, close } = await newCheckedPage(browser, { width: 390, height: 844 });
     await page.goto(`${baseUrl}/air`);
+    await hydrated(page);
     const figure = page.getByTestId("inlet-pressure");
     const before = psi(await figure.textContent());
     expect(before).toBeGreaterThan(0);

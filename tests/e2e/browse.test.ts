@@ -1,7 +1,7 @@
 // A visitor's first journey: the home page, then a tool model's page, on a desktop and a phone.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launchBrowser, newCheckedPage } from "../support/browser";
+import { hydrated, launchBrowser, newCheckedPage } from "../support/browser";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
@@ -46,6 +46,7 @@ describe("browsing as a visitor", () => {
   it("filters and sorts the tools table in place, with the filters in the address", async () => {
     const { page, assertClean, close } = await newCheckedPage(browser);
     await page.goto(`${baseUrl}/models`);
+    await hydrated(page);
     await page.locator("select[name=job]").selectOption("ball-joint-separation");
     await page.waitForURL(/job=ball-joint-separation/);
     await page.getByRole("button", { name: /Freed on ball joint separation/ }).waitFor();

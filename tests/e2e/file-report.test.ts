@@ -5,7 +5,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launchBrowser, newCheckedPage } from "../support/browser";
+import { hydrated, launchBrowser, newCheckedPage } from "../support/browser";
 import { tinyMp4 } from "../support/files";
 
 const baseUrl = inject("baseUrl");
@@ -27,6 +27,7 @@ describe("filing a report from the bay", () => {
     await page.getByRole("link", { name: /Continue with/ }).click();
     await page.getByRole("link", { name: /A new technician/ }).click();
     await page.getByRole("heading", { name: "File a report from the bay" }).waitFor();
+    await hydrated(page);
 
     await page.getByRole("combobox", { name: "Tool" }).fill("BH-150");
     await page.locator("#tool-suggestions button").first().click();

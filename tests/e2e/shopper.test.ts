@@ -2,7 +2,7 @@
 // by name with a typo in the header's search box and opens it.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launchBrowser, newCheckedPage } from "../support/browser";
+import { hydrated, launchBrowser, newCheckedPage } from "../support/browser";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
@@ -26,6 +26,7 @@ describe("shopping by job", () => {
     expect(page.url()).toMatch(/reg=95/);
 
     await page.goto(`${baseUrl}/models`);
+    await hydrated(page);
     await page.locator("select[name=job]").selectOption("axle-nut-breakaway");
     await page.locator("input[name=maxPrice]").fill("300");
     await page.locator("input[name=maxPrice]").press("Tab");

@@ -1,6 +1,6 @@
 // Headless Debian Chromium through playwright-core, with the flags this machine needs, and a
 // page that fails the test on any console error or uncaught page error.
-import { type Browser, chromium } from "playwright-core";
+import { type Browser, chromium, type Page } from "playwright-core";
 import { CHROMIUM } from "./system";
 
 export const CHROMIUM_FLAGS = [
@@ -12,6 +12,9 @@ export async function launchBrowser(): Promise<Browser> {
   // Playwright gives every launch a new, empty profile folder of its own.
   return chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_FLAGS });
 }
+
+/** Waits until React has hydrated the page, so typed input reaches its handlers. */
+export const hydrated = (page: Page) => page.waitForSelector("html[data-hydrated]", { state: "attached" });
 
 export async function newCheckedPage(browser: Browser, viewport = { width: 1280, height: 900 }) {
   const context = await browser.newContext({ viewport });

@@ -1,6 +1,6 @@
 // Type to find the tool; suggestions come from /api/models/suggest through a fetcher. Without
 // JavaScript the typed text is sent and the server matches it to a model code.
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { useFetcher } from "react-router";
 
 export interface ToolChoice {
@@ -17,6 +17,17 @@ export function ToolPicker({ initial, error, onPick }: { initial: ToolChoice | n
   const [text, setText] = useState(initial?.label ?? "");
   const [picked, setPicked] = useState<ToolChoice | null>(initial);
   const [open, setOpen] = useState(false);
+  const inputRef = useRef<HTMLInputElement>(null);
+
+  // Text typed before the page finished loading its scripts is picked up, not lost.
+  useEffect(() => {
+    const typed = inputRef.current?.value ?? "";
+    if (typed && typed !== text) {
+      setText(typed);
+      setOpen(true);
+    }
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
 
   useEffect(() => {
     if (!open || text.trim().length < 1 || picked?.label === text) return;
@@ -38,7 +49,7 @@ export function ToolPicker({ initial, error, onPick }: { initial: ToolChoice | n
       <label className="block">
         <span className="font-semibold">Tool</span>
         <input
-          name="toolQuery" value={text} autoComplete="off" placeholder="Maker or model code, e.g. BH-150"
+          ref={inputRef} name="toolQuery" value={text} autoComplete="off" placeholder="Maker or model code, e.g. BH-150"
           role="combobox" aria-expanded={suggestions.length > 0} aria-controls="tool-suggestions" aria-invalid={error ? true : undefined}
           onChange={(e) => {
             setText(e.target.value);
