@@ -18,10 +18,8 @@ export function modelsBase(db: Db) {
 
 export async function listModels(db: Db) {
   return modelsBase(db)
-    .select((eb) =>
-      eb.selectFrom("reports as r").whereRef("r.tool_model_id", "=", "m.id").where("r.status", "=", "accepted")
-        .select(sql<number>`count(*)::int`.as("n")).as("accepted_reports"),
-    )
+    // Counted from the stored stats cells, which the refresh job keeps in step with accepts.
+    .select(sql<number>`(select coalesce(sum(s.n), 0)::int from stats_cells s where s.tool_model_id = m.id)`.as("accepted_reports"))
     .orderBy("c.name").orderBy("mk.name").orderBy("m.model_code")
     .execute();
 }
@@ -42,10 +40,7 @@ export async function listJobs(db: Db) {
     .selectFrom("job_types as j")
     .innerJoin("tool_categories as c", "c.id", "j.category_id")
     .select(["j.id", "j.slug", "j.name", "j.description", "c.name as category_name", "c.slug as category_slug", "c.action as category_action"])
-    .select((eb) =>
-      eb.selectFrom("reports as r").whereRef("r.job_type_id", "=", "j.id").where("r.status", "=", "accepted")
-        .select(sql<number>`count(*)::int`.as("n")).as("accepted_reports"),
-    )
+    .select(sql<number>`(select coalesce(sum(s.n), 0)::int from stats_cells s where s.job_type_id = j.id)`.as("accepted_reports"))
     .orderBy("c.name").orderBy("j.name")
     .execute();
 }
