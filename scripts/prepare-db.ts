@@ -1,4 +1,5 @@
 // Applies migrations and loads the demo scenario when the database is empty.
+import { pathToFileURL } from "node:url";
 import type { Kysely } from "kysely";
 import { createDb } from "../db/database";
 import { migrateToLatest } from "../db/migrate";
@@ -20,8 +21,8 @@ export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => 
   }
 }
 
-// Run directly: tsx scripts/prepare-db.ts (uses DATABASE_URL).
-if (import.meta.url === `file://${process.argv[1]}`) {
+// `npm run db:prepare`: the same against DATABASE_URL (a database npm start does not manage).
+if (import.meta.url === pathToFileURL(process.argv[1] ?? "").href) {
   const url = process.env.DATABASE_URL;
   if (!url) throw new Error("DATABASE_URL is not set");
   const db = createDb(url, 2);
