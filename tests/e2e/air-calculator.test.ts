@@ -1,21 +1,15 @@
 // "What reaches my tool?" with JavaScript (live figures) and without (plain GET form).
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { hydrated, launchBrowser, newCheckedPage } from "../support/browser";
+import { describe, expect, inject, it } from "vitest";
+import { hydrated, newCheckedPage, sharedBrowser } from "../support/browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const browser = sharedBrowser();
 
 const psi = (text: string | null) => Number(text?.match(/(\d+(\.\d+)?) psi/)?.[1]);
 
 describe("the air calculator", () => {
   it("moves the inlet figure as the hose changes, without a reload", async () => {
-    const { page, assertClean, close } = await newCheckedPage(browser, { width: 390, height: 844 });
+    const { page, assertClean, close } = await newCheckedPage(browser(), { width: 390, height: 844 });
     await page.goto(`${baseUrl}/air`);
     await hydrated(page);
     const figure = page.getByTestId("inlet-pressure");
@@ -37,7 +31,7 @@ describe("the air calculator", () => {
   });
 
   it("works as a plain GET form without JavaScript", async () => {
-    const context = await browser.newContext({ javaScriptEnabled: false });
+    const context = await browser().newContext({ javaScriptEnabled: false });
     const page = await context.newPage();
     await page.goto(`${baseUrl}/air`);
     const before = psi(await page.getByTestId("inlet-pressure").textContent());

@@ -1,19 +1,13 @@
 // A visitor's first journey: the home page, then a tool model's page, on a desktop and a phone.
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { hydrated, launchBrowser, newCheckedPage } from "../support/browser";
+import { describe, expect, inject, it } from "vitest";
+import { hydrated, newCheckedPage, sharedBrowser } from "../support/browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const browser = sharedBrowser();
 
 describe("browsing as a visitor", () => {
   it("opens the home page and follows a report to its tool's page", async () => {
-    const { page, assertClean, close } = await newCheckedPage(browser);
+    const { page, assertClean, close } = await newCheckedPage(browser());
     await page.goto(baseUrl);
     await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toMatch(/free that joint/);
     await expect(page.getByRole("heading", { name: "Recently accepted reports" }).isVisible()).resolves.toBe(true);
@@ -31,7 +25,7 @@ describe("browsing as a visitor", () => {
   });
 
   it("opens a job page and pages through its reports", async () => {
-    const { page, assertClean, close } = await newCheckedPage(browser);
+    const { page, assertClean, close } = await newCheckedPage(browser());
     await page.goto(`${baseUrl}/jobs`);
     await page.getByRole("link", { name: /Ball joint separation/ }).click();
     await page.waitForURL(/\/jobs\/ball-joint-separation$/);
@@ -44,7 +38,7 @@ describe("browsing as a visitor", () => {
   });
 
   it("filters and sorts the tools table in place, with the filters in the address", async () => {
-    const { page, assertClean, close } = await newCheckedPage(browser);
+    const { page, assertClean, close } = await newCheckedPage(browser());
     await page.goto(`${baseUrl}/models`);
     await hydrated(page);
     await page.locator("select[name=job]").selectOption("ball-joint-separation");
@@ -61,7 +55,7 @@ describe("browsing as a visitor", () => {
   });
 
   it("fits a phone screen without sideways scrolling", async () => {
-    const { page, assertClean, close } = await newCheckedPage(browser, { width: 390, height: 844 });
+    const { page, assertClean, close } = await newCheckedPage(browser(), { width: 390, height: 844 });
     for (const path of ["/", "/models/brackwater-bh-150", "/jobs/lug-nut-breakaway"]) {
       await page.goto(`${baseUrl}${path}`);
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
@@ -72,7 +66,7 @@ describe("browsing as a visitor", () => {
   });
 
   it("shows a 404 page for a model that does not exist", async () => {
-    const { page, close } = await newCheckedPage(browser);
+    const { page, close } = await newCheckedPage(browser());
     const response = await page.goto(`${baseUrl}/models/no-such-model`);
     expect(response?.status()).toBe(404);
     await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Not found");

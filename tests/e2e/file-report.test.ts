@@ -3,24 +3,18 @@
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { hydrated, launchBrowser, newCheckedPage } from "../support/browser";
+import { describe, expect, inject, it } from "vitest";
+import { hydrated, newCheckedPage, sharedBrowser } from "../support/browser";
 import { tinyMp4 } from "../support/files";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const browser = sharedBrowser();
 
 describe("filing a report from the bay", () => {
   it("fills the form, uploads a video, submits, and sees it waiting with its flags", async () => {
     const video = path.join(mkdtempSync(path.join(tmpdir(), "bayproof-e2e-")), "ball-joint.mp4");
     writeFileSync(video, tinyMp4());
-    const { page, assertClean, close } = await newCheckedPage(browser, { width: 390, height: 844 });
+    const { page, assertClean, close } = await newCheckedPage(browser(), { width: 390, height: 844 });
 
     // A new technician signs in through the local provider and lands on the form.
     await page.goto(`${baseUrl}/reports/new`);

@@ -3,9 +3,9 @@
 // is then public on its model page and the reporter's mail is in the mail catcher.
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import type { Browser, Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launchBrowser, newCheckedPage } from "../support/browser";
+import { newCheckedPage, sharedBrowser } from "../support/browser";
 import { testDb } from "../support/db";
 import { newDraft, upload } from "../support/evidence";
 import { signedInAs } from "../support/http";
@@ -14,13 +14,12 @@ import { validReport } from "../support/reports";
 
 const baseUrl = inject("baseUrl");
 const db = testDb();
-let browser: Browser;
+const browser = sharedBrowser();
 let reportId: number;
 let reporterEmail: string;
 const clip = readFileSync(path.resolve(import.meta.dirname, "../../seeds/media/demo-clip.webm"));
 
 beforeAll(async () => {
-  browser = await launchBrowser();
   // A new reporter files a report with a real video; it is made the oldest in the queue.
   const stamp = String(Date.now());
   reporterEmail = `e2e-mod-${stamp}@demo.bayproof.test`;
@@ -33,10 +32,7 @@ beforeAll(async () => {
   expect(res.status).toBe(302);
   await db.updateTable("reports").set({ submitted_at: new Date("2024-06-01T08:00:00Z") }).where("id", "=", reportId).execute();
 });
-afterAll(async () => {
-  await browser?.close();
-  await db.destroy();
-});
+afterAll(() => db.destroy());
 
 async function signIn(page: Page, account: RegExp) {
   await page.goto(`${baseUrl}/sign-in?redirectTo=%2Freview%3Fflag%3Dfirst_report`);
@@ -61,14 +57,14 @@ async function acceptOldest(page: Page, reason: string) {
 describe("moderating a report", () => {
   it("takes two moderators to accept a flagged report, then shows it and mails the reporter", async () => {
     const since = Date.now();
-    const first = await newCheckedPage(browser);
+    const first = await newCheckedPage(browser());
     await signIn(first.page, /mod-harriet/);
     await acceptOldest(first.page, "evidence_clear");
     await first.page.getByText(/needs a second look from another moderator/).waitFor();
     first.assertClean();
     await first.close();
 
-    const second = await newCheckedPage(browser);
+    const second = await newCheckedPage(browser());
     await signIn(second.page, /mod-quentin/);
     await acceptOldest(second.page, "second_look_agrees");
     await second.page.getByText(/Decision recorded: accepted/).waitFor();

@@ -1,20 +1,14 @@
 // A shopper: picks the job, gives their air supply, filters the tools table, then finds a model
 // by name with a typo in the header's search box and opens it.
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { hydrated, launchBrowser, newCheckedPage } from "../support/browser";
+import { describe, expect, inject, it } from "vitest";
+import { hydrated, newCheckedPage, sharedBrowser } from "../support/browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const browser = sharedBrowser();
 
 describe("shopping by job", () => {
   it("goes from the job and the shop's air to a tool page", async () => {
-    const { page, assertClean, close } = await newCheckedPage(browser, { width: 390, height: 844 });
+    const { page, assertClean, close } = await newCheckedPage(browser(), { width: 390, height: 844 });
     await page.goto(`${baseUrl}/jobs`);
     await page.getByRole("link", { name: /Axle nut breakaway/ }).click();
     await page.getByRole("heading", { name: "Which tool, on your air?" }).waitFor();

@@ -1,19 +1,13 @@
 // Signing in as a person would: through the local provider's picker, and through a mailed link.
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launchBrowser, newCheckedPage } from "../support/browser";
+import { describe, expect, inject, it } from "vitest";
+import { newCheckedPage, sharedBrowser } from "../support/browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(() => browser?.close());
+const browser = sharedBrowser();
 
 describe("signing in", () => {
   it("through the provider: picks the demo reporter and lands on the account page", async () => {
-    const { page, assertClean, close } = await newCheckedPage(browser);
+    const { page, assertClean, close } = await newCheckedPage(browser());
     await page.goto(`${baseUrl}/account`);
     await page.waitForURL(/\/sign-in\?redirectTo=%2Faccount/);
     await page.getByRole("link", { name: /Continue with/ }).click();
@@ -29,7 +23,7 @@ describe("signing in", () => {
   });
 
   it("through an e-mail link read from the local mail page", async () => {
-    const { page, assertClean, close } = await newCheckedPage(browser, { width: 390, height: 844 });
+    const { page, assertClean, close } = await newCheckedPage(browser(), { width: 390, height: 844 });
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel("E-mail address").fill("admin@demo.bayproof.test");
     await page.getByRole("button", { name: "Mail me a sign-in link" }).click();

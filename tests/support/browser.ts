@@ -1,6 +1,7 @@
 // Headless Debian Chromium through playwright-core, with the flags this machine needs, and a
 // page that fails the test on any console error or uncaught page error.
 import { type Browser, chromium, type Page } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
 import { CHROMIUM } from "./system";
 
 export const CHROMIUM_FLAGS = [
@@ -11,6 +12,16 @@ export const CHROMIUM_FLAGS = [
 export async function launchBrowser(): Promise<Browser> {
   // Playwright gives every launch a new, empty profile folder of its own.
   return chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_FLAGS });
+}
+
+/** One browser for a test file: launched before its tests, closed after. Call at the top level. */
+export function sharedBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(() => browser?.close());
+  return () => browser!;
 }
 
 /** Waits until React has hydrated the page, so typed input reaches its handlers. */

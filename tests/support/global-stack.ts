@@ -2,7 +2,7 @@
 // PostgreSQL with migrations and the demo scenario, the local fakes on free ports, a production
 // build of the app, and react-router-serve on a free loopback port — the path `npm start` takes.
 // A run of only the unit project starts nothing.
-import { spawn, spawnSync } from "node:child_process";
+import { type ChildProcess, spawn, spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -14,6 +14,14 @@ import { waitForHttp } from "../../scripts/wait-http";
 import { ensureChromium, freePort, startTestDatabase } from "./system";
 
 const root = path.resolve(import.meta.dirname, "../..");
+
+/** SIGTERM, then wait for the exit, so the database outlives its last client. */
+async function stopChild(child: ChildProcess) {
+  if (child.exitCode != null) return;
+  const exited = new Promise((resolve) => child.once("exit", resolve));
+  child.kill("SIGTERM");
+  await exited;
+}
 
 export default async function setup(project: TestProject) {
   const running = project.vitest.projects.map((p) => p.name);
@@ -52,24 +60,14 @@ export default async function setup(project: TestProject) {
       },
       stdio: ["ignore", "ignore", "inherit"],
     });
-    cleanups.push(async () => {
-      if (server.exitCode != null) return;
-      const exited = new Promise((resolve) => server.once("exit", resolve));
-      server.kill("SIGTERM");
-      await exited;
-    });
+    cleanups.push(() => stopChild(server));
     await waitForHttp(baseUrl, server);
     const worker = spawn(path.join(root, "node_modules/.bin/tsx"), ["scripts/worker.ts"], {
       cwd: root,
       env: { ...process.env, ...fakes.env, DATABASE_URL: database.url, APP_ORIGIN: baseUrl },
       stdio: ["ignore", "ignore", "inherit"],
     });
-    cleanups.push(async () => {
-      if (worker.exitCode != null) return;
-      const exited = new Promise((resolve) => worker.once("exit", resolve));
-      worker.kill("SIGTERM");
-      await exited;
-    });
+    cleanups.push(() => stopChild(worker));
 
     project.provide("databaseUrl", database.url);
     project.provide("baseUrl", baseUrl);
