@@ -7,6 +7,9 @@ import type { Route } from "./+types/api.search";
 export async function loader({ request }: Route.LoaderArgs) {
   const { q, filters } = parseSearch(new URL(request.url).searchParams);
   if (!q) return Response.json({ source: "search", hits: [] });
-  const r = await search(db, q, filters, 8, undefined, { facets: false });
-  return Response.json({ source: r.source, hits: r.hits.map((h) => ({ id: h.id, title: h.title, url: h.url, kind: h.kind, detail: h.kind === "report" ? h.job_name : h.category_name })) });
+  const r = await search(db, q, filters, 20, undefined, { facets: false });
+  // Many reports of one tool on one job read alike: suggest each destination once.
+  const seen = new Set<string>();
+  const hits = r.hits.filter((h) => !seen.has(h.title + h.url) && seen.add(h.title + h.url)).slice(0, 8);
+  return Response.json({ source: r.source, hits: hits.map((h) => ({ id: h.id, title: h.title, url: h.url, kind: h.kind, detail: h.kind === "report" ? h.job_name : h.category_name })) });
 }

@@ -43,6 +43,8 @@ describe("the search pages", () => {
   it("answers suggestions and full results, and names what it could not read", async () => {
     const s = await (await new Browserish().get("/api/search?q=brakwater")).json();
     expect(s.hits.length).toBeGreaterThan(0);
+    const titles = s.hits.map((h: { title: string; url: string }) => h.title + h.url);
+    expect(new Set(titles).size).toBe(titles.length);
     const page = await new Browserish().get(`/search?q=${"quilon ".repeat(200)}&job=%3Cb%3E`);
     expect(page.status).toBe(200);
     const html = await page.text();
