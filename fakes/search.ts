@@ -1,17 +1,16 @@
 // A local stand-in for the hosted search service: the subset of its HTTP API that the meilisearch
 // SDK uses here (health, indexes, settings, documents, search with filters and facets, tasks),
-// backed by in-memory MiniSearch indexes. Typo tolerance comes from MiniSearch's fuzzy matching.
+// backed by an in-memory index per index uid (search-engine.ts: MiniSearch's tokenizer and radix
+// tree, ranked by the service's default rules).
 import http from "node:http";
-import MiniSearch from "minisearch";
-
-type Doc = Record<string, unknown> & { id: string };
+import { type Doc, SearchEngine } from "./search-engine";
 
 interface Index {
   uid: string;
   primaryKey: string;
   docs: Map<string, Doc>;
   settings: { searchableAttributes: string[]; filterableAttributes: string[]; sortableAttributes: string[] };
-  mini: MiniSearch<Doc> | null;
+  engine: SearchEngine | null;
 }
 
 const now = () => new Date().toISOString();
@@ -41,27 +40,20 @@ export async function startSearchService({ port }: { port: number }) {
   const ensure = (uid: string, primaryKey = "id") => {
     let index = indexes.get(uid);
     if (!index) {
-      index = { uid, primaryKey, docs: new Map(), settings: { searchableAttributes: ["*"], filterableAttributes: [], sortableAttributes: [] }, mini: null };
+      index = { uid, primaryKey, docs: new Map(), settings: { searchableAttributes: ["*"], filterableAttributes: [], sortableAttributes: [] }, engine: null };
       indexes.set(uid, index);
     }
     return index;
   };
 
-  const miniFor = (index: Index) => {
-    if (index.mini) return index.mini;
+  const engineFor = (index: Index) => {
+    if (index.engine) return index.engine;
     const sample = index.docs.values().next().value as Doc | undefined;
     const fields = index.settings.searchableAttributes[0] === "*" || index.settings.searchableAttributes.length === 0
       ? Object.keys(sample ?? {}).filter((k) => k !== index.primaryKey)
       : index.settings.searchableAttributes;
-    const mini = new MiniSearch<Doc>({
-      idField: index.primaryKey, fields,
-      extractField: (doc, field) => { const v = doc[field]; return Array.isArray(v) ? v.join(" ") : v == null ? "" : String(v); },
-      // Like the service's attribute ranking rule: earlier searchable attributes weigh more.
-      searchOptions: { fuzzy: (term) => (term.length > 3 ? 0.25 : false), prefix: true, combineWith: "AND", boost: Object.fromEntries(fields.map((f, i) => [f, 2 ** Math.max(0, 4 - i)])) },
-    });
-    mini.addAll([...index.docs.values()]);
-    index.mini = mini;
-    return mini;
+    index.engine = new SearchEngine(index.docs.values(), fields);
+    return index.engine;
   };
 
   const server = http.createServer(async (req, res) => {
@@ -103,7 +95,7 @@ export async function startSearchService({ port }: { port: number }) {
       if (parts[2] === "settings" && req.method === "PATCH") {
         const index = ensure(uid);
         Object.assign(index.settings, body as object);
-        index.mini = null;
+        index.engine = null;
         return send(202, task(uid, "settingsUpdate"));
       }
       if (parts[2] === "documents" && parts[3] && req.method === "GET") {
@@ -116,14 +108,14 @@ export async function startSearchService({ port }: { port: number }) {
           const id = String(doc[index.primaryKey]);
           index.docs.set(id, req.method === "PUT" ? { ...(index.docs.get(id) ?? {}), ...doc } : doc);
         }
-        index.mini = null;
+        index.engine = null;
         return send(202, task(uid, "documentAdditionOrUpdate"));
       }
       if (parts[2] === "documents" && req.method === "DELETE") {
         const index = ensure(uid);
         if (parts[3]) index.docs.delete(parts[3]);
         else index.docs.clear();
-        index.mini = null;
+        index.engine = null;
         return send(202, task(uid, "documentDeletion"));
       }
       if (parts[2] === "search" && req.method === "POST") {
@@ -136,9 +128,7 @@ export async function startSearchService({ port }: { port: number }) {
           if (!index.settings.filterableAttributes.includes(attr)) return fail(400, "invalid_search_filter", `attribute ${attr} is not filterable`);
         }
         const matches = (doc: Doc) => conditions.every(([a, v]) => (Array.isArray(doc[a]) ? (doc[a] as unknown[]).map(String).includes(v) : String(doc[a]) === v));
-        const hits = q.trim()
-          ? miniFor(index).search(q).map((r) => index.docs.get(String(r.id))!).filter((d) => d && matches(d))
-          : [...index.docs.values()].filter(matches);
+        const hits = engineFor(index).search(q, matches, offset + limit);
         const facetDistribution: Record<string, Record<string, number>> = {};
         for (const f of facets) {
           const dist: Record<string, number> = {};
