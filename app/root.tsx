@@ -100,7 +100,8 @@ function SiteFooter() {
   return (
     <footer className="mx-auto max-w-5xl px-4 pb-8 pt-4 text-xs text-stone-600">
       Bayproof records what technicians report from real jobs. Follow the tool maker's instructions, local codes and
-      licensed practice; wear eye and hearing protection around air tools.
+      licensed practice; wear eye and hearing protection around air tools.{" "}
+      <Link to="/data" className="underline">Open data (CC BY 4.0)</Link>
     </footer>
   );
 }

@@ -4,10 +4,15 @@ import type { Database } from "./schema";
 
 export const DEFAULT_DATABASE_URL = "postgres://bayproof@127.0.0.1:54320/bayproof";
 
-export function createDb(connectionString: string, max = 10): Kysely<Database> {
+export function createPool(connectionString: string, max = 10): pg.Pool {
   const pool = new pg.Pool({ connectionString, max });
   // An idle client losing its connection (a database restart) must not take the process down;
   // the pool replaces it and the next query reports any real outage.
   pool.on("error", (error) => console.warn(`[db] idle connection lost: ${error.message}`));
+  return pool;
+}
+
+export function createDb(connection: string | pg.Pool, max = 10): Kysely<Database> {
+  const pool = typeof connection === "string" ? createPool(connection, max) : connection;
   return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
 }

@@ -37,6 +37,8 @@ export interface UsersTable {
   force_unit: ColumnType<"lbf" | "N", "lbf" | "N" | undefined, "lbf" | "N">;
   banned_at: Date | null;
   created_at: Timestamp;
+  /** The reporter's stable public id in the open feed (migration 2026-12-02T00.00). */
+  feed_pseudonym: Generated<string>;
 }
 
 export interface RolesTable {
@@ -196,6 +198,14 @@ export interface Database {
   report_claims: ReportClaimsTable;
   notices: NoticesTable;
   stats_cells: StatsCellsTable;
+  app_secrets: AppSecretsTable;
+}
+
+// The open feed (migration 2026-12-02T00.00); feed_rate_limits belongs to rate-limiter-flexible.
+export interface AppSecretsTable {
+  name: string;
+  value: string;
+  created_at: Timestamp;
 }
 
 export type User = Selectable<UsersTable>;

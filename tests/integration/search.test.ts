@@ -55,7 +55,10 @@ describe("the search pages", () => {
 
 describe("indexing after an accept", () => {
   it("puts a newly accepted report in the index through the worker", async () => {
-    const accepted = await db.selectFrom("reports").select("id").where("status", "=", "accepted").orderBy("accepted_at", "desc").executeTakeFirstOrThrow();
+    // The newest report accepted by a moderator's decision (the feed tests add accepted rows directly).
+    const accepted = await db.selectFrom("reports as r").select("r.id").where("r.status", "=", "accepted")
+      .where((eb) => eb.exists(eb.selectFrom("decisions as d").select("d.id").whereRef("d.report_id", "=", "r.id").where("d.action", "=", "accept")))
+      .orderBy("r.accepted_at", "desc").executeTakeFirstOrThrow();
     // Fresh accepts from the moderation tests enqueue indexing; the demo's own were indexed at start.
     const deadline = Date.now() + 15_000;
     let found = false;

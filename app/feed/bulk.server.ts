@@ -1,0 +1,87 @@
+// The bulk files: every accepted report read through a server-side cursor a batch at a time and
+// written as the client takes it (a pull stream), so memory stays flat at any table size.
+import { Readable } from "node:stream";
+import { createGzip } from "node:zlib";
+import { stringify } from "csv-stringify/sync";
+import type pg from "pg";
+import Cursor from "pg-cursor";
+import { db, pool } from "~/db.server";
+import { REPORT_FIELDS } from "./fields";
+import { bulkQuery } from "./queries.server";
+
+const BATCH = 2000;
+
+export type BulkFormat = "ndjson" | "csv";
+
+const CONTENT_TYPE: Record<BulkFormat, string> = {
+  ndjson: "application/x-ndjson; charset=utf-8",
+  csv: "text/csv; charset=utf-8; header=present",
+};
+
+/** RFC 4180 lines: CRLF after every record, fields quoted when they hold a comma, quote or line break. */
+function csvBatch(rows: Record<string, unknown>[], header: boolean) {
+  return stringify(rows, {
+    header,
+    columns: REPORT_FIELDS.map((f) => f.name),
+    record_delimiter: "\r\n",
+    cast: { object: (v) => JSON.stringify(v), boolean: (v) => (v ? "true" : "false") },
+  });
+}
+
+function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): ReadableStream<Uint8Array> {
+  let client: pg.PoolClient | null = null;
+  let cursor: Cursor | null = null;
+  let first = true;
+  const encoder = new TextEncoder();
+  const release = async () => {
+    const c = cursor;
+    const k = client;
+    cursor = null;
+    client = null;
+    if (c) await c.close().catch(() => {});
+    k?.release();
+  };
+  signal.addEventListener("abort", () => void release(), { once: true });
+  return new ReadableStream<Uint8Array>({
+    async start() {
+      client = await pool.connect();
+      const q = bulkQuery(db, origin, format === "ndjson" ? "json" : "columns");
+      cursor = client.query(new Cursor(q.sql, [...q.parameters]));
+    },
+    async pull(controller) {
+      if (!cursor) return controller.close();
+      try {
+        const rows = (await cursor.read(BATCH)) as Record<string, unknown>[];
+        if (format === "csv" && (rows.length > 0 || first)) controller.enqueue(encoder.encode(csvBatch(rows, first)));
+        else if (rows.length > 0) controller.enqueue(encoder.encode(rows.map((r) => r.line).join("\n") + "\n"));
+        first = false;
+        if (rows.length < BATCH) {
+          await release();
+          controller.close();
+        }
+      } catch (error) {
+        await release();
+        controller.error(error);
+      }
+    },
+    async cancel() {
+      await release();
+    },
+  }, { highWaterMark: 1 });
+}
+
+/** The whole file as a response; gzip-compressed here when the client accepts it. */
+export function bulkResponse(request: Request, format: BulkFormat, origin: string, day: string): Response {
+  let body = reportStream(format, origin, request.signal);
+  const headers: Record<string, string> = {
+    "Content-Type": CONTENT_TYPE[format],
+    "Content-Disposition": `attachment; filename="bayproof-reports-${day}.${format}"`,
+    "Cache-Control": "no-store",
+  };
+  if (/\bgzip\b/.test(request.headers.get("accept-encoding") ?? "")) {
+    body = Readable.toWeb(Readable.fromWeb(body as never).pipe(createGzip({ level: 4 }))) as unknown as ReadableStream<Uint8Array>;
+    headers["Content-Encoding"] = "gzip";
+    headers.Vary = "Accept-Encoding";
+  }
+  return new Response(body, { status: 200, headers });
+}

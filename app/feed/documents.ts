@@ -1,0 +1,170 @@
+// The feed described for machines: an OpenAPI 3.1 document and a Frictionless Data Package
+// descriptor of the bulk files, both made from fields.ts and schemas.ts.
+import { type Field, REPORT_FIELDS } from "./fields";
+import { componentSchema, SCHEMA_NAMES } from "./schemas";
+import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "./params";
+
+export const LICENCE = { name: "CC-BY-4.0", title: "Creative Commons Attribution 4.0 International", path: "https://creativecommons.org/licenses/by/4.0/" };
+export const FEED_VERSION = "1.0.0";
+
+export const citation = (origin: string, day: string) =>
+  `Bayproof contributors (${day.slice(0, 4)}). Bayproof open data: accepted air-tool job reports [data set], version ${FEED_VERSION}. ${origin}/data (retrieved ${day}). Licence CC BY 4.0.`;
+
+type Json = Record<string, unknown>;
+const ref = (name: string) => ({ $ref: `#/components/schemas/${name}` });
+const json = (schema: string, description: string) => ({ description, content: { "application/json": { schema: ref(schema) } } });
+const q = (name: string, description: string, schema: Json = { type: "string" }) => ({ name, in: "query", required: false, description, schema });
+const slugQ = (name: string, what: string) => q(name, `Only ${what} with this slug.`, { type: "string", pattern: "^[a-z0-9]+([-.][a-z0-9]+)*$" });
+
+const errors = {
+  "400": json("error", "A parameter could not be read; `error.parameter` names it."),
+  "401": json("error", "The API key is unknown or revoked (or, for bulk files, missing)."),
+  "429": {
+    ...json("error", "Too many requests; wait `Retry-After` seconds."),
+    headers: { "Retry-After": { schema: { type: "integer" } } },
+  },
+};
+const cached = (schema: string, description: string) => ({
+  "200": {
+    ...json(schema, description),
+    headers: {
+      ETag: { schema: { type: "string" } },
+      "RateLimit-Policy": { schema: { type: "string" }, description: 'e.g. `"anonymous";q=60;w=60`' },
+      RateLimit: { schema: { type: "string" }, description: 'e.g. `"anonymous";r=59;t=60`' },
+    },
+  },
+  "304": { description: "Not modified (If-None-Match matched the ETag)." },
+  ...errors,
+});
+
+function withLink(responses: ReturnType<typeof cached>) {
+  const link = { schema: { type: "string" }, description: '`<…>; rel="next"` when there is a next page' };
+  return { ...responses, "200": { ...responses["200"], headers: { ...responses["200"].headers, Link: link } } };
+}
+
+export function openApi(origin: string): Json {
+  return {
+    openapi: "3.1.0",
+    info: {
+      title: "Bayproof open data feed",
+      version: FEED_VERSION,
+      description: `Accepted reports of air tools on real repair jobs, the tool models and job types, and the computed stats. Units are SI. Anonymous clients may make ${LIMITS.anonymous.points} requests a minute, API keys ${LIMITS.key.points}. See ${origin}/data.`,
+      license: { name: LICENCE.title, identifier: LICENCE.name },
+    },
+    servers: [{ url: origin }],
+    security: [{}, { apiKey: [] }],
+    components: {
+      securitySchemes: { apiKey: { type: "http", scheme: "bearer", description: "An API key from your account page." } },
+      schemas: Object.fromEntries(SCHEMA_NAMES.map((n) => [n, componentSchema(n)])),
+    },
+    paths: {
+      "/api/v1/reports": {
+        get: {
+          summary: "Accepted reports, a page at a time",
+          description: "Ordered by (accepted_at, id). Follow `next_cursor` (or the Link rel=next header) until it is null; a walk covers the reports accepted up to its `as_of`.",
+          parameters: [
+            slugQ("model", "reports of the tool model"), slugQ("job", "reports of the job type"), slugQ("category", "reports in the tool category"),
+            q("accepted_since", "Accepted at or after this date or RFC 3339 date-time.", { type: "string" }),
+            q("accepted_until", "Accepted before this date or RFC 3339 date-time.", { type: "string" }),
+            q("limit", `Reports per page (default ${DEFAULT_LIMIT}).`, { type: "integer", minimum: 1, maximum: MAX_LIMIT, default: DEFAULT_LIMIT }),
+            q("cursor", "The next_cursor of the previous page; keep the other parameters the same."),
+          ],
+          responses: withLink(cached("report-page", "A page of reports")),
+        },
+      },
+      "/api/v1/reports/{id}": {
+        get: {
+          summary: "One accepted report",
+          parameters: [{ name: "id", in: "path", required: true, schema: { type: "integer", minimum: 1 } }],
+          responses: { ...cached("report", "The report"), "404": json("error", "No accepted report has this number.") },
+        },
+      },
+      "/api/v1/reports.ndjson": {
+        get: {
+          summary: "Every accepted report, one JSON object per line (API key needed)",
+          security: [{ apiKey: [] }],
+          responses: { "200": { description: "The file", content: { "application/x-ndjson": { schema: ref("report") } } }, ...errors },
+        },
+      },
+      "/api/v1/reports.csv": {
+        get: {
+          summary: "Every accepted report as CSV, RFC 4180 (API key needed)",
+          security: [{ apiKey: [] }],
+          responses: { "200": { description: "The file; columns as in the datapackage descriptor", content: { "text/csv": { schema: { type: "string" } } } }, ...errors },
+        },
+      },
+      "/api/v1/models": { get: { summary: "Tool models", parameters: [slugQ("category", "models in the tool category")], responses: cached("model-list", "Tool models") } },
+      "/api/v1/job-types": { get: { summary: "Job types", parameters: [slugQ("category", "job types of the tool category")], responses: cached("job-type-list", "Job types") } },
+      "/api/v1/stats": {
+        get: {
+          summary: "Stats cells",
+          parameters: [slugQ("model", "cells of the tool model"), slugQ("job", "cells of the job type"), slugQ("category", "cells in the tool category")],
+          responses: cached("stat-list", "Stats cells"),
+        },
+      },
+      "/api/v1/evidence/{id}": {
+        get: {
+          summary: "A published evidence file (redirects to it)",
+          parameters: [{ name: "id", in: "path", required: true, schema: { type: "integer", minimum: 1 } }],
+          responses: { "302": { description: "To a short-lived link to the file" }, "404": json("error", "No published file has this number.") },
+        },
+      },
+      "/api/v1/schema/{name}.json": {
+        get: {
+          summary: "JSON Schema (2020-12) of a record or response",
+          parameters: [{ name: "name", in: "path", required: true, schema: { type: "string", enum: SCHEMA_NAMES } }],
+          responses: { "200": { description: "The schema", content: { "application/schema+json": { schema: { type: "object" } } } } },
+        },
+      },
+      "/api/v1/openapi.json": { get: { summary: "This document", responses: { "200": { description: "OpenAPI 3.1", content: { "application/json": { schema: { type: "object" } } } } } } },
+      "/api/v1/datapackage.json": { get: { summary: "Data Package descriptor of the bulk files", responses: { "200": { description: "Frictionless Data Package", content: { "application/json": { schema: { type: "object" } } } } } } },
+    },
+  };
+}
+
+const tableType: Record<Field["type"], string> = {
+  integer: "integer", number: "number", string: "string", boolean: "boolean", datetime: "datetime", "string-array": "array", object: "object",
+};
+
+/** A Table Schema field; `unit` is our own property beside the standard ones. */
+export function tableField(f: Field): Json {
+  const constraints: Json = {};
+  if (!f.nullable) constraints.required = true;
+  if (f.enum) constraints.enum = [...f.enum];
+  if (f.minimum !== undefined) constraints.minimum = f.minimum;
+  if (f.maximum !== undefined) constraints.maximum = f.maximum;
+  if (f.pattern) constraints.pattern = f.pattern;
+  if (f.name === "id") constraints.unique = true;
+  return {
+    name: f.name, type: tableType[f.type], description: f.description,
+    ...(f.type === "datetime" ? { format: "any" } : {}),
+    ...(f.unit ? { unit: f.unit } : {}),
+    ...(Object.keys(constraints).length ? { constraints } : {}),
+  };
+}
+
+export function dataPackage(origin: string, day: string): Json {
+  const schema = { fields: REPORT_FIELDS.map(tableField), primaryKey: ["id"], missingValues: [""] };
+  return {
+    profile: "tabular-data-package",
+    name: "bayproof-reports",
+    title: "Bayproof: accepted air-tool job reports",
+    description: "Every report a moderator accepted: the tool, the job, the air supply at the tool (SI units), the outcome and the time it took. Reporters appear under stable pseudonyms. The bulk files need an API key (free, from an account page) sent as Authorization: Bearer <key>.",
+    version: FEED_VERSION,
+    homepage: `${origin}/data`,
+    created: `${day}T00:00:00Z`,
+    licenses: [LICENCE],
+    citation: citation(origin, day),
+    resources: [
+      {
+        profile: "tabular-data-resource", name: "reports-csv", path: `${origin}/api/v1/reports.csv`, format: "csv", mediatype: "text/csv", encoding: "utf-8",
+        dialect: { delimiter: ",", lineTerminator: "\r\n", quoteChar: "\"", doubleQuote: true, header: true },
+        schema,
+      },
+      {
+        profile: "data-resource", name: "reports-ndjson", path: `${origin}/api/v1/reports.ndjson`, format: "ndjson", mediatype: "application/x-ndjson", encoding: "utf-8",
+        schema,
+      },
+    ],
+  };
+}

@@ -1,0 +1,123 @@
+// The open feed's record types, field by field: the one description from which the JSON Schemas,
+// the OpenAPI document, the Data Package's Table Schemas, the CSV columns and the /data page's
+// dictionary are all made. Units are SI throughout.
+import { CORROSION_LEVELS, COUPLER_PROFILE_CODES, INLET_SOURCES, OUTCOMES, VEHICLE_CLASSES } from "~/reports/form-schema";
+
+export type FieldType = "integer" | "number" | "string" | "boolean" | "datetime" | "string-array" | "object";
+
+export interface Field {
+  name: string;
+  type: FieldType;
+  description: string;
+  nullable?: boolean;
+  /** SI unit symbol, where the value is a quantity. */
+  unit?: string;
+  enum?: readonly string[];
+  minimum?: number;
+  maximum?: number;
+  pattern?: string;
+  /** For "object" fields: their own fields. */
+  fields?: Field[];
+}
+
+export const SLUG_PATTERN = "^[a-z0-9]+([-.][a-z0-9]+)*$";
+const slug = (name: string, description: string): Field => ({ name, type: "string", pattern: SLUG_PATTERN, description });
+
+export const REPORT_FIELDS: Field[] = [
+  { name: "id", type: "integer", minimum: 1, description: "The report's number; stable, and the key of /api/v1/reports/{id}." },
+  slug("model", "Tool model slug (see /api/v1/models)."),
+  slug("maker", "Maker slug."),
+  slug("category", "Tool category slug."),
+  slug("job", "Job type slug (see /api/v1/job-types)."),
+  { name: "reporter", type: "string", pattern: "^rp_[0-9a-f]{16}$", description: "Pseudonymous reporter id: stable across reports of one person, unrelated to their account." },
+  { name: "accepted_at", type: "datetime", description: "When a moderator accepted the report (UTC, microseconds). With id, the feed's sort order." },
+  { name: "version", type: "integer", minimum: 1, description: "Which submitted version of the report was accepted." },
+  { name: "vehicle_class", type: "string", enum: VEHICLE_CLASSES, description: "Class of vehicle or machine worked on." },
+  { name: "component_age_years", type: "number", nullable: true, unit: "a", minimum: 0, maximum: 80, description: "Age of the part worked on, in years." },
+  { name: "corrosion_level", type: "string", enum: CORROSION_LEVELS, description: "Corrosion of the joint, as the reporter judged it." },
+  { name: "attachment", type: "string", nullable: true, description: "Bit or socket used, in the reporter's words." },
+  { name: "attachment_length_mm", type: "number", nullable: true, unit: "mm", minimum: 0, maximum: 1000, description: "Length of the bit or extension, in millimetres." },
+  { name: "regulator_kpa", type: "number", unit: "kPa", minimum: 0, maximum: 2000, description: "Regulator set pressure, gauge, in kilopascals." },
+  { name: "inlet_kpa", type: "number", unit: "kPa", minimum: 0, maximum: 2000, description: "Pressure at the tool inlet under load, gauge, in kilopascals." },
+  { name: "inlet_source", type: "string", enum: INLET_SOURCES, description: "How the inlet pressure was obtained." },
+  { name: "hose_id_mm", type: "number", unit: "mm", minimum: 4, maximum: 25, description: "Hose inside diameter, in millimetres." },
+  { name: "hose_length_m", type: "number", unit: "m", minimum: 0, maximum: 100, description: "Hose length, in metres." },
+  { name: "coupler_profile", type: "string", nullable: true, enum: COUPLER_PROFILE_CODES, description: "Quick-coupler profile on the line." },
+  { name: "coupler_count", type: "integer", minimum: 0, description: "Number of couplers between regulator and tool." },
+  { name: "compressor_lps", type: "number", nullable: true, unit: "L/s", minimum: 0, maximum: 500, description: "Compressor free-air delivery, in litres per second." },
+  { name: "tank_l", type: "number", nullable: true, unit: "L", minimum: 0, maximum: 5000, description: "Receiver (tank) volume, in litres." },
+  { name: "outcome", type: "string", enum: OUTCOMES, description: "How the job ended." },
+  { name: "time_to_result_s", type: "number", unit: "s", minimum: 1, maximum: 28800, description: "Time from first blow to the result, in seconds." },
+  { name: "attempts", type: "integer", minimum: 1, maximum: 50, description: "Separate attempts made." },
+  { name: "trigger_control", type: "integer", nullable: true, minimum: 1, maximum: 5, description: "Reporter's rating of trigger control, 1 (poor) to 5 (fine)." },
+  { name: "notes", type: "string", nullable: true, description: "The reporter's notes, as accepted." },
+  { name: "evidence_count", type: "integer", minimum: 0, description: "Video and photo files that came with the report." },
+  { name: "evidence_urls", type: "string-array", description: "Links to the evidence files the reporter chose to publish (each redirects to the file). In CSV, a JSON array." },
+];
+
+export const MODEL_FIELDS: Field[] = [
+  slug("slug", "The model's slug; its key."),
+  slug("maker", "Maker slug."),
+  { name: "maker_name", type: "string", description: "Maker name." },
+  slug("category", "Tool category slug."),
+  { name: "model_code", type: "string", description: "The maker's model code." },
+  { name: "name", type: "string", description: "The model's name." },
+  { name: "fitting", type: "string", enum: ["shank-0.401", "shank-0.498", "drive-1/4", "drive-3/8", "drive-1/2", "drive-3/4", "drive-1"], description: "Bit shank (inches) or square drive size." },
+  { name: "bore_mm", type: "number", nullable: true, unit: "mm", minimum: 0, description: "Piston bore, in millimetres." },
+  { name: "stroke_mm", type: "number", nullable: true, unit: "mm", minimum: 0, description: "Piston stroke, in millimetres." },
+  { name: "blows_per_minute", type: "number", nullable: true, unit: "1/min", minimum: 0, description: "Blow rate at rated pressure." },
+  { name: "free_speed_rpm", type: "number", nullable: true, unit: "1/min", minimum: 0, description: "Free speed at rated pressure." },
+  { name: "max_torque_nm", type: "number", nullable: true, unit: "N·m", minimum: 0, description: "Maker's maximum torque, in newton metres." },
+  { name: "weight_kg", type: "number", unit: "kg", minimum: 0, description: "Weight, in kilograms." },
+  { name: "length_mm", type: "number", unit: "mm", minimum: 0, description: "Overall length, in millimetres." },
+  { name: "street_price_cents", type: "integer", nullable: true, minimum: 0, description: "Typical street price in US cents (demo figures are invented)." },
+  { name: "air_inlet", type: "string", description: "Air inlet thread." },
+  { name: "rated_air_lps", type: "number", unit: "L/s", minimum: 0, description: "Rated air consumption, free air, in litres per second at 620.5 kPa (90 psi) inlet." },
+  { name: "max_inlet_kpa", type: "number", unit: "kPa", minimum: 0, description: "Maker's maximum inlet pressure, gauge, in kilopascals." },
+  { name: "measured_specs", type: "string-array", description: "Spec fields measured by Bayproof rather than taken from the maker's sheet." },
+  { name: "accepted_reports", type: "integer", minimum: 0, description: "Accepted reports of this model in the feed." },
+];
+
+export const JOB_TYPE_FIELDS: Field[] = [
+  slug("slug", "The job type's slug; its key."),
+  slug("category", "Tool category slug the job belongs to."),
+  { name: "name", type: "string", description: "The job's name." },
+  { name: "description", type: "string", description: "What the job is." },
+  { name: "seized", type: "boolean", description: "Whether the job is about freeing a seized part." },
+];
+
+const proportion = { type: "number" as const, minimum: 0, maximum: 1 };
+
+export const STAT_FIELDS: Field[] = [
+  slug("model", "Tool model slug."),
+  slug("job", "Job type slug."),
+  { name: "n", type: "integer", minimum: 1, description: "Accepted reports in the cell." },
+  { name: "successes", type: "integer", minimum: 0, description: "Reports with outcome freed." },
+  { name: "estimate", ...proportion, description: "Success rate, successes / n." },
+  { name: "lower", ...proportion, description: "Lower limit of the interval." },
+  { name: "upper", ...proportion, description: "Upper limit of the interval." },
+  { name: "method", type: "string", enum: ["wilson_score"], description: "Interval method." },
+  { name: "confidence", ...proportion, description: "Confidence level of the intervals." },
+  {
+    name: "pressure_adjusted", type: "object", nullable: true,
+    description: "Success predicted at the reference inlet pressure by a logistic fit on inlet pressure, where the data allow it; null otherwise (see pressure_adjusted_reason).",
+    fields: [
+      { name: "inlet_kpa", type: "number", unit: "kPa", description: "The reference inlet pressure (620.5 kPa, 90 psi)." },
+      { name: "estimate", ...proportion, description: "Predicted success at that pressure." },
+      { name: "lower", ...proportion, description: "Lower limit (Wald interval on the logit scale)." },
+      { name: "upper", ...proportion, description: "Upper limit." },
+      { name: "method", type: "string", enum: ["logistic_regression_wald"], description: "How it was computed." },
+    ],
+  },
+  { name: "pressure_adjusted_reason", type: "string", nullable: true, description: "Why there is no pressure-adjusted figure, when there is none." },
+  { name: "computed_at", type: "datetime", description: "When the cell was last computed (UTC)." },
+];
+
+export const RECORD_TYPES = {
+  report: { title: "Accepted report", fields: REPORT_FIELDS, key: "id" },
+  model: { title: "Tool model", fields: MODEL_FIELDS, key: "slug" },
+  "job-type": { title: "Job type", fields: JOB_TYPE_FIELDS, key: "slug" },
+  stat: { title: "Stats cell (one tool model on one job type)", fields: STAT_FIELDS, key: null },
+} as const;
+
+export type RecordType = keyof typeof RECORD_TYPES;

@@ -1,0 +1,81 @@
+// The feed's HTTP habits: JSON errors naming the parameter at fault, strict query parameters,
+// ETags with 304s, and the cache lifetimes of each kind of answer.
+import { createHash } from "node:crypto";
+import type { z } from "zod";
+
+export class FeedError extends Error {
+  constructor(readonly status: number, readonly code: string, message: string, readonly parameter?: string, readonly headers: Record<string, string> = {}) {
+    super(message);
+  }
+}
+
+export function errorResponse(e: FeedError): Response {
+  return Response.json(
+    { error: { code: e.code, message: e.message, ...(e.parameter ? { parameter: e.parameter } : {}) } },
+    { status: e.status, headers: { "Cache-Control": "no-store", ...e.headers } },
+  );
+}
+
+/** Runs a loader body, turning FeedErrors (thrown anywhere inside) into their JSON answers. */
+export async function answer(work: () => Promise<Response>): Promise<Response> {
+  try {
+    return await work();
+  } catch (error) {
+    if (error instanceof FeedError) return errorResponse(error);
+    throw error;
+  }
+}
+
+/**
+ * Reads the query string against `shape`: an unknown or repeated parameter and a value that
+ * does not parse are 400s naming the parameter — nothing is silently dropped.
+ */
+export function readParams<S extends Record<string, z.ZodType>>(url: URL, shape: S): { [K in keyof S]: z.output<S[K]> } {
+  const out: Record<string, unknown> = {};
+  const seen = new Set<string>();
+  for (const [name, value] of url.searchParams) {
+    if (!Object.hasOwn(shape, name)) {
+      const known = Object.keys(shape);
+      throw new FeedError(400, "unknown_parameter", `Unknown parameter "${name}"${known.length ? `; this endpoint takes ${known.join(", ")}` : "; this endpoint takes none"}.`, name);
+    }
+    if (seen.has(name)) throw new FeedError(400, "repeated_parameter", `Give "${name}" once.`, name);
+    seen.add(name);
+  }
+  for (const [name, schema] of Object.entries(shape)) {
+    const raw = url.searchParams.get(name) ?? undefined;
+    const parsed = schema.safeParse(raw);
+    if (!parsed.success) {
+      const why = parsed.error.issues[0]?.message ?? "cannot be read";
+      throw new FeedError(400, "invalid_parameter", `"${name}" ${why}.`, name);
+    }
+    out[name] = parsed.data;
+  }
+  return out as { [K in keyof S]: z.output<S[K]> };
+}
+
+export const CACHE = {
+  /** Lists that grow as reports are accepted. */
+  live: "public, max-age=60",
+  /** One accepted report, a model, a job type: they change rarely. */
+  record: "public, max-age=300",
+  /** Schemas and documents describing the feed. */
+  document: "public, max-age=3600",
+} as const;
+
+const etagOf = (body: string) => `"${createHash("sha256").update(body).digest("base64url").slice(0, 32)}"`;
+
+/** True when If-None-Match names `etag` (weak comparison, as RFC 9110 §13.1.2 asks for GET). */
+export function matchesIfNoneMatch(header: string | null, etag: string) {
+  if (!header) return false;
+  if (header.trim() === "*") return true;
+  return header.split(",").map((t) => t.trim().replace(/^W\//, "")).includes(etag);
+}
+
+/** A JSON answer with a strong ETag over its exact bytes, or a 304 when the client has them. */
+export function jsonResponse(request: Request, value: unknown, cacheControl: string, headers: Record<string, string> = {}): Response {
+  const body = JSON.stringify(value);
+  const etag = etagOf(body);
+  const common = { ETag: etag, "Cache-Control": cacheControl, ...headers };
+  if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag)) return new Response(null, { status: 304, headers: common });
+  return new Response(body, { status: 200, headers: { "Content-Type": "application/json; charset=utf-8", ...common } });
+}

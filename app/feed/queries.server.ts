@@ -1,0 +1,169 @@
+// The feed's reads. A report record is built by PostgreSQL itself (json_build_object over the
+// columns named in fields.ts), so pages, single records and the bulk files carry the same bytes
+// for the same report and the bulk dump needs no per-row work in JavaScript.
+import { type Kysely, type RawBuilder, sql } from "kysely";
+import type { Database } from "../../db/schema";
+import { REFERENCE_INLET_KPA } from "~/stats/cells";
+import { REPORT_FIELDS } from "./fields";
+import { FeedError } from "./http.server";
+
+type Db = Kysely<Database>;
+
+const iso = (column: RawBuilder<unknown>) => sql`to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
+
+/** The SQL for each report field; every other field is the reports column of the same name. */
+function reportExpressions(): Record<string, RawBuilder<unknown>> {
+  const special: Record<string, RawBuilder<unknown>> = {
+    model: sql`m.slug`,
+    maker: sql`mk.slug`,
+    category: sql`c.slug`,
+    job: sql`j.slug`,
+    reporter: sql`u.feed_pseudonym`,
+    accepted_at: iso(sql`r.accepted_at`),
+    evidence_count: sql`coalesce(ev.n, 0)::int`,
+    evidence_urls: sql`coalesce(ev.urls, '{}'::text[])`,
+  };
+  return Object.fromEntries(REPORT_FIELDS.map((f) => [f.name, special[f.name] ?? sql.ref(`r.${f.name}`)]));
+}
+
+const reportFrom = (origin: string) => sql`
+  from reports r
+  join tool_models m on m.id = r.tool_model_id
+  join makers mk on mk.id = m.maker_id
+  join tool_categories c on c.id = r.category_id
+  join job_types j on j.id = r.job_type_id
+  join users u on u.id = r.reporter_id
+  left join lateral (
+    select count(*) as n,
+      array_agg(${origin + "/api/v1/evidence/"} || e.id order by e.id) filter (where e.is_public) as urls
+    from evidence e where e.report_id = r.id and e.status in ('uploaded', 'verified')
+  ) ev on true`;
+
+/** json_build_object('id', r.id, 'model', m.slug, …) in the order of fields.ts. */
+function reportJson() {
+  const exprs = reportExpressions();
+  return sql`json_build_object(${sql.join(REPORT_FIELDS.map((f) => sql`${sql.lit(f.name)}, ${exprs[f.name]!}`))})`;
+}
+
+/** The same fields as plain columns, for the CSV file. */
+function reportColumns() {
+  const exprs = reportExpressions();
+  return sql.join(REPORT_FIELDS.map((f) => sql`${exprs[f.name]!} as ${sql.id(f.name)}`));
+}
+
+export interface ReportFilters {
+  model?: string;
+  job?: string;
+  category?: string;
+  accepted_since?: Date;
+  accepted_until?: Date;
+}
+
+/** Refuses a filter naming a model, job type or category that does not exist (400, naming it). */
+export async function checkFilterValues(db: Db, f: Pick<ReportFilters, "model" | "job" | "category">) {
+  const checks = [
+    ["model", "tool_models", "tool model"],
+    ["job", "job_types", "job type"],
+    ["category", "tool_categories", "tool category"],
+  ] as const;
+  for (const [param, table, label] of checks) {
+    const value = f[param];
+    if (value === undefined) continue;
+    const found = await db.selectFrom(table).select("id").where("slug", "=", value).executeTakeFirst();
+    if (!found) throw new FeedError(400, "unknown_value", `"${param}": no ${label} has the slug "${value}" (see /api/v1/${param === "job" ? "job-types" : "models"}).`, param);
+  }
+}
+
+const reportWhere = (f: ReportFilters) => sql.join([
+  sql`r.status = 'accepted'`,
+  ...(f.model ? [sql`m.slug = ${f.model}`] : []),
+  ...(f.job ? [sql`j.slug = ${f.job}`] : []),
+  ...(f.category ? [sql`c.slug = ${f.category}`] : []),
+  ...(f.accepted_since ? [sql`r.accepted_at >= ${f.accepted_since}`] : []),
+  ...(f.accepted_until ? [sql`r.accepted_at < ${f.accepted_until}`] : []),
+], sql` and `);
+
+/** Microseconds since 1970 as timestamptz, exactly (no float on the way). */
+const fromMicros = (micros: string) => sql`(timestamptz 'epoch' + ${micros}::bigint * interval '1 microsecond')`;
+
+/** Reports accepted this long ago are safe to page over: any transaction accepting one has ended. */
+const SETTLE = "5 seconds";
+
+/** The horizon of a new walk: the newest accepted time that has settled, in microseconds. */
+export async function newHorizon(db: Db): Promise<string> {
+  const r = await sql<{ micros: string }>`
+    select (extract(epoch from coalesce(
+      (select max(accepted_at) from reports where status = 'accepted' and accepted_at <= now() - ${SETTLE}::interval),
+      now() - ${SETTLE}::interval)) * 1000000)::bigint::text as micros`.execute(db);
+  return r.rows[0]!.micros;
+}
+
+export const microsToIso = (micros: string) => {
+  const ms = BigInt(micros) / 1000n;
+  const rest = (BigInt(micros) % 1000n).toString().padStart(3, "0");
+  return new Date(Number(ms)).toISOString().replace("Z", `${rest}Z`);
+};
+
+export async function reportPage(db: Db, origin: string, f: ReportFilters, limit: number, asOfMicros: string, after?: { micros: string; id: number }) {
+  const rows = await sql<{ record: Record<string, unknown>; micros: string; id: number }>`
+    select ${reportJson()} as record, (extract(epoch from r.accepted_at) * 1000000)::bigint::text as micros, r.id
+    ${reportFrom(origin)}
+    where ${reportWhere(f)} and r.accepted_at <= ${fromMicros(asOfMicros)}
+      ${after ? sql`and (r.accepted_at, r.id) > (${fromMicros(after.micros)}, ${after.id})` : sql``}
+    order by r.accepted_at, r.id
+    limit ${limit + 1}`.execute(db);
+  const more = rows.rows.length > limit;
+  const page = rows.rows.slice(0, limit);
+  const last = page.at(-1);
+  return { records: page.map((r) => r.record), next: more && last ? { micros: last.micros, id: last.id } : null };
+}
+
+export async function reportById(db: Db, origin: string, id: number) {
+  const r = await sql<{ record: Record<string, unknown> }>`
+    select ${reportJson()} as record ${reportFrom(origin)} where r.status = 'accepted' and r.id = ${id}`.execute(db);
+  return r.rows[0]?.record ?? null;
+}
+
+/** The bulk files' query: every accepted report in feed order, as one JSON text or as columns. */
+export function bulkQuery(db: Db, origin: string, shape: "json" | "columns") {
+  const select = shape === "json" ? sql`${reportJson()}::text as line` : reportColumns();
+  return sql`select ${select} ${reportFrom(origin)} where r.status = 'accepted' order by r.accepted_at, r.id`.compile(db);
+}
+
+export async function modelRecords(db: Db, category?: string) {
+  const rows = await db.selectFrom("tool_models as m").innerJoin("makers as mk", "mk.id", "m.maker_id").innerJoin("tool_categories as c", "c.id", "m.category_id")
+    .leftJoin(db.selectFrom("stats_cells").select(["tool_model_id", sql<number>`sum(n)::int`.as("n")]).groupBy("tool_model_id").as("s"), "s.tool_model_id", "m.id")
+    .select(["m.slug", "mk.slug as maker", "mk.name as maker_name", "c.slug as category", "m.model_code", "m.name", "m.fitting", "m.bore_mm", "m.stroke_mm",
+      "m.blows_per_minute", "m.free_speed_rpm", "m.max_torque_nm", "m.weight_kg", "m.length_mm", "m.street_price_cents", "m.air_inlet", "m.rated_air_lps",
+      "m.max_inlet_kpa", "m.measured_specs", sql<number>`coalesce(s.n, 0)`.as("accepted_reports")])
+    .$if(!!category, (q) => q.where("c.slug", "=", category!))
+    .orderBy("m.slug").execute();
+  return rows;
+}
+
+export async function jobTypeRecords(db: Db, category?: string) {
+  return db.selectFrom("job_types as j").innerJoin("tool_categories as c", "c.id", "j.category_id")
+    .select(["j.slug", "c.slug as category", "j.name", "j.description", "j.seized"])
+    .$if(!!category, (q) => q.where("c.slug", "=", category!))
+    .orderBy("j.slug").execute();
+}
+
+export async function statRecords(db: Db, f: Pick<ReportFilters, "model" | "job" | "category">) {
+  const rows = await db.selectFrom("stats_cells as s").innerJoin("tool_models as m", "m.id", "s.tool_model_id")
+    .innerJoin("job_types as j", "j.id", "s.job_type_id").innerJoin("tool_categories as c", "c.id", "j.category_id")
+    .select(["m.slug as model", "j.slug as job", "s.n", "s.successes", "s.estimate", "s.lower", "s.upper", "s.confidence",
+      "s.adj_estimate", "s.adj_lower", "s.adj_upper", "s.adj_reason", "s.computed_at"])
+    .$if(!!f.model, (q) => q.where("m.slug", "=", f.model!))
+    .$if(!!f.job, (q) => q.where("j.slug", "=", f.job!))
+    .$if(!!f.category, (q) => q.where("c.slug", "=", f.category!))
+    .orderBy("m.slug").orderBy("j.slug").execute();
+  return rows.map((s) => ({
+    model: s.model, job: s.job, n: s.n, successes: s.successes, estimate: s.estimate, lower: s.lower, upper: s.upper,
+    method: "wilson_score", confidence: s.confidence,
+    pressure_adjusted: s.adj_estimate == null || s.adj_lower == null || s.adj_upper == null ? null : {
+      inlet_kpa: REFERENCE_INLET_KPA, estimate: s.adj_estimate, lower: s.adj_lower, upper: s.adj_upper, method: "logistic_regression_wald",
+    },
+    pressure_adjusted_reason: s.adj_estimate == null ? (s.adj_reason ?? "not enough reports or pressure spread") : null,
+    computed_at: new Date(s.computed_at).toISOString(),
+  }));
+}

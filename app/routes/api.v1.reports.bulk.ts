@@ -1,0 +1,20 @@
+import { config } from "~/config.server";
+import { bulkResponse } from "~/feed/bulk.server";
+import { callerContext } from "~/feed/context";
+import { answer, FeedError, readParams } from "~/feed/http.server";
+import type { Route } from "./+types/api.v1.reports.bulk";
+
+// Every accepted report in one file (reports.ndjson or reports.csv), streamed. Bulk files are
+// for API keys: they are free on any account, and keep one client from tying up the database.
+export async function loader({ request, context }: Route.LoaderArgs) {
+  return answer(async () => {
+    const url = new URL(request.url);
+    readParams(url, {});
+    if (context.get(callerContext)?.tier !== "key") {
+      throw new FeedError(401, "api_key_required", "The bulk files need an API key: sign in, create one on your account page, and send it as \"Authorization: Bearer <key>\".",
+        undefined, { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' });
+    }
+    const format = url.pathname.endsWith(".csv") ? "csv" : "ndjson";
+    return bulkResponse(request, format, config.appOrigin, new Date().toISOString().slice(0, 10));
+  });
+}

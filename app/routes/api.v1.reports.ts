@@ -1,0 +1,41 @@
+import { config } from "~/config.server";
+import { db } from "~/db.server";
+import { decodeCursor, encodeCursor, filtersDigest } from "~/feed/cursor.server";
+import { answer, CACHE, FeedError, jsonResponse, readParams } from "~/feed/http.server";
+import { cursorParam, instantParam, limitParam, slugParam } from "~/feed/params";
+import { checkFilterValues, microsToIso, newHorizon, reportPage } from "~/feed/queries.server";
+import type { Route } from "./+types/api.v1.reports";
+
+const params = {
+  model: slugParam, job: slugParam, category: slugParam,
+  accepted_since: instantParam, accepted_until: instantParam,
+  limit: limitParam, cursor: cursorParam,
+};
+
+// Accepted reports, oldest accepted first, a page at a time. The first page fixes the walk's
+// horizon; its cursors carry it, so a walk sees every report once while new ones are accepted.
+export async function loader({ request }: Route.LoaderArgs) {
+  return answer(async () => {
+    const url = new URL(request.url);
+    const { limit, cursor, ...filters } = readParams(url, params);
+    if (filters.accepted_since && filters.accepted_until && filters.accepted_since >= filters.accepted_until) {
+      throw new FeedError(400, "invalid_parameter", `"accepted_until" must be later than "accepted_since".`, "accepted_until");
+    }
+    await checkFilterValues(db, filters);
+    const digest = filtersDigest({ ...filters, accepted_since: filters.accepted_since?.toISOString(), accepted_until: filters.accepted_until?.toISOString() });
+    const state = cursor ? await decodeCursor(db, cursor, digest) : null;
+    const asOf = state?.asOfMicros ?? (await newHorizon(db));
+    const page = await reportPage(db, config.appOrigin, filters, limit, asOf, state ? { micros: state.afterMicros, id: state.afterId } : undefined);
+    const nextCursor = page.next
+      ? await encodeCursor(db, { afterMicros: page.next.micros, afterId: page.next.id, asOfMicros: asOf, filters: digest })
+      : null;
+    const headers: Record<string, string> = {};
+    if (nextCursor) {
+      const next = new URL(`${config.appOrigin}/api/v1/reports`);
+      for (const [k, v] of url.searchParams) if (k !== "cursor") next.searchParams.set(k, v);
+      next.searchParams.set("cursor", nextCursor);
+      headers.Link = `<${next.toString()}>; rel="next"`;
+    }
+    return jsonResponse(request, { data: page.records, next_cursor: nextCursor, as_of: microsToIso(asOf) }, CACHE.live, headers);
+  });
+}
