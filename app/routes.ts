@@ -29,6 +29,7 @@ export default [
   route("api/models/suggest", "routes/api.models.suggest.ts"),
   route("api/reports/:id/evidence", "routes/api.reports.$id.evidence.ts"),
   route("api/evidence/:id/complete", "routes/api.evidence.$id.complete.ts"),
+  route("api/evidence/:id/publish", "routes/api.evidence.$id.publish.ts"),
   route("api/v1", "routes/api.v1.ts", [
     index("routes/api.v1._index.ts"),
     route("reports", "routes/api.v1.reports.ts"),

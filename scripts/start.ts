@@ -23,7 +23,7 @@ if (build.status !== 0) {
 
 const host = process.env.HOST ?? "127.0.0.1";
 const port = process.env.PORT ?? "3000";
-server = spawn(path.join(root, "node_modules/.bin/tsx"), ["server.ts"], {
+server = spawn(process.execPath, ["server.js"], {
   cwd: root,
   stdio: ["ignore", "inherit", "inherit"],
   env: { ...process.env, ...services.env, HOST: host, PORT: port, NODE_ENV: "production" },

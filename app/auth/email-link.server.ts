@@ -15,7 +15,7 @@ export const MAX_PER_CLIENT = 10;
 
 /**
  * Who is asking, for rate limits. Behind a trusted load balancer the first X-Forwarded-For hop;
- * otherwise the socket address server.ts passes on. Only the Vite dev server lacks both, and
+ * otherwise the socket address server.js passes on. Only the Vite dev server lacks both, and
  * there clients are told apart by their user agent.
  */
 export function clientKey(request: Request): string {

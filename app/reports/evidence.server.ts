@@ -60,6 +60,19 @@ export async function completeUpload(db: Db, userId: number, evidenceId: number)
 }
 
 /**
+ * Publishes one of the reporter's own files with the open data (or takes it back). Only the
+ * reporter decides, at any time; the feed links a file only while it is published.
+ */
+export async function setEvidencePublic(db: Db, userId: number, evidenceId: number, isPublic: boolean) {
+  const r = await db.updateTable("evidence").set({ is_public: isPublic })
+    .where("id", "=", evidenceId).where("status", "in", ["uploaded", "verified"])
+    .where("report_id", "in", db.selectFrom("reports").select("id").where("reporter_id", "=", userId))
+    .executeTakeFirst();
+  if (r.numUpdatedRows === 0n) throw new EvidenceError("No such checked file among yours", 404);
+  return { id: evidenceId, isPublic };
+}
+
+/**
  * Removes objects that never became part of a submitted report: uploads left pending, and files of
  * drafts abandoned, older than `olderThanHours`. Run by the background worker.
  */

@@ -42,9 +42,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     tool = model ? { slug: model.slug, label: own.modelLabel, categorySlug: "", action: model.action, maxInletKpa: model.max_inlet_kpa } : null;
     reportId = own.report.id;
     status = own.report.status;
-    evidence = (await db.selectFrom("evidence").select(["id", "kind", "content_type", "size_bytes", "status"])
+    evidence = (await db.selectFrom("evidence").select(["id", "kind", "content_type", "size_bytes", "status", "is_public"])
       .where("report_id", "=", reportId).where("status", "!=", "pending").execute())
-      .map((e) => ({ id: e.id, kind: e.kind, contentType: e.content_type, size: e.size_bytes == null ? null : Number(e.size_bytes), status: e.status }));
+      .map((e) => ({ id: e.id, kind: e.kind, contentType: e.content_type, size: e.size_bytes == null ? null : Number(e.size_bytes), status: e.status, isPublic: e.is_public }));
   }
   const [jobs, supplies] = await Promise.all([jobTypesByCategory(db), recentSupplies(db, user.id)]);
   if (tool && params.id !== undefined) {

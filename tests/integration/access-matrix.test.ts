@@ -44,6 +44,10 @@ const matrix: [string, string, (() => Record<string, string>) | null, Record<Who
   ["GET", "/", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/models", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/sign-in", null, { visitor: 200, reporter: 302, moderator: 302, admin: 302 }],
+  ["POST", "/api/evidence/1/publish", () => ({}), { visitor: 401, reporter: 400, moderator: 400, admin: 400 }],
+  ["GET", "/data", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
+  ["GET", "/api/v1/job-types", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
+  ["POST", "/api/v1/job-types", () => ({}), { visitor: 405, reporter: 405, moderator: 405, admin: 405 }],
 ];
 
 describe("access by role", () => {

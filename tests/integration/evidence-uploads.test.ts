@@ -7,7 +7,7 @@ import { testDb } from "../support/db";
 import { fakeExecutable, tinyMp4, tinyPng } from "../support/files";
 import { Browserish, signedInAs } from "../support/http";
 import { validReport } from "../support/reports";
-import { complete, newDraft, presign, upload } from "../support/evidence";
+import { complete, newDraft, presign, publish, upload } from "../support/evidence";
 
 const db = testDb();
 const { endpoint, bucket } = inject("s3");
@@ -84,6 +84,22 @@ describe("the completion check", () => {
     const signed = await (await presign(owner, draftId, { type: "video/mp4", size: 100 })).json();
     expect((await complete(owner, signed.evidenceId)).status).toBe(409);
     expect((await complete(stranger, signed.evidenceId)).status).toBe(404);
+  });
+});
+
+describe("publishing a file with the open data", () => {
+  it("is off by default and only the reporter can change it", async () => {
+    const { evidenceId } = await upload(owner, draftId, tinyPng(), "image/png");
+    const isPublic = async () => (await db.selectFrom("evidence").select("is_public").where("id", "=", evidenceId).executeTakeFirstOrThrow()).is_public;
+    expect(await isPublic()).toBe(false);
+    expect((await publish(owner, evidenceId, { public: true })).status).toBe(200);
+    expect(await isPublic()).toBe(true);
+    expect((await publish(stranger, evidenceId, { public: false })).status).toBe(404);
+    expect((await publish(new Browserish(), evidenceId, { public: false })).status).toBe(401);
+    expect((await publish(owner, evidenceId, { public: "yes" })).status).toBe(400);
+    expect(await isPublic()).toBe(true);
+    expect((await publish(owner, evidenceId, { public: false })).status).toBe(200);
+    expect(await isPublic()).toBe(false);
   });
 });
 

@@ -18,6 +18,14 @@ export function complete(client: Browserish, evidenceId: number) {
   });
 }
 
+export function publish(client: Browserish, evidenceId: number, body: unknown) {
+  return fetch(new URL(`/api/evidence/${evidenceId}/publish`, client.origin), {
+    method: "POST",
+    headers: { cookie: cookie(client), origin: client.origin, "content-type": "application/json" },
+    body: JSON.stringify(body),
+  });
+}
+
 export async function upload(client: Browserish, reportId: number, bytes: Buffer, claimedType: string) {
   const signed = await presign(client, reportId, { type: claimedType, size: bytes.length });
   if (signed.status !== 200) throw new Error(`presign answered ${signed.status}`);

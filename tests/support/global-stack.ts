@@ -1,6 +1,6 @@
 // The whole stack for integration and end-to-end tests, started once per run: a throwaway
 // PostgreSQL with migrations and the demo scenario, the local fakes on free ports, a production
-// build of the app, and server.ts on a free loopback port — the path `npm start` takes.
+// build of the app, and server.js on a free loopback port — the path `npm start` takes.
 // A run of only the unit project starts nothing.
 import { type ChildProcess, spawn, spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
@@ -52,7 +52,7 @@ export default async function setup(project: TestProject) {
     }
     const build = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], { cwd: root, encoding: "utf8" });
     if (build.status !== 0) throw new Error(`react-router build failed:\n${build.stdout}\n${build.stderr}`);
-    const server = spawn(path.join(root, "node_modules/.bin/tsx"), ["server.ts"], {
+    const server = spawn(process.execPath, ["server.js"], {
       cwd: root,
       env: {
         ...process.env, ...fakes.env, DATABASE_URL: database.url, HOST: "127.0.0.1", PORT: String(port),

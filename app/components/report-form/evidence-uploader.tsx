@@ -13,6 +13,8 @@ export interface EvidenceItem {
   contentType: string | null;
   size: number | null;
   status: string;
+  /** Published with the open data (the feed links it). */
+  isPublic: boolean;
 }
 
 export function EvidenceUploader({ reportId, initial }: { reportId: number | null; initial: EvidenceItem[] }) {
@@ -62,7 +64,7 @@ export function EvidenceUploader({ reportId, initial }: { reportId: number | nul
           u.info(body.error, "error", 8000);
           return;
         }
-        setItems((list) => [...list, { id: body.id, kind: body.kind, contentType: body.contentType, size: body.size, status: "uploaded" }]);
+        setItems((list) => [...list, { id: body.id, kind: body.kind, contentType: body.contentType, size: body.size, status: "uploaded", isPublic: false }]);
       });
       u.on("upload-error", (file, error) => setProblems((p) => [...p, `${file?.name ?? "A file"}: ${error.message}`]));
       instance = u;
@@ -78,10 +80,17 @@ export function EvidenceUploader({ reportId, initial }: { reportId: number | nul
   return (
     <div className="space-y-3" data-testid="evidence">
       {items.length > 0 && (
+        <p className="text-xs text-stone-600">
+          Files you publish are linked from Bayproof's open data (CC BY 4.0) once the report is accepted. Publish only what shows
+          no faces, number plates or customer details.
+        </p>
+      )}
+      {items.length > 0 && (
         <ul className="space-y-1 text-sm" aria-label="Attached evidence">
           {items.map((e) => (
-            <li key={e.id} className="rounded bg-bay-100 px-3 py-2">
-              ✓ {e.kind === "video" ? "Video" : "Photo"} ({e.contentType}, {e.size ? `${(e.size / 1024 / 1024).toFixed(1)} MB` : "size unknown"}) — checked
+            <li key={e.id} className="flex flex-wrap items-center justify-between gap-2 rounded bg-bay-100 px-3 py-2">
+              <span>✓ {e.kind === "video" ? "Video" : "Photo"} ({e.contentType}, {e.size ? `${(e.size / 1024 / 1024).toFixed(1)} MB` : "size unknown"}) — checked</span>
+              <PublishToggle item={e} onChange={(isPublic) => setItems((list) => list.map((x) => (x.id === e.id ? { ...x, isPublic } : x)))} onProblem={(p) => setProblems((ps) => [...ps, p])} />
             </li>
           ))}
         </ul>
@@ -98,5 +107,37 @@ export function EvidenceUploader({ reportId, initial }: { reportId: number | nul
         <p className="text-sm text-stone-600">Loading the uploader…</p>
       )}
     </div>
+  );
+}
+
+/**
+ * Whether the file goes out with the open data once the report is accepted (CC BY 4.0). Off by
+ * default: faces, plates and shop names may be in the picture.
+ */
+function PublishToggle({ item, onChange, onProblem }: { item: EvidenceItem; onChange: (isPublic: boolean) => void; onProblem: (message: string) => void }) {
+  const [busy, setBusy] = useState(false);
+  return (
+    <label className="flex items-center gap-2 text-sm">
+      <input
+        type="checkbox"
+        className="h-5 w-5"
+        checked={item.isPublic}
+        disabled={busy}
+        onChange={async (event) => {
+          const wanted = event.currentTarget.checked;
+          setBusy(true);
+          try {
+            const res = await fetch(`/api/evidence/${item.id}/publish`, {
+              method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ public: wanted }),
+            });
+            if (res.ok) onChange(wanted);
+            else onProblem((await res.json().catch(() => ({}))).error ?? "Could not change whether the file is published");
+          } finally {
+            setBusy(false);
+          }
+        }}
+      />
+      Publish with the open data
+    </label>
   );
 }
