@@ -51,12 +51,17 @@ function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): 
   let client: pg.PoolClient | null = null;
   let cursor: Cursor | null = null;
   let first = true;
+  // The next batch is asked for as soon as one arrives, so PostgreSQL works on it while this one
+  // is written out: two batches at most are held.
+  let next: Promise<Record<string, unknown>[]> | null = null;
   const encoder = new TextEncoder();
   const release = async () => {
     const c = cursor;
     const k = client;
     cursor = null;
     client = null;
+    await next?.catch(() => {});
+    next = null;
     if (c) await c.close().catch(() => {});
     k?.release();
   };
@@ -70,7 +75,9 @@ function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): 
     async pull(controller) {
       if (!cursor) return controller.close();
       try {
-        const rows = (await cursor.read(BATCH)) as Record<string, unknown>[];
+        const rows = await (next ?? (cursor.read(BATCH) as Promise<Record<string, unknown>[]>));
+        next = rows.length === BATCH ? (cursor.read(BATCH) as Promise<Record<string, unknown>[]>) : null;
+        next?.catch(() => {});
         if (format === "csv") {
           if (rows.length > 0 || first) for (const piece of pieces(rows, (r) => csvBatch([r], false), first ? csvBatch([], true) : "")) controller.enqueue(encoder.encode(piece));
         } else {

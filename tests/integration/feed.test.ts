@@ -241,3 +241,51 @@ describe("bad input is a 400 naming the parameter", () => {
     expect((await json(`/api/v1/reports?limit=7&job=ball-joint-separation&cursor=${page.next_cursor}`)).data).toHaveLength(7);
   });
 });
+
+describe("documentation", () => {
+  it("the OpenAPI 3.1 document lists every endpoint, and its component schemas describe the answers", async () => {
+    const doc = await json("/api/v1/openapi.json");
+    expect(doc.openapi).toBe("3.1.0");
+    expect(doc.info.license.identifier).toBe("CC-BY-4.0");
+    const Ajv2020 = (await import("ajv/dist/2020.js")).default;
+    const ajv = new Ajv2020({ strict: false });
+    (await import("ajv-formats")).default(ajv);
+    ajv.addSchema(doc, "openapi");
+    const answers: Record<string, string> = {
+      "/api/v1/reports": "report-page", "/api/v1/models": "model-list", "/api/v1/job-types": "job-type-list", "/api/v1/stats": "stat-list",
+    };
+    for (const path of Object.keys(doc.paths)) {
+      if (path.includes("{")) continue;
+      const res = await get(path);
+      expect([200, 302], path).toContain(res.status);
+      const component = answers[path];
+      if (component) {
+        const validate = ajv.getSchema(`openapi#/components/schemas/${component}`)!;
+        expect(validate(await res.json()), `${path} ${JSON.stringify(validate.errors)}`).toBe(true);
+      } else await res.body?.cancel();
+    }
+  });
+
+  it("the Data Package describes the bulk files: their columns, types, units and constraints", async () => {
+    const pkg = await json("/api/v1/datapackage.json");
+    expect(pkg.licenses[0]).toMatchObject({ name: "CC-BY-4.0" });
+    const csvResource = pkg.resources.find((r: { format: string }) => r.format === "csv");
+    const header = (await (await get("/api/v1/reports.csv")).text()).split("\r\n")[0]!.split(",");
+    expect(csvResource.schema.fields.map((f: { name: string }) => f.name)).toEqual(header);
+    expect(csvResource.dialect.lineTerminator).toBe("\r\n");
+    const TABLE_TYPES = ["string", "number", "integer", "boolean", "datetime", "array", "object"];
+    for (const f of csvResource.schema.fields) expect(TABLE_TYPES).toContain(f.type);
+    const inlet = csvResource.schema.fields.find((f: { name: string }) => f.name === "inlet_kpa");
+    expect(inlet).toMatchObject({ type: "number", unit: "kPa", constraints: { required: true, minimum: 0, maximum: 2000 } });
+    expect(csvResource.schema.primaryKey).toEqual(["id"]);
+  });
+
+  it("the /data page has the dictionary (SI units per field), curl examples, the licence and a citation", async () => {
+    const res = await get("/data");
+    expect(res.status).toBe(200);
+    const html = await res.text();
+    for (const text of ["Data dictionary", "SI units", "CC BY 4.0", "curl -s", "Cite it as", "inlet_kpa", "kPa", "evidence_urls", "pressure_adjusted.estimate", "rp_"]) {
+      expect(html, text).toContain(text);
+    }
+  });
+});
