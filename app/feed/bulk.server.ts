@@ -18,7 +18,7 @@ const BATCH = 2000;
 const PIECE = 32 * 1024;
 
 /** The rows' text joined into pieces of about PIECE characters. */
-function* pieces(rows: Record<string, unknown>[], text: (row: Record<string, unknown>) => string, head = "") {
+function* pieces(rows: RawRow[], text: (row: RawRow) => string, head = "") {
   let piece = head;
   for (const row of rows) {
     piece += text(row);
@@ -37,15 +37,35 @@ const CONTENT_TYPE: Record<BulkFormat, string> = {
   csv: "text/csv; charset=utf-8; header=present",
 };
 
-/** RFC 4180 lines: CRLF after every record, fields quoted when they hold a comma, quote or line break. */
-function csvBatch(rows: Record<string, unknown>[], header: boolean) {
-  return stringify(rows, {
-    header,
-    columns: REPORT_FIELDS.map((f) => f.name),
-    record_delimiter: "\r\n",
-    cast: { object: (v) => JSON.stringify(v), boolean: (v) => (v ? "true" : "false") },
-  });
+/**
+ * Rows come from PostgreSQL as arrays of text, unparsed: numbers are already in their shortest
+ * exact decimal form, the evidence links already a JSON array, so a line is mostly copying.
+ */
+type RawRow = (string | null)[];
+const RAW_TEXT = { getTypeParser: () => (value: string) => value };
+const KEYS = REPORT_FIELDS.map((f, i) => `${i === 0 ? "{" : ","}${JSON.stringify(f.name)}:`);
+/**
+ * PostgreSQL's text of a value as JSON: numbers and JSON arrays as they are, booleans spelt out,
+ * slugs, codes and timestamps (which hold nothing to escape) quoted as they are, free text escaped.
+ */
+const AS_JSON = REPORT_FIELDS.map((f): ((v: string) => string) =>
+  f.type === "integer" || f.type === "number" || f.type === "string-array" || f.type === "object" ? (v) => v
+    : f.type === "boolean" ? (v) => (v === "t" ? "true" : "false")
+    : f.pattern || f.enum || f.type === "datetime" ? (v) => `"${v}"`
+    : (v) => JSON.stringify(v));
+
+function ndjsonLine(row: RawRow) {
+  let line = "";
+  for (let i = 0; i < KEYS.length; i++) {
+    const v = row[i];
+    line += KEYS[i]! + (v == null ? "null" : AS_JSON[i]!(v));
+  }
+  return `${line}}\n`;
 }
+
+/** RFC 4180 lines: CRLF after every record, fields quoted when they hold a comma, quote or line break. */
+const csvLines = (rows: RawRow[], header: boolean) =>
+  stringify(rows, { header, columns: REPORT_FIELDS.map((f) => f.name), record_delimiter: "\r\n" });
 
 function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): ReadableStream<Uint8Array> {
   let client: pg.PoolClient | null = null;
@@ -53,7 +73,7 @@ function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): 
   let first = true;
   // The next batch is asked for as soon as one arrives, so PostgreSQL works on it while this one
   // is written out: two batches at most are held.
-  let next: Promise<Record<string, unknown>[]> | null = null;
+  let next: Promise<RawRow[]> | null = null;
   const encoder = new TextEncoder();
   const release = async () => {
     const c = cursor;
@@ -69,19 +89,19 @@ function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): 
   return new ReadableStream<Uint8Array>({
     async start() {
       client = await pool.connect();
-      const q = bulkQuery(db, origin, format === "ndjson" ? "json" : "columns");
-      cursor = client.query(new Cursor(q.sql, [...q.parameters]));
+      const q = bulkQuery(db, origin);
+      cursor = client.query(new Cursor(q.sql, [...q.parameters], { rowMode: "array", types: RAW_TEXT }));
     },
     async pull(controller) {
       if (!cursor) return controller.close();
       try {
-        const rows = await (next ?? (cursor.read(BATCH) as Promise<Record<string, unknown>[]>));
-        next = rows.length === BATCH ? (cursor.read(BATCH) as Promise<Record<string, unknown>[]>) : null;
+        const rows = await (next ?? (cursor.read(BATCH) as Promise<RawRow[]>));
+        next = rows.length === BATCH ? (cursor.read(BATCH) as Promise<RawRow[]>) : null;
         next?.catch(() => {});
         if (format === "csv") {
-          if (rows.length > 0 || first) for (const piece of pieces(rows, (r) => csvBatch([r], false), first ? csvBatch([], true) : "")) controller.enqueue(encoder.encode(piece));
+          if (rows.length > 0 || first) for (const piece of pieces(rows, (r) => csvLines([r], false), first ? csvLines([], true) : "")) controller.enqueue(encoder.encode(piece));
         } else {
-          for (const piece of pieces(rows, (r) => `${r.line as string}\n`)) controller.enqueue(encoder.encode(piece));
+          for (const piece of pieces(rows, ndjsonLine)) controller.enqueue(encoder.encode(piece));
         }
         first = false;
         if (rows.length < BATCH) {

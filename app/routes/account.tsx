@@ -1,4 +1,4 @@
-import { data, Form, useNavigation } from "react-router";
+import { data, Form, Link, useNavigation } from "react-router";
 import { z } from "zod";
 import { endOtherSessions, endSession, handleTaken, listSessions } from "~/auth/account.server";
 import { countActiveKeys, createApiKey, listApiKeys, MAX_KEYS_PER_USER, revokeApiKey } from "~/auth/api-keys.server";
@@ -6,6 +6,7 @@ import { requireUser } from "~/auth/session.server";
 import { formatDate } from "~/catalogue/format";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
+import { LIMITS } from "~/feed/params";
 import { type FieldErrors, invalid, parseForm } from "~/utils/forms";
 import type { Route } from "./+types/account";
 
@@ -129,7 +130,10 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
 
       <section className={card} aria-labelledby="keys-heading">
         <h2 id="keys-heading" className="mb-2 text-lg font-semibold">API keys for the open data feed</h2>
-        <p className="mb-3 text-sm text-stone-600">A key raises your feed limits and opens the bulk files. It is shown once; keep it secret.</p>
+        <p className="mb-3 text-sm text-stone-600">
+          A key raises your feed limit from {LIMITS.anonymous.points} to {LIMITS.key.points} requests a minute and opens the bulk files; send it as{" "}
+          <code>Authorization: Bearer &lt;key&gt;</code>. It is shown once; keep it secret. <Link className="underline" to="/data">How to use the feed</Link>
+        </p>
         {actionData?.ok && "newKey" in actionData && actionData.newKey && (
           <div className="mb-3 rounded border border-signal-500 bg-signal-100 p-3">
             <p className="text-sm font-semibold">Your new key “{actionData.newKey.name}” — copy it now, it will not be shown again:</p>

@@ -79,6 +79,10 @@ describe("each endpoint's answer matches its published JSON Schema", () => {
     for (const line of lines.slice(0, 300)) expect(check("report", line)).toEqual([]);
     const ids = lines.map((l) => l.id);
     expect(new Set(ids).size).toBe(ids.length);
+    // The same report reads the same in the file and from /api/v1/reports/{id}.
+    for (const line of [lines[0], lines[Math.floor(lines.length / 2)], lines.at(-1)]) expect(await json(`/api/v1/reports/${line.id}`)).toEqual(line);
+    const withLinks = lines.find((l) => l.evidence_urls.length > 0);
+    expect(await json(`/api/v1/reports/${withLinks.id}`)).toEqual(withLinks);
 
     const csv = await withKey("/api/v1/reports.csv");
     expect(csv.headers.get("content-type")).toMatch(/^text\/csv/);
