@@ -46,7 +46,7 @@ try {
 
   // The floor: psql's \copy of the dump's own query (the same rows, in the same order) to /dev/null.
   const { bulkQuery } = await import("../app/feed/queries.server");
-  const q = bulkQuery(db, origin);
+  const q = bulkQuery(db, origin, "ndjson");
   const inline = q.sql.replace(/\$(\d+)/g, (_, i) => `'${String(q.parameters[Number(i) - 1]).replace(/'/g, "''")}'`).replace(/\s+/g, " ");
   t0 = performance.now();
   const copy = spawnSync("psql", [pg.url, "-q", "-c", `\\copy (${inline}) to '/dev/null'`], { encoding: "utf8" });

@@ -1,5 +1,6 @@
 // The bulk files: every accepted report read through a server-side cursor a batch at a time and
 // written as the client takes it (a pull stream), so memory stays flat at any table size.
+// PostgreSQL writes each NDJSON line itself (queries.server.ts); the server only forwards text.
 import { Readable } from "node:stream";
 import { createGzip } from "node:zlib";
 import { stringify } from "csv-stringify/sync";
@@ -37,31 +38,9 @@ const CONTENT_TYPE: Record<BulkFormat, string> = {
   csv: "text/csv; charset=utf-8; header=present",
 };
 
-/**
- * Rows come from PostgreSQL as arrays of text, unparsed: numbers are already in their shortest
- * exact decimal form, the evidence links already a JSON array, so a line is mostly copying.
- */
+/** Rows come from PostgreSQL as arrays of text, unparsed: a JSON line, or the CSV's columns. */
 type RawRow = (string | null)[];
 const RAW_TEXT = { getTypeParser: () => (value: string) => value };
-const KEYS = REPORT_FIELDS.map((f, i) => `${i === 0 ? "{" : ","}${JSON.stringify(f.name)}:`);
-/**
- * PostgreSQL's text of a value as JSON: numbers and JSON arrays as they are, booleans spelt out,
- * slugs, codes and timestamps (which hold nothing to escape) quoted as they are, free text escaped.
- */
-const AS_JSON = REPORT_FIELDS.map((f): ((v: string) => string) =>
-  f.type === "integer" || f.type === "number" || f.type === "string-array" || f.type === "object" ? (v) => v
-    : f.type === "boolean" ? (v) => (v === "t" ? "true" : "false")
-    : f.pattern || f.enum || f.type === "datetime" ? (v) => `"${v}"`
-    : (v) => JSON.stringify(v));
-
-function ndjsonLine(row: RawRow) {
-  let line = "";
-  for (let i = 0; i < KEYS.length; i++) {
-    const v = row[i];
-    line += KEYS[i]! + (v == null ? "null" : AS_JSON[i]!(v));
-  }
-  return `${line}}\n`;
-}
 
 /** RFC 4180 lines: CRLF after every record, fields quoted when they hold a comma, quote or line break. */
 const csvLines = (rows: RawRow[], header: boolean) =>
@@ -89,7 +68,7 @@ function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): 
   return new ReadableStream<Uint8Array>({
     async start() {
       client = await pool.connect();
-      const q = bulkQuery(db, origin);
+      const q = bulkQuery(db, origin, format);
       cursor = client.query(new Cursor(q.sql, [...q.parameters], { rowMode: "array", types: RAW_TEXT }));
     },
     async pull(controller) {
@@ -101,7 +80,7 @@ function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): 
         if (format === "csv") {
           if (rows.length > 0 || first) for (const piece of pieces(rows, (r) => csvLines([r], false), first ? csvLines([], true) : "")) controller.enqueue(encoder.encode(piece));
         } else {
-          for (const piece of pieces(rows, ndjsonLine)) controller.enqueue(encoder.encode(piece));
+          for (const piece of pieces(rows, (r) => `${r[0]}\n`)) controller.enqueue(encoder.encode(piece));
         }
         first = false;
         if (rows.length < BATCH) {

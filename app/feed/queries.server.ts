@@ -126,9 +126,31 @@ export async function reportById(db: Db, origin: string, id: number) {
   return r.rows[0] ?? null;
 }
 
-/** The bulk files' query: every accepted report in feed order (read it with text-only parsers). */
-export function bulkQuery(db: Db, origin: string) {
-  return sql`select ${reportColumns(true)} ${reportFrom(origin, "grouped")} where r.status = 'accepted' order by r.accepted_at, r.id`.compile(db);
+/**
+ * One report as a JSON line, written by PostgreSQL with plain text concatenation (far cheaper
+ * than json_build_object): numbers in their shortest exact text, slugs, codes and timestamps
+ * (nothing to escape in them) quoted as they are, free text escaped by to_json.
+ */
+function reportLine() {
+  const exprs = reportExpressions(true);
+  const pieces = REPORT_FIELDS.map((f, i) => {
+    const e = exprs[f.name]!;
+    const key = sql.lit(`${i === 0 ? "{" : ","}${JSON.stringify(f.name)}:`);
+    const value =
+      f.type === "integer" || f.type === "number" ? sql`coalesce((${e})::text, 'null')`
+      : f.type === "string-array" ? e
+      : f.type === "boolean" ? sql`coalesce(case when ${e} then 'true' else 'false' end, 'null')`
+      : f.pattern || f.enum || f.type === "datetime" ? sql`coalesce('"' || ${e} || '"', 'null')`
+      : sql`coalesce(to_json(${e})::text, 'null')`;
+    return sql`${key} || ${value}`;
+  });
+  return sql`${sql.join(pieces, sql` || `)} || '}'`;
+}
+
+/** The bulk files' query: every accepted report in feed order, as JSON lines or as columns of text. */
+export function bulkQuery(db: Db, origin: string, format: "ndjson" | "csv") {
+  const select = format === "ndjson" ? sql`${reportLine()} as line` : reportColumns(true);
+  return sql`select ${select} ${reportFrom(origin, "grouped")} where r.status = 'accepted' order by r.accepted_at, r.id`.compile(db);
 }
 
 export async function modelRecords(db: Db, category?: string) {

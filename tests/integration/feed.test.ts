@@ -159,6 +159,13 @@ describe("HTTP", () => {
     }
   });
 
+  it("answers HEAD like GET, without a body", async () => {
+    const res = await fetch(new URL("/api/v1/models", (await import("../support/http")).baseUrl()), { method: "HEAD", headers: { authorization: `Bearer ${key}` } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("etag")).toMatch(/^"/);
+    expect(await res.text()).toBe("");
+  });
+
   it("opens CORS for GET and answers the preflight", async () => {
     const res = await get("/api/v1/models");
     expect(res.headers.get("access-control-allow-origin")).toBe("*");
