@@ -216,6 +216,16 @@ describe("rate limits and API keys", () => {
     expect((await feedClient(address, "bpk_not-a-real-key")("/api/v1")).status).toBe(401);
     expect((await feedClient(address)("/api/v1", { authorization: "Basic abc" })).status).toBe(401);
   });
+
+  it("stops the keys of a banned account", async () => {
+    const { id } = await db.insertInto("users").values({ email: `feed-ban-${Date.now()}@demo.bayproof.test`, handle: `feed-ban-${Date.now() % 1e8}` })
+      .returning("id").executeTakeFirstOrThrow();
+    const banned = await createApiKey(db, id, "soon banned");
+    const client = feedClient("198.51.100.9", banned);
+    expect((await client("/api/v1")).status).toBe(200);
+    await db.updateTable("users").set({ banned_at: new Date() }).where("id", "=", id).execute();
+    expect((await client("/api/v1")).status).toBe(401);
+  });
 });
 
 describe("bad input is a 400 naming the parameter", () => {
