@@ -5,6 +5,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { describe, expect, inject, it } from "vitest";
 import { hydrated, newCheckedPage, sharedBrowser } from "../support/browser";
+import { testDb } from "../support/db";
 import { tinyMp4 } from "../support/files";
 
 const baseUrl = inject("baseUrl");
@@ -43,6 +44,12 @@ describe("filing a report from the bay", () => {
 
     await page.locator(".uppy-Dashboard-input").first().setInputFiles(video);
     await page.getByText(/Video \(video\/mp4.*checked/).waitFor({ timeout: 20_000 });
+    // Published with the open data only when the reporter says so.
+    const publish = page.getByRole("checkbox", { name: "Publish with the open data" });
+    expect(await publish.isChecked()).toBe(false);
+    await publish.check();
+    await page.waitForFunction(() => (document.querySelector("[aria-label='Attached evidence'] input[type=checkbox]") as HTMLInputElement | null)?.disabled === false);
+    expect(await publish.isChecked()).toBe(true);
 
     await page.getByRole("button", { name: "Submit report" }).click();
     await page.waitForURL(/\/me\/reports\?submitted=\d+/);
@@ -55,6 +62,9 @@ describe("filing a report from the bay", () => {
     expect(text).toContain("1 files");
     expect(text).toMatch(/first report/);
     expect(text).not.toMatch(/no evidence/);
+    const db = testDb();
+    const files = await db.selectFrom("evidence").select("is_public").where("report_id", "=", Number(id)).execute().finally(() => db.destroy());
+    expect(files).toEqual([{ is_public: true }]);
     assertClean();
     await close();
   });
