@@ -84,6 +84,22 @@ try {
   clearInterval(sampler);
   peakMb = Math.max(peakMb, rssMb(pid, "VmRSS"));
 
+  // Pages: a walk of 20 pages, unfiltered and filtered by job type, through HTTP with the key.
+  const pageTimes = async (query: string) => {
+    const times: number[] = [];
+    let path = `/api/v1/reports?${query}`;
+    for (let i = 0; i < 20 && path; i++) {
+      const t = performance.now();
+      const res = await fetch(`${origin}${path}`, { headers: { authorization: `Bearer ${key}` } });
+      const body = await res.json();
+      times.push(performance.now() - t);
+      path = body.next_cursor ? `/api/v1/reports?${query}&cursor=${body.next_cursor}` : "";
+    }
+    return [...times].sort((a, b) => a - b)[times.length >> 1]!;
+  };
+  const plainPage = await pageTimes("limit=100");
+  const jobPage = await pageTimes("limit=100&job=bench-job-7");
+
   const floorRate = REPORTS / floorS;
   const dumpRate = lines / dumpS;
   console.log("");
@@ -91,6 +107,7 @@ try {
   console.log(`psql \\copy of the same query (floor)   ${floorS.toFixed(2)} s   ${fmt(floorRate)} reports/s`);
   console.log(`GET /api/v1/reports.ndjson             ${dumpS.toFixed(2)} s   ${fmt(dumpRate)} reports/s`);
   console.log(`ratio to the floor                     ${(dumpRate / floorRate).toFixed(2)} (goal ≥ 0.30)`);
+  console.log(`a page of 100 (median of 20 in a walk)  ${plainPage.toFixed(1)} ms; filtered by job type ${jobPage.toFixed(1)} ms`);
   console.log(`server resident memory                 ${idleMb.toFixed(0)} MB idle, ${peakMb.toFixed(0)} MB peak while streaming (goal < 300 MB)`);
   process.exitCode = 0;
 } finally {
