@@ -72,6 +72,14 @@ export async function setEvidencePublic(db: Db, userId: number, evidenceId: numb
   return { id: evidenceId, isPublic };
 }
 
+/** The reporter's checked files, by report, with whether each is published. */
+export async function publishableFiles(db: Db, userId: number) {
+  return db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
+    .select(["e.id", "e.report_id", "e.kind", "e.is_public"])
+    .where("r.reporter_id", "=", userId).where("e.status", "in", ["uploaded", "verified"])
+    .orderBy("e.report_id").orderBy("e.id").limit(2000).execute();
+}
+
 /**
  * Removes objects that never became part of a submitted report: uploads left pending, and files of
  * drafts abandoned, older than `olderThanHours`. Run by the background worker.

@@ -1,12 +1,14 @@
 import { useEffect } from "react";
 import { sql } from "kysely";
 import { data, Form, Link } from "react-router";
+import { z } from "zod";
 import { requireUser } from "~/auth/session.server";
 import { formatDate } from "~/catalogue/format";
 import { ErrorPage } from "~/components/error-page";
 import { OutcomeBadge } from "~/components/report-table";
 import { db } from "~/db.server";
 import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
+import { EvidenceError, publishableFiles, setEvidencePublic } from "~/reports/evidence.server";
 import { listOwnReports } from "~/reports/reports.server";
 import { EDITABLE, WITHDRAWABLE } from "~/reports/status";
 import { groupBy } from "~/utils/group";
@@ -16,18 +18,33 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const url = new URL(request.url);
   const submitted = Number(url.searchParams.get("submitted")) || null;
-  const [reports, notices] = await Promise.all([
+  const [reports, notices, files] = await Promise.all([
     listOwnReports(db, user.id),
     db.selectFrom("notices").select(["id", "message", "created_at", "read_at", "report_id"]).where("user_id", "=", user.id)
       .orderBy("created_at", "desc").limit(10).execute(),
+    publishableFiles(db, user.id),
   ]);
-  return { reports, notices, submitted, withdrawn: url.searchParams.has("withdrawn") };
+  return { reports, notices, files, submitted, withdrawn: url.searchParams.has("withdrawn") };
 }
+
+const publishForm = z.object({ evidenceId: z.coerce.number().int().positive().max(2_147_483_647), publish: z.enum(["yes", "no"]) });
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requireUser(request);
   const form = await request.formData();
-  if (form.get("intent") !== "read-notices") throw data("Unknown request", { status: 400 });
+  const intent = form.get("intent");
+  if (intent === "publish-evidence") {
+    const parsed = publishForm.safeParse(Object.fromEntries(form));
+    if (!parsed.success) throw data("Say which file, and whether to publish it", { status: 400 });
+    try {
+      await setEvidencePublic(db, user.id, parsed.data.evidenceId, parsed.data.publish === "yes");
+    } catch (error) {
+      if (error instanceof EvidenceError) throw data(error.message, { status: error.status });
+      throw error;
+    }
+    return { ok: true };
+  }
+  if (intent !== "read-notices") throw data("Unknown request", { status: 400 });
   await db.updateTable("notices").set({ read_at: sql`now()` }).where("user_id", "=", user.id).where("read_at", "is", null).execute();
   return { ok: true };
 }
@@ -44,7 +61,8 @@ const STATUS_LABELS: Record<string, string> = {
 const ACTION_LABELS: Record<string, string> = { accept: "Accepted", return: "Returned", reject: "Rejected" };
 
 export default function MyReports({ loaderData }: Route.ComponentProps) {
-  const { reports, notices, submitted, withdrawn } = loaderData;
+  const { reports, notices, files, submitted, withdrawn } = loaderData;
+  const filesByReport = groupBy(files, (f) => f.report_id);
   const unread = notices.filter((n) => !n.read_at);
   const byStatus = groupBy(reports, (r) => r.status);
   useEffect(() => {
@@ -97,6 +115,7 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
                     ))}
                   </ul>
                 )}
+                {!EDITABLE.includes(r.status) && filesByReport.has(r.id) && <OpenDataFiles files={filesByReport.get(r.id)!} />}
                 <div className="mt-2 flex flex-wrap gap-2">
                   {r.status !== "draft" && <Link to={`/reports/${r.id}/history`} className="rounded border border-stone-300 px-3 py-2 text-sm">History</Link>}
                   {EDITABLE.includes(r.status) && <Link to={`/reports/${r.id}/edit`} className="rounded border border-bay-700 px-3 py-2 text-sm text-bay-700">{r.status === "returned" ? "Fix and resubmit" : "Continue"}</Link>}
@@ -113,6 +132,30 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
         </section>
       ))}
     </div>
+  );
+}
+
+/** Publishing a report's files with the open data after it left the form (a plain form each). */
+function OpenDataFiles({ files }: { files: { id: number; kind: string; is_public: boolean }[] }) {
+  return (
+    <details className="mt-2 text-sm">
+      <summary className="cursor-pointer text-bay-700">Files in the open data ({files.filter((f) => f.is_public).length} of {files.length} published)</summary>
+      <p className="mt-1 text-xs text-stone-600">Published files are linked from the open data feed (CC BY 4.0) once the report is accepted. Publish only what shows no faces, number plates or customer details.</p>
+      <ul className="mt-1 space-y-1">
+        {files.map((f, i) => (
+          <li key={f.id} className="flex flex-wrap items-center justify-between gap-2 rounded bg-bay-50 px-2 py-1">
+            <span>{f.kind === "video" ? "Video" : "Photo"} {i + 1}: {f.is_public ? "published" : "not published"}</span>
+            <Form method="post">
+              <input type="hidden" name="evidenceId" value={f.id} />
+              <input type="hidden" name="publish" value={f.is_public ? "no" : "yes"} />
+              <button type="submit" name="intent" value="publish-evidence" className="rounded border border-stone-400 px-2 py-1">
+                {f.is_public ? "Take it out of the open data" : "Publish with the open data"}
+              </button>
+            </Form>
+          </li>
+        ))}
+      </ul>
+    </details>
   );
 }
 

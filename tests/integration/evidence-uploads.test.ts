@@ -100,6 +100,13 @@ describe("publishing a file with the open data", () => {
     expect(await isPublic()).toBe(true);
     expect((await publish(owner, evidenceId, { public: false })).status).toBe(200);
     expect(await isPublic()).toBe(false);
+
+    // The same from "Your reports", as a plain form (for reports past the form).
+    expect((await owner.post("/me/reports", { intent: "publish-evidence", evidenceId: String(evidenceId), publish: "yes" })).status).toBe(200);
+    expect(await isPublic()).toBe(true);
+    expect((await stranger.post("/me/reports", { intent: "publish-evidence", evidenceId: String(evidenceId), publish: "no" })).status).toBe(404);
+    expect((await owner.post("/me/reports", { intent: "publish-evidence", evidenceId: "x", publish: "no" })).status).toBe(400);
+    expect(await isPublic()).toBe(true);
   });
 });
 
