@@ -1,7 +1,7 @@
 // The feed's reads. A report record is one row with the columns of fields.ts, in their order,
-// timestamps already formatted by PostgreSQL: pages, single records and the bulk files all
-// serialise that same row, so they carry the same bytes for the same report. (Building the
-// JSON in PostgreSQL instead was slower: json_build_object took three times the query's cost.)
+// timestamps already formatted by PostgreSQL. Pages and single records serialise that row; the
+// NDJSON file has PostgreSQL concatenate each line from the same columns (reportLine) and the
+// CSV takes them as text — see docs/decisions/005-open-feed.md.
 import { type Kysely, type RawBuilder, sql } from "kysely";
 import type { Database } from "../../db/schema";
 import { REFERENCE_INLET_KPA } from "~/stats/cells";
@@ -52,34 +52,47 @@ function reportColumns(raw = false) {
   return sql.join(REPORT_FIELDS.map((f) => sql`${exprs[f.name]!} as ${sql.id(f.name)}`));
 }
 
-export interface ReportFilters {
+export interface SlugFilters {
   model?: string;
   job?: string;
   category?: string;
+}
+
+/** Filters as row ids, once their slugs are known to exist. */
+export interface ReportFilters {
+  modelId?: number;
+  jobId?: number;
+  categoryId?: number;
   accepted_since?: Date;
   accepted_until?: Date;
 }
 
-/** Refuses a filter naming a model, job type or category that does not exist (400, naming it). */
-export async function checkFilterValues(db: Db, f: Pick<ReportFilters, "model" | "job" | "category">) {
-  const checks = [
-    ["model", "tool_models", "tool model"],
-    ["job", "job_types", "job type"],
-    ["category", "tool_categories", "tool category"],
-  ] as const;
-  for (const [param, table, label] of checks) {
-    const value = f[param];
-    if (value === undefined) continue;
-    const found = await db.selectFrom(table).select("id").where("slug", "=", value).executeTakeFirst();
-    if (!found) throw new FeedError(400, "unknown_value", `"${param}": no ${label} has the slug "${value}" (see /api/v1/${param === "job" ? "job-types" : "models"}).`, param);
+const SLUG_TABLES = {
+  model: ["tool_models", "tool model", "models"],
+  job: ["job_types", "job type", "job-types"],
+  category: ["tool_categories", "tool category", "models"],
+} as const;
+
+/**
+ * The ids behind the slugs given, in one query; a slug that names nothing is a 400 naming its
+ * parameter. Queries then filter on the ids, which their indexes hold.
+ */
+export async function resolveSlugs(db: Db, f: SlugFilters): Promise<Pick<ReportFilters, "modelId" | "jobId" | "categoryId">> {
+  const given = (Object.keys(SLUG_TABLES) as (keyof SlugFilters)[]).filter((k) => f[k] !== undefined);
+  if (given.length === 0) return {};
+  const row = (await sql<Record<string, number | null>>`select ${sql.join(given.map((k) =>
+    sql`(select id from ${sql.table(SLUG_TABLES[k][0])} where slug = ${f[k]!}) as ${sql.id(k)}`))}`.execute(db)).rows[0]!;
+  for (const k of given) {
+    if (row[k] == null) throw new FeedError(400, "unknown_value", `"${k}": no ${SLUG_TABLES[k][1]} has the slug "${f[k]}" (see /api/v1/${SLUG_TABLES[k][2]}).`, k);
   }
+  return { modelId: row.model ?? undefined, jobId: row.job ?? undefined, categoryId: row.category ?? undefined };
 }
 
 const reportWhere = (f: ReportFilters) => sql.join([
   sql`r.status = 'accepted'`,
-  ...(f.model ? [sql`m.slug = ${f.model}`] : []),
-  ...(f.job ? [sql`j.slug = ${f.job}`] : []),
-  ...(f.category ? [sql`c.slug = ${f.category}`] : []),
+  ...(f.modelId ? [sql`r.tool_model_id = ${f.modelId}`] : []),
+  ...(f.jobId ? [sql`r.job_type_id = ${f.jobId}`] : []),
+  ...(f.categoryId ? [sql`r.category_id = ${f.categoryId}`] : []),
   ...(f.accepted_since ? [sql`r.accepted_at >= ${f.accepted_since}`] : []),
   ...(f.accepted_until ? [sql`r.accepted_at < ${f.accepted_until}`] : []),
 ], sql` and `);
@@ -153,32 +166,32 @@ export function bulkQuery(db: Db, origin: string, format: "ndjson" | "csv") {
   return sql`select ${select} ${reportFrom(origin, "grouped")} where r.status = 'accepted' order by r.accepted_at, r.id`.compile(db);
 }
 
-export async function modelRecords(db: Db, category?: string) {
+export async function modelRecords(db: Db, categoryId?: number) {
   const rows = await db.selectFrom("tool_models as m").innerJoin("makers as mk", "mk.id", "m.maker_id").innerJoin("tool_categories as c", "c.id", "m.category_id")
     .leftJoin(db.selectFrom("stats_cells").select(["tool_model_id", sql<number>`sum(n)::int`.as("n")]).groupBy("tool_model_id").as("s"), "s.tool_model_id", "m.id")
     .select(["m.slug", "mk.slug as maker", "mk.name as maker_name", "c.slug as category", "m.model_code", "m.name", "m.fitting", "m.bore_mm", "m.stroke_mm",
       "m.blows_per_minute", "m.free_speed_rpm", "m.max_torque_nm", "m.weight_kg", "m.length_mm", "m.street_price_cents", "m.air_inlet", "m.rated_air_lps",
       "m.max_inlet_kpa", "m.measured_specs", sql<number>`coalesce(s.n, 0)`.as("accepted_reports")])
-    .$if(!!category, (q) => q.where("c.slug", "=", category!))
+    .$if(!!categoryId, (q) => q.where("m.category_id", "=", categoryId!))
     .orderBy("m.slug").execute();
   return rows;
 }
 
-export async function jobTypeRecords(db: Db, category?: string) {
+export async function jobTypeRecords(db: Db, categoryId?: number) {
   return db.selectFrom("job_types as j").innerJoin("tool_categories as c", "c.id", "j.category_id")
     .select(["j.slug", "c.slug as category", "j.name", "j.description", "j.seized"])
-    .$if(!!category, (q) => q.where("c.slug", "=", category!))
+    .$if(!!categoryId, (q) => q.where("j.category_id", "=", categoryId!))
     .orderBy("j.slug").execute();
 }
 
-export async function statRecords(db: Db, f: Pick<ReportFilters, "model" | "job" | "category">) {
+export async function statRecords(db: Db, f: Pick<ReportFilters, "modelId" | "jobId" | "categoryId">) {
   const rows = await db.selectFrom("stats_cells as s").innerJoin("tool_models as m", "m.id", "s.tool_model_id")
-    .innerJoin("job_types as j", "j.id", "s.job_type_id").innerJoin("tool_categories as c", "c.id", "j.category_id")
+    .innerJoin("job_types as j", "j.id", "s.job_type_id")
     .select(["m.slug as model", "j.slug as job", "s.n", "s.successes", "s.estimate", "s.lower", "s.upper", "s.confidence",
       "s.adj_estimate", "s.adj_lower", "s.adj_upper", "s.adj_reason", "s.computed_at"])
-    .$if(!!f.model, (q) => q.where("m.slug", "=", f.model!))
-    .$if(!!f.job, (q) => q.where("j.slug", "=", f.job!))
-    .$if(!!f.category, (q) => q.where("c.slug", "=", f.category!))
+    .$if(!!f.modelId, (q) => q.where("s.tool_model_id", "=", f.modelId!))
+    .$if(!!f.jobId, (q) => q.where("s.job_type_id", "=", f.jobId!))
+    .$if(!!f.categoryId, (q) => q.where("j.category_id", "=", f.categoryId!))
     .orderBy("m.slug").orderBy("j.slug").execute();
   return rows.map((s) => ({
     model: s.model, job: s.job, n: s.n, successes: s.successes, estimate: s.estimate, lower: s.lower, upper: s.upper,

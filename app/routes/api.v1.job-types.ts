@@ -1,14 +1,14 @@
 import { db } from "~/db.server";
 import { answer, CACHE, jsonResponse, readParams } from "~/feed/http.server";
 import { slugParam } from "~/feed/params";
-import { checkFilterValues, jobTypeRecords } from "~/feed/queries.server";
+import { jobTypeRecords, resolveSlugs } from "~/feed/queries.server";
 import type { Route } from "./+types/api.v1.job-types";
 
 // Every job type, by category.
 export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     const { category } = readParams(new URL(request.url), { category: slugParam });
-    await checkFilterValues(db, { category });
-    return jsonResponse(request, { data: await jobTypeRecords(db, category) }, CACHE.record);
+    const { categoryId } = await resolveSlugs(db, { category });
+    return jsonResponse(request, { data: await jobTypeRecords(db, categoryId) }, CACHE.record);
   });
 }

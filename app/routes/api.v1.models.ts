@@ -1,14 +1,14 @@
 import { db } from "~/db.server";
 import { answer, CACHE, jsonResponse, readParams } from "~/feed/http.server";
 import { slugParam } from "~/feed/params";
-import { checkFilterValues, modelRecords } from "~/feed/queries.server";
+import { modelRecords, resolveSlugs } from "~/feed/queries.server";
 import type { Route } from "./+types/api.v1.models";
 
 // Every tool model with its specs (SI units) and count of accepted reports.
 export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     const { category } = readParams(new URL(request.url), { category: slugParam });
-    await checkFilterValues(db, { category });
-    return jsonResponse(request, { data: await modelRecords(db, category) }, CACHE.record);
+    const { categoryId } = await resolveSlugs(db, { category });
+    return jsonResponse(request, { data: await modelRecords(db, categoryId) }, CACHE.record);
   });
 }

@@ -3,7 +3,7 @@ import { db } from "~/db.server";
 import { decodeCursor, encodeCursor, filtersDigest } from "~/feed/cursor.server";
 import { answer, CACHE, FeedError, jsonResponse, readParams } from "~/feed/http.server";
 import { cursorParam, instantParam, limitParam, slugParam } from "~/feed/params";
-import { checkFilterValues, microsToIso, newHorizon, reportPage } from "~/feed/queries.server";
+import { microsToIso, newHorizon, reportPage, resolveSlugs } from "~/feed/queries.server";
 import type { Route } from "./+types/api.v1.reports";
 
 const params = {
@@ -21,11 +21,11 @@ export async function loader({ request }: Route.LoaderArgs) {
     if (filters.accepted_since && filters.accepted_until && filters.accepted_since >= filters.accepted_until) {
       throw new FeedError(400, "invalid_parameter", `"accepted_until" must be later than "accepted_since".`, "accepted_until");
     }
-    await checkFilterValues(db, filters);
+    const ids = await resolveSlugs(db, filters);
     const digest = filtersDigest({ ...filters, accepted_since: filters.accepted_since?.toISOString(), accepted_until: filters.accepted_until?.toISOString() });
     const state = cursor ? await decodeCursor(db, cursor, digest) : null;
     const asOf = state?.asOfMicros ?? (await newHorizon(db));
-    const page = await reportPage(db, config.appOrigin, filters, limit, asOf, state ? { micros: state.afterMicros, id: state.afterId } : undefined);
+    const page = await reportPage(db, config.appOrigin, { ...ids, accepted_since: filters.accepted_since, accepted_until: filters.accepted_until }, limit, asOf, state ? { micros: state.afterMicros, id: state.afterId } : undefined);
     const nextCursor = page.next
       ? await encodeCursor(db, { afterMicros: page.next.micros, afterId: page.next.id, asOfMicros: asOf, filters: digest })
       : null;

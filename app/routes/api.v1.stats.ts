@@ -1,14 +1,13 @@
 import { db } from "~/db.server";
 import { answer, CACHE, jsonResponse, readParams } from "~/feed/http.server";
 import { slugParam } from "~/feed/params";
-import { checkFilterValues, statRecords } from "~/feed/queries.server";
+import { resolveSlugs, statRecords } from "~/feed/queries.server";
 import type { Route } from "./+types/api.v1.stats";
 
 // The stored stats cells: success with its Wilson interval, and pressure-adjusted where shown.
 export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     const filters = readParams(new URL(request.url), { model: slugParam, job: slugParam, category: slugParam });
-    await checkFilterValues(db, filters);
-    return jsonResponse(request, { data: await statRecords(db, filters) }, CACHE.live);
+    return jsonResponse(request, { data: await statRecords(db, await resolveSlugs(db, filters)) }, CACHE.live);
   });
 }
