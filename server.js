@@ -16,7 +16,7 @@ import compression from "compression";
 import express from "express";
 import { createRequestHandler } from "react-router";
 
-/** Must equal CLIENT_ADDRESS_HEADER in app/utils/client-address.ts (a unit test checks). */
+/** Must equal CLIENT_ADDRESS_HEADER in app/utils/client-address.server.ts (a unit test checks). */
 const CLIENT_ADDRESS_HEADER = "x-bayproof-client-address";
 
 const root = path.dirname(fileURLToPath(import.meta.url));

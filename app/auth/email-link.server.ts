@@ -2,7 +2,7 @@
 // at most 3 per address and 10 per client in any 15 minutes.
 import { sql } from "kysely";
 import { db } from "~/db.server";
-import { CLIENT_ADDRESS_HEADER } from "~/utils/client-address";
+import { clientKey } from "~/utils/client-address.server";
 import { config } from "~/config.server";
 import { sendMail } from "./mail.server";
 import { randomToken, sha256Hex } from "./tokens.server";
@@ -12,21 +12,6 @@ export const LINK_LIFETIME_MS = 10 * 60_000;
 export const RATE_WINDOW = "15 minutes";
 export const MAX_PER_ADDRESS = 3;
 export const MAX_PER_CLIENT = 10;
-
-/**
- * Who is asking, for rate limits. Behind a trusted load balancer the first X-Forwarded-For hop;
- * otherwise the socket address server.js passes on. Only the Vite dev server lacks both, and
- * there clients are told apart by their user agent.
- */
-export function clientKey(request: Request): string {
-  if (config.trustProxy) {
-    const hop = request.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-    if (hop) return `ip:${hop.slice(0, 60)}`;
-  }
-  const address = request.headers.get(CLIENT_ADDRESS_HEADER);
-  if (address) return `ip:${address.slice(0, 60)}`;
-  return `ua:${sha256Hex(request.headers.get("user-agent") ?? "").slice(0, 32)}`;
-}
 
 export type LinkRequestResult = { ok: true } | { ok: false; reason: "too_many_for_address" | "too_many_for_client" };
 

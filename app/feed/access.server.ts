@@ -4,7 +4,7 @@
 // form of draft-ietf-httpapi-ratelimit-headers-10 (from memory), and a 429 carries Retry-After.
 import { RateLimiterPostgres, RateLimiterRes } from "rate-limiter-flexible";
 import { verifyApiKey } from "~/auth/api-keys.server";
-import { clientKey } from "~/auth/email-link.server";
+import { clientKey } from "~/utils/client-address.server";
 import { db, pool } from "~/db.server";
 import { FeedError } from "./http.server";
 import { LIMITS } from "./params";
