@@ -4,7 +4,7 @@
 // CSV takes them as text — see docs/decisions/005-open-feed.md.
 import { type Kysely, type RawBuilder, sql } from "kysely";
 import type { Database } from "../../db/schema";
-import { REFERENCE_INLET_KPA } from "~/stats/cells";
+import { adjustedAtReference } from "~/stats/cells";
 import { REPORT_FIELDS } from "./fields";
 import { FeedError } from "./http.server";
 
@@ -193,13 +193,14 @@ export async function statRecords(db: Db, f: Pick<ReportFilters, "modelId" | "jo
     .$if(!!f.jobId, (q) => q.where("s.job_type_id", "=", f.jobId!))
     .$if(!!f.categoryId, (q) => q.where("j.category_id", "=", f.categoryId!))
     .orderBy("m.slug").orderBy("j.slug").execute();
-  return rows.map((s) => ({
-    model: s.model, job: s.job, n: s.n, successes: s.successes, estimate: s.estimate, lower: s.lower, upper: s.upper,
-    method: "wilson_score", confidence: s.confidence,
-    pressure_adjusted: s.adj_estimate == null || s.adj_lower == null || s.adj_upper == null ? null : {
-      inlet_kpa: REFERENCE_INLET_KPA, estimate: s.adj_estimate, lower: s.adj_lower, upper: s.adj_upper, method: "logistic_regression_wald",
-    },
-    pressure_adjusted_reason: s.adj_estimate == null ? (s.adj_reason ?? "not enough reports or pressure spread") : null,
-    computed_at: new Date(s.computed_at).toISOString(),
-  }));
+  return rows.map((s) => {
+    const adjusted = adjustedAtReference(s);
+    return {
+      model: s.model, job: s.job, n: s.n, successes: s.successes, estimate: s.estimate, lower: s.lower, upper: s.upper,
+      method: "wilson_score", confidence: s.confidence,
+      pressure_adjusted: adjusted && { ...adjusted, method: "logistic_regression_wald" },
+      pressure_adjusted_reason: adjusted ? null : (s.adj_reason ?? "not enough reports or pressure spread"),
+      computed_at: new Date(s.computed_at).toISOString(),
+    };
+  });
 }

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { db } from "~/db.server";
-import { predictAt } from "~/stats/cells";
+import { adjustedAtReference, predictAt } from "~/stats/cells";
 import { cellBySlugs } from "~/stats/cells.server";
 import type { Route } from "./+types/api.stats.cell";
 
@@ -21,7 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     model: cell.model_slug, job: cell.job_slug, n: cell.n, successes: cell.successes,
     estimate: cell.estimate, lower: cell.lower, upper: cell.upper, method: "Wilson score", confidence: cell.confidence,
     shrunk_estimate: cell.shrunk_estimate,
-    pressure_adjusted: cell.adj_estimate == null ? null : { inlet_kpa: 620.5, estimate: cell.adj_estimate, lower: cell.adj_lower, upper: cell.adj_upper },
+    pressure_adjusted: adjustedAtReference(cell),
     pressure_adjusted_reason: cell.adj_reason,
     at_inlet: at != null && cell.fit ? { inlet_kpa: at, ...predictAt(cell.fit, at) } : null,
     computed_at: cell.computed_at,

@@ -7,7 +7,7 @@ import type { Route } from "./+types/data";
 
 export async function loader() {
   const day = new Date().toISOString().slice(0, 10);
-  return { origin: config.appOrigin, citation: citation(config.appOrigin, day), limits: LIMITS };
+  return { origin: config.appOrigin, citation: citation(config.appOrigin, day) };
 }
 
 const TYPE_LABEL: Record<Field["type"], string> = {
@@ -25,7 +25,7 @@ const ENDPOINTS = [
 ] as const;
 
 export default function Data({ loaderData }: Route.ComponentProps) {
-  const { origin, limits } = loaderData;
+  const { origin } = loaderData;
   return (
     <article className="space-y-8">
       <header className="space-y-2">
@@ -74,7 +74,7 @@ export default function Data({ loaderData }: Route.ComponentProps) {
         <h2 id="use" className="text-lg font-semibold">Using it</h2>
         <ul className="list-disc space-y-1 pl-5 text-sm">
           <li>Pages hold {DEFAULT_LIMIT} reports by default, at most {MAX_LIMIT} (<code>limit</code>). Follow <code>next_cursor</code> (or the <code>Link: rel="next"</code> header) until it is <code>null</code>. Keep the other parameters the same while you walk; a walk covers the reports accepted up to its <code>as_of</code>, so it returns each one exactly once even while new reports are accepted.</li>
-          <li>Anonymous clients may make {limits.anonymous.points} requests a minute; with an API key, {limits.key.points}. Every answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get <code>429</code> with <code>Retry-After</code>.</li>
+          <li>Anonymous clients may make {LIMITS.anonymous.points} requests a minute; with an API key, {LIMITS.key.points}. Every answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get <code>429</code> with <code>Retry-After</code>.</li>
           <li>The bulk files need an API key: sign in, create one on <Link className="underline" to="/account">your account page</Link> (it is shown once), and send it as <code>Authorization: Bearer &lt;key&gt;</code>. A revoked key gets <code>401</code>.</li>
           <li>JSON answers carry an <code>ETag</code>; send it back in <code>If-None-Match</code> and an unchanged answer is a bodiless <code>304</code>. CORS is open for GET.</li>
           <li>A parameter the feed cannot read is a <code>400</code> with <code>{"{ error: { code, message, parameter } }"}</code> — nothing is silently ignored.</li>

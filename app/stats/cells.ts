@@ -31,6 +31,12 @@ export interface CellFigures {
 }
 
 /** The logistic fit works on x = inlet bar − 6.2 so the intercept is the rating-point logit. */
+/** A stored cell's pressure-adjusted success at the reference inlet, or null where there is none. */
+export function adjustedAtReference(cell: { adj_estimate: number | null; adj_lower: number | null; adj_upper: number | null }) {
+  if (cell.adj_estimate == null || cell.adj_lower == null || cell.adj_upper == null) return null;
+  return { inlet_kpa: REFERENCE_INLET_KPA, estimate: cell.adj_estimate, lower: cell.adj_lower, upper: cell.adj_upper };
+}
+
 export const pressureX = (kpa: number) => kpa / 100 - REFERENCE_INLET_KPA / 100;
 
 export function cellFigures(reports: CellReport[], seed: string, resamples = 1000): CellFigures {
