@@ -12,7 +12,7 @@ import { EvidenceUploader, type EvidenceItem } from "~/components/report-form/ev
 import { ToolPicker, type ToolChoice } from "~/components/report-form/tool-picker";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { db } from "~/db.server";
-import { CORROSION_LEVELS, OUTCOMES, parseDraft, reportSchema, toFormValues, VEHICLE_CLASSES } from "~/reports/form-schema";
+import { CORROSION_LEVELS, type INLET_SOURCES, type OUTCOMES, parseDraft, reportSchema, toFormValues, VEHICLE_CLASSES } from "~/reports/form-schema";
 import { EDITABLE } from "~/reports/status";
 import { findModel, getOwnReport, jobTypesByCategory, recentSupplies, ReportError, saveDraft, submitReport, suggestModels, withdrawReport } from "~/reports/reports.server";
 import { groupBy } from "~/utils/group";
@@ -281,15 +281,7 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
           </div>
           <fieldset>
             <legend className="font-semibold">How did you get the inlet pressure?</legend>
-            <div className="mt-1 grid gap-2">
-              {(["measured_at_inlet", "read_at_regulator", "estimated"] as const).map((s) => (
-                <label key={s} className="flex items-center gap-3 rounded border border-stone-300 px-3 py-3">
-                  <input {...getInputProps(fields.inletSource, { type: "radio", value: s })} className="h-5 w-5" />
-                  <span>{s === "measured_at_inlet" ? "Measured at the tool inlet while it ran" : s === "read_at_regulator" ? "Read at the regulator" : "Estimated"}</span>
-                </label>
-              ))}
-            </div>
-            <FieldError message={err("inletSource")} />
+            <RadioChoices field={fields.inletSource} labels={INLET_SOURCE_LABELS} className="mt-1 grid gap-2" />
           </fieldset>
           {overRated && (
             <p role="alert" className="rounded border-l-4 border-red-600 bg-red-50 p-3 text-sm">
@@ -315,15 +307,7 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
 
         <fieldset className={section}>
           <legend className="px-1 text-lg font-semibold">Result</legend>
-          <div className="grid gap-2">
-            {OUTCOMES.map((o) => (
-              <label key={o} className="flex items-center gap-3 rounded border border-stone-300 px-3 py-3">
-                <input {...getInputProps(fields.outcome, { type: "radio", value: o })} className="h-5 w-5" />
-                <span>{o === "freed" ? "Freed it" : o === "freed_with_help" ? "Freed with help (heat, another tool)" : "Did not free it"}</span>
-              </label>
-            ))}
-          </div>
-          <FieldError message={err("outcome")} />
+          <RadioChoices field={fields.outcome} labels={OUTCOME_LABELS} className="grid gap-2" />
           <div className="grid grid-cols-2 gap-3">
             <TextField label="Time to result" field={fields.time} placeholder="45 s, 3 min, 1:30" />
             <TextField label="Attempts" field={fields.attempts} inputMode="numeric" />
@@ -370,6 +354,34 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
 
 function FieldError({ message }: { message?: string }) {
   return message ? <span className="mt-1 block text-sm text-red-700">{message}</span> : null;
+}
+
+const INLET_SOURCE_LABELS: Record<(typeof INLET_SOURCES)[number], string> = {
+  measured_at_inlet: "Measured at the tool inlet while it ran",
+  read_at_regulator: "Read at the regulator",
+  estimated: "Estimated",
+};
+const OUTCOME_LABELS: Record<(typeof OUTCOMES)[number], string> = {
+  freed: "Freed it",
+  freed_with_help: "Freed with help (heat, another tool)",
+  not_freed: "Did not free it",
+};
+
+/** One radio per choice, in the order of `labels`, with the field's error below. */
+function RadioChoices({ field, labels, className }: { field: Parameters<typeof getInputProps>[0]; labels: Record<string, string>; className: string }) {
+  return (
+    <>
+      <div className={className}>
+        {Object.entries(labels).map(([value, label]) => (
+          <label key={value} className="flex items-center gap-3 rounded border border-stone-300 px-3 py-3">
+            <input {...getInputProps(field, { type: "radio", value })} className="h-5 w-5" />
+            <span>{label}</span>
+          </label>
+        ))}
+      </div>
+      <FieldError message={field.errors?.[0]} />
+    </>
+  );
 }
 
 function TextField({ label, field, ...rest }: { label: string; field: Parameters<typeof getInputProps>[0] } & React.InputHTMLAttributes<HTMLInputElement>) {
