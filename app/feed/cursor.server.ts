@@ -18,8 +18,10 @@ export interface CursorState {
 
 let secret: Promise<string> | null = null;
 function cursorSecret(db: Kysely<Database>) {
-  secret ??= db.selectFrom("app_secrets").select("value").where("name", "=", "feed-cursor").executeTakeFirstOrThrow().then((r) => r.value);
-  secret.catch(() => (secret = null));
+  if (!secret) {
+    secret = db.selectFrom("app_secrets").select("value").where("name", "=", "feed-cursor").executeTakeFirstOrThrow().then((r) => r.value);
+    secret.catch(() => (secret = null)); // a failed read is tried again next time
+  }
   return secret;
 }
 
