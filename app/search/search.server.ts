@@ -1,6 +1,7 @@
 // Search through the hosted search service (the meilisearch SDK; the local fake in development
 // and tests), with PostgreSQL as the fallback when the service cannot be reached.
 import { type Kysely, sql } from "kysely";
+import { circuitBreaker, ConsecutiveBreaker, handleAll, type CircuitBreakerPolicy } from "cockatiel";
 import { Meilisearch } from "meilisearch";
 import type { Database } from "../../db/schema";
 
@@ -30,8 +31,31 @@ export interface SearchDoc {
   notes?: string;
 }
 
+/**
+ * A slow answer is not a down service (docs/decisions/006-search-fallback.md): a query waits up to
+ * SEARCH_TIMEOUT_MS, and the service counts as down only after BREAK_AFTER failures in a row —
+ * refused connections and errors fail at once, a timeout only after the wait. While it is down,
+ * queries go straight to PostgreSQL; one query is let through every HALF_OPEN_AFTER_MS to see
+ * whether it is back.
+ */
+export const SEARCH_TIMEOUT_MS = 5_000;
+export const BREAK_AFTER = 3;
+export const HALF_OPEN_AFTER_MS = 15_000;
+
 export function searchClient(host = process.env.SEARCH_URL ?? "http://127.0.0.1:54350", apiKey = process.env.SEARCH_API_KEY) {
-  return new Meilisearch({ host, apiKey, timeout: 800 });
+  return new Meilisearch({ host, apiKey, timeout: SEARCH_TIMEOUT_MS });
+}
+
+const breakers = new Map<string, CircuitBreakerPolicy>();
+/** One breaker per service address, shared by every request of this process. */
+export function searchBreaker(client: Meilisearch) {
+  const host = client.config.host;
+  let breaker = breakers.get(host);
+  if (!breaker) {
+    breaker = circuitBreaker(handleAll, { halfOpenAfter: HALF_OPEN_AFTER_MS, breaker: new ConsecutiveBreaker(BREAK_AFTER) });
+    breakers.set(host, breaker);
+  }
+  return breaker;
 }
 
 const modelDocs = (db: Db, modelIds?: number[]) => {
@@ -93,7 +117,7 @@ const FACETS = ["category", "job", "shank"];
 export async function search(db: Db, q: string, filters: SearchFilters = {}, limit = 20, client = searchClient(), { facets = true } = {}): Promise<SearchResult> {
   const filter = Object.entries(filters).filter(([, v]) => v).map(([k, v]) => `${k} = '${String(v).replace(/'/g, "")}'`);
   try {
-    const r = await client.index(INDEX).search<SearchDoc>(q, { filter, facets: facets ? FACETS : [], limit });
+    const r = await searchBreaker(client).execute(() => client.index(INDEX).search<SearchDoc>(q, { filter, facets: facets ? FACETS : [], limit }));
     return { source: "search", hits: r.hits, total: r.estimatedTotalHits ?? r.hits.length, facets: r.facetDistribution ?? {} };
   } catch {
     return databaseSearch(db, q, filters, limit);

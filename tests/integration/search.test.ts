@@ -1,7 +1,9 @@
 // Search through the meilisearch SDK against the local fake, the PostgreSQL fallback, the pages,
 // and indexing after an accept.
+import { createServer, type RequestListener } from "node:http";
+import type { AddressInfo } from "node:net";
 import { afterAll, describe, expect, inject, it } from "vitest";
-import { INDEX, search, searchClient } from "../../app/search/search.server";
+import { BREAK_AFTER, INDEX, search, searchClient } from "../../app/search/search.server";
 import { testDb } from "../support/db";
 import { Browserish } from "../support/http";
 
@@ -36,6 +38,52 @@ describe("when the search service is down", () => {
     const r = await search(db, "quillon qh", {}, 10, searchClient("http://127.0.0.1:9"));
     expect(r.source).toBe("database");
     expect(r.hits.map((h) => h.title)).toContain("Quillon Air Tools QH-3");
+  });
+});
+
+/** A stand-in service on a free port that answers every request with `handler`. */
+async function fakeService(handler: RequestListener) {
+  const server = createServer(handler);
+  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
+  return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`, close: () => new Promise((r) => server.close(r)) };
+}
+
+describe("when the search service is slow or failing", () => {
+  it("waits for a slow answer instead of calling the service down", async () => {
+    const slow = await fakeService((_req, res) => {
+      // Slower than the 800 ms the client used to allow, well inside the present timeout.
+      setTimeout(() => {
+        res.setHeader("Content-Type", "application/json");
+        res.end(JSON.stringify({ hits: [{ id: "model-slow", kind: "model", title: "Slow answer", url: "/models/slow" }], estimatedTotalHits: 1, facetDistribution: {} }));
+      }, 1500);
+    });
+    try {
+      const r = await search(db, "anything", {}, 5, searchClient(slow.url));
+      expect(r.source).toBe("search");
+      expect(r.hits[0]?.title).toBe("Slow answer");
+    } finally {
+      await slow.close();
+    }
+  });
+
+  it("stops asking a failing service after a few failures in a row and answers from PostgreSQL", async () => {
+    let asked = 0;
+    const failing = await fakeService((_req, res) => {
+      asked += 1;
+      res.statusCode = 500;
+      res.setHeader("Content-Type", "application/json");
+      res.end(JSON.stringify({ message: "internal", code: "internal", type: "internal", link: "" }));
+    });
+    try {
+      const client = searchClient(failing.url);
+      for (let i = 0; i < BREAK_AFTER + 2; i++) {
+        const r = await search(db, "quillon qh", {}, 5, client);
+        expect(r.source).toBe("database");
+      }
+      expect(asked).toBe(BREAK_AFTER);
+    } finally {
+      await failing.close();
+    }
   });
 });
 

@@ -115,25 +115,30 @@ export function EvidenceUploader({ reportId, initial }: { reportId: number | nul
  * default: faces, plates and shop names may be in the picture.
  */
 function PublishToggle({ item, onChange, onProblem }: { item: EvidenceItem; onChange: (isPublic: boolean) => void; onProblem: (message: string) => void }) {
-  const [busy, setBusy] = useState(false);
+  // The box shows what was asked for at once (a slow answer must not look like an ignored click)
+  // and falls back to the stored state if the server refuses.
+  const [pending, setPending] = useState<boolean | null>(null);
   return (
     <label className="flex items-center gap-2 text-sm">
       <input
         type="checkbox"
         className="h-5 w-5"
-        checked={item.isPublic}
-        disabled={busy}
+        checked={pending ?? item.isPublic}
+        disabled={pending !== null}
+        aria-busy={pending !== null}
         onChange={async (event) => {
           const wanted = event.currentTarget.checked;
-          setBusy(true);
+          setPending(wanted);
           try {
             const res = await fetch(`/api/evidence/${item.id}/publish`, {
               method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ public: wanted }),
             });
             if (res.ok) onChange(wanted);
             else onProblem((await res.json().catch(() => ({}))).error ?? "Could not change whether the file is published");
+          } catch {
+            onProblem("Could not reach Bayproof to change whether the file is published; try again");
           } finally {
-            setBusy(false);
+            setPending(null);
           }
         }}
       />
