@@ -1,7 +1,7 @@
 import { defineConfig } from "vitest/config";
 
 // Tests run without the React Router Vite plugin; the global setup builds and serves the real
-// app instead (tests/support/global-stack.ts). Three projects: unit (pure), integration (real PostgreSQL), e2e (Chromium).
+// app instead (tests/support/global-stack.ts). Four projects: unit (pure), integration (real PostgreSQL), e2e (Chromium), start (the start command from a fresh clone).
 export default defineConfig({
   resolve: { tsconfigPaths: true },
   test: {
@@ -31,6 +31,17 @@ export default defineConfig({
           testTimeout: 60_000,
           hookTimeout: 120_000,
           fileParallelism: false,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          // The README's start command from a fresh clone: several starts, each a minute or two on a busy machine.
+          name: "start",
+          include: ["tests/start/**/*.test.ts"],
+          setupFiles: ["tests/support/console-guard.ts"],
+          testTimeout: 1_200_000,
+          hookTimeout: 120_000,
         },
       },
     ],

@@ -12,6 +12,8 @@ import { ensurePortFree, StartError } from "./processes";
 import { claimRunState } from "./run-state";
 
 export const root = path.resolve(import.meta.dirname, "..");
+// Node 20 is this project's platform; the storage SDK's notice about its future needs is not news.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED = "true";
 
 /** One line on the terminal; a terminal that has gone away (SIGHUP) must not stop the clean-up. */
 export function log(s: string) {
@@ -92,6 +94,7 @@ export async function runStartCommand(main: () => Promise<void>, beforeStop: () 
   const exit = async (code: number) => {
     if (exiting) return;
     exiting = true;
+    if (code === 0) log("Stopping…");
     await beforeStop();
     await stopServices();
     if (code === 0) log("Stopped");
@@ -101,10 +104,7 @@ export async function runStartCommand(main: () => Promise<void>, beforeStop: () 
   process.stdout.on("error", () => {});
   process.stderr.on("error", () => {});
   for (const signal of ["SIGINT", "SIGTERM", "SIGHUP"] as const) {
-    process.on(signal, () => {
-      log("Stopping…");
-      void exit(0);
-    });
+    process.on(signal, () => void exit(0));
   }
   try {
     await main();
