@@ -110,7 +110,8 @@ export function clusterDirFor(wanted: string): { dir: string; moved: boolean } {
     mkdirSync(base, { mode: 0o700 });
     chownSync(base, uid, gid);
   }
-  const name = wanted.replace(/^\/+/, "").replace(/[^A-Za-z0-9._-]+/g, "_").slice(-80);
+  // Short: the server's socket lives in the cluster folder, and a socket path has at most 107 bytes.
+  const name = wanted.replace(/^\/+/, "").replace(/[^A-Za-z0-9._-]+/g, "_").slice(-40);
   const hash = createHash("sha256").update(wanted).digest("hex").slice(0, 8);
   return { dir: path.join(base, `${name}-${hash}`), moved: true };
 }
@@ -185,7 +186,8 @@ export async function startPostgres(options: PostgresOptions): Promise<RunningPo
     const serverOptions = [
       "-c listen_addresses=127.0.0.1",
       `-p ${port}`,
-      `-k ${dataDir}`,
+      // Connections go over TCP; the socket is a convenience, left out where its path would be too long.
+      path.join(dataDir, `.s.PGSQL.${port}`).length <= 100 ? `-k ${dataDir}` : "-c unix_socket_directories=''",
       ...(fast ? ["-c fsync=off", "-c synchronous_commit=off", "-c full_page_writes=off"] : []),
     ].join(" ");
     run(pgCtl, ["-D", dataDir, "-l", path.join(dataDir, "server.log"), "-w", "-t", "120", "-o", serverOptions, "start"]);
