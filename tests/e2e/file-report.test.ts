@@ -43,7 +43,7 @@ describe("filing a report from the bay", () => {
     await page.getByLabel("Attempts").fill("2");
 
     await page.locator(".uppy-Dashboard-input").first().setInputFiles(video);
-    await page.getByText(/Video \(video\/mp4.*checked/).waitFor({ timeout: 20_000 });
+    await page.getByText(/Video \(video\/mp4.*checked/).waitFor({ timeout: 90_000 });
     // Published with the open data only when the reporter says so.
     const publish = page.getByRole("checkbox", { name: "Publish with the open data" });
     expect(await publish.isChecked()).toBe(false);

@@ -108,7 +108,7 @@ describe("indexing after an accept", () => {
       .where((eb) => eb.exists(eb.selectFrom("decisions as d").select("d.id").whereRef("d.report_id", "=", "r.id").where("d.action", "=", "accept")))
       .orderBy("r.accepted_at", "desc").executeTakeFirstOrThrow();
     // Fresh accepts from the moderation tests enqueue indexing; the demo's own were indexed at start.
-    const deadline = Date.now() + 15_000;
+    const deadline = Date.now() + 60_000;
     let found = false;
     while (!found && Date.now() < deadline) {
       found = await client.index(INDEX).getDocument(`report-${accepted.id}`).then(() => true, () => false);

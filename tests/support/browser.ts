@@ -29,6 +29,10 @@ export const hydrated = (page: Page) => page.waitForSelector("html[data-hydrated
 
 export async function newCheckedPage(browser: Browser, viewport = { width: 1280, height: 900 }) {
   const context = await browser.newContext({ viewport });
+  // Waits end when their state is reached; the bound is for a busy machine, where a page can take
+  // far longer than Playwright's 30 s default.
+  context.setDefaultTimeout(120_000);
+  context.setDefaultNavigationTimeout(120_000);
   const page = await context.newPage();
   const problems: string[] = [];
   page.on("console", (msg) => {

@@ -2,7 +2,7 @@
 // PostgreSQL with migrations and the demo scenario, the local fakes on free ports, a production
 // build of the app, and server.js on a free loopback port — the path `npm start` takes.
 // A run of only the unit project starts nothing.
-import { type ChildProcess, spawn, spawnSync } from "node:child_process";
+import { type ChildProcess, spawn } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -10,6 +10,7 @@ import type { TestProject } from "vitest/node";
 import { startFakes } from "../../fakes/index";
 import { reindexAll, searchClient } from "../../app/search/search.server";
 import { createDb } from "../../db/database";
+import { buildApp } from "../../scripts/build-app";
 import { waitForHttp } from "../../scripts/wait-http";
 import { ensureChromium, freePort, startTestDatabase } from "./system";
 
@@ -50,8 +51,8 @@ export default async function setup(project: TestProject) {
       const db = createDb(database.url, 2);
       await reindexAll(db, searchClient(fakes.env.SEARCH_URL)).finally(() => db.destroy());
     }
-    const build = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], { cwd: root, encoding: "utf8" });
-    if (build.status !== 0) throw new Error(`react-router build failed:\n${build.stdout}\n${build.stderr}`);
+    const build = buildApp(root, () => {}, { inheritOutput: false });
+    if (!build.ok) throw new Error(`react-router build failed:\n${build.output}`);
     const server = spawn(process.execPath, ["server.js"], {
       cwd: root,
       env: {
@@ -66,7 +67,7 @@ export default async function setup(project: TestProject) {
     await waitForHttp(baseUrl, server);
     const worker = spawn(path.join(root, "node_modules/.bin/tsx"), ["scripts/worker.ts"], {
       cwd: root,
-      env: { ...process.env, ...fakes.env, DATABASE_URL: database.url, APP_ORIGIN: baseUrl },
+      env: { ...process.env, ...fakes.env, DATABASE_URL: database.url, APP_ORIGIN: baseUrl, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true" },
       stdio: ["ignore", "ignore", "inherit"],
     });
     cleanups.push(() => stopChild(worker));

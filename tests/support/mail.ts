@@ -3,8 +3,8 @@ import path from "node:path";
 import { simpleParser } from "mailparser";
 import { inject } from "vitest";
 
-/** The newest message the mail catcher holds for an address, waiting briefly for it to arrive. */
-export async function latestMailTo(address: string, after = 0, timeoutMs = 5000) {
+/** The newest message the mail catcher holds for an address, waiting for it to arrive (a busy machine can take a while). */
+export async function latestMailTo(address: string, after = 0, timeoutMs = 60_000) {
   const dir = inject("mailDir");
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
