@@ -32,7 +32,7 @@ export interface SearchDoc {
 }
 
 /**
- * A slow answer is not a down service (docs/decisions/006-search-fallback.md): a query waits up to
+ * A slow answer is not a down service (docs/decisions/008-search-fallback.md): a query waits up to
  * SEARCH_TIMEOUT_MS, and the service counts as down only after BREAK_AFTER failures in a row —
  * refused connections and errors fail at once, a timeout only after the wait. While it is down,
  * queries go straight to PostgreSQL; one query is let through every HALF_OPEN_AFTER_MS to see
