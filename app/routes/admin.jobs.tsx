@@ -78,7 +78,7 @@ function JobTable({ jobs, when, action }: { jobs: Job[]; when: string; action?: 
               <td className="px-3 py-2 font-mono text-xs">{j.queue}</td>
               <td className="px-3 py-2">{j.what}<span className="block text-xs text-stone-500">queued {at(j.createdAt)}</span></td>
               <td className="px-3 py-2 text-red-900">{j.lastError ?? "—"}</td>
-              <td className="px-3 py-2">{j.attempts} of {j.allowedAttempts}</td>
+              <td className="px-3 py-2">{`${j.attempts} of ${j.allowedAttempts}`}</td>
               <td className="px-3 py-2">{at(j.at)}</td>
               {action && <td className="px-3 py-2">{j.canSendAgain ? action(j.id) : null}</td>}
             </tr>

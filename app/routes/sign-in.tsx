@@ -81,6 +81,11 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
   );
 }
 
+/** The action's Retry-After (mail could not be sent) reaches the document response. */
+export function headers({ actionHeaders }: Route.HeadersArgs) {
+  return actionHeaders;
+}
+
 export function meta() {
   return [{ title: "Sign in — Bayproof" }];
 }
