@@ -53,7 +53,7 @@ async function writeFile(client: pg.PoolClient, db: Kysely<Database>, format: Bu
     },
   });
   try {
-    await pipeline(Readable.from(text()), createGzip({ level: 9 }), tap, createWriteStream(file));
+    await pipeline(Readable.from(text()), createGzip({ level: 6 }), tap, createWriteStream(file));
   } finally {
     await cursor.close();
   }
