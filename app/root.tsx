@@ -79,6 +79,7 @@ function SiteHeader() {
           <NavLink to="/air" className={link}>Air</NavLink>
           {user?.isModerator && <NavLink to="/review" className={link}>Review</NavLink>}
           {user?.isAdmin && <NavLink to="/admin/users" className={link}>Users</NavLink>}
+          {user?.isAdmin && <NavLink to="/admin/jobs" className={link}>Stuck work</NavLink>}
           {user ? (
             <>
               <NavLink to="/me/reports" className={link}>My reports</NavLink>

@@ -199,6 +199,7 @@ export interface Database {
   notices: NoticesTable;
   stats_cells: StatsCellsTable;
   app_secrets: AppSecretsTable;
+  feed_snapshots: FeedSnapshotsTable;
 }
 
 // The open feed (migration 2026-12-02T00.00); feed_rate_limits belongs to rate-limiter-flexible.
@@ -206,6 +207,20 @@ export interface AppSecretsTable {
   name: string;
   value: string;
   created_at: Timestamp;
+}
+
+// The open data's daily snapshots (migration 2026-12-02T10.30). Sizes are bigint: text when read.
+type Bytes = ColumnType<string, number | string, number | string>;
+export interface FeedSnapshotsTable {
+  id: Generated<number>;
+  created_at: Timestamp;
+  report_count: number;
+  ndjson_key: string;
+  ndjson_bytes: Bytes;
+  ndjson_sha256: string;
+  csv_key: string;
+  csv_bytes: Bytes;
+  csv_sha256: string;
 }
 
 export type User = Selectable<UsersTable>;

@@ -13,12 +13,14 @@ export async function startMailCatcher({ port, dir }: { port: number; dir: strin
     logger: false,
     onData(stream, session, callback) {
       // Tests drop a `.reject-next-<address>` file here to make the next delivery to that address
-      // fail once (451), as a relay under load would; the sender must retry.
-      const rejectFlag = session.envelope.rcptTo
-        .map((r) => path.join(dir, `.reject-next-${r.address.toLowerCase()}`))
-        .find((f) => existsSync(f));
-      if (rejectFlag) {
-        rmSync(rejectFlag, { force: true });
+      // fail once (451), as a relay under load would; the sender must retry. A `.refuse-<address>`
+      // file makes every delivery to that address fail while it is there, as a relay that is down
+      // would, without stopping the catcher other tests use.
+      const flag = (name: string) => session.envelope.rcptTo.map((r) => path.join(dir, `.${name}-${r.address.toLowerCase()}`)).find((f) => existsSync(f));
+      const rejectFlag = flag("reject-next");
+      const refuseFlag = flag("refuse");
+      if (rejectFlag || refuseFlag) {
+        if (rejectFlag) rmSync(rejectFlag, { force: true });
         stream.resume();
         stream.on("end", () => callback(Object.assign(new Error("Try again later"), { responseCode: 451 })));
         return;

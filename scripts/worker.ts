@@ -1,12 +1,13 @@
 // The background worker: `npm start` runs one beside the web server; in production run as many as
 // needed, each with DATABASE_URL and the storage variables.
-import { createDb, DEFAULT_DATABASE_URL } from "../db/database";
+import { createDb, createPool, DEFAULT_DATABASE_URL } from "../db/database";
 import { startWorker } from "../app/jobs/worker.server";
 
 const url = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
-const db = createDb(url, 4);
+const pool = createPool(url, 4);
+const db = createDb(pool);
 const log = (s: string) => console.log(`[worker] ${s}`);
-const worker = await startWorker(url, db, log);
+const worker = await startWorker(url, db, pool, log);
 log("waiting for jobs");
 for (const signal of ["SIGINT", "SIGTERM"] as const) {
   process.on(signal, async () => {

@@ -1,5 +1,7 @@
 // One-time e-mail sign-in links: 256-bit random token, stored hashed, single use, 10 minutes,
-// at most 3 per address and 10 per client in any 15 minutes.
+// at most 3 per address and 10 per client in any 15 minutes. Sent directly, not queued (see
+// docs/decisions/006-mail-delivery.md): a link that cannot be mailed is removed again, so it does
+// not count toward the limits, and the person is asked to try again in a minute.
 import { sql } from "kysely";
 import { db } from "~/db.server";
 import { clientKey } from "~/utils/client-address.server";
@@ -13,7 +15,7 @@ export const RATE_WINDOW = "15 minutes";
 export const MAX_PER_ADDRESS = 3;
 export const MAX_PER_CLIENT = 10;
 
-export type LinkRequestResult = { ok: true } | { ok: false; reason: "too_many_for_address" | "too_many_for_client" };
+export type LinkRequestResult = { ok: true } | { ok: false; reason: "too_many_for_address" | "too_many_for_client" | "mail_failed" };
 
 export async function requestSignInLink(email: string, request: Request, redirectTo: string): Promise<LinkRequestResult> {
   const address = email.toLowerCase();
@@ -31,23 +33,30 @@ export async function requestSignInLink(email: string, request: Request, redirec
   if (counts.for_client >= MAX_PER_CLIENT) return { ok: false, reason: "too_many_for_client" };
 
   const token = randomToken();
+  const tokenHash = sha256Hex(token);
   await db
     .insertInto("sign_in_links")
-    .values({ token_hash: sha256Hex(token), email: address, client_key: client, expires_at: new Date(Date.now() + LINK_LIFETIME_MS) })
+    .values({ token_hash: tokenHash, email: address, client_key: client, expires_at: new Date(Date.now() + LINK_LIFETIME_MS) })
     .execute();
   const link = `${config.appOrigin}/sign-in/link?token=${token}&redirectTo=${encodeURIComponent(redirectTo)}`;
-  await sendMail({
-    to: address,
-    subject: "Your Bayproof sign-in link",
-    text: [
-      "Someone (hopefully you) asked to sign in to Bayproof with this address.",
-      "",
-      `Open this link within 10 minutes to sign in. It works once.`,
-      link,
-      "",
-      "If you did not ask for it, ignore this message; nothing happens without the link.",
-    ].join("\n"),
-  });
+  try {
+    await sendMail({
+      to: address,
+      subject: "Your Bayproof sign-in link",
+      text: [
+        "Someone (hopefully you) asked to sign in to Bayproof with this address.",
+        "",
+        `Open this link within 10 minutes to sign in. It works once.`,
+        link,
+        "",
+        "If you did not ask for it, ignore this message; nothing happens without the link.",
+      ].join("\n"),
+    });
+  } catch (error) {
+    await db.deleteFrom("sign_in_links").where("token_hash", "=", tokenHash).execute();
+    console.warn(`[sign-in] mail could not be sent: ${(error as Error).message}`);
+    return { ok: false, reason: "mail_failed" };
+  }
   return { ok: true };
 }
 

@@ -1,8 +1,15 @@
 import nodemailer from "nodemailer";
 import { config } from "~/config.server";
 
-// One SMTP transport per process: the mail catcher locally, the relay in production.
-const transport = nodemailer.createTransport(config.mail.smtpUrl);
+// One SMTP transport per process: the mail catcher locally, the relay in production. Short
+// timeouts: a relay that does not answer should fail fast (the sign-in page waits on it; the
+// worker's mail jobs retry).
+const transport = nodemailer.createTransport({
+  url: config.mail.smtpUrl,
+  connectionTimeout: 10_000,
+  greetingTimeout: 10_000,
+  socketTimeout: 30_000,
+});
 
 export interface Mail {
   to: string;

@@ -1,50 +1,21 @@
 // The bulk files: every accepted report read through a server-side cursor a batch at a time and
 // written as the client takes it (a pull stream), so memory stays flat at any table size.
 // PostgreSQL writes each NDJSON line itself (queries.server.ts); the server only forwards text.
+// The daily snapshot (snapshot.server.ts) writes the same text (dump.server.ts) to storage.
 import { Readable } from "node:stream";
 import { createGzip } from "node:zlib";
-import { stringify } from "csv-stringify/sync";
 import type pg from "pg";
 import Cursor from "pg-cursor";
 import { db, pool } from "~/db.server";
-import { REPORT_FIELDS } from "./fields";
+import { BATCH, batchText, type BulkFormat, RAW_TEXT, type RawRow } from "./dump.server";
 import { bulkQuery } from "./queries.server";
 
-const BATCH = 2000;
-/**
- * Rows are handed on as text in pieces of about this many characters: small enough that V8
- * frees them in its cheap young-generation collections (one string per batch would land in
- * large-object space and wait for a full collection), large enough to keep writes few.
- */
-const PIECE = 32 * 1024;
-
-/** The rows' text joined into pieces of about PIECE characters. */
-function* pieces(rows: RawRow[], text: (row: RawRow) => string, head = "") {
-  let piece = head;
-  for (const row of rows) {
-    piece += text(row);
-    if (piece.length >= PIECE) {
-      yield piece;
-      piece = "";
-    }
-  }
-  if (piece) yield piece;
-}
-
-export type BulkFormat = "ndjson" | "csv";
+export type { BulkFormat };
 
 const CONTENT_TYPE: Record<BulkFormat, string> = {
   ndjson: "application/x-ndjson; charset=utf-8",
   csv: "text/csv; charset=utf-8; header=present",
 };
-
-/** Rows come from PostgreSQL as arrays of text, unparsed: a JSON line, or the CSV's columns. */
-type RawRow = (string | null)[];
-const RAW_TEXT = { getTypeParser: () => (value: string) => value };
-
-/** RFC 4180 lines: CRLF after every record, fields quoted when they hold a comma, quote or line break. */
-const csvLines = (rows: RawRow[], header: boolean) =>
-  stringify(rows, { header, columns: REPORT_FIELDS.map((f) => f.name), record_delimiter: "\r\n" });
 
 function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): ReadableStream<Uint8Array> {
   let client: pg.PoolClient | null = null;
@@ -77,11 +48,7 @@ function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): 
         const rows = await (next ?? (cursor.read(BATCH) as Promise<RawRow[]>));
         next = rows.length === BATCH ? (cursor.read(BATCH) as Promise<RawRow[]>) : null;
         next?.catch(() => {});
-        if (format === "csv") {
-          if (rows.length > 0 || first) for (const piece of pieces(rows, (r) => csvLines([r], false), first ? csvLines([], true) : "")) controller.enqueue(encoder.encode(piece));
-        } else {
-          for (const piece of pieces(rows, (r) => `${r[0]}\n`)) controller.enqueue(encoder.encode(piece));
-        }
+        for (const piece of batchText(format, rows, first)) controller.enqueue(encoder.encode(piece));
         first = false;
         if (rows.length < BATCH) {
           await release();

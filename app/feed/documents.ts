@@ -11,6 +11,14 @@ export const citation = (origin: string, day: string) =>
   `Bayproof contributors (${day.slice(0, 4)}). Bayproof open data: accepted air-tool job reports [data set], version ${FEED_VERSION}. ${origin}/data (retrieved ${day}). Licence CC BY 4.0.`;
 
 type Json = Record<string, unknown>;
+
+/** The latest daily snapshot of the bulk files, as pages and documents describe it. */
+export interface SnapshotInfo {
+  id: number;
+  createdAt: string;
+  reportCount: number;
+  files: { format: "ndjson" | "csv"; path: string; key: string; bytes: number; sha256: string }[];
+}
 const ref = (name: string) => ({ $ref: `#/components/schemas/${name}` });
 const json = (schema: string, description: string) => ({ description, content: { "application/json": { schema: ref(schema) } } });
 const q = (name: string, description: string, schema: Json = { type: "string" }) => ({ name, in: "query", required: false, description, schema });
@@ -79,6 +87,30 @@ export function openApi(origin: string): Json {
           responses: { ...cached("report", "The report"), "404": json("error", "No accepted report has this number.") },
         },
       },
+      "/api/v1/snapshots/{snapshot}/{file}": {
+        get: {
+          summary: "The daily snapshot of every accepted report, gzipped (no key needed)",
+          description: "Written daily at 03:15 UTC. `latest` is the newest snapshot; a number names one (the Data Package lists the newest with its size and SHA-256, and that URL never changes content). Supports Range (206) and If-None-Match (304); the ETag is the file's SHA-256.",
+          security: [{}],
+          parameters: [
+            { name: "snapshot", in: "path", required: true, schema: { oneOf: [{ type: "string", const: "latest" }, { type: "integer", minimum: 1 }] } },
+            { name: "file", in: "path", required: true, schema: { type: "string", enum: ["reports.ndjson.gz", "reports.csv.gz"] } },
+            { name: "Range", in: "header", required: false, description: "One byte range, e.g. `bytes=0-99`.", schema: { type: "string" } },
+          ],
+          responses: {
+            "200": {
+              description: "The gzipped file: NDJSON of report records, or CSV with the columns of the Data Package",
+              headers: { ETag: { schema: { type: "string" } }, "Accept-Ranges": { schema: { type: "string", const: "bytes" } }, "Content-Length": { schema: { type: "integer" } } },
+              content: { "application/gzip": { schema: { type: "string", contentMediaType: "application/gzip" } } },
+            },
+            "206": { description: "The requested byte range", headers: { "Content-Range": { schema: { type: "string" } } }, content: { "application/gzip": { schema: { type: "string" } } } },
+            "304": { description: "Not modified (If-None-Match matched the ETag)." },
+            "404": json("error", "No such snapshot (there is none yet, or it was replaced by newer ones)."),
+            "416": json("error", "The range lies outside the file."),
+            ...errors,
+          },
+        },
+      },
       "/api/v1/reports.ndjson": {
         get: {
           summary: "Every accepted report, one JSON object per line (API key needed)",
@@ -143,22 +175,40 @@ export function tableField(f: Field): Json {
   };
 }
 
-export function dataPackage(origin: string, day: string): Json {
+const CSV_DIALECT = { delimiter: ",", lineTerminator: "\r\n", quoteChar: "\"", doubleQuote: true, header: true };
+
+/** Data Package resources for the snapshot's files: the fixed URL of this snapshot, size and hash. */
+function snapshotResources(origin: string, snapshot: SnapshotInfo, schema: Json): Json[] {
+  return snapshot.files.map((f) => ({
+    profile: f.format === "csv" ? "tabular-data-resource" : "data-resource",
+    name: `reports-${f.format}-snapshot`,
+    title: `Daily snapshot of ${snapshot.reportCount} accepted reports, ${f.format.toUpperCase()}, gzipped`,
+    path: `${origin}${f.path}`,
+    format: f.format, compression: "gz",
+    mediatype: f.format === "csv" ? "text/csv" : "application/x-ndjson", encoding: "utf-8",
+    bytes: f.bytes, hash: `sha256:${f.sha256}`, created: snapshot.createdAt,
+    ...(f.format === "csv" ? { dialect: CSV_DIALECT } : {}),
+    schema,
+  }));
+}
+
+export function dataPackage(origin: string, day: string, snapshot: SnapshotInfo | null = null): Json {
   const schema = { fields: REPORT_FIELDS.map(tableField), primaryKey: ["id"], missingValues: [""] };
   return {
     profile: "tabular-data-package",
     name: "bayproof-reports",
     title: "Bayproof: accepted air-tool job reports",
-    description: "Every report a moderator accepted: the tool, the job, the air supply at the tool (SI units), the outcome and the time it took. Reporters appear under stable pseudonyms. The bulk files need an API key (free, from an account page) sent as Authorization: Bearer <key>.",
+    description: "Every report a moderator accepted: the tool, the job, the air supply at the tool (SI units), the outcome and the time it took. Reporters appear under stable pseudonyms. The daily snapshot files (gzipped, with size and SHA-256) are open to anyone; the live files need an API key (free, from an account page) sent as Authorization: Bearer <key>.",
     version: FEED_VERSION,
     homepage: `${origin}/data`,
     created: `${day}T00:00:00Z`,
     licenses: [LICENCE],
     citation: citation(origin, day),
     resources: [
+      ...(snapshot ? snapshotResources(origin, snapshot, schema) : []),
       {
         profile: "tabular-data-resource", name: "reports-csv", path: `${origin}/api/v1/reports.csv`, format: "csv", mediatype: "text/csv", encoding: "utf-8",
-        dialect: { delimiter: ",", lineTerminator: "\r\n", quoteChar: "\"", doubleQuote: true, header: true },
+        dialect: CSV_DIALECT,
         schema,
       },
       {

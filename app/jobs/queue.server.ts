@@ -1,5 +1,5 @@
 // Enqueueing background work from the app, inside the caller's transaction, so a decision and its
-// mail either both happen or neither does.
+// mail either both happen or neither does. Every queue's retry options live here, once.
 import PgBoss from "pg-boss";
 import { CompiledQuery, type Transaction } from "kysely";
 import type { Database } from "../../db/schema";
@@ -10,11 +10,46 @@ export const QUEUES = {
   decisionMail: "decision-mail",
   statsRefresh: "stats-refresh",
   searchIndex: "search-index",
+  feedSnapshot: "feed-snapshot",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
-/** Delivery retries for mail: 6 tries, 2 s apart and growing (pg-boss retryBackoff). */
-export const MAIL_RETRY = { retryLimit: 6, retryDelay: 2, retryBackoff: true } as const;
+/**
+ * Mail must outlast a relay outage of a day. pg-boss (10.x, src/plans.js `failJobs`) waits
+ * retryDelay × 2^(k−1) × (1 + random) seconds before retry k (the exponent stops growing at 16;
+ * there is no other cap). With 3 s and 15 retries the waits are 3–6 s, 6–12 s, 12–24 s, 24–48 s,
+ * 48–96 s, 1.6–3.2 min, 3.2–6.4 min, 6.4–13 min, 13–26 min, 26–51 min, 51–102 min, 1.7–3.4 h,
+ * 3.4–6.8 h, 6.8–13.7 h and 13.7–27.3 h: 16 attempts over 27.3 h at the least (3 × (2^15 − 1) s)
+ * and 54.6 h at the most, plus each attempt's own time. Early retries cover a relay that blinks.
+ * expireInSeconds bounds one attempt (nodemailer's timeouts are shorter). A job waiting to run
+ * is archived by maintenance once keep_until (send time + retention) passes, so retention (7
+ * days) must exceed the whole schedule. A job that still fails stays `failed` in the job table for
+ * WORKER_OPTIONS.archiveFailedAfterSeconds and is listed on /admin/jobs ("Stuck work").
+ */
+export const MAIL_RETRY = { retryLimit: 15, retryDelay: 3, retryBackoff: true, expireInSeconds: 5 * 60, retentionDays: 7 } as const;
+
+/** Options each queue's jobs get when sent (enqueue merges them in; a caller may override). */
+export const JOB_OPTIONS: Record<QueueName, PgBoss.SendOptions> = {
+  [QUEUES.evidenceCleanup]: { retryLimit: 2, retryDelay: 60 },
+  [QUEUES.decisionMail]: MAIL_RETRY,
+  [QUEUES.statsRefresh]: { retryLimit: 5, retryDelay: 5, retryBackoff: true },
+  [QUEUES.searchIndex]: { retryLimit: 10, retryDelay: 5, retryBackoff: true, retentionDays: 2 },
+  [QUEUES.feedSnapshot]: { retryLimit: 3, retryDelay: 300, expireInSeconds: 60 * 60 },
+};
+
+/**
+ * The worker's housekeeping: failed jobs stay in the job table (where pg-boss can retry them)
+ * for 30 days, so stuck work is listed until someone acts on it.
+ */
+export const WORKER_OPTIONS = { archiveFailedAfterSeconds: 30 * 24 * 3600, archiveCompletedAfterSeconds: 12 * 3600, deleteAfterDays: 7 } as const;
+
+/** The snapshot queue holds at most one waiting and one running job, however many workers ask. */
+const POLICY: Partial<Record<QueueName, PgBoss.QueuePolicy>> = { [QUEUES.feedSnapshot]: "stately" };
+
+/** Creates every queue (a no-op for those that exist), in the app and in the worker alike. */
+export async function createQueues(b: PgBoss) {
+  for (const name of Object.values(QUEUES)) await b.createQueue(name, { name, policy: POLICY[name] ?? "standard" });
+}
 
 let boss: Promise<PgBoss> | null = null;
 
@@ -24,17 +59,21 @@ export function queue(): Promise<PgBoss> {
     const b = new PgBoss({ connectionString: process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL, schema: "pgboss", supervise: false, schedule: false, max: 2 });
     b.on("error", (error) => console.warn(`[queue] ${error.message}`));
     await b.start();
-    for (const name of Object.values(QUEUES)) await b.createQueue(name);
+    await createQueues(b);
     return b;
   })();
   return boss;
 }
 
-/** Enqueues a job through the caller's transaction. */
-export async function enqueue(trx: Transaction<Database>, name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
-  const b = await queue();
-  const db = {
+/** A pg-boss `db` option that runs its SQL through a Kysely transaction. */
+export function inTransaction(trx: Transaction<Database>) {
+  return {
     executeSql: async (text: string, values: unknown[]) => ({ rows: (await trx.executeQuery(CompiledQuery.raw(text, values))).rows as unknown[] }),
   };
-  return b.send(name, data, { ...options, db });
+}
+
+/** Enqueues a job through the caller's transaction, with its queue's options. */
+export async function enqueue(trx: Transaction<Database>, name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
+  const b = await queue();
+  return b.send(name, data, { ...JOB_OPTIONS[name], ...options, db: inTransaction(trx) });
 }

@@ -2,20 +2,24 @@
 // dies, and any number of workers can run. Started by scripts/worker.ts.
 import PgBoss from "pg-boss";
 import type { Kysely } from "kysely";
+import type pg from "pg";
 import type { Database } from "../../db/schema";
 import { removeOrphanedEvidence } from "~/reports/evidence.server";
 import { sendDecisionMail } from "~/moderation/mail.server";
 import { refreshCell } from "~/stats/refresh.server";
 import { indexReport } from "~/search/search.server";
-import { QUEUES } from "./queue.server";
+import { latestSnapshot, writeSnapshot } from "~/feed/snapshot.server";
+import { defaultStore } from "~/storage/s3.server";
+import { config } from "~/config.server";
+import { createQueues, JOB_OPTIONS, QUEUES, WORKER_OPTIONS } from "./queue.server";
 
-export async function startWorker(connectionString: string, db: Kysely<Database>, log: (s: string) => void) {
-  const boss = new PgBoss({ connectionString, schema: "pgboss" });
+export async function startWorker(connectionString: string, db: Kysely<Database>, pool: pg.Pool, log: (s: string) => void) {
+  const boss = new PgBoss({ connectionString, schema: "pgboss", ...WORKER_OPTIONS });
   boss.on("error", (error) => log(`queue error: ${error.message}`));
   await boss.start();
-  for (const name of Object.values(QUEUES)) await boss.createQueue(name);
+  await createQueues(boss);
   // Hourly: uploads older than a day that never joined a submitted report.
-  await boss.schedule(QUEUES.evidenceCleanup, "17 * * * *");
+  await boss.schedule(QUEUES.evidenceCleanup, "17 * * * *", {}, JOB_OPTIONS[QUEUES.evidenceCleanup]);
   await boss.work(QUEUES.evidenceCleanup, async () => {
     const removed = await removeOrphanedEvidence(db);
     if (removed) log(`removed ${removed} orphaned evidence objects`);
@@ -30,5 +34,12 @@ export async function startWorker(connectionString: string, db: Kysely<Database>
   await boss.work<{ reportId: number }>(QUEUES.searchIndex, async ([job]) => {
     await indexReport(db, job!.data.reportId);
   });
+  // Daily at 03:15 UTC, and once now when there is none yet: the open data's bulk files.
+  await boss.schedule(QUEUES.feedSnapshot, "15 3 * * *", {}, { ...JOB_OPTIONS[QUEUES.feedSnapshot], tz: "UTC" });
+  await boss.work(QUEUES.feedSnapshot, async () => {
+    const s = await writeSnapshot(db, pool, defaultStore, config.appOrigin);
+    log(`wrote open-data snapshot ${s.id} (${s.reportCount} reports)`);
+  });
+  if (!(await latestSnapshot(db))) await boss.send(QUEUES.feedSnapshot, {}, JOB_OPTIONS[QUEUES.feedSnapshot]);
   return { boss, stop: () => boss.stop({ graceful: true, timeout: 10_000 }) };
 }

@@ -5,7 +5,7 @@ import type { Route } from "./+types/api.v1";
 
 const CORS = {
   "Access-Control-Allow-Origin": "*",
-  "Access-Control-Expose-Headers": "ETag, Link, RateLimit, RateLimit-Policy, Retry-After, Content-Disposition",
+  "Access-Control-Expose-Headers": "ETag, Link, RateLimit, RateLimit-Policy, Retry-After, Content-Disposition, Content-Range, Accept-Ranges, Content-Length",
 };
 
 // Every /api/v1 request: open CORS for reading, only GET and HEAD, and the rate limits (which
@@ -18,7 +18,7 @@ export const middleware: Route.MiddlewareFunction[] = [
         status: 204,
         headers: {
           ...CORS, "Access-Control-Allow-Methods": "GET, HEAD, OPTIONS",
-          "Access-Control-Allow-Headers": "Authorization, If-None-Match", "Access-Control-Max-Age": "86400",
+          "Access-Control-Allow-Headers": "Authorization, If-None-Match, Range, If-Range", "Access-Control-Max-Age": "86400",
         },
       });
     }

@@ -1,5 +1,7 @@
 import { Link } from "react-router";
 import { config } from "~/config.server";
+import { db } from "~/db.server";
+import { latestSnapshot } from "~/feed/snapshot.server";
 import { citation, LICENCE } from "~/feed/documents";
 import { type Field, RECORD_TYPES, type RecordType } from "~/feed/fields";
 import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "~/feed/params";
@@ -7,7 +9,7 @@ import type { Route } from "./+types/data";
 
 export async function loader() {
   const day = new Date().toISOString().slice(0, 10);
-  return { origin: config.appOrigin, citation: citation(config.appOrigin, day) };
+  return { origin: config.appOrigin, citation: citation(config.appOrigin, day), snapshot: await latestSnapshot(db) };
 }
 
 const TYPE_LABEL: Record<Field["type"], string> = {
@@ -17,6 +19,8 @@ const TYPE_LABEL: Record<Field["type"], string> = {
 const ENDPOINTS = [
   ["/api/v1/reports", "report-page", "Accepted reports, a page at a time (filters model, job, category, accepted_since, accepted_until; limit, cursor)"],
   ["/api/v1/reports/{id}", "report", "One accepted report"],
+  ["/api/v1/snapshots/latest/reports.ndjson.gz", "report", "Daily snapshot: every accepted report, one JSON object per line, gzipped (open to anyone)"],
+  ["/api/v1/snapshots/latest/reports.csv.gz", "report", "Daily snapshot: every accepted report as CSV, gzipped (open to anyone)"],
   ["/api/v1/reports.ndjson", "report", "Every accepted report, one JSON object per line (API key)"],
   ["/api/v1/reports.csv", "report", "Every accepted report as CSV, RFC 4180 (API key)"],
   ["/api/v1/models", "model-list", "Tool models and their specs (filter category)"],
@@ -47,6 +51,8 @@ export default function Data({ loaderData }: Route.ComponentProps) {
         <p className="mt-2 text-sm text-stone-600">Give the date you retrieved it, and the <code>as_of</code> of your walk when you page through reports, so others can find the same rows.</p>
       </section>
 
+      <Snapshot snapshot={loaderData.snapshot} origin={origin} />
+
       <section aria-labelledby="endpoints" className="space-y-2">
         <h2 id="endpoints" className="text-lg font-semibold">Endpoints</h2>
         <div className="overflow-x-auto">
@@ -75,7 +81,7 @@ export default function Data({ loaderData }: Route.ComponentProps) {
         <ul className="list-disc space-y-1 pl-5 text-sm">
           <li>Pages hold {DEFAULT_LIMIT} reports by default, at most {MAX_LIMIT} (<code>limit</code>). Follow <code>next_cursor</code> (or the <code>Link: rel="next"</code> header) until it is <code>null</code>. Keep the other parameters the same while you walk; a walk covers the reports accepted up to its <code>as_of</code>, so it returns each one exactly once even while new reports are accepted.</li>
           <li>Anonymous clients may make {LIMITS.anonymous.points} requests a minute; with an API key, {LIMITS.key.points}. Every answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get <code>429</code> with <code>Retry-After</code>.</li>
-          <li>The bulk files need an API key: sign in, create one on <Link className="underline" to="/account">your account page</Link> (it is shown once), and send it as <code>Authorization: Bearer &lt;key&gt;</code>. A revoked key gets <code>401</code>.</li>
+          <li>The daily snapshot files need nothing: download them, check the SHA-256, and resume a broken download with <code>Range</code>. The live bulk files (up to the minute) need an API key: sign in, create one on <Link className="underline" to="/account">your account page</Link> (it is shown once), and send it as <code>Authorization: Bearer &lt;key&gt;</code>. A revoked key gets <code>401</code>.</li>
           <li>JSON answers carry an <code>ETag</code>; send it back in <code>If-None-Match</code> and an unchanged answer is a bodiless <code>304</code>. CORS is open for GET.</li>
           <li>A parameter the feed cannot read is a <code>400</code> with <code>{"{ error: { code, message, parameter } }"}</code> — nothing is silently ignored.</li>
         </ul>
@@ -84,7 +90,10 @@ export default function Data({ loaderData }: Route.ComponentProps) {
           `curl -s '${origin}/api/v1/reports?job=ball-joint-separation&limit=50'`,
           `curl -s '${origin}/api/v1/reports?job=ball-joint-separation&limit=50&cursor=<next_cursor>'`,
           ``,
-          `# Every accepted report, as CSV, with an API key`,
+          `# Every accepted report as of today's snapshot, as CSV, no key needed`,
+          `curl -s -o reports.csv.gz '${origin}/api/v1/snapshots/latest/reports.csv.gz' && gunzip reports.csv.gz`,
+          ``,
+          `# Every accepted report up to the minute, as CSV, with an API key`,
           `curl -s -H 'Authorization: Bearer <your key>' -o reports.csv '${origin}/api/v1/reports.csv'`,
           ``,
           `# The stats of one tool model, only if they changed since last time`,
@@ -107,6 +116,55 @@ export default function Data({ loaderData }: Route.ComponentProps) {
       </section>
     </article>
   );
+}
+
+function Snapshot({ snapshot, origin }: { snapshot: Route.ComponentProps["loaderData"]["snapshot"]; origin: string }) {
+  return (
+    <section aria-labelledby="snapshot" className="space-y-2">
+      <h2 id="snapshot" className="text-lg font-semibold">Daily snapshot</h2>
+      {!snapshot ? (
+        <p className="text-sm text-stone-600">The first snapshot has not been written yet. One is written every day at 03:15 UTC.</p>
+      ) : (
+        <>
+          <p className="max-w-prose text-sm">
+            Every report accepted as of <strong>{snapshot.createdAt.replace("T", " ").slice(0, 19)} UTC</strong> ({snapshot.reportCount} reports),
+            gzipped, open to anyone — no account or key. A new snapshot is written every day at 03:15 UTC; these links name this one, so the
+            SHA-256 below always matches what you download.
+          </p>
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm">
+              <thead><tr className="border-b"><th className="py-1 pr-3">File</th><th className="py-1 pr-3">Size</th><th className="py-1">SHA-256</th></tr></thead>
+              <tbody>
+                {snapshot.files.map((f) => (
+                  <tr key={f.format} className="border-b border-stone-100 align-top">
+                    <td className="py-1 pr-3"><a className="underline" href={f.path} download>{f.path.split("/").pop()}</a> <span className="text-stone-500">({f.format.toUpperCase()})</span></td>
+                    <td className="py-1 pr-3 whitespace-nowrap">{formatBytes(f.bytes)}</td>
+                    <td className="py-1 break-all font-mono text-xs">{f.sha256}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <pre className="overflow-x-auto rounded bg-stone-900 p-3 text-xs text-stone-100">{[
+            `curl -s -O '${origin}${snapshot.files[0]!.path}'`,
+            `echo '${snapshot.files[0]!.sha256}  reports.${snapshot.files[0]!.format}.gz' | sha256sum -c`,
+          ].join("\n")}</pre>
+        </>
+      )}
+    </section>
+  );
+}
+
+/** A file size in the unit a person reads (powers of 1024, as `ls -h` shows them). */
+function formatBytes(bytes: number) {
+  const units = ["bytes", "KiB", "MiB", "GiB"];
+  let value = bytes;
+  let unit = 0;
+  while (value >= 1024 && unit < units.length - 1) {
+    value /= 1024;
+    unit++;
+  }
+  return unit === 0 ? `${bytes} bytes` : `${value.toFixed(1)} ${units[unit]}`;
 }
 
 function Dictionary({ type }: { type: RecordType }) {

@@ -23,6 +23,12 @@ export async function action({ request }: Route.ActionArgs) {
   if (!form.ok) return invalid(form.errors, form.values);
   const redirectTo = safeRedirectPath(form.data.redirectTo);
   const result = await requestSignInLink(form.data.email, request, redirectTo);
+  if (!result.ok && result.reason === "mail_failed") {
+    return data(
+      { ok: false as const, errors: {}, values: form.values, formError: "The mail could not be sent just now. Try again in a minute." },
+      { status: 503, headers: { "Retry-After": "60" } },
+    );
+  }
   if (!result.ok) {
     const message = result.reason === "too_many_for_address"
       ? "Several links were sent to this address in the last 15 minutes. Use the newest one, or wait a little."
@@ -73,6 +79,11 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
       </Form>
     </section>
   );
+}
+
+/** The action's Retry-After (mail could not be sent) reaches the document response. */
+export function headers({ actionHeaders }: Route.HeadersArgs) {
+  return actionHeaders;
 }
 
 export function meta() {

@@ -14,8 +14,8 @@ export const storageConfig = {
   region: env.S3_REGION ?? "us-east-1",
 };
 
-export const s3 = new S3Client({
-  endpoint: storageConfig.endpoint,
+const clientFor = (endpoint: string) => new S3Client({
+  endpoint,
   region: storageConfig.region,
   forcePathStyle: env.S3_FORCE_PATH_STYLE !== "0",
   credentials: { accessKeyId: env.S3_ACCESS_KEY_ID ?? "S3RVER", secretAccessKey: env.S3_SECRET_ACCESS_KEY ?? "S3RVER" },
@@ -23,6 +23,16 @@ export const s3 = new S3Client({
   requestChecksumCalculation: "WHEN_REQUIRED",
   responseChecksumValidation: "WHEN_REQUIRED",
 });
+
+export const s3 = clientFor(storageConfig.endpoint);
+
+/** A bucket and the client that reaches it: the configured one, or another (tests, scripts). */
+export interface Store {
+  client: S3Client;
+  bucket: string;
+}
+export const defaultStore: Store = { client: s3, bucket: storageConfig.bucket };
+export const storeAt = (endpoint: string, bucket: string): Store => ({ client: clientFor(endpoint), bucket });
 
 /** The origin browsers upload to and play from; it must be allowed by the page's CSP. */
 export const storageOrigin = new URL(storageConfig.endpoint).origin;

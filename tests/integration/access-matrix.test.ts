@@ -31,6 +31,8 @@ const matrix: [string, string, (() => Record<string, string>) | null, Record<Who
   ["GET", "/admin/users", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
   ["GET", "/admin/users?q=mod", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
   ["POST", "/admin/users", () => ({ intent: "grant", userId: targetId, role: "moderator" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
+  ["GET", "/admin/jobs", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
+  ["POST", "/admin/jobs", () => ({ intent: "send-again", jobId: "00000000-0000-4000-8000-000000000000" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 404 }],
   ["GET", "/reports/new", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/me/reports", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
   ["POST", "/reports/new", () => ({ intent: "autosave" }), { visitor: SIGN_IN, reporter: 400, moderator: 400, admin: 400 }],
