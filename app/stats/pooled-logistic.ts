@@ -15,8 +15,16 @@ export interface PooledLogisticFit {
   groups: { group: string | number; intercept: number; se: number; n: number }[];
   slope: number;
   slopeSE: number;
-  /** Covariance of (intercept of each group in `groups` order, then the slope): (G+1)×(G+1). */
-  covariance: number[][];
+  /**
+   * Covariance of (intercept of each group in `groups` order, then the slope): (G+1)×(G+1), built
+   * on first read from `inverse` (so a job with many models does not pay for it unless asked).
+   */
+  readonly covariance: number[][];
+  /**
+   * The same covariance in arrowhead form, O(G): V = diag(1/d, 0) + (r, −1)(r, −1)ᵀ/σ, i.e.
+   * V_jk = [j = k]/d_j + r_j·r_k/σ, V_jβ = −r_j/σ, V_ββ = 1/σ.
+   */
+  inverse: { d: number[]; r: number[]; sigma: number };
   firth: boolean;
   converged: boolean;
   iterations: number;
@@ -121,13 +129,19 @@ export function pooledLogisticFit(rows: readonly PooledRow[], { firth = true, ma
     if (!Number.isFinite(largest)) break; // information singular: ML under separation
     let scale = largest > 5 ? 5 / largest : 1;
     let accepted = false;
+    const tryScale = (k: number) => {
+      const a = alpha.map((v, j) => v + k * stepA[j]!);
+      const b = beta + k * stepB;
+      return { a, b, next: information(a, b) };
+    };
     for (let halving = 0; halving < 30 && !accepted; halving++, scale /= 2) {
-      const nextAlpha = alpha.map((a, k) => a + scale * stepA[k]!);
-      const nextBeta = beta + scale * stepB;
-      const next = information(nextAlpha, nextBeta);
-      if (Number.isFinite(next.penalised) && next.penalised >= state.penalised - 1e-12) {
-        [alpha, beta, state, accepted] = [nextAlpha, nextBeta, next, true];
-      }
+      let trial = tryScale(scale);
+      if (!(Number.isFinite(trial.next.penalised) && trial.next.penalised >= state.penalised - 1e-12)) continue;
+      // The expected information can overshoot the penalised likelihood's curvature by up to 2× (a
+      // model seen in one report: the step then flips back and forth); take the half step if better.
+      const half = tryScale(scale / 2);
+      if (half.next.penalised > trial.next.penalised) trial = half;
+      [alpha, beta, state, accepted] = [trial.a, trial.b, trial.next, true];
     }
     if (!accepted) break;
     if (largest < 1e-8) {
@@ -138,22 +152,29 @@ export function pooledLogisticFit(rows: readonly PooledRow[], { firth = true, ma
   }
 
   const { d, r, sigma } = state;
-  const covariance = Array.from({ length: G + 1 }, () => new Array<number>(G + 1).fill(0));
-  for (let a = 0; a < G; a++) {
-    for (let b = 0; b < G; b++) covariance[a]![b] = r[a]! * r[b]! / sigma + (a === b ? 1 / d[a]! : 0);
-    covariance[a]![G] = covariance[G]![a] = -r[a]! / sigma;
-  }
-  covariance[G]![G] = 1 / sigma;
   const keys = [...index.keys()];
-  return {
-    groups: keys.map((group, k) => ({ group, intercept: alpha[k]!, se: Math.sqrt(covariance[k]![k]!), n: n[k]! })),
+  const fit = {
+    groups: keys.map((group, k) => ({ group, intercept: alpha[k]!, se: Math.sqrt(1 / d[k]! + (r[k]! * r[k]!) / sigma), n: n[k]! })),
     slope: beta,
     slopeSE: Math.sqrt(1 / sigma),
-    covariance,
+    inverse: { d, r, sigma },
     firth,
     converged,
     iterations,
   };
+  let dense: number[][] | undefined;
+  return Object.defineProperty(fit, "covariance", { enumerable: true, get: () => (dense ??= denseCovariance(d, r, sigma)) }) as PooledLogisticFit;
+}
+
+function denseCovariance(d: number[], r: number[], sigma: number): number[][] {
+  const G = d.length;
+  const covariance = Array.from({ length: G + 1 }, () => new Array<number>(G + 1).fill(0));
+  for (let a = 0; a < G; a++) {
+    for (let b = 0; b < G; b++) covariance[a]![b] = (r[a]! * r[b]!) / sigma + (a === b ? 1 / d[a]! : 0);
+    covariance[a]![G] = covariance[G]![a] = -r[a]! / sigma;
+  }
+  covariance[G]![G] = 1 / sigma;
+  return covariance;
 }
 
 /** P(y = 1) for `group` at x, with a Wald interval on the logit scale mapped back. */
@@ -161,10 +182,10 @@ export function pooledPredict(fit: PooledLogisticFit, group: string | number, x:
   checkConfidence(confidence);
   const k = fit.groups.findIndex((row) => row.group === group);
   if (k < 0) throw new RangeError(`no group ${String(group)} in this fit`);
-  const G = fit.groups.length;
-  const v = fit.covariance;
+  const { d, r, sigma } = fit.inverse;
   const eta = fit.groups[k]!.intercept + fit.slope * x;
-  const se = Math.sqrt(v[k]![k]! + 2 * x * v[k]![G]! + x * x * v[G]![G]!);
+  // V_kk + 2x·V_kβ + x²·V_ββ, which the arrowhead form reduces to 1/d_k + (x − r_k)²/σ.
+  const se = Math.sqrt(1 / d[k]! + (x - r[k]!) ** 2 / sigma);
   const z = zCritical(confidence);
   return { estimate: expit(eta), lower: expit(eta - z * se), upper: expit(eta + z * se) };
 }
