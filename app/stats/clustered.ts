@@ -41,7 +41,9 @@ export function clusteredWilson(clusters: readonly Group[], confidence = 0.95): 
     const ss = used.reduce((acc, c) => acc + (c.successes - p * c.trials) ** 2, 0);
     const clusterVariance = ((K / (K - 1)) * ss) / (n * n);
     const binomialVariance = ((n / (n - 1)) * p * (1 - p)) / n;
-    designEffect = Math.max(1, clusterVariance / binomialVariance);
+    const ratio = clusterVariance / binomialVariance;
+    // With one report per reporter the ratio is 1 in exact arithmetic; rounding must not lift it.
+    designEffect = ratio > 1 + 1e-9 ? ratio : 1;
   }
   const effectiveN = n / designEffect;
   return { ...wilsonAt(p, effectiveN, confidence), designEffect, effectiveN, clusters: K };
