@@ -66,9 +66,10 @@ describe("medianInterval", () => {
 
 describe("kaplanMeier", () => {
   // Freireich et al. (1963), Blood 21:699–716, 6-MP arm, as printed by Gehan (1965), Biometrika
-  // 52:203–223 (weeks; + censored). Data as in REFERENCES.md and in R's MASS::gehan / KMsurv::drug6mp
-  // documentation (found, but no printed survival table could be reached): the steps below are from
-  // memory and recomputed exactly as products of (1 − d/n), e.g. S(7) = 18/21 · 16/17.
+  // 52:203–223 (weeks; + censored). Data as in REFERENCES.md; the set is documented as R's MASS::gehan
+  // and KMsurv::drug6mp (their help pages were found, but they describe the data without printing a
+  // survival table, and no printed table could be reached): the steps below are from memory and
+  // recomputed exactly as products of (1 − d/n), e.g. S(7) = 18/21 · 16/17 (and with numpy/scipy).
   const times = [6, 6, 6, 6, 7, 9, 10, 10, 11, 13, 16, 17, 19, 20, 22, 23, 25, 32, 32, 34, 35];
   const freed = [1, 1, 1, 0, 1, 0, 1, 0, 0, 1, 1, 0, 0, 0, 1, 1, 0, 0, 0, 0, 0].map(Boolean);
   const km = kaplanMeier(times, freed);
