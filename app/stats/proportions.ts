@@ -19,18 +19,25 @@ function checkCounts(successes: number, trials: number) {
  */
 export function wilsonInterval(successes: number, trials: number, confidence = 0.95): Interval {
   checkCounts(successes, trials);
+  return wilsonAt(successes / trials, trials, confidence);
+}
+
+/**
+ * The same Wilson score formula at a rate p and a sample size n that need not be whole (an
+ * effective sample size n / deff; Korn & Graubard 1998). p = 0 and p = 1 keep their exact limit.
+ */
+export function wilsonAt(p: number, n: number, confidence = 0.95): Interval {
+  if (!(p >= 0 && p <= 1) || !(n > 0)) throw new RangeError("need 0 ≤ p ≤ 1 and n > 0");
   checkConfidence(confidence);
   const z = zCritical(confidence);
-  const n = trials;
-  const p = successes / n;
   const z2 = z * z;
   const centre = p + z2 / (2 * n);
   const half = z * Math.sqrt((p * (1 - p)) / n + z2 / (4 * n * n));
   const denom = 1 + z2 / n;
   return {
     estimate: p,
-    lower: successes === 0 ? 0 : (centre - half) / denom,
-    upper: successes === n ? 1 : (centre + half) / denom,
+    lower: p === 0 ? 0 : (centre - half) / denom,
+    upper: p === 1 ? 1 : (centre + half) / denom,
   };
 }
 
@@ -40,8 +47,11 @@ export function wilsonInterval(successes: number, trials: number, confidence = 0
  * Wilson limits of each proportion combined as δ − √((p1−l1)² + (u2−p2)²), δ + √((u1−p1)² + (p2−l2)²).
  */
 export function differenceInterval(s1: number, n1: number, s2: number, n2: number, confidence = 0.95): Interval {
-  const a = wilsonInterval(s1, n1, confidence);
-  const b = wilsonInterval(s2, n2, confidence);
+  return hybridDifference(wilsonInterval(s1, n1, confidence), wilsonInterval(s2, n2, confidence));
+}
+
+/** Newcombe's hybrid combination of two single-proportion intervals (a − b), whatever made them. */
+export function hybridDifference(a: Interval, b: Interval): Interval {
   const d = a.estimate - b.estimate;
   return {
     estimate: d,
