@@ -9,7 +9,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { freePort } from "../../scripts/free-port";
-import { isAlive, portInUse } from "../../scripts/processes";
+import { commandLine, isAlive, portInUse } from "../../scripts/processes";
 
 const root = path.resolve(import.meta.dirname, "../..");
 const isRoot = process.getuid?.() === 0;
@@ -93,7 +93,10 @@ async function until(what: string, condition: () => boolean | Promise<boolean>, 
 }
 
 async function expectAllGone(pids: number[], ports: Ports) {
-  await until("every started process to exit", () => pids.every((p) => !isAlive(p)));
+  await until("every started process to exit", () => pids.every((p) => !isAlive(p))).catch((error: Error) => {
+    const left = pids.filter(isAlive).map((p) => `${p}: ${commandLine(p)}`);
+    throw new Error(`${error.message}; still running: ${left.join("; ")}`);
+  });
   for (const port of Object.values(ports)) await until(`port ${port} to be free`, async () => !(await portInUse(port)));
 }
 
