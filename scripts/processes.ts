@@ -18,6 +18,19 @@ export function isAlive(pid: number): boolean {
   }
 }
 
+/**
+ * When `pid` started (clock ticks since boot), or null if it is gone: with a pid and its start
+ * time a process is told from a later one that got the same number (numbers run to 32768 here).
+ */
+export function startTime(pid: number): string | null {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
+    return stat.slice(stat.lastIndexOf(")") + 2).split(" ")[19] ?? null;
+  } catch {
+    return null;
+  }
+}
+
 /** The command line of `pid`, spaces between arguments; "" when it cannot be read. */
 export function commandLine(pid: number): string {
   try {

@@ -9,7 +9,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { freePort } from "../../scripts/free-port";
-import { commandLine, isAlive, portInUse } from "../../scripts/processes";
+import { commandLine, isAlive, portInUse, startTime } from "../../scripts/processes";
 
 const root = path.resolve(import.meta.dirname, "../..");
 const isRoot = process.getuid?.() === 0;
@@ -71,8 +71,15 @@ async function start(dir: string, ports: Ports) {
   return { child, output: () => output };
 }
 
+/** A process as pid and start time, so a later process given the same number is not mistaken for it. */
+interface Proc {
+  pid: number;
+  started: string | null;
+}
+const stillRunning = (p: Proc) => isAlive(p.pid) && startTime(p.pid) === p.started;
+
 /** Every process of the start command's group and the PostgreSQL server it runs. */
-function startedProcesses(leader: ChildProcess, dataDir: string, clusterDir: string) {
+function startedProcesses(leader: ChildProcess, dataDir: string, clusterDir: string): Proc[] {
   const pids = new Set<number>();
   for (const entry of spawnSync("ps", ["-eo", "pid=,pgid="], { encoding: "utf8" }).stdout.trim().split("\n")) {
     const [pid, pgid] = entry.trim().split(/\s+/).map(Number);
@@ -81,7 +88,7 @@ function startedProcesses(leader: ChildProcess, dataDir: string, clusterDir: str
   const state = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as { startPid: number; children: Record<string, number> };
   for (const pid of [state.startPid, ...Object.values(state.children)]) pids.add(pid);
   pids.add(Number(readFileSync(path.join(clusterDir, "postmaster.pid"), "utf8").split("\n")[0]));
-  return [...pids];
+  return [...pids].map((pid) => ({ pid, started: startTime(pid) })).filter((p) => p.started !== null);
 }
 
 async function until(what: string, condition: () => boolean | Promise<boolean>, timeoutMs = 120_000) {
@@ -92,9 +99,9 @@ async function until(what: string, condition: () => boolean | Promise<boolean>, 
   }
 }
 
-async function expectAllGone(pids: number[], ports: Ports) {
-  await until("every started process to exit", () => pids.every((p) => !isAlive(p))).catch((error: Error) => {
-    const left = pids.filter(isAlive).map((p) => `${p}: ${commandLine(p)}`);
+async function expectAllGone(procs: Proc[], ports: Ports) {
+  await until("every started process to exit", () => !procs.some(stillRunning)).catch((error: Error) => {
+    const left = procs.filter(stillRunning).map((p) => `${p.pid}: ${commandLine(p.pid)}`);
     throw new Error(`${error.message}; still running: ${left.join("; ")}`);
   });
   for (const port of Object.values(ports)) await until(`port ${port} to be free`, async () => !(await portInUse(port)));
@@ -117,7 +124,7 @@ function clusterDirFrom(output: string, dataDir: string) {
   return /the cluster lives in (\S+) instead/.exec(output)?.[1] ?? path.join(dataDir, "postgres");
 }
 
-async function stopWithCtrlC(run: Awaited<ReturnType<typeof start>>, pids: number[], ports: Ports) {
+async function stopWithCtrlC(run: Awaited<ReturnType<typeof start>>, pids: Proc[], ports: Ports) {
   process.kill(-run.child.pid!, "SIGINT");
   await until("npm start to exit", () => run.child.exitCode != null || run.child.signalCode != null);
   await expectAllGone(pids, ports);
