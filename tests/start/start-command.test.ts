@@ -131,7 +131,7 @@ async function stopWithCtrlC(run: Awaited<ReturnType<typeof start>>, pids: Proc[
 }
 
 describe("npm start from a fresh clone", () => {
-  it("serves, stops everything on Ctrl-C, reuses its data, and recovers after a kill -9", async () => {
+  it("serves, stops everything on Ctrl-C, reuses its data, restarts a dead server, and recovers after a kill -9", async () => {
     const parent = mkdtempSync(path.join(tmpdir(), "bayproof-start-"));
     chmodSync(parent, 0o755); // a folder anyone can enter
     cleanups.push(() => rmSync(parent, { recursive: true, force: true }));
@@ -151,6 +151,13 @@ describe("npm start from a fresh clone", () => {
     expect(second.output()).toMatch(/Demo scenario already present/);
     expect(second.output()).not.toMatch(/Loaded the demo scenario/);
     expect(second.output()).toMatch(/The build is up to date/);
+    await browse(ports);
+    // A server that dies on its own is started again alone; the database and fakes stay up.
+    const before = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as { children: Record<string, number> };
+    process.kill(before.children.server!, "SIGKILL");
+    await until("the server to be started again", () => /The server stopped \(SIGKILL\); starting it again/.test(second.output()));
+    await until("the new server to answer", () => fetch(`http://127.0.0.1:${ports.PORT}/jobs`).then((r) => r.ok, () => false));
+    expect(second.output()).not.toMatch(/PostgreSQL stopped/);
     await browse(ports);
     const secondPids = startedProcesses(second.child, dataDir, clusterDir);
 
