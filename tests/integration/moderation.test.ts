@@ -89,6 +89,29 @@ describe("claims and concurrency", () => {
     expect(claims).toHaveLength(1);
   });
 
+  it("lets only the holder of a live claim decide, and anyone once it has run out", async () => {
+    const { id } = await freshReport();
+    expect((await mod1.get(`/review/${id}`)).status).toBe(200); // mod1 now holds the claim
+    const blocked = await decideAs(mod2, id, { action: "reject", reasonCode: "job_not_shown" });
+    expect(blocked.status).toBe(409);
+    expect(await blocked.text()).toMatch(/mod-harriet has this report open until/);
+    expect((await state(id))).toMatchObject({ status: "submitted", seen: 0 });
+
+    await db.updateTable("report_claims").set({ claimed_at: new Date(Date.now() - 20 * 60_000), expires_at: new Date(Date.now() - 5 * 60_000) })
+      .where("report_id", "=", id).execute();
+    const late = await decideAs(mod2, id, { action: "return", reasonCode: "gauge_unreadable", note: "Show the gauge" });
+    expect(late.status).toBe(200);
+    expect((await state(id)).status).toBe("returned");
+  });
+
+  it("lets the holder of the claim decide", async () => {
+    const { id } = await freshReport();
+    expect((await mod1.get(`/review/${id}`)).status).toBe(200);
+    expect((await decideAs(mod1, id, { action: "reject", reasonCode: "job_not_shown" })).status).toBe(200);
+    expect((await state(id)).status).toBe("rejected");
+    expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
+  });
+
   it("lets one of two simultaneous decisions win and tells the other", async () => {
     const { id } = await freshReport();
     const s = await state(id);

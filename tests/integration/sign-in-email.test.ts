@@ -83,6 +83,7 @@ describe("sign-in by e-mail link", () => {
     const user = await db.selectFrom("users").select(["handle"]).where("email", "=", address).executeTakeFirst();
     expect(user?.handle).toMatch(/^tech-[a-z0-9]{6}$/);
   });
+
   it("sends the visitor home, not to another site, when redirectTo hides a host", async () => {
     const client = new Browserish();
     const address = `redirect-${Date.now()}@demo.bayproof.test`;
