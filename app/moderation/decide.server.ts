@@ -4,6 +4,7 @@
 import { type Kysely, sql, type Transaction } from "kysely";
 import type { Database } from "../../db/schema";
 import { enqueue, MAIL_RETRY, QUEUES } from "~/jobs/queue.server";
+import { moderatorsMaySee } from "./visibility";
 import { type ChecklistKey, type DecisionKind, isReason, reasonLabel } from "./reasons";
 import { needsSecondLook, trustLevel, type History } from "./trust";
 
@@ -55,7 +56,7 @@ async function takeClaim(trx: Transaction<Database>, moderatorId: number, report
 export async function claim(db: Db, moderatorId: number, reportId: number) {
   return db.transaction().execute(async (trx) => {
     const report = await trx.selectFrom("reports").select(["id", "status", "reporter_id", "version"]).where("id", "=", reportId).executeTakeFirst();
-    if (!report) throw new DecisionError("No such report", 404);
+    if (!report || !moderatorsMaySee(report.status)) throw new DecisionError("No such report", 404);
     const none = { held: false as const, mine: false, expiresAt: null, holder: null };
     if (report.reporter_id === moderatorId || report.status !== "submitted") return none;
     // Whoever gave the first accept leaves the report free for the second look.
@@ -107,7 +108,7 @@ export async function decide(db: Db, moderatorId: number, reportId: number, inpu
 
   return db.transaction().execute(async (trx) => {
     const report = await trx.selectFrom("reports").selectAll().where("id", "=", reportId).forUpdate().executeTakeFirst();
-    if (!report) throw new DecisionError("No such report", 404);
+    if (!report || !moderatorsMaySee(report.status)) throw new DecisionError("No such report", 404);
     if (report.reporter_id === moderatorId) throw new DecisionError("Nobody decides on their own report", 403);
     if (report.status !== "submitted") throw new DecisionError(`This report is not waiting for a decision (it is ${report.status})`, 409);
     await holdClaimToDecide(trx, moderatorId, reportId);

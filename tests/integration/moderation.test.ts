@@ -79,6 +79,33 @@ describe("who may decide", () => {
   });
 });
 
+describe("what moderators never see", () => {
+  it("answers 404 for a reporter's draft: no notes shown, no claim taken, no decision possible", async () => {
+    const { reporter } = await freshReport();
+    const secret = `draft note ${Date.now()}`;
+    const saved = await reporter.post("/reports/new", { ...validReport(), notes: secret, intent: "save-draft" });
+    const id = Number(saved.headers.get("location")!.match(/reports\/(\d+)\/edit/)![1]);
+    expect((await state(id)).status).toBe("draft");
+
+    const page = await mod1.get(`/review/${id}`);
+    expect(page.status).toBe(404);
+    expect(await page.text()).not.toContain(secret);
+    expect((await decideAs(mod1, id, { action: "reject", reasonCode: "duplicate" })).status).toBe(404);
+    expect((await mod1.get(`/reports/${id}/history`)).status).toBe(404);
+    expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
+    expect(await db.selectFrom("decisions").select("id").where("report_id", "=", id).execute()).toHaveLength(0);
+    expect((await reporter.get(`/reports/${id}/history`)).status).toBe(200); // still the reporter's own
+  });
+
+  it("answers 404 for a withdrawn report", async () => {
+    const { id, reporter } = await freshReport();
+    expect((await reporter.post(`/reports/${id}/edit`, { intent: "withdraw" })).status).toBe(302);
+    expect((await state(id)).status).toBe("withdrawn");
+    expect((await mod1.get(`/review/${id}`)).status).toBe(404);
+    expect((await decideAs(mod1, id, { action: "reject", reasonCode: "duplicate" })).status).toBe(404);
+  });
+});
+
 describe("claims and concurrency", () => {
   it("claims a report for the first moderator who opens it and shows others who holds it", async () => {
     const { id } = await freshReport();
