@@ -18,6 +18,7 @@ export default [
   route("auth/:provider/callback", "routes/auth.$provider.callback.tsx"),
   route("account", "routes/account.tsx"),
   route("admin/users", "routes/admin.users.tsx"),
+  route("admin/users/:id", "routes/admin.users.$id.tsx"),
   route("reports/new", "routes/reports.edit.tsx", { id: "reports-new" }),
   route("reports/:id/edit", "routes/reports.edit.tsx", { id: "reports-edit" }),
   route("me/reports", "routes/me.reports.tsx"),
