@@ -6,7 +6,13 @@
 //   - response bodies are written with node's stream.pipeline, which waits for the socket and
 //     holds one chunk at a time. The adapter's writer races every read against one long-lived
 //     promise, which keeps every chunk of a long stream alive until it ends (a bulk dump of
-//     the feed grew the process by the size of the file).
+//     the feed grew the process by the size of the file);
+//   - a path that does not percent-decode is a 400 before anything reads it (JSON under /api/),
+//     and a cross-site write is refused with the app's own 403 (crossSiteRefusal, exported by
+//     app/entry.server.tsx) before React Router's origin check, which would answer a bare 400
+//     and log a stack trace for each one;
+//   - static files carry nosniff and a CSP that lets them load nothing but our own styles,
+//     fonts and images, and HSTS when APP_ORIGIN is https.
 // Plain JavaScript, run by node itself; HOST and PORT choose where it listens.
 import path from "node:path";
 import { Readable } from "node:stream";
@@ -18,10 +24,28 @@ import { createRequestHandler } from "react-router";
 
 /** Must equal CLIENT_ADDRESS_HEADER in app/utils/client-address.server.ts (a unit test checks). */
 const CLIENT_ADDRESS_HEADER = "x-bayproof-client-address";
+/** Must equal HSTS in app/security.server.ts (a unit test checks). */
+const HSTS = "max-age=31536000; includeSubDomains";
+const STATIC_HEADERS = {
+  "Content-Security-Policy": "default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'",
+  "X-Content-Type-Options": "nosniff",
+  ...((process.env.APP_ORIGIN ?? "").startsWith("https://") ? { "Strict-Transport-Security": HSTS } : {}),
+};
 
 const root = path.dirname(fileURLToPath(import.meta.url));
 const build = await import(path.join(root, "build/server/index.js"));
 const handle = createRequestHandler(build, process.env.NODE_ENV);
+const crossSiteRefusal = build.entry.module.crossSiteRefusal;
+if (typeof crossSiteRefusal !== "function") throw new Error("app/entry.server.tsx must export crossSiteRefusal");
+
+/** A 400 with a reason: the feed's JSON error under /api/v1, JSON under /api/, plain text elsewhere. */
+function badPath(req, res) {
+  const message = "The address is not valid: it has a broken %-escape.";
+  res.status(400).set({ "Cache-Control": "no-store", "Content-Security-Policy": "default-src 'none'", "X-Content-Type-Options": "nosniff" });
+  if (/^\/api\/v1(\/|$)/.test(req.path)) return res.set("Access-Control-Allow-Origin", "*").json({ error: { code: "invalid_path", message } });
+  if (req.path.startsWith("/api/")) return res.json({ error: message });
+  return res.type("text/plain").send(message);
+}
 
 /** The Fetch API request React Router takes, from node's; aborted when the client goes away. */
 function toRequest(req, res) {
@@ -46,12 +70,22 @@ function toRequest(req, res) {
 const app = express();
 app.disable("x-powered-by");
 app.use(compression());
-app.use("/assets", express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y" }));
-app.use(express.static(path.join(root, "build/client"), { maxAge: "1h" }));
+app.use((req, res, next) => {
+  try {
+    decodeURIComponent(req.path);
+  } catch {
+    return badPath(req, res);
+  }
+  next();
+});
+const setHeaders = (res) => res.set(STATIC_HEADERS);
+app.use("/assets", express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y", setHeaders }));
+app.use(express.static(path.join(root, "build/client"), { maxAge: "1h", setHeaders }));
 app.all("*", async (req, res, next) => {
   let response;
   try {
-    response = await handle(toRequest(req, res));
+    const request = toRequest(req, res);
+    response = crossSiteRefusal(request) ?? (await handle(request));
   } catch (error) {
     return next(error);
   }

@@ -7,6 +7,8 @@ import { type EntryContext, type RouterContextProvider, ServerRouter } from "rea
 import { NonceProvider, nonceContext } from "~/utils/nonce";
 
 export const streamTimeout = 5_000;
+// server.js refuses cross-site writes with this before React Router sees them.
+export { crossSiteRefusal } from "~/security.server";
 
 // React Router's Node entry, plus the CSP nonce for every inline script it writes.
 export default function handleRequest(

@@ -3,7 +3,7 @@ import { Form, Link, Links, Meta, NavLink, Outlet, Scripts, ScrollRestoration, u
 import { getUser, hasRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
 import { SearchBox } from "~/components/search-box";
-import { applySecurityHeaders, isCrossSiteWrite, newNonce } from "~/security.server";
+import { applySecurityHeaders, crossSiteRefusal, newNonce } from "~/security.server";
 import { nonceContext, useNonce } from "~/utils/nonce";
 import type { Route } from "./+types/root";
 import "./app.css";
@@ -12,12 +12,7 @@ export const middleware: Route.MiddlewareFunction[] = [
   async ({ request, context }, next) => {
     const nonce = newNonce();
     context.set(nonceContext, nonce);
-    const response = isCrossSiteWrite(request)
-      ? new Response("Cross-site request refused: this form must be sent from Bayproof's own pages.", {
-          status: 403,
-          headers: { "Content-Type": "text/plain; charset=utf-8" },
-        })
-      : await next();
+    const response = crossSiteRefusal(request) ?? (await next());
     applySecurityHeaders(response.headers, nonce, import.meta.env.DEV);
     return response;
   },

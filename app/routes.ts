@@ -19,6 +19,7 @@ export default [
   route("account", "routes/account.tsx"),
   route("admin/users", "routes/admin.users.tsx"),
   route("admin/jobs", "routes/admin.jobs.tsx"),
+  route("admin/users/:id", "routes/admin.users.$id.tsx"),
   route("reports/new", "routes/reports.edit.tsx", { id: "reports-new" }),
   route("reports/:id/edit", "routes/reports.edit.tsx", { id: "reports-edit" }),
   route("me/reports", "routes/me.reports.tsx"),

@@ -18,6 +18,25 @@ export function isCrossSiteWrite(request: Request): boolean {
   return request.headers.get("sec-fetch-site") !== "same-origin";
 }
 
+/**
+ * The answer to a cross-site write, or null to go on. The root middleware asks it, and so does
+ * server.js (through the build's entry module) before React Router's own origin check, which
+ * would refuse such a page POST first with a bare 400 and a stack trace in the log.
+ */
+export function crossSiteRefusal(request: Request): Response | null {
+  if (!isCrossSiteWrite(request)) return null;
+  return new Response("Cross-site request refused: this form must be sent from Bayproof's own pages.", {
+    status: 403,
+    headers: { "Content-Type": "text/plain; charset=utf-8", "Content-Security-Policy": "default-src 'none'", "X-Content-Type-Options": "nosniff" },
+  });
+}
+
+/** One year, subdomains included; server.js sends the same value on static files (a unit test checks). */
+export const HSTS = "max-age=31536000; includeSubDomains";
+
+/** Strict-Transport-Security only where users reach us over https: over http browsers ignore it. */
+export const strictTransportSecurity = (appOrigin: string) => (appOrigin.startsWith("https://") ? HSTS : null);
+
 export const newNonce = () => randomBytes(16).toString("base64");
 
 export function contentSecurityPolicy(nonce: string, dev: boolean): string {
@@ -38,7 +57,9 @@ export function contentSecurityPolicy(nonce: string, dev: boolean): string {
   return Object.entries(directives).map(([k, v]) => `${k} ${v.join(" ")}`).join("; ");
 }
 
-export function applySecurityHeaders(headers: Headers, nonce: string, dev: boolean) {
+export function applySecurityHeaders(headers: Headers, nonce: string, dev: boolean, appOrigin = config.appOrigin) {
+  const hsts = strictTransportSecurity(appOrigin);
+  if (hsts) headers.set("Strict-Transport-Security", hsts);
   headers.set("Content-Security-Policy", contentSecurityPolicy(nonce, dev));
   headers.set("X-Content-Type-Options", "nosniff");
   headers.set("Referrer-Policy", "strict-origin-when-cross-origin");

@@ -194,6 +194,7 @@ export interface Database {
   sign_in_links: SignInLinksTable;
   api_keys: ApiKeysTable;
   role_changes: RoleChangesTable;
+  ban_changes: BanChangesTable;
   report_versions: ReportVersionsTable;
   report_claims: ReportClaimsTable;
   notices: NoticesTable;
@@ -280,6 +281,16 @@ export interface RoleChangesTable {
   user_id: number;
   role: "moderator" | "admin";
   change: "grant" | "revoke";
+  changed_by: number | null;
+  created_at: Timestamp;
+}
+
+// Bans and unbans, append-only (migration 2026-12-02T10.00).
+export interface BanChangesTable {
+  id: Generated<number>;
+  user_id: number;
+  change: "ban" | "unban";
+  reason: string;
   changed_by: number | null;
   created_at: Timestamp;
 }

@@ -109,11 +109,8 @@ export async function destroySession(request: Request) {
   return sessionCookie.serialize("", { maxAge: 0 });
 }
 
-/** Only same-site paths may follow sign-in, never another origin. */
-export function safeRedirectPath(value: unknown, fallback = "/account"): string {
-  if (typeof value !== "string" || !value.startsWith("/") || value.startsWith("//") || value.startsWith("/\\")) return fallback;
-  return value;
-}
+/** Only same-site paths may follow sign-in, never another origin (the rule: ./redirect-path.ts). */
+export { safeRedirectPath } from "./redirect-path";
 
 /** Resource routes: a visitor gets a 401 with a reason, not a redirect. */
 export async function requireApiUser(request: Request): Promise<SessionUser> {

@@ -22,10 +22,14 @@ export interface SnapshotInfo {
 const ref = (name: string) => ({ $ref: `#/components/schemas/${name}` });
 const json = (schema: string, description: string) => ({ description, content: { "application/json": { schema: ref(schema) } } });
 const q = (name: string, description: string, schema: Json = { type: "string" }) => ({ name, in: "query", required: false, description, schema });
+// What params.ts accepts: a plain date (2026-12-01) or an RFC 3339 date-time with its offset.
+const dateOrDateTime = { type: "string", anyOf: [{ format: "date" }, { format: "date-time" }] };
 const slugQ = (name: string, what: string) => q(name, `Only ${what} with this slug.`, { type: "string", pattern: "^[a-z0-9]+([-.][a-z0-9]+)*$" });
 
+// Every operation can answer these: the parent route refuses unknown parameters and bad paths
+// (400), bad or revoked keys (401) and callers over their limit (429) before any endpoint runs.
 const errors = {
-  "400": json("error", "A parameter could not be read; `error.parameter` names it."),
+  "400": json("error", "A parameter or the path could not be read; `error.parameter` names the parameter."),
   "401": json("error", "The API key is unknown or revoked (or, for bulk files, missing)."),
   "429": {
     ...json("error", "Too many requests; wait `Retry-After` seconds."),
@@ -72,8 +76,8 @@ export function openApi(origin: string): Json {
           description: "Ordered by (accepted_at, id). Follow `next_cursor` (or the Link rel=next header) until it is null; a walk covers the reports accepted up to its `as_of`.",
           parameters: [
             slugQ("model", "reports of the tool model"), slugQ("job", "reports of the job type"), slugQ("category", "reports in the tool category"),
-            q("accepted_since", "Accepted at or after this date or RFC 3339 date-time.", { type: "string" }),
-            q("accepted_until", "Accepted before this date or RFC 3339 date-time.", { type: "string" }),
+            q("accepted_since", "Accepted at or after this date (midnight UTC) or RFC 3339 date-time.", dateOrDateTime),
+            q("accepted_until", "Accepted before this date (midnight UTC) or RFC 3339 date-time.", dateOrDateTime),
             q("limit", `Reports per page (default ${DEFAULT_LIMIT}).`, { type: "integer", minimum: 1, maximum: MAX_LIMIT, default: DEFAULT_LIMIT }),
             q("cursor", "The next_cursor of the previous page; keep the other parameters the same."),
           ],
@@ -138,18 +142,18 @@ export function openApi(origin: string): Json {
         get: {
           summary: "A published evidence file (redirects to it)",
           parameters: [{ name: "id", in: "path", required: true, schema: { type: "integer", minimum: 1 } }],
-          responses: { "302": { description: "To a short-lived link to the file" }, "404": json("error", "No published file has this number.") },
+          responses: { "302": { description: "To a short-lived link to the file" }, "404": json("error", "No published file has this number."), ...errors },
         },
       },
       "/api/v1/schema/{name}.json": {
         get: {
           summary: "JSON Schema (2020-12) of a record or response",
           parameters: [{ name: "name", in: "path", required: true, schema: { type: "string", enum: SCHEMA_NAMES } }],
-          responses: { "200": { description: "The schema", content: { "application/schema+json": { schema: { type: "object" } } } } },
+          responses: { "200": { description: "The schema", content: { "application/schema+json": { schema: { type: "object" } } } }, "404": json("error", "No schema has this name."), ...errors },
         },
       },
-      "/api/v1/openapi.json": { get: { summary: "This document", responses: { "200": { description: "OpenAPI 3.1", content: { "application/json": { schema: { type: "object" } } } } } } },
-      "/api/v1/datapackage.json": { get: { summary: "Data Package descriptor of the bulk files", responses: { "200": { description: "Frictionless Data Package", content: { "application/json": { schema: { type: "object" } } } } } } },
+      "/api/v1/openapi.json": { get: { summary: "This document", responses: { "200": { description: "OpenAPI 3.1", content: { "application/json": { schema: { type: "object" } } } }, ...errors } } },
+      "/api/v1/datapackage.json": { get: { summary: "Data Package descriptor of the bulk files", responses: { "200": { description: "Frictionless Data Package", content: { "application/json": { schema: { type: "object" } } } }, ...errors } } },
     },
   };
 }

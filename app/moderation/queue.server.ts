@@ -3,6 +3,7 @@ import { type Kysely, sql } from "kysely";
 import type { Database } from "../../db/schema";
 import { presignGet } from "~/storage/s3.server";
 import { histories } from "./decide.server";
+import { HIDDEN_FROM_MODERATORS } from "./visibility";
 import { trustLevel, type TrustLevel } from "./trust";
 
 type Db = Kysely<Database>;
@@ -60,7 +61,7 @@ export async function reviewDetail(db: Db, reportId: number) {
       "m.blows_per_minute", "m.free_speed_rpm", "m.max_torque_nm", "m.weight_kg", "m.rated_air_lps", "m.max_inlet_kpa",
       "mk.name as maker", "j.name as job", "j.id as job_id", "c.name as category", "c.action as category_action",
     ])
-    .where("r.id", "=", reportId).executeTakeFirst();
+    .where("r.id", "=", reportId).where("r.status", "not in", HIDDEN_FROM_MODERATORS).executeTakeFirst();
   if (!report) return null;
   const [evidence, usual, versions, hist] = await Promise.all([
     db.selectFrom("evidence").select(["id", "kind", "content_type", "size_bytes", "sha256", "status", "object_key"])

@@ -20,43 +20,70 @@ export class EvidenceError extends Error {
 
 const mb = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
 
+/**
+ * One evidence row and a presigned PUT. The report row is locked for the count and the insert, so
+ * simultaneous requests for one report queue and the per-report limit holds.
+ */
 export async function createUpload(db: Db, userId: number, reportId: number, claimed: { type: string; size: number }) {
-  const report = await db.selectFrom("reports").select(["status"]).where("id", "=", reportId).where("reporter_id", "=", userId).executeTakeFirst();
-  if (!report) throw new EvidenceError("No such report among yours", 404);
-  if (!EDITABLE.includes(report.status)) throw new EvidenceError("Evidence can only be added while the report is a draft or returned", 409);
-  if (!isEvidenceType(claimed.type)) throw new EvidenceError("Only video (mp4, mov, webm) and photos (jpeg, png, heic) are accepted", 415);
-  const kind = EVIDENCE_TYPES[claimed.type].kind;
-  if (claimed.size > MAX_BYTES[kind]) throw new EvidenceError(`A ${kind} may be at most ${mb(MAX_BYTES[kind])}`, 413);
-  const count = await db.selectFrom("evidence").select(sql<number>`count(*)::int`.as("n")).where("report_id", "=", reportId).executeTakeFirstOrThrow();
-  if (count.n >= MAX_EVIDENCE_PER_REPORT) throw new EvidenceError(`At most ${MAX_EVIDENCE_PER_REPORT} files per report`, 409);
-
-  // Our own random name under the report's prefix; the client's file name is never used.
-  const key = `reports/${reportId}/${randomToken(18)}`;
-  const row = await db.insertInto("evidence").values({ report_id: reportId, object_key: key, kind, status: "pending" }).returning("id").executeTakeFirstOrThrow();
-  return { evidenceId: row.id, key, url: await presignPut(key, claimed.type), headers: { "Content-Type": claimed.type } };
+  const row = await db.transaction().execute(async (trx) => {
+    const report = await trx.selectFrom("reports").select(["status"]).where("id", "=", reportId).where("reporter_id", "=", userId)
+      .forUpdate().executeTakeFirst();
+    if (!report) throw new EvidenceError("No such report among yours", 404);
+    if (!EDITABLE.includes(report.status)) throw new EvidenceError("Evidence can only be added while the report is a draft or returned", 409);
+    if (!isEvidenceType(claimed.type)) throw new EvidenceError("Only video (mp4, mov, webm) and photos (jpeg, png, heic) are accepted", 415);
+    const kind = EVIDENCE_TYPES[claimed.type].kind;
+    if (claimed.size > MAX_BYTES[kind]) throw new EvidenceError(`A ${kind} may be at most ${mb(MAX_BYTES[kind])}`, 413);
+    const count = await trx.selectFrom("evidence").select(sql<number>`count(*)::int`.as("n")).where("report_id", "=", reportId).executeTakeFirstOrThrow();
+    if (count.n >= MAX_EVIDENCE_PER_REPORT) throw new EvidenceError(`At most ${MAX_EVIDENCE_PER_REPORT} files per report`, 409);
+    // Our own random name under the report's prefix; the client's file name is never used.
+    const key = `reports/${reportId}/${randomToken(18)}`;
+    return trx.insertInto("evidence").values({ report_id: reportId, object_key: key, kind, status: "pending" })
+      .returning(["id", "object_key"]).executeTakeFirstOrThrow();
+  });
+  return { evidenceId: row.id, key: row.object_key, url: await presignPut(row.object_key, claimed.type), headers: { "Content-Type": claimed.type } };
 }
 
+type Check =
+  | { done: { id: number; kind: "video" | "photo"; contentType: string; size: number; sha256: string } }
+  | { refused: EvidenceError };
+
+/**
+ * Checks an upload once. The request that locks the pending row does the work (sniff, hash,
+ * record) and answers 200; any other request for the same upload answers 409 straight away,
+ * "being checked" while the lock is held and "already checked" after. The lock is the row's own,
+ * so a request that dies mid-check leaves the upload pending for the next try.
+ */
 export async function completeUpload(db: Db, userId: number, evidenceId: number) {
-  const item = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
-    .select(["e.id", "e.object_key", "e.status", "r.reporter_id"]).where("e.id", "=", evidenceId).executeTakeFirst();
-  if (!item || item.reporter_id !== userId) throw new EvidenceError("No such upload among yours", 404);
-  if (item.status !== "pending") throw new EvidenceError("This upload was already checked", 409);
+  const owned = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
+    .select("e.id").where("e.id", "=", evidenceId).where("r.reporter_id", "=", userId).executeTakeFirst();
+  if (!owned) throw new EvidenceError("No such upload among yours", 404);
 
-  const size = await objectSize(item.object_key);
-  if (size == null) throw new EvidenceError("The file has not arrived in storage yet", 409);
-  const refuse = async (message: string, status: 413 | 422) => {
-    await deleteObject(item.object_key);
-    await db.deleteFrom("evidence").where("id", "=", item.id).execute();
-    throw new EvidenceError(message, status);
-  };
-  const type = size > 0 ? await sniffEvidenceType(await readHead(item.object_key)) : null;
-  if (!type) return refuse("This file is not a video or photo we accept, whatever its name says; it was removed", 422);
-  const kind = EVIDENCE_TYPES[type].kind;
-  if (size > MAX_BYTES[kind]) return refuse(`A ${kind} may be at most ${mb(MAX_BYTES[kind])}; it was removed`, 413);
+  const check: Check = await db.transaction().execute(async (trx) => {
+    const item = await trx.selectFrom("evidence").select(["id", "object_key", "status"]).where("id", "=", evidenceId)
+      .forUpdate().skipLocked().executeTakeFirst();
+    if (!item) throw new EvidenceError("This upload is being checked by another request; its result will show shortly", 409);
+    if (item.status !== "pending") throw new EvidenceError("This upload was already checked", 409);
 
-  const sha256 = await sha256OfObject(item.object_key);
-  await db.updateTable("evidence").set({ status: "uploaded", content_type: type, kind, size_bytes: size, sha256 }).where("id", "=", item.id).execute();
-  return { id: item.id, kind, contentType: type, size, sha256 };
+    const size = await objectSize(item.object_key);
+    if (size == null) throw new EvidenceError("The file has not arrived in storage yet", 409);
+    const refuse = async (message: string, status: 413 | 422) => {
+      await deleteObject(item.object_key);
+      await trx.deleteFrom("evidence").where("id", "=", item.id).execute();
+      return { refused: new EvidenceError(message, status) };
+    };
+    const type = size > 0 ? await sniffEvidenceType(await readHead(item.object_key)) : null;
+    if (!type) return refuse("This file is not a video or photo we accept, whatever its name says; it was removed", 422);
+    const kind = EVIDENCE_TYPES[type].kind;
+    if (size > MAX_BYTES[kind]) return refuse(`A ${kind} may be at most ${mb(MAX_BYTES[kind])}; it was removed`, 413);
+
+    const sha256 = await sha256OfObject(item.object_key);
+    await trx.updateTable("evidence").set({ status: "uploaded", content_type: type, kind, size_bytes: size, sha256 })
+      .where("id", "=", item.id).where("status", "=", "pending").execute();
+    return { done: { id: item.id, kind, contentType: type, size, sha256 } };
+  });
+  // A refusal is thrown only after its row's deletion has committed.
+  if ("refused" in check) throw check.refused;
+  return check.done;
 }
 
 /**

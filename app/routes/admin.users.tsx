@@ -1,4 +1,4 @@
-import { data, Form } from "react-router";
+import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import { changeRole, recentRoleChanges, RoleChangeError, searchUsers } from "~/auth/roles.server";
 import { requireRole } from "~/auth/session.server";
@@ -58,7 +58,10 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
           <tbody className="divide-y divide-stone-100">
             {users.map((u) => (
               <tr key={u.id}>
-                <td className="px-3 py-2 font-semibold">{u.handle}</td>
+                <td className="px-3 py-2 font-semibold">
+                  <Link to={`/admin/users/${u.id}`} className="text-bay-700 underline">{u.handle}</Link>
+                  {u.banned_at && <span className="ml-2 rounded bg-red-100 px-1 text-xs text-red-900">banned</span>}
+                </td>
                 <td className="px-3 py-2">{u.email}</td>
                 <td className="px-3 py-2">{u.shop_name ?? "—"}</td>
                 <td className="px-3 py-2">

@@ -5,6 +5,7 @@ import { LogList } from "~/components/decision-log";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { reportLog } from "~/moderation/decide.server";
+import { moderatorsMaySee } from "~/moderation/visibility";
 import type { Route } from "./+types/reports.$id.history";
 
 // A report's moderation log, for its reporter and for moderators.
@@ -13,7 +14,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = z.coerce.number().int().positive().safeParse(params.id);
   if (!id.success) throw data("No such report", { status: 404 });
   const report = await db.selectFrom("reports").select(["id", "reporter_id", "status", "version"]).where("id", "=", id.data).executeTakeFirst();
-  if (!report || (report.reporter_id !== user.id && !hasRole(user, "moderator"))) throw data("No such report among yours", { status: 404 });
+  const own = report?.reporter_id === user.id;
+  if (!report || (!own && !(hasRole(user, "moderator") && moderatorsMaySee(report.status)))) throw data("No such report among yours", { status: 404 });
   return { report, log: await reportLog(db, id.data) };
 }
 

@@ -10,12 +10,16 @@ afterAll(() => db.destroy());
 type Who = "visitor" | "reporter" | "moderator" | "admin";
 const clients = {} as Record<Who, Browserish>;
 let targetId = "0";
+let banTargetId = "0";
 
 beforeAll(async () => {
   // Role changes in the matrix land on a user of the test's own, not on the demo people.
   const target = await db.insertInto("users").values({ email: `matrix-${Date.now()}@demo.bayproof.test`, handle: `matrix-${Date.now() % 1e8}` })
     .returning("id").executeTakeFirstOrThrow();
   targetId = String(target.id);
+  const banTarget = await db.insertInto("users").values({ email: `matrix-ban-${Date.now()}@demo.bayproof.test`, handle: `matrix-ban-${Date.now() % 1e8}` })
+    .returning("id").executeTakeFirstOrThrow();
+  banTargetId = String(banTarget.id);
   clients.visitor = new Browserish();
   clients.reporter = await signedInAs(db, "reporter@demo.bayproof.test");
   clients.moderator = await signedInAs(db, "moderator@demo.bayproof.test");
@@ -33,6 +37,8 @@ const matrix: [string, string, (() => Record<string, string>) | null, Record<Who
   ["POST", "/admin/users", () => ({ intent: "grant", userId: targetId, role: "moderator" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
   ["GET", "/admin/jobs", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
   ["POST", "/admin/jobs", () => ({ intent: "send-again", jobId: "00000000-0000-4000-8000-000000000000" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 404 }],
+  ["GET", "/admin/users/:target", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
+  ["POST", "/admin/users/:target", () => ({ intent: "ban", reason: "Access matrix check" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
   ["GET", "/reports/new", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/me/reports", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
   ["POST", "/reports/new", () => ({ intent: "autosave" }), { visitor: SIGN_IN, reporter: 400, moderator: 400, admin: 400 }],
@@ -57,7 +63,8 @@ describe("access by role", () => {
     for (const who of Object.keys(expected) as Who[]) {
       it(`${method} ${path} as ${who} → ${expected[who]}`, async () => {
         const client = clients[who];
-        const res = method === "GET" ? await client.get(path) : await client.post(path, form!());
+        const url = path.replace(":target", banTargetId);
+        const res = method === "GET" ? await client.get(url) : await client.post(url, form!());
         expect(res.status).toBe(expected[who]);
         if (expected[who] === SIGN_IN && who === "visitor") {
           expect(res.headers.get("location")).toMatch(/^\/sign-in\?redirectTo=/);

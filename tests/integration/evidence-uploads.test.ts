@@ -53,6 +53,35 @@ describe("presigned upload URLs", () => {
   });
 });
 
+describe("simultaneous requests", () => {
+  it("hands out no more upload URLs than the per-report limit, however many arrive at once", async () => {
+    const reportId = await newDraft(owner);
+    const answers = await Promise.all(Array.from({ length: 20 }, () => presign(owner, reportId, { type: "image/png", size: 1000 })));
+    const statuses = answers.map((r) => r.status);
+    expect(statuses.filter((s) => s === 200)).toHaveLength(12); // MAX_EVIDENCE_PER_REPORT
+    expect(statuses.filter((s) => s === 409)).toHaveLength(8);
+    const refused = answers.find((r) => r.status === 409)!;
+    expect((await refused.json()).error).toMatch(/At most 12 files per report/);
+    const rows = await db.selectFrom("evidence").select("id").where("report_id", "=", reportId).execute();
+    expect(rows).toHaveLength(12);
+  });
+
+  it("checks an upload once: one completion does the work, the others get 409", async () => {
+    const reportId = await newDraft(owner);
+    const bytes = tinyPng();
+    const signed = await (await presign(owner, reportId, { type: "image/png", size: bytes.length })).json();
+    expect((await fetch(signed.url, { method: "PUT", headers: signed.headers, body: new Uint8Array(bytes) })).status).toBe(200);
+    const answers = await Promise.all(Array.from({ length: 5 }, () => complete(owner, signed.evidenceId)));
+    expect(answers.map((r) => r.status).sort()).toEqual([200, 409, 409, 409, 409]);
+    for (const loser of answers.filter((r) => r.status === 409)) {
+      expect((await loser.json()).error).toMatch(/being checked by another request|already checked/);
+    }
+    const row = await db.selectFrom("evidence").select(["status", "sha256"]).where("id", "=", signed.evidenceId).executeTakeFirstOrThrow();
+    expect(row.status).toBe("uploaded");
+    expect(row.sha256).toBe(createHash("sha256").update(bytes).digest("hex"));
+  });
+});
+
 describe("the completion check", () => {
   it("records a real video with its sniffed type, size and SHA-256", async () => {
     const bytes = tinyMp4();

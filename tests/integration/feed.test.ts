@@ -2,10 +2,11 @@
 // Schemas (ajv, draft 2020-12), the bulk files against the pages and RFC 4180, privacy, HTTP
 // caching, CORS, rate limits and API keys, and bad input.
 import { parse } from "csv-parse/sync";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createApiKey, revokeApiKey } from "../../app/auth/api-keys.server";
 import { testDb } from "../support/db";
 import { feedClient, publishedSchemas } from "../support/feed";
+import { serverLogDuring } from "../support/server-log";
 
 const db = testDb();
 let check: Awaited<ReturnType<typeof publishedSchemas>>;
@@ -308,5 +309,56 @@ describe("documentation", () => {
     for (const text of ["Data dictionary", "SI units", "CC BY 4.0", "curl -s", "Cite it as", "inlet_kpa", "kPa", "evidence_urls", "pressure_adjusted.estimate", "rp_"]) {
       expect(html, text).toContain(text);
     }
+  });
+});
+
+describe("the published contract", () => {
+  it("documents 400, 401 and 429 with the error schema on every operation", async () => {
+    const doc = await json("/api/v1/openapi.json");
+    for (const [path, item] of Object.entries(doc.paths as Record<string, { get: { responses: Record<string, { content?: Record<string, { schema: unknown }> }> } }>)) {
+      for (const status of ["400", "401", "429"]) {
+        expect(item.get.responses[status]?.content?.["application/json"]?.schema, `${path} ${status}`).toEqual({ $ref: "#/components/schemas/error" });
+      }
+    }
+  });
+
+  it("declares what the date parameters take, and the feed takes exactly that", async () => {
+    const doc = await json("/api/v1/openapi.json");
+    const params = doc.paths["/api/v1/reports"].get.parameters as { name: string; schema: object }[];
+    const Ajv2020 = (await import("ajv/dist/2020.js")).default;
+    const ajv = new Ajv2020({ strict: false });
+    (await import("ajv-formats")).default(ajv);
+    for (const name of ["accepted_since", "accepted_until"]) {
+      const schema = params.find((p) => p.name === name)!.schema;
+      expect(schema).toEqual({ type: "string", anyOf: [{ format: "date" }, { format: "date-time" }] });
+      const validate = ajv.compile(schema);
+      // RFC 3339 full-date and date-time (published) are what ajv-formats checks.
+      for (const value of ["2026-12-01", "2026-12-01T08:00:00Z", "2026-12-01T08:00:00+01:00"]) {
+        expect(validate(value), value).toBe(true);
+        expect((await get(`/api/v1/reports?${name}=${encodeURIComponent(value)}&limit=1`)).status, value).toBe(200);
+      }
+      for (const value of ["last tuesday", "2026-13-01", "2026-12-01T08:00:00"]) {
+        expect(validate(value), value).toBe(false);
+        expect((await json(`/api/v1/reports?${name}=${encodeURIComponent(value)}`, 400)).error.parameter, value).toBe(name);
+      }
+    }
+  });
+
+  it("answers a path with a broken %-escape with the JSON error, and logs no stack", async () => {
+    const log = await serverLogDuring(async () => {
+      for (const path of ["/api/v1/reports/%C0%AF", "/api/v1/%E0%A4%A"]) {
+        const res = await get(path);
+        expect(res.status, path).toBe(400);
+        expect(res.headers.get("content-type")).toMatch(/^application\/json/);
+        const body = await res.json();
+        expect(check("error", body)).toEqual([]);
+        expect(body.error.code).toBe("invalid_path");
+      }
+      const page = await fetch(new URL("/models/%C0%AF", inject("baseUrl")));
+      expect(page.status).toBe(400);
+      expect(page.headers.get("content-type")).toMatch(/^text\/plain/);
+      expect(await page.text()).toMatch(/broken %-escape/);
+    });
+    expect(log).not.toMatch(/URIError|Failed to decode param/);
   });
 });

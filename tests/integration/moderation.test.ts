@@ -79,6 +79,33 @@ describe("who may decide", () => {
   });
 });
 
+describe("what moderators never see", () => {
+  it("answers 404 for a reporter's draft: no notes shown, no claim taken, no decision possible", async () => {
+    const { reporter } = await freshReport();
+    const secret = `draft note ${Date.now()}`;
+    const saved = await reporter.post("/reports/new", { ...validReport(), notes: secret, intent: "save-draft" });
+    const id = Number(saved.headers.get("location")!.match(/reports\/(\d+)\/edit/)![1]);
+    expect((await state(id)).status).toBe("draft");
+
+    const page = await mod1.get(`/review/${id}`);
+    expect(page.status).toBe(404);
+    expect(await page.text()).not.toContain(secret);
+    expect((await decideAs(mod1, id, { action: "reject", reasonCode: "duplicate" })).status).toBe(404);
+    expect((await mod1.get(`/reports/${id}/history`)).status).toBe(404);
+    expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
+    expect(await db.selectFrom("decisions").select("id").where("report_id", "=", id).execute()).toHaveLength(0);
+    expect((await reporter.get(`/reports/${id}/history`)).status).toBe(200); // still the reporter's own
+  });
+
+  it("answers 404 for a withdrawn report", async () => {
+    const { id, reporter } = await freshReport();
+    expect((await reporter.post(`/reports/${id}/edit`, { intent: "withdraw" })).status).toBe(302);
+    expect((await state(id)).status).toBe("withdrawn");
+    expect((await mod1.get(`/review/${id}`)).status).toBe(404);
+    expect((await decideAs(mod1, id, { action: "reject", reasonCode: "duplicate" })).status).toBe(404);
+  });
+});
+
 describe("claims and concurrency", () => {
   it("claims a report for the first moderator who opens it and shows others who holds it", async () => {
     const { id } = await freshReport();
@@ -87,6 +114,29 @@ describe("claims and concurrency", () => {
     expect(other).toMatch(/mod-harriet<!-- --> has this report open|mod-harriet has this report open/);
     const claims = await db.selectFrom("decisions").select("action").where("report_id", "=", id).where("action", "=", "claim").execute();
     expect(claims).toHaveLength(1);
+  });
+
+  it("lets only the holder of a live claim decide, and anyone once it has run out", async () => {
+    const { id } = await freshReport();
+    expect((await mod1.get(`/review/${id}`)).status).toBe(200); // mod1 now holds the claim
+    const blocked = await decideAs(mod2, id, { action: "reject", reasonCode: "job_not_shown" });
+    expect(blocked.status).toBe(409);
+    expect(await blocked.text()).toMatch(/mod-harriet has this report open until/);
+    expect((await state(id))).toMatchObject({ status: "submitted", seen: 0 });
+
+    await db.updateTable("report_claims").set({ claimed_at: new Date(Date.now() - 20 * 60_000), expires_at: new Date(Date.now() - 5 * 60_000) })
+      .where("report_id", "=", id).execute();
+    const late = await decideAs(mod2, id, { action: "return", reasonCode: "gauge_unreadable", note: "Show the gauge" });
+    expect(late.status).toBe(200);
+    expect((await state(id)).status).toBe("returned");
+  });
+
+  it("lets the holder of the claim decide", async () => {
+    const { id } = await freshReport();
+    expect((await mod1.get(`/review/${id}`)).status).toBe(200);
+    expect((await decideAs(mod1, id, { action: "reject", reasonCode: "job_not_shown" })).status).toBe(200);
+    expect((await state(id)).status).toBe("rejected");
+    expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
   });
 
   it("lets one of two simultaneous decisions win and tells the other", async () => {

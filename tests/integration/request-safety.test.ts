@@ -3,6 +3,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { sha256Hex } from "../../app/auth/tokens.server";
 import { testDb } from "../support/db";
 import { Browserish, cookieValue, signedInAs } from "../support/http";
+import { serverLogDuring } from "../support/server-log";
 
 const db = testDb();
 afterAll(() => db.destroy());
@@ -19,6 +20,21 @@ describe("cross-site request protection", () => {
     expect(res.status).toBe(403);
     expect(await res.text()).toMatch(/Cross-site request refused/);
     expect(await sessionExists(client)).toBe(true);
+  });
+
+  it("refuses a cross-site POST to a page with 403 and a reason, and logs no stack trace", async () => {
+    const client = await signedInAs(db, "reporter@demo.bayproof.test");
+    const log = await serverLogDuring(async () => {
+      for (const [path, origin] of [["/account", "http://evil.example"], ["/account.data", "http://evil.example"], ["/reports/new", "not a url"], ["/account", "null"]] as const) {
+        const res = await client.post(path, { intent: "create-key", name: "forged" }, { origin });
+        expect(res.status, `${path} from ${origin}`).toBe(403);
+        expect(await res.text()).toMatch(/Cross-site request refused/);
+      }
+    });
+    // React Router's own check would have refused first, with a bare 400 and this in the log.
+    expect(log).not.toMatch(/Aborting the action|origin` header/);
+    const me = await db.selectFrom("users").select("id").where("email", "=", "reporter@demo.bayproof.test").executeTakeFirstOrThrow();
+    expect(await db.selectFrom("api_keys").select("id").where("user_id", "=", me.id).where("name", "=", "forged").executeTakeFirst()).toBeUndefined();
   });
 
   it("refuses a POST that carries neither Origin nor Sec-Fetch-Site", async () => {
@@ -83,6 +99,25 @@ describe("security headers", () => {
     expect(res.headers.get("referrer-policy")).toBe("strict-origin-when-cross-origin");
     const nonce = csp.match(/'nonce-([^']+)'/)![1]!;
     expect(await res.text()).toContain(`nonce="${nonce}"`);
+  });
+});
+
+describe("static files", () => {
+  it("carry nosniff and a CSP that loads nothing but our own styles, fonts and images", async () => {
+    const page = await (await new Browserish().get("/")).text();
+    const css = page.match(/href="(\/assets\/[^"]+\.css)"/)?.[1];
+    expect(css).toBeTruthy();
+    const stylesheet = await new Browserish().get(css!);
+    const font = (await stylesheet.clone().text()).match(/url\((\/assets\/[^)]+\.woff2)\)/)?.[1];
+    expect(font).toBeTruthy();
+    for (const path of ["/favicon.svg", css!, font!]) {
+      const res = await new Browserish().get(path);
+      expect(res.status, path).toBe(200);
+      expect(res.headers.get("x-content-type-options"), path).toBe("nosniff");
+      expect(res.headers.get("content-security-policy"), path).toBe("default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'");
+      await res.body?.cancel();
+    }
+    expect((await new Browserish().get(font!)).headers.get("content-type")).toMatch(/font\/woff2/);
   });
 });
 

@@ -87,3 +87,46 @@ describe("decision log", () => {
     await expect(sql`truncate decisions`.execute(db)).rejects.toThrow(/append-only/);
   });
 });
+
+describe("ban log", () => {
+  /** One insert (or statement) in a transaction that is always rolled back; the error if any. */
+  async function tryBanLog(run: (trx: typeof db) => Promise<unknown>): Promise<Error | null> {
+    try {
+      await db.transaction().execute(async (trx) => {
+        await run(trx);
+        throw new Error("rollback");
+      });
+    } catch (error) {
+      return (error as Error).message === "rollback" ? null : (error as Error);
+    }
+    return null;
+  }
+  const row = () => ({ user_id: valid.reporter_id, change: "ban" as const, reason: "Posted made-up reports" });
+
+  it("accepts a ban with a reason", async () => {
+    expect(await tryBanLog((trx) => trx.insertInto("ban_changes").values(row()).execute())).toBeNull();
+  });
+
+  it("refuses a ban without a reason, or with a blank one", async () => {
+    for (const reason of ["", "   ", "no"]) {
+      const error = await tryBanLog((trx) => trx.insertInto("ban_changes").values({ ...row(), reason }).execute());
+      expect(error?.message).toMatch(/ban_changes_reason_check/);
+    }
+    const missing = await tryBanLog((trx) => sql`insert into ban_changes (user_id, change) values (${valid.reporter_id}, 'ban')`.execute(trx));
+    expect(missing?.message).toMatch(/null value in column "reason"/);
+  });
+
+  it("refuses a change other than ban or unban", async () => {
+    const error = await tryBanLog((trx) => sql`insert into ban_changes (user_id, change, reason) values (${valid.reporter_id}, 'suspend', 'Spam')`.execute(trx));
+    expect(error?.message).toMatch(/ban_changes_change_check/);
+  });
+
+  it("refuses UPDATE and TRUNCATE", async () => {
+    const rewrite = await tryBanLog(async (trx) => {
+      await trx.insertInto("ban_changes").values(row()).execute();
+      await trx.updateTable("ban_changes").set({ reason: "rewritten" }).execute();
+    });
+    expect(rewrite?.message).toMatch(/append-only/);
+    expect(await tryBanLog((trx) => sql`truncate ban_changes`.execute(trx))).toHaveProperty("message", expect.stringMatching(/append-only/));
+  });
+});

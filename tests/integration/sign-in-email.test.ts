@@ -83,4 +83,17 @@ describe("sign-in by e-mail link", () => {
     const user = await db.selectFrom("users").select(["handle"]).where("email", "=", address).executeTakeFirst();
     expect(user?.handle).toMatch(/^tech-[a-z0-9]{6}$/);
   });
+
+  it("sends the visitor home, not to another site, when redirectTo hides a host", async () => {
+    const client = new Browserish();
+    const address = `redirect-${Date.now()}@demo.bayproof.test`;
+    const since = Date.now();
+    expect((await client.post("/sign-in", { email: address, redirectTo: "/\t/evil.example/" })).status).toBe(200);
+    const link = new URL(linkIn((await latestMailTo(address, since)).text ?? "")!);
+    expect(link.searchParams.get("redirectTo")).toBe("/account");
+    // A forged confirmation form carrying the hostile path itself is refused the same way.
+    const done = await client.post("/sign-in/link", { token: link.searchParams.get("token")!, redirectTo: "/\t/evil.example/" });
+    expect(done.status).toBe(302);
+    expect(done.headers.get("location")).toBe("/account");
+  });
 });

@@ -3,7 +3,7 @@
 // build of the app, and server.js on a free loopback port — the path `npm start` takes.
 // A run of only the unit project starts nothing.
 import { type ChildProcess, spawn } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
+import { closeSync, mkdirSync, openSync, readFileSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
@@ -53,6 +53,16 @@ export default async function setup(project: TestProject) {
     }
     const build = buildApp(root, () => {}, { inheritOutput: false });
     if (!build.ok) throw new Error(`react-router build failed:\n${build.output}`);
+    // The server's log goes straight to a file (node writes to files synchronously, so a line
+    // logged while answering a request is there once the answer is in); tests read it through
+    // tests/support/server-log.ts, and it is echoed to the terminal at the end.
+    mkdirSync(path.join(root, ".data"), { recursive: true });
+    const serverLog = path.join(root, ".data/test-server.log");
+    const logFd = openSync(serverLog, "w");
+    cleanups.push(() => {
+      closeSync(logFd);
+      process.stderr.write(readFileSync(serverLog));
+    });
     const server = spawn(process.execPath, ["server.js"], {
       cwd: root,
       env: {
@@ -61,7 +71,7 @@ export default async function setup(project: TestProject) {
         // Tests that count requests per client (the feed's rate limits) name their own client.
         BAYPROOF_TRUST_PROXY: "1", AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
       },
-      stdio: ["ignore", "ignore", "inherit"],
+      stdio: ["ignore", "ignore", logFd],
     });
     cleanups.push(() => stopChild(server));
     await waitForHttp(baseUrl, server);
@@ -78,6 +88,7 @@ export default async function setup(project: TestProject) {
     project.provide("oidcUrl", fakes.env.OIDC_ISSUER);
     project.provide("s3", { endpoint: fakes.env.S3_ENDPOINT, bucket: fakes.env.S3_BUCKET });
     project.provide("searchUrl", fakes.env.SEARCH_URL);
+    project.provide("serverLog", serverLog);
   } catch (error) {
     await teardown();
     throw error;

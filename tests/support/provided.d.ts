@@ -7,6 +7,7 @@ declare module "vitest" {
     oidcUrl: string;
     s3: { endpoint: string; bucket: string };
     searchUrl: string;
+    serverLog: string;
   }
 }
 export {};
