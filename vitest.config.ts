@@ -1,7 +1,7 @@
 import { defineConfig } from "vitest/config";
 
 // Tests run without the React Router Vite plugin; the global setup builds and serves the real
-// app instead (tests/support/global-stack.ts). Four projects: unit (pure), integration (real PostgreSQL), e2e (Chromium), start (the start command from a fresh clone).
+// app instead (tests/support/global-stack.ts). Projects: unit (pure), integration (real PostgreSQL), e2e (Chromium), faults (a stack of its own, broken on purpose), start (the start command from a fresh clone).
 export default defineConfig({
   resolve: { tsconfigPaths: true },
   test: {
@@ -33,6 +33,17 @@ export default defineConfig({
           testTimeout: 300_000,
           hookTimeout: 300_000,
           fileParallelism: false,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          // Faults on a stack of its own: the server killed, PostgreSQL restarted, search gone.
+          name: "faults",
+          include: ["tests/faults/**/*.test.ts"],
+          setupFiles: ["tests/support/console-guard.ts"],
+          testTimeout: 300_000,
+          hookTimeout: 300_000,
         },
       },
       {

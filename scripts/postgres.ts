@@ -23,6 +23,8 @@ export interface RunningPostgres {
   url: string;
   /** Where the cluster is: the folder asked for, or its stand-in in the server user's home. */
   dataDir: string;
+  /** A fast restart (open connections are cut), as after a crash or a minor-version upgrade. */
+  restart(): void;
   stop(): void;
 }
 
@@ -208,6 +210,9 @@ export async function startPostgres(options: PostgresOptions): Promise<RunningPo
   return {
     url: `postgres://${USER}@127.0.0.1:${port}/${database}`,
     dataDir,
+    restart() {
+      run(pgCtl, ["-D", dataDir, "-m", "fast", "-w", "-t", "120", "restart"]);
+    },
     stop() {
       if (stopped) return;
       stopped = true;

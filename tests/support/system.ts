@@ -20,6 +20,7 @@ export async function startTestDatabase() {
   await db.destroy();
   return {
     url: server.url,
+    restart: () => server.restart(),
     stop() {
       server.stop();
       rmSync(dataDir, { recursive: true, force: true });

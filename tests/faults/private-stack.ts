@@ -1,0 +1,73 @@
+// A stack of the fault suite's own — PostgreSQL with the demo data, the fakes, server.js — so it
+// can kill the server and restart the database without disturbing the shared test stack.
+import { type ChildProcess, spawn } from "node:child_process";
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { startFakes } from "../../fakes/index";
+import { reindexAll, searchClient } from "../../app/search/search.server";
+import { createDb } from "../../db/database";
+import { buildApp } from "../../scripts/build-app";
+import { waitForHttp } from "../../scripts/wait-http";
+import { freePort, startTestDatabase } from "../support/system";
+
+const root = path.resolve(import.meta.dirname, "../..");
+
+export async function startPrivateStack() {
+  const cleanups: (() => Promise<unknown> | unknown)[] = [];
+  const database = await startTestDatabase();
+  cleanups.push(() => database.stop());
+  const dataDir = mkdtempSync(path.join(tmpdir(), "bayproof-faults-"));
+  cleanups.push(() => rmSync(dataDir, { recursive: true, force: true }));
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const fakes = await startFakes({
+    ports: { oidc: await freePort(), smtp: await freePort(), s3: await freePort(), search: await freePort() },
+    dataDir,
+    appOrigins: [baseUrl],
+  });
+  let fakesStopped = false;
+  cleanups.push(() => fakesStopped || fakes.stop());
+  const db = createDb(database.url, 4);
+  cleanups.push(() => db.destroy());
+  await reindexAll(db, searchClient(fakes.env.SEARCH_URL));
+  const build = buildApp(root, () => {}, { inheritOutput: false });
+  if (!build.ok) throw new Error(`build failed:\n${build.output}`);
+
+  let server: ChildProcess | undefined;
+  const startServer = async () => {
+    server = spawn(process.execPath, ["server.js"], {
+      cwd: root,
+      env: {
+        ...process.env, ...fakes.env, DATABASE_URL: database.url, HOST: "127.0.0.1", PORT: String(port),
+        APP_ORIGIN: baseUrl, NODE_ENV: "production", AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true", BAYPROOF_TRUST_PROXY: "1",
+      },
+      stdio: ["ignore", "ignore", "ignore"],
+    });
+    await waitForHttp(baseUrl, server, 180_000);
+  };
+  const stopServer = async (signal: NodeJS.Signals = "SIGTERM") => {
+    if (!server || server.exitCode != null || server.signalCode != null) return;
+    const exited = new Promise((r) => server!.once("exit", r));
+    server.kill(signal);
+    await exited;
+  };
+  cleanups.push(() => stopServer());
+  await startServer();
+
+  return {
+    db,
+    baseUrl,
+    restartDatabase: () => database.restart(),
+    startServer,
+    /** kill -9 of the app server, as the machine's out-of-memory killer would. */
+    killServer: () => stopServer("SIGKILL"),
+    stopFakes: async () => {
+      fakesStopped = true;
+      await fakes.stop();
+    },
+    async stop() {
+      for (const c of cleanups.reverse()) await c();
+    },
+  };
+}
