@@ -1,61 +1,89 @@
 // Evidence uploads: the browser PUTs straight to object storage through a presigned URL this
 // module hands out, then asks for the upload to be checked. The server names every object, checks
 // the real type from the bytes, hashes it, and deletes what it refuses.
+//
+// A presigned URL can write its upload key (uploads/…) again until it expires, so checked evidence
+// never stays there: completion copies the upload to a key of its own (evidence/…) that no URL is
+// ever signed for, checks and hashes that copy, records its key and removes the upload.
 import { sql, type Kysely } from "kysely";
 import type { Database } from "../../db/schema";
 import { randomToken } from "~/auth/tokens.server";
 import { EVIDENCE_TYPES, isEvidenceType, MAX_BYTES } from "~/storage/evidence-types";
-import { deleteObject, objectSize, presignPut, readHead, sha256OfObject } from "~/storage/s3.server";
+import { copyObject, deleteObject, isStorageOutage, objectSize, presignPut, readHead, sha256OfObject } from "~/storage/s3.server";
 import { sniffEvidenceType } from "~/storage/sniff.server";
 import { EDITABLE } from "./status";
 
 type Db = Kysely<Database>;
 export const MAX_EVIDENCE_PER_REPORT = 12;
+export const STORAGE_UNREACHABLE = "File storage is not reachable right now. Your file is kept on your device and the draft is unchanged: try again in a few minutes.";
+const NOT_EDITABLE = "Evidence can only be added while the report is a draft or returned";
 
 export class EvidenceError extends Error {
-  constructor(message: string, readonly status: 400 | 404 | 409 | 413 | 415 | 422) {
+  constructor(message: string, readonly status: 400 | 404 | 409 | 413 | 415 | 422 | 503) {
     super(message);
   }
 }
+
+/** A storage call whose outage becomes a 503 the uploader can show, not a server error. */
+const stored = <T>(work: Promise<T>) => work.catch((error: unknown) => {
+  throw isStorageOutage(error) ? new EvidenceError(STORAGE_UNREACHABLE, 503) : error;
+});
 
 const mb = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
 
 export async function createUpload(db: Db, userId: number, reportId: number, claimed: { type: string; size: number }) {
   const report = await db.selectFrom("reports").select(["status"]).where("id", "=", reportId).where("reporter_id", "=", userId).executeTakeFirst();
   if (!report) throw new EvidenceError("No such report among yours", 404);
-  if (!EDITABLE.includes(report.status)) throw new EvidenceError("Evidence can only be added while the report is a draft or returned", 409);
+  if (!EDITABLE.includes(report.status)) throw new EvidenceError(NOT_EDITABLE, 409);
   if (!isEvidenceType(claimed.type)) throw new EvidenceError("Only video (mp4, mov, webm) and photos (jpeg, png, heic) are accepted", 415);
   const kind = EVIDENCE_TYPES[claimed.type].kind;
   if (claimed.size > MAX_BYTES[kind]) throw new EvidenceError(`A ${kind} may be at most ${mb(MAX_BYTES[kind])}`, 413);
   const count = await db.selectFrom("evidence").select(sql<number>`count(*)::int`.as("n")).where("report_id", "=", reportId).executeTakeFirstOrThrow();
   if (count.n >= MAX_EVIDENCE_PER_REPORT) throw new EvidenceError(`At most ${MAX_EVIDENCE_PER_REPORT} files per report`, 409);
 
-  // Our own random name under the report's prefix; the client's file name is never used.
-  const key = `reports/${reportId}/${randomToken(18)}`;
+  // Our own random name under the uploads prefix; the client's file name is never used.
+  const key = `uploads/${reportId}/${randomToken(18)}`;
   const row = await db.insertInto("evidence").values({ report_id: reportId, object_key: key, kind, status: "pending" }).returning("id").executeTakeFirstOrThrow();
-  return { evidenceId: row.id, key, url: await presignPut(key, claimed.type), headers: { "Content-Type": claimed.type } };
+  // The URL is signed for this type and length: the browser sends Content-Length itself.
+  return { evidenceId: row.id, key, url: await presignPut(key, claimed.type, claimed.size), headers: { "Content-Type": claimed.type } };
 }
 
 export async function completeUpload(db: Db, userId: number, evidenceId: number) {
   const item = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
-    .select(["e.id", "e.object_key", "e.status", "r.reporter_id"]).where("e.id", "=", evidenceId).executeTakeFirst();
+    .select(["e.id", "e.report_id", "e.object_key", "e.status", "r.reporter_id", "r.status as report_status"]).where("e.id", "=", evidenceId).executeTakeFirst();
   if (!item || item.reporter_id !== userId) throw new EvidenceError("No such upload among yours", 404);
   if (item.status !== "pending") throw new EvidenceError("This upload was already checked", 409);
+  if (!EDITABLE.includes(item.report_status)) throw new EvidenceError(NOT_EDITABLE, 409);
 
-  const size = await objectSize(item.object_key);
-  if (size == null) throw new EvidenceError("The file has not arrived in storage yet", 409);
-  const refuse = async (message: string, status: 413 | 422) => {
-    await deleteObject(item.object_key);
-    await db.deleteFrom("evidence").where("id", "=", item.id).execute();
+  const upload = item.object_key;
+  if ((await stored(objectSize(upload))) == null) throw new EvidenceError("The file has not arrived in storage yet", 409);
+  // A fresh key per attempt, so two completions of one upload never share an object.
+  const final = `evidence/${item.report_id}/${item.id}-${randomToken(12)}`;
+  await stored(copyObject(upload, final));
+  const refuse = async (message: string, status: 409 | 413 | 422) => {
+    await stored(Promise.all([deleteObject(final), deleteObject(upload)]));
+    await db.deleteFrom("evidence").where("id", "=", item.id).where("status", "=", "pending").execute();
     throw new EvidenceError(message, status);
   };
-  const type = size > 0 ? await sniffEvidenceType(await readHead(item.object_key)) : null;
+  // Everything below reads the copy, which only this server writes: what is checked is what stays.
+  const size = (await stored(objectSize(final))) ?? 0;
+  const type = size > 0 ? await sniffEvidenceType(await stored(readHead(final))) : null;
   if (!type) return refuse("This file is not a video or photo we accept, whatever its name says; it was removed", 422);
   const kind = EVIDENCE_TYPES[type].kind;
   if (size > MAX_BYTES[kind]) return refuse(`A ${kind} may be at most ${mb(MAX_BYTES[kind])}; it was removed`, 413);
+  const sha256 = await stored(sha256OfObject(final));
 
-  const sha256 = await sha256OfObject(item.object_key);
-  await db.updateTable("evidence").set({ status: "uploaded", content_type: type, kind, size_bytes: size, sha256 }).where("id", "=", item.id).execute();
+  const recorded = await db.updateTable("evidence").set({ status: "uploaded", object_key: final, content_type: type, kind, size_bytes: size, sha256 })
+    .where("id", "=", item.id).where("status", "=", "pending")
+    .where("report_id", "in", db.selectFrom("reports").select("id").where("id", "=", item.report_id).where("status", "in", EDITABLE))
+    .executeTakeFirst();
+  if (recorded.numUpdatedRows === 0n) {
+    // Submitted, or checked by a parallel request, while this one was reading.
+    await stored(deleteObject(final));
+    throw new EvidenceError(NOT_EDITABLE, 409);
+  }
+  // Nothing reads the upload key again; if this delete fails the object is only clutter.
+  await deleteObject(upload).catch(() => {});
   return { id: item.id, kind, contentType: type, size, sha256 };
 }
 
