@@ -10,6 +10,7 @@ import type { TestProject } from "vitest/node";
 import { startFakes } from "../../fakes/index";
 import { reindexAll, searchClient } from "../../app/search/search.server";
 import { createDb } from "../../db/database";
+import { ensureDemoEvidence } from "../../seeds/demo-evidence";
 import { waitForHttp } from "../../scripts/wait-http";
 import { ensureChromium, freePort, startTestDatabase } from "./system";
 
@@ -47,8 +48,9 @@ export default async function setup(project: TestProject) {
     cleanups.push(() => fakes.stop());
 
     {
+      // As `npm start` does (scripts/services.ts): the search index, and a file behind every demo evidence row.
       const db = createDb(database.url, 2);
-      await reindexAll(db, searchClient(fakes.env.SEARCH_URL)).finally(() => db.destroy());
+      await Promise.all([reindexAll(db, searchClient(fakes.env.SEARCH_URL)), ensureDemoEvidence(db, fakes.env)]).finally(() => db.destroy());
     }
     const build = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], { cwd: root, encoding: "utf8" });
     if (build.status !== 0) throw new Error(`react-router build failed:\n${build.stdout}\n${build.stderr}`);
