@@ -128,13 +128,18 @@ function PublishToggle({ item, onChange, onProblem }: { item: EvidenceItem; onCh
         disabled={busy}
         onChange={async (event) => {
           const wanted = event.currentTarget.checked;
+          // Shown at once (and disabled until the server answers), put back if the server refuses.
+          onChange(wanted);
           setBusy(true);
           try {
             const res = await fetch(`/api/evidence/${item.id}/publish`, {
               method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ public: wanted }),
-            });
-            if (res.ok) onChange(wanted);
-            else onProblem((await res.json().catch(() => ({}))).error ?? "Could not change whether the file is published");
+            }).catch(() => null);
+            if (!res?.ok) {
+              onChange(!wanted);
+              const body = res ? await res.json().catch(() => ({})) : {};
+              onProblem(body.error ?? "Could not change whether the file is published");
+            }
           } finally {
             setBusy(false);
           }
