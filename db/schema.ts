@@ -138,6 +138,7 @@ export interface ReportsTable {
 export interface EvidenceTable {
   id: Generated<number>;
   report_id: number;
+  /** Pending: the upload key (uploads/…) its presigned URL writes. Checked: the copy under evidence/…, never uploads/ (CHECK). */
   object_key: string;
   kind: "video" | "photo";
   content_type: string | null;

@@ -12,6 +12,8 @@ declare module "s3rver" {
   export default class S3rver {
     constructor(options: S3rverOptions);
     run(): Promise<{ address: string; port: number }>;
+    /** Koa's request listener; s3rver's own server listens with it. */
+    callback(): (req: import("node:http").IncomingMessage, res: import("node:http").ServerResponse) => void;
     close(): Promise<void>;
   }
 }

@@ -1,39 +1,60 @@
-// Puts a playable invented clip (or a still of the demo gauge) in object storage behind each
-// evidence row of the demo's reports still waiting for moderators, so the review screen can play
-// them. Idempotent: objects already there are left alone.
+// Puts a playable invented clip (or a still of the demo gauge) in object storage behind every
+// checked evidence row that has no object yet — the demo's reports in every state, so the review
+// screen can play them and the open feed's evidence links answer. The row is made to describe the
+// file placed (type, size, SHA-256) before the file is placed, so a run cut short is finished by
+// the next one. Idempotent: objects already there are left alone. Local stand-in data only.
 import { createHash } from "node:crypto";
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { ListObjectsV2Command, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import type { Kysely } from "kysely";
 import type { Database } from "../db/schema";
 
 const media = (name: string) => readFileSync(path.join(import.meta.dirname, "media", name));
+
+async function storedKeys(s3: S3Client, bucket: string) {
+  const keys = new Set<string>();
+  let token: string | undefined;
+  do {
+    const page = await s3.send(new ListObjectsV2Command({ Bucket: bucket, ContinuationToken: token }));
+    for (const o of page.Contents ?? []) if (o.Key) keys.add(o.Key);
+    token = page.IsTruncated ? page.NextContinuationToken : undefined;
+  } while (token);
+  return keys;
+}
 
 export async function ensureDemoEvidence(db: Kysely<Database>, env: Record<string, string>) {
   const s3 = new S3Client({
     endpoint: env.S3_ENDPOINT, region: env.S3_REGION ?? "us-east-1", forcePathStyle: true,
     credentials: { accessKeyId: env.S3_ACCESS_KEY_ID!, secretAccessKey: env.S3_SECRET_ACCESS_KEY! },
   });
-  const files = {
-    video: { body: media("demo-clip.webm"), type: "video/webm" },
-    photo: { body: media("demo-gauge.png"), type: "image/png" },
-  };
-  const items = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
-    .select(["e.id", "e.object_key", "e.kind"]).where("r.status", "in", ["submitted", "returned"]).where("e.status", "!=", "pending").execute();
-  let put = 0;
-  for (let i = 0; i < items.length; i += 16) {
-    await Promise.all(items.slice(i, i + 16).map(async (item) => {
-      const exists = await s3.send(new HeadObjectCommand({ Bucket: env.S3_BUCKET, Key: item.object_key })).then(() => true, () => false);
-      if (exists) return;
-      const file = files[item.kind];
-      await s3.send(new PutObjectCommand({ Bucket: env.S3_BUCKET, Key: item.object_key, Body: file.body, ContentType: file.type }));
-      await db.updateTable("evidence").set({
-        content_type: file.type, size_bytes: file.body.length, sha256: createHash("sha256").update(file.body).digest("hex"),
-      }).where("id", "=", item.id).execute();
-      put++;
-    }));
+  try {
+    const files = {
+      video: { body: media("demo-clip.webm"), type: "video/webm" },
+      photo: { body: media("demo-gauge.png"), type: "image/png" },
+    };
+    const [items, present] = await Promise.all([
+      db.selectFrom("evidence").select(["id", "object_key", "kind"]).where("status", "!=", "pending").execute(),
+      storedKeys(s3, env.S3_BUCKET!),
+    ]);
+    const missing = items.filter((item) => !present.has(item.object_key));
+    for (const kind of ["video", "photo"] as const) {
+      const ids = missing.filter((item) => item.kind === kind).map((item) => item.id);
+      const file = files[kind];
+      for (let i = 0; i < ids.length; i += 5000) {
+        await db.updateTable("evidence").set({
+          content_type: file.type, size_bytes: file.body.length, sha256: createHash("sha256").update(file.body).digest("hex"),
+        }).where("id", "in", ids.slice(i, i + 5000)).execute();
+      }
+    }
+    for (let i = 0; i < missing.length; i += 16) {
+      await Promise.all(missing.slice(i, i + 16).map((item) => {
+        const file = files[item.kind];
+        return s3.send(new PutObjectCommand({ Bucket: env.S3_BUCKET, Key: item.object_key, Body: file.body, ContentType: file.type }));
+      }));
+    }
+    return missing.length;
+  } finally {
+    s3.destroy();
   }
-  s3.destroy();
-  return put;
 }

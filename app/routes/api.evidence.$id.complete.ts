@@ -5,6 +5,7 @@ import { completeUpload, EvidenceError } from "~/reports/evidence.server";
 import type { Route } from "./+types/api.evidence.$id.complete";
 
 // POST after the browser's upload: check the bytes, hash, record. A refused file is deleted.
+// Storage out of reach answers 503 with a message for the uploader; the upload stays pending.
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requireApiUser(request);
   const id = z.coerce.number().int().positive().safeParse(params.id);
@@ -12,7 +13,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     return Response.json(await completeUpload(db, user.id, id.data));
   } catch (error) {
-    if (error instanceof EvidenceError) return Response.json({ error: error.message }, { status: error.status });
+    if (error instanceof EvidenceError) {
+      return Response.json({ error: error.message }, { status: error.status, headers: error.status === 503 ? { "Retry-After": "60" } : {} });
+    }
     throw error;
   }
 }

@@ -3,7 +3,7 @@
 // gets short-lived presigned URLs.
 import { createHash } from "node:crypto";
 import type { Readable } from "node:stream";
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { CopyObjectCommand, DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 
 const env = process.env;
@@ -37,8 +37,19 @@ export const storeAt = (endpoint: string, bucket: string): Store => ({ client: c
 /** The origin browsers upload to and play from; it must be allowed by the page's CSP. */
 export const storageOrigin = new URL(storageConfig.endpoint).origin;
 
-export async function presignPut(key: string, contentType: string, expiresIn = 900) {
-  return getSignedUrl(s3, new PutObjectCommand({ Bucket: storageConfig.bucket, Key: key, ContentType: contentType }), { expiresIn });
+/** How long a browser may take to start its upload; the URL can write one key, nothing else. */
+export const UPLOAD_URL_SECONDS = 600;
+
+/**
+ * A PUT for exactly this key, content type and length: the store refuses the same URL with any other
+ * Content-Type or Content-Length (both are signed; the S3 presigner leaves Content-Type unsigned
+ * unless asked).
+ */
+export async function presignPut(key: string, contentType: string, contentLength: number, expiresIn = UPLOAD_URL_SECONDS) {
+  return getSignedUrl(s3, new PutObjectCommand({ Bucket: storageConfig.bucket, Key: key, ContentType: contentType, ContentLength: contentLength }), {
+    expiresIn,
+    signableHeaders: new Set(["content-type", "content-length"]),
+  });
 }
 
 export async function presignGet(key: string, expiresIn = 300) {
@@ -67,6 +78,21 @@ export async function sha256OfObject(key: string): Promise<string> {
   const hash = createHash("sha256");
   for await (const chunk of res.Body as Readable) hash.update(chunk as Buffer);
   return hash.digest("hex");
+}
+
+/** Server-side copy inside the bucket; the bytes never pass through the app. */
+export async function copyObject(from: string, to: string) {
+  const source = `${storageConfig.bucket}/${from.split("/").map(encodeURIComponent).join("/")}`;
+  await s3.send(new CopyObjectCommand({ Bucket: storageConfig.bucket, Key: to, CopySource: source }));
+}
+
+/**
+ * True when the store could not be reached or failed on its side (no HTTP answer, or a 5xx), as
+ * opposed to answering about the request (404, 403…). Such a failure is worth retrying later.
+ */
+export function isStorageOutage(error: unknown) {
+  const status = (error as { $metadata?: { httpStatusCode?: number } } | null)?.$metadata?.httpStatusCode;
+  return status == null || status >= 500;
 }
 
 export async function deleteObject(key: string) {

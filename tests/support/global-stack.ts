@@ -11,6 +11,7 @@ import { startFakes } from "../../fakes/index";
 import { reindexAll, searchClient } from "../../app/search/search.server";
 import { createDb } from "../../db/database";
 import { buildApp } from "../../scripts/build-app";
+import { ensureDemoEvidence } from "../../seeds/demo-evidence";
 import { waitForHttp } from "../../scripts/wait-http";
 import { ensureChromium, freePort, startTestDatabase } from "./system";
 
@@ -48,8 +49,9 @@ export default async function setup(project: TestProject) {
     cleanups.push(() => fakes.stop());
 
     {
+      // As `npm start` does (scripts/services.ts): the search index, and a file behind every demo evidence row.
       const db = createDb(database.url, 2);
-      await reindexAll(db, searchClient(fakes.env.SEARCH_URL)).finally(() => db.destroy());
+      await Promise.all([reindexAll(db, searchClient(fakes.env.SEARCH_URL)), ensureDemoEvidence(db, fakes.env)]).finally(() => db.destroy());
     }
     const build = buildApp(root, () => {}, { inheritOutput: false });
     if (!build.ok) throw new Error(`react-router build failed:\n${build.output}`);

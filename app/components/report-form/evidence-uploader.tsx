@@ -48,7 +48,7 @@ export function EvidenceUploader({ reportId, initial }: { reportId: number | nul
             headers: { "Content-Type": "application/json" },
             body: JSON.stringify({ type: file.type, size: file.size }),
           });
-          const body = await res.json();
+          const body = await res.json().catch(() => ({}));
           if (!res.ok) throw new Error(body.error ?? "The upload was refused");
           u.setFileMeta(file.id, { evidenceId: body.evidenceId });
           return { url: body.url, key: body.key, headers: body.headers };
@@ -57,11 +57,14 @@ export function EvidenceUploader({ reportId, initial }: { reportId: number | nul
       u.on("upload-success", async (file) => {
         if (!file) return;
         const evidenceId = u.getFile(file.id).meta.evidenceId;
-        const res = await fetch(`/api/evidence/${evidenceId}/complete`, { method: "POST" });
-        const body = await res.json();
-        if (!res.ok) {
-          setProblems((p) => [...p, `${file.name}: ${body.error}`]);
-          u.info(body.error, "error", 8000);
+        // The server's own message (e.g. storage out of reach: 503, the draft kept); a network
+        // failure or an answer that is not JSON gets a plain one.
+        const res = await fetch(`/api/evidence/${evidenceId}/complete`, { method: "POST" }).catch(() => null);
+        const body = res ? await res.json().catch(() => ({})) : {};
+        if (!res?.ok) {
+          const message: string = body.error ?? "The file could not be checked. It is kept on your device: try again in a few minutes.";
+          setProblems((p) => [...p, `${file.name}: ${message}`]);
+          u.info(message, "error", 8000);
           return;
         }
         setItems((list) => [...list, { id: body.id, kind: body.kind, contentType: body.contentType, size: body.size, status: "uploaded", isPublic: false }]);
@@ -115,30 +118,30 @@ export function EvidenceUploader({ reportId, initial }: { reportId: number | nul
  * default: faces, plates and shop names may be in the picture.
  */
 function PublishToggle({ item, onChange, onProblem }: { item: EvidenceItem; onChange: (isPublic: boolean) => void; onProblem: (message: string) => void }) {
-  // The box shows what was asked for at once (a slow answer must not look like an ignored click)
-  // and falls back to the stored state if the server refuses.
-  const [pending, setPending] = useState<boolean | null>(null);
+  const [busy, setBusy] = useState(false);
   return (
     <label className="flex items-center gap-2 text-sm">
       <input
         type="checkbox"
         className="h-5 w-5"
-        checked={pending ?? item.isPublic}
-        disabled={pending !== null}
-        aria-busy={pending !== null}
+        checked={item.isPublic}
+        disabled={busy}
         onChange={async (event) => {
           const wanted = event.currentTarget.checked;
-          setPending(wanted);
+          // Shown at once (and disabled until the server answers), put back if the server refuses.
+          onChange(wanted);
+          setBusy(true);
           try {
             const res = await fetch(`/api/evidence/${item.id}/publish`, {
               method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ public: wanted }),
-            });
-            if (res.ok) onChange(wanted);
-            else onProblem((await res.json().catch(() => ({}))).error ?? "Could not change whether the file is published");
-          } catch {
-            onProblem("Could not reach Bayproof to change whether the file is published; try again");
+            }).catch(() => null);
+            if (!res?.ok) {
+              onChange(!wanted);
+              const body = res ? await res.json().catch(() => ({})) : {};
+              onProblem(body.error ?? "Could not change whether the file is published");
+            }
           } finally {
-            setPending(null);
+            setBusy(false);
           }
         }}
       />
