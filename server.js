@@ -6,7 +6,8 @@
 //   - response bodies are written with node's stream.pipeline, which waits for the socket and
 //     holds one chunk at a time. The adapter's writer races every read against one long-lived
 //     promise, which keeps every chunk of a long stream alive until it ends (a bulk dump of
-//     the feed grew the process by the size of the file).
+//     the feed grew the process by the size of the file);
+//   - request bodies are capped per route before anything parses them (BODY_LIMITS below).
 // Plain JavaScript, run by node itself; HOST and PORT choose where it listens.
 import path from "node:path";
 import { Readable } from "node:stream";
@@ -23,8 +24,65 @@ const root = path.dirname(fileURLToPath(import.meta.url));
 const build = await import(path.join(root, "build/server/index.js"));
 const handle = createRequestHandler(build, process.env.NODE_ENV);
 
+// Request bodies, by path, refused with 413 before the app parses them: by Content-Length when
+// one is sent, else by counting the streamed bytes. Evidence goes from the browser straight to
+// object storage, so no route takes more than a form's worth of text.
+//
+//   path (".data" suffix of React Router's data requests ignored)   limit
+//   /reports/new, /reports/:id/edit   160 KiB  the report form: at most ~40 KB (4,000 characters
+//                                              of notes at 9 bytes each URL-encoded), about 4×
+//   /api/*                             16 KiB  small JSON: an upload's type and size, publish yes/no
+//   everything else                    64 KiB  sign-in, account, moderation and admin forms
+const KIB = 1024;
+const BODY_LIMITS = [
+  { pattern: /^\/reports\/(new|[^/]+\/edit)$/, limit: 160 * KIB },
+  { pattern: /^\/api\//, limit: 16 * KIB },
+  { pattern: /^/, limit: 64 * KIB },
+];
+
+function bodyLimit(pathname) {
+  const path = pathname.replace(/\.data$/, "");
+  return BODY_LIMITS.find((rule) => rule.pattern.test(path)).limit;
+}
+
+class BodyTooLarge extends Error {}
+
+/** The whole body, or BodyTooLarge as soon as it passes the limit (nothing more is kept). */
+function readBody(req, limit) {
+  return new Promise((resolve, reject) => {
+    const chunks = [];
+    let size = 0;
+    const done = (error, body) => {
+      req.off("data", onData).off("end", onEnd).off("error", onError).off("close", onClose);
+      if (error) reject(error);
+      else resolve(body);
+    };
+    const onData = (chunk) => {
+      size += chunk.length;
+      if (size > limit) done(new BodyTooLarge());
+      else chunks.push(chunk);
+    };
+    const onEnd = () => done(null, Buffer.concat(chunks, size));
+    const onError = (error) => done(error);
+    const onClose = () => done(new Error("the client closed the request"));
+    req.on("data", onData).on("end", onEnd).on("error", onError).on("close", onClose);
+  });
+}
+
+/** 413 with a reason (JSON under /api/), then the rest of the body is read and dropped for a
+ *  few seconds so the client gets to read the answer rather than a reset connection. */
+function refuseTooLarge(req, res, limit) {
+  const message = `The request body is larger than this address accepts (at most ${limit / KIB} KiB). Evidence files are uploaded to storage directly, not through this form.`;
+  res.set({ Connection: "close", "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" });
+  if (req.path.startsWith("/api/")) res.status(413).json({ error: { code: "body_too_large", message } });
+  else res.status(413).type("text/plain").send(message);
+  req.on("data", () => {});
+  req.resume();
+  setTimeout(() => req.socket.destroy(), 5_000).unref();
+}
+
 /** The Fetch API request React Router takes, from node's; aborted when the client goes away. */
-function toRequest(req, res) {
+function toRequest(req, res, body) {
   const controller = new AbortController();
   res.on("close", () => {
     if (!res.writableFinished) controller.abort();
@@ -36,10 +94,7 @@ function toRequest(req, res) {
   }
   headers.set(CLIENT_ADDRESS_HEADER, req.socket.remoteAddress ?? "");
   const init = { method: req.method, headers, signal: controller.signal };
-  if (req.method !== "GET" && req.method !== "HEAD") {
-    init.body = Readable.toWeb(req);
-    init.duplex = "half";
-  }
+  if (body !== undefined) init.body = body;
   return new Request(new URL(req.originalUrl, `${req.protocol}://${req.get("host") ?? "localhost"}`), init);
 }
 
@@ -49,9 +104,21 @@ app.use(compression());
 app.use("/assets", express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y" }));
 app.use(express.static(path.join(root, "build/client"), { maxAge: "1h" }));
 app.all("*", async (req, res, next) => {
+  let body;
+  if (req.method !== "GET" && req.method !== "HEAD") {
+    const limit = bodyLimit(req.path);
+    const declared = Number(req.get("content-length"));
+    if (declared > limit) return refuseTooLarge(req, res, limit);
+    try {
+      body = await readBody(req, limit);
+    } catch (error) {
+      if (error instanceof BodyTooLarge) return refuseTooLarge(req, res, limit);
+      return res.destroy(); // the client went away mid-body: nobody to answer
+    }
+  }
   let response;
   try {
-    response = await handle(toRequest(req, res));
+    response = await handle(toRequest(req, res, body));
   } catch (error) {
     return next(error);
   }
