@@ -5,6 +5,7 @@ import { ErrorPage } from "~/components/error-page";
 import { SearchBox } from "~/components/search-box";
 import { applySecurityHeaders, isCrossSiteWrite, newNonce } from "~/security.server";
 import { nonceContext, useNonce } from "~/utils/nonce";
+import { refuseUnreadableRequest } from "~/utils/request-checks.server";
 import type { Route } from "./+types/root";
 import "./app.css";
 
@@ -17,7 +18,7 @@ export const middleware: Route.MiddlewareFunction[] = [
           status: 403,
           headers: { "Content-Type": "text/plain; charset=utf-8" },
         })
-      : await next();
+      : (refuseUnreadableRequest(request) ?? (await next()));
     applySecurityHeaders(response.headers, nonce, import.meta.env.DEV);
     return response;
   },

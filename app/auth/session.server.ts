@@ -5,6 +5,7 @@ import { sql } from "kysely";
 import { db } from "~/db.server";
 import { isHttps } from "~/config.server";
 import { invariantResponse } from "~/utils/http";
+import { hasControlCharacters } from "~/utils/text";
 import { randomToken, sha256Hex } from "./tokens.server";
 
 export const IDLE_TIMEOUT_MS = 14 * 24 * 3600_000;
@@ -112,6 +113,7 @@ export async function destroySession(request: Request) {
 /** Only same-site paths may follow sign-in, never another origin. */
 export function safeRedirectPath(value: unknown, fallback = "/account"): string {
   if (typeof value !== "string" || !value.startsWith("/") || value.startsWith("//") || value.startsWith("/\\")) return fallback;
+  if (value.length > 2000 || hasControlCharacters(value)) return fallback;
   return value;
 }
 

@@ -4,7 +4,8 @@ import { requestSignInLink } from "~/auth/email-link.server";
 import { providers } from "~/auth/oidc.server";
 import { getUser, safeRedirectPath } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
-import { type FieldErrors, invalid, parseForm } from "~/utils/forms";
+import { type FieldErrors, invalid, parseForm, readForm } from "~/utils/forms";
+import { plainText } from "~/utils/text";
 import type { Route } from "./+types/sign-in";
 
 export async function loader({ request }: Route.LoaderArgs) {
@@ -14,12 +15,12 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 const emailSchema = z.object({
-  email: z.string().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@shop.example").max(254)),
+  email: plainText().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@shop.example").max(254)),
   redirectTo: z.string().optional(),
 });
 
 export async function action({ request }: Route.ActionArgs) {
-  const form = parseForm(emailSchema, await request.formData());
+  const form = parseForm(emailSchema, await readForm(request));
   if (!form.ok) return invalid(form.errors, form.values);
   const redirectTo = safeRedirectPath(form.data.redirectTo);
   const result = await requestSignInLink(form.data.email, request, redirectTo);
