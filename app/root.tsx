@@ -2,6 +2,7 @@ import { useEffect } from "react";
 import { Form, Link, Links, Meta, NavLink, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import { getUser, hasRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { RETRY_AFTER_SECONDS, servingRequest } from "~/db.server";
 import { SearchBox } from "~/components/search-box";
 import { applySecurityHeaders, isCrossSiteWrite, newNonce } from "~/security.server";
 import { nonceContext, useNonce } from "~/utils/nonce";
@@ -18,7 +19,8 @@ export const middleware: Route.MiddlewareFunction[] = [
           status: 403,
           headers: { "Content-Type": "text/plain; charset=utf-8" },
         })
-      : (refuseUnreadableRequest(request) ?? (await next()));
+      : (refuseUnreadableRequest(request) ?? (await servingRequest(request, next)));
+    if (response.status === 503 && !response.headers.has("Retry-After")) response.headers.set("Retry-After", RETRY_AFTER_SECONDS);
     applySecurityHeaders(response.headers, nonce, import.meta.env.DEV);
     return response;
   },

@@ -1,30 +1,20 @@
 import { data, Form } from "react-router";
-import { z } from "zod";
 import { changeRole, recentRoleChanges, RoleChangeError, searchUsers } from "~/auth/roles.server";
+import { roleSchema, userSearchSchema } from "~/auth/forms";
 import { requireRole } from "~/auth/session.server";
 import { formatDate } from "~/catalogue/format";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { parseForm, readForm } from "~/utils/forms";
-import { idField } from "~/utils/params";
-import { plainText } from "~/utils/text";
 import type { Route } from "./+types/admin.users";
-
-const searchSchema = z.object({ q: plainText().trim().max(100, "The search must be at most 100 characters").default("") });
 
 export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, "admin");
-  const parsed = searchSchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  const parsed = userSearchSchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
   if (!parsed.success) throw data(parsed.error.issues[0]!.message, { status: 400 });
   const [users, changes] = await Promise.all([searchUsers(db, parsed.data.q), recentRoleChanges(db)]);
   return { q: parsed.data.q, users, changes, adminId: admin.id };
 }
-
-const roleSchema = z.object({
-  intent: z.enum(["grant", "revoke"]),
-  userId: idField("No such user"),
-  role: z.enum(["moderator", "admin"]),
-});
 
 export async function action({ request }: Route.ActionArgs) {
   const admin = await requireRole(request, "admin");

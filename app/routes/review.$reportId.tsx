@@ -1,10 +1,10 @@
 import { data, Form, Link, useNavigation } from "react-router";
-import { z } from "zod";
 import { requireRole } from "~/auth/session.server";
 import { FITTING_LABELS, formatDate, formatDuration, formatHoseId, formatPressure, INLET_SOURCE_LABELS, OUTCOME_LABELS, VEHICLE_LABELS } from "~/catalogue/format";
 import { ErrorPage } from "~/components/error-page";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { db } from "~/db.server";
+import { decisionSchema } from "~/moderation/decision-form";
 import { claim, decide, DecisionError, reportLog } from "~/moderation/decide.server";
 import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
 import { changesSinceLastVersion, reviewDetail } from "~/moderation/queue.server";
@@ -13,8 +13,7 @@ import { LogList } from "~/components/decision-log";
 import { TRUST_LABELS } from "~/moderation/trust";
 import { lpsToScfm } from "~/air/units";
 import { formValues, readForm } from "~/utils/forms";
-import { idField, MAX_ID, parseIdParam } from "~/utils/params";
-import { plainText } from "~/utils/text";
+import { idField, parseIdParam } from "~/utils/params";
 import type { Route } from "./+types/review.$reportId";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -36,15 +35,6 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     units: { pu: moderator.pressureUnit, lu: moderator.lengthUnit },
   };
 }
-
-const decisionSchema = z.object({
-  action: z.enum(["accept", "return", "reject"], { error: "Pick accept, return or reject" }),
-  reasonCode: plainText("Pick a reason").min(1, "Pick a reason").max(40),
-  note: plainText().max(4000, "At most 4,000 characters").optional(),
-  version: idField("Reload the report: the version sent is not one it has had"),
-  seenDecisions: z.string().regex(/^(0|[1-9][0-9]{0,9})$/, "Reload the report and decide again").transform(Number)
-    .refine((n) => n <= MAX_ID, "Reload the report and decide again"),
-});
 
 export async function action({ request, params }: Route.ActionArgs) {
   const moderator = await requireRole(request, "moderator");
