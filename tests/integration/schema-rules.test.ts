@@ -72,7 +72,8 @@ describe("reports table rules", () => {
     expect(await tryInsert({ ...draft, status: "withdrawn" })).toBeNull();
     expect((await tryInsert({ ...draft, status: "withdrawn", submitted_at: new Date() }))?.message).toMatch(/reports_complete_unless_draft/);
     for (const status of ["submitted", "returned", "accepted", "rejected"] as const) {
-      expect((await tryInsert({ ...draft, status, submitted_at: new Date() }))?.message, status).toMatch(/reports_complete_unless_draft/);
+      const accepted_at = status === "accepted" ? new Date() : null;
+      expect((await tryInsert({ ...draft, status, submitted_at: new Date(), accepted_at }))?.message, status).toMatch(/reports_complete_unless_draft/);
     }
     expect(await tryInsert({ ...valid, status: "withdrawn" })).toBeNull();
   });
