@@ -69,16 +69,18 @@ function readBody(req, limit) {
   });
 }
 
-/** 413 with a reason (JSON under /api/), then the rest of the body is read and dropped for a
- *  few seconds so the client gets to read the answer rather than a reset connection. */
+/** 413 with a reason (JSON under /api/). The rest of the body is read and dropped (never kept)
+ *  so the client, still sending, reads this answer rather than a broken pipe; a client that
+ *  keeps sending for more than a few seconds is cut off. */
 function refuseTooLarge(req, res, limit) {
   const message = `The request body is larger than this address accepts (at most ${limit / KIB} KiB). Evidence files are uploaded to storage directly, not through this form.`;
-  res.set({ Connection: "close", "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" });
+  res.set({ "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" });
   if (req.path.startsWith("/api/")) res.status(413).json({ error: { code: "body_too_large", message } });
   else res.status(413).type("text/plain").send(message);
   req.on("data", () => {});
   req.resume();
-  setTimeout(() => req.socket.destroy(), 5_000).unref();
+  const cutOff = setTimeout(() => req.socket.destroy(), 5_000).unref();
+  req.once("end", () => clearTimeout(cutOff));
 }
 
 /** The Fetch API request React Router takes, from node's; aborted when the client goes away. */
@@ -140,4 +142,15 @@ app.all("*", async (req, res, next) => {
 const host = process.env.HOST ?? "127.0.0.1";
 const port = Number(process.env.PORT ?? 3000);
 const server = app.listen(port, host, () => console.log(`[server] http://${host}:${port}`));
+// Requests node's parser refuses before any route sees them (an address or headers over 16 KiB,
+// a malformed request line) get a reason too, in JSON since the path is not known.
+server.on("clientError", (error, socket) => {
+  if (error.code === "ECONNRESET" || !socket.writable) return socket.destroy();
+  const tooLarge = error.code === "HPE_HEADER_OVERFLOW";
+  const body = JSON.stringify({ error: tooLarge
+    ? { code: "request_too_large", message: "The address and headers together are larger than 16 KiB." }
+    : { code: "bad_request", message: "The request could not be read." } });
+  socket.end(`HTTP/1.1 ${tooLarge ? "431 Request Header Fields Too Large" : "400 Bad Request"}\r\nContent-Type: application/json; charset=utf-8\r\n` +
+    `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`);
+});
 for (const signal of ["SIGTERM", "SIGINT"]) process.once(signal, () => server.close(() => process.exit(0)));

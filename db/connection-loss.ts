@@ -2,8 +2,9 @@
 // PostgreSQL driver is wrapped so that:
 //   - acquiring a connection that cannot be made yet is tried again for a moment (nothing has
 //     been sent, so this is safe for any request);
-//   - a read (a SELECT outside a transaction) whose connection dropped runs once more on a fresh
-//     connection, when the caller allows it (the app: only while serving GET and HEAD);
+//   - a read (a SELECT outside a transaction) whose connection dropped runs again on a fresh
+//     connection, when the caller allows it (the app: only while serving GET and HEAD); a
+//     pooled connection that turns out dead as well is skipped the same way, up to three times;
 //   - any other lost query, and a transaction whose connection dropped, is handed to
 //     `unavailable`, which the app turns into a 503 with Retry-After.
 // Plain Kysely and pg: no framework here.
@@ -47,6 +48,8 @@ export interface ConnectionLossPolicy {
 export const NO_RETRY: ConnectionLossPolicy = { mayRetryRead: () => false, unavailable: (error) => error };
 
 const CONNECT_DELAYS_MS = [100, 200, 400, 800];
+/** The read is sent again once; the later tries only skip pooled connections found dead. */
+const READ_RETRY_DELAYS_MS = [20, 100, 300];
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
 class Connection implements DatabaseConnection {
@@ -54,16 +57,17 @@ class Connection implements DatabaseConnection {
   constructor(private readonly driver: ConnectionLossDriver, public inner: DatabaseConnection) {}
 
   async executeQuery<R>(query: CompiledQuery): Promise<QueryResult<R>> {
-    try {
-      return await this.inner.executeQuery<R>(query);
-    } catch (error) {
-      if (!isConnectionError(error)) throw error;
-      if (this.inTransaction || !isReadQuery(query) || !this.driver.policy.mayRetryRead()) throw this.driver.policy.unavailable(error);
-      await this.replace();
+    for (let attempt = 0; ; attempt++) {
       try {
         return await this.inner.executeQuery<R>(query);
-      } catch (again) {
-        throw isConnectionError(again) ? this.driver.policy.unavailable(again) : again;
+      } catch (error) {
+        if (!isConnectionError(error)) throw error;
+        const retry = !this.inTransaction && isReadQuery(query) && this.driver.policy.mayRetryRead() && attempt < READ_RETRY_DELAYS_MS.length;
+        if (!retry) throw this.driver.policy.unavailable(error);
+        // A restart cuts every pooled connection at once: give the pool a moment to hear of the
+        // others' end, so the read runs again on a live one rather than on the next dead one.
+        await sleep(READ_RETRY_DELAYS_MS[attempt]!);
+        await this.replace();
       }
     }
   }
