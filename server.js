@@ -13,6 +13,7 @@
 //     and log a stack trace for each one;
 //   - static files carry nosniff and a CSP that lets them load nothing but our own styles,
 //     fonts and images, and HSTS when APP_ORIGIN is https.
+//   - request bodies are capped per route before anything parses them (BODY_LIMITS below).
 // Plain JavaScript, run by node itself; HOST and PORT choose where it listens.
 import path from "node:path";
 import { Readable } from "node:stream";
@@ -47,8 +48,67 @@ function badPath(req, res) {
   return res.type("text/plain").send(message);
 }
 
+// Request bodies, by path, refused with 413 before the app parses them: by Content-Length when
+// one is sent, else by counting the streamed bytes. Evidence goes from the browser straight to
+// object storage, so no route takes more than a form's worth of text.
+//
+//   path (".data" suffix of React Router's data requests ignored)   limit
+//   /reports/new, /reports/:id/edit   160 KiB  the report form: at most ~40 KB (4,000 characters
+//                                              of notes at 9 bytes each URL-encoded), about 4×
+//   /api/*                             16 KiB  small JSON: an upload's type and size, publish yes/no
+//   everything else                    64 KiB  sign-in, account, moderation and admin forms
+const KIB = 1024;
+const BODY_LIMITS = [
+  { pattern: /^\/reports\/(new|[^/]+\/edit)$/, limit: 160 * KIB },
+  { pattern: /^\/api\//, limit: 16 * KIB },
+  { pattern: /^/, limit: 64 * KIB },
+];
+
+function bodyLimit(pathname) {
+  const path = pathname.replace(/\.data$/, "");
+  return BODY_LIMITS.find((rule) => rule.pattern.test(path)).limit;
+}
+
+class BodyTooLarge extends Error {}
+
+/** The whole body, or BodyTooLarge as soon as it passes the limit (nothing more is kept). */
+function readBody(req, limit) {
+  return new Promise((resolve, reject) => {
+    const chunks = [];
+    let size = 0;
+    const done = (error, body) => {
+      req.off("data", onData).off("end", onEnd).off("error", onError).off("close", onClose);
+      if (error) reject(error);
+      else resolve(body);
+    };
+    const onData = (chunk) => {
+      size += chunk.length;
+      if (size > limit) done(new BodyTooLarge());
+      else chunks.push(chunk);
+    };
+    const onEnd = () => done(null, Buffer.concat(chunks, size));
+    const onError = (error) => done(error);
+    const onClose = () => done(new Error("the client closed the request"));
+    req.on("data", onData).on("end", onEnd).on("error", onError).on("close", onClose);
+  });
+}
+
+/** 413 with a reason (JSON under /api/). The rest of the body is read and dropped (never kept)
+ *  so the client, still sending, reads this answer rather than a broken pipe; a client that
+ *  keeps sending for more than a few seconds is cut off. */
+function refuseTooLarge(req, res, limit) {
+  const message = `The request body is larger than this address accepts (at most ${limit / KIB} KiB). Evidence files are uploaded to storage directly, not through this form.`;
+  res.set({ "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" });
+  if (req.path.startsWith("/api/")) res.status(413).json({ error: { code: "body_too_large", message } });
+  else res.status(413).type("text/plain").send(message);
+  req.on("data", () => {});
+  req.resume();
+  const cutOff = setTimeout(() => req.socket.destroy(), 5_000).unref();
+  req.once("end", () => clearTimeout(cutOff));
+}
+
 /** The Fetch API request React Router takes, from node's; aborted when the client goes away. */
-function toRequest(req, res) {
+function toRequest(req, res, body) {
   const controller = new AbortController();
   res.on("close", () => {
     if (!res.writableFinished) controller.abort();
@@ -60,10 +120,7 @@ function toRequest(req, res) {
   }
   headers.set(CLIENT_ADDRESS_HEADER, req.socket.remoteAddress ?? "");
   const init = { method: req.method, headers, signal: controller.signal };
-  if (req.method !== "GET" && req.method !== "HEAD") {
-    init.body = Readable.toWeb(req);
-    init.duplex = "half";
-  }
+  if (body !== undefined) init.body = body;
   return new Request(new URL(req.originalUrl, `${req.protocol}://${req.get("host") ?? "localhost"}`), init);
 }
 
@@ -82,9 +139,21 @@ const setHeaders = (res) => res.set(STATIC_HEADERS);
 app.use("/assets", express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y", setHeaders }));
 app.use(express.static(path.join(root, "build/client"), { maxAge: "1h", setHeaders }));
 app.all("*", async (req, res, next) => {
+  let body;
+  if (req.method !== "GET" && req.method !== "HEAD") {
+    const limit = bodyLimit(req.path);
+    const declared = Number(req.get("content-length"));
+    if (declared > limit) return refuseTooLarge(req, res, limit);
+    try {
+      body = await readBody(req, limit);
+    } catch (error) {
+      if (error instanceof BodyTooLarge) return refuseTooLarge(req, res, limit);
+      return res.destroy(); // the client went away mid-body: nobody to answer
+    }
+  }
   let response;
   try {
-    const request = toRequest(req, res);
+    const request = toRequest(req, res, body);
     response = crossSiteRefusal(request) ?? (await handle(request));
   } catch (error) {
     return next(error);
@@ -107,4 +176,15 @@ app.all("*", async (req, res, next) => {
 const host = process.env.HOST ?? "127.0.0.1";
 const port = Number(process.env.PORT ?? 3000);
 const server = app.listen(port, host, () => console.log(`[server] http://${host}:${port}`));
+// Requests node's parser refuses before any route sees them (an address or headers over 16 KiB,
+// a malformed request line) get a reason too, in JSON since the path is not known.
+server.on("clientError", (error, socket) => {
+  if (error.code === "ECONNRESET" || !socket.writable) return socket.destroy();
+  const tooLarge = error.code === "HPE_HEADER_OVERFLOW";
+  const body = JSON.stringify({ error: tooLarge
+    ? { code: "request_too_large", message: "The address and headers together are larger than 16 KiB." }
+    : { code: "bad_request", message: "The request could not be read." } });
+  socket.end(`HTTP/1.1 ${tooLarge ? "431 Request Header Fields Too Large" : "400 Bad Request"}\r\nContent-Type: application/json; charset=utf-8\r\n` +
+    `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`);
+});
 for (const signal of ["SIGTERM", "SIGINT"]) process.once(signal, () => server.close(() => process.exit(0)));

@@ -1,7 +1,10 @@
 import { defineConfig } from "vitest/config";
 
 // Tests run without the React Router Vite plugin; the global setup builds and serves the real
-// app instead (tests/support/global-stack.ts). Projects: unit (pure), integration (real PostgreSQL), e2e (Chromium), faults (a stack of its own, broken on purpose), start (the start command from a fresh clone).
+// app instead (tests/support/global-stack.ts). Projects: unit (pure), integration (real PostgreSQL), e2e (Chromium),
+// faults (a stack of its own, broken on purpose), start (the start command from a fresh clone), and hostile
+// (generated bad input against the served app; runs after the others, one file at a time, so the row counts
+// it compares are its own and the connections it cuts serve nobody else).
 export default defineConfig({
   resolve: { tsconfigPaths: true },
   test: {
@@ -55,6 +58,18 @@ export default defineConfig({
           setupFiles: ["tests/support/console-guard.ts"],
           testTimeout: 1_200_000,
           hookTimeout: 120_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: "hostile",
+          include: ["tests/hostile/**/*.test.ts"],
+          setupFiles: ["tests/support/console-guard.ts"],
+          testTimeout: 300_000,
+          hookTimeout: 300_000,
+          fileParallelism: false,
+          sequence: { groupOrder: 1 },
         },
       },
     ],

@@ -100,6 +100,10 @@ export interface JobTypesTable {
   seized: ColumnType<boolean, boolean | undefined, boolean>;
 }
 
+/**
+ * CHECK reports_complete_unless_draft: every job column and submitted_at are set, except on a
+ * draft and on a withdrawn report that was never submitted (a draft withdrawn as it stood).
+ */
 export interface ReportsTable {
   id: Generated<number>;
   reporter_id: number;

@@ -4,7 +4,7 @@
 // reach the folder asked for (a clone inside root's 0700 home), the cluster lives in its own
 // home instead, in a folder named after the one asked for (docs/decisions/001).
 import { createHash } from "node:crypto";
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync, spawn, spawnSync } from "node:child_process";
 import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
 import pg from "pg";
@@ -23,8 +23,8 @@ export interface RunningPostgres {
   url: string;
   /** Where the cluster is: the folder asked for, or its stand-in in the server user's home. */
   dataDir: string;
-  /** A fast restart (open connections are cut), as after a crash or a minor-version upgrade. */
-  restart(): void;
+  /** A fast restart (open connections are cut), as after a crash or a minor-version upgrade; the caller's event loop keeps running. */
+  restart(): Promise<void>;
   stop(): void;
 }
 
@@ -211,7 +211,14 @@ export async function startPostgres(options: PostgresOptions): Promise<RunningPo
     url: `postgres://${USER}@127.0.0.1:${port}/${database}`,
     dataDir,
     restart() {
-      run(pgCtl, ["-D", dataDir, "-m", "fast", "-w", "-t", "120", "restart"]);
+      // With its log file, as at start: otherwise the new server keeps this call's output pipes open.
+      const args = ["-D", dataDir, "-l", path.join(dataDir, "server.log"), "-m", "fast", "-w", "-t", "120", "restart"];
+      const [cmd, fullArgs] = isRoot ? ["runuser", ["-u", "postgres", "--", pgCtl, ...args]] : [pgCtl, args];
+      return new Promise<void>((resolve, reject) => {
+        const child = spawn(cmd, fullArgs, { stdio: "ignore" });
+        child.on("error", reject);
+        child.on("exit", (code) => (code === 0 ? resolve() : reject(new Error(`pg_ctl restart failed (${code})`))));
+      });
     },
     stop() {
       if (stopped) return;

@@ -8,6 +8,9 @@ const STATUS_MESSAGES: Record<number, { title: string; body: string }> = {
   403: { title: "Not allowed", body: "Your account cannot see or change this." },
   409: { title: "That clashes with something already there", body: "Nothing was changed." },
   429: { title: "Too many tries", body: "Wait a few minutes and try again." },
+  413: { title: "That was too much to send", body: "The form is larger than Bayproof accepts. Shorten the text and send it again." },
+  415: { title: "That form could not be read", body: "Send the form from Bayproof's own page." },
+  503: { title: "Bayproof is busy for a moment", body: "The database could not be reached, so nothing was changed. Try again in a few seconds." },
   404: { title: "Not found", body: "There is no page here. The tool, job or report may have moved or never existed." },
 };
 

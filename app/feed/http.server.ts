@@ -2,6 +2,7 @@
 // ETags with 304s, and the cache lifetimes of each kind of answer.
 import { createHash } from "node:crypto";
 import type { z } from "zod";
+import { hasControlCharacters } from "~/utils/text";
 
 export class FeedError extends Error {
   constructor(readonly status: number, readonly code: string, message: string, readonly parameter?: string, readonly headers: Record<string, string> = {}) {
@@ -39,6 +40,7 @@ export function readParams<S extends Record<string, z.ZodType>>(url: URL, shape:
       throw new FeedError(400, "unknown_parameter", `Unknown parameter "${name}"${known.length ? `; this endpoint takes ${known.join(", ")}` : "; this endpoint takes none"}.`, name);
     }
     if (seen.has(name)) throw new FeedError(400, "repeated_parameter", `Give "${name}" once.`, name);
+    if (hasControlCharacters(value)) throw new FeedError(400, "invalid_parameter", `"${name}" holds control characters (such as NUL).`, name);
     seen.add(name);
   }
   for (const [name, schema] of Object.entries(shape)) {

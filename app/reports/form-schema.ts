@@ -5,6 +5,7 @@ import { z } from "zod";
 import { parseMeasure } from "~/air/calculator-form";
 import { ftToM, galToL, inToMm, kpaTo, lpsToScfm, lToGal, mmToIn, mToFt, pressureToKpa, scfmToLps } from "~/air/units";
 import { GAUGE_ERROR_KPA } from "~/moderation/flags";
+import { plainText } from "~/utils/text";
 import type { Report } from "../../db/schema";
 
 export const VEHICLE_CLASSES = ["passenger_car", "light_truck", "heavy_truck", "bus", "trailer", "agricultural", "construction"] as const;
@@ -42,7 +43,7 @@ export const reportFields = {
   vehicleClass: z.enum(VEHICLE_CLASSES, { error: "Pick the vehicle class" }),
   componentAge: int("Age in whole years", 0, 80).optional(),
   corrosion: z.enum(CORROSION_LEVELS, { error: "Pick how corroded it was" }),
-  attachment: z.string().trim().max(120, "At most 120 characters").optional(),
+  attachment: plainText().trim().max(120, "At most 120 characters").optional(),
   attachmentLength: optionalMeasure("Enter the bit or socket length as a number"),
   regulator: measure("Enter the regulator reading"),
   inlet: measure("Enter the pressure at the tool inlet"),
@@ -59,7 +60,7 @@ export const reportFields = {
       .min(1, "At least 1 second").max(28800, "At most 8 hours")),
   attempts: int("Attempts in whole numbers", 1, 50),
   triggerControl: int("Rate 1 to 5", 1, 5).optional(),
-  notes: z.string().max(4000, "At most 4,000 characters")
+  notes: plainText().max(4000, "At most 4,000 characters")
     .refine((t) => !/<\s*[a-z!/]/i.test(t), "Notes are plain text: leave out <tags>")
     .optional(),
 };

@@ -73,7 +73,10 @@ export async function saveDraft(db: Db, userId: number, reportId: number | undef
     if (reportId) {
       const r = await ownReport(trx, userId, reportId);
       if (!EDITABLE.includes(r.status)) throw new ReportError("This report is no longer editable", 409);
-      await trx.updateTable("reports").set({ ...columns, tool_model_id: model.id, category_id: model.category_id, job_type_id: job.id, updated_at: sql`now()` })
+      // A returned report stays complete (the database insists): a field cleared while fixing
+      // it keeps its stored value until the report is resubmitted.
+      const kept = r.status === "returned" ? Object.fromEntries(Object.entries(columns).filter(([, v]) => v !== null)) : columns;
+      await trx.updateTable("reports").set({ ...kept, tool_model_id: model.id, category_id: model.category_id, job_type_id: job.id, updated_at: sql`now()` })
         .where("id", "=", reportId).execute();
       return reportId;
     }

@@ -1,13 +1,13 @@
 import { data, Form, Link, useNavigation } from "react-router";
-import { z } from "zod";
 import { endOtherSessions, endSession, handleTaken, listSessions } from "~/auth/account.server";
 import { countActiveKeys, createApiKey, listApiKeys, MAX_KEYS_PER_USER, revokeApiKey } from "~/auth/api-keys.server";
+import { accountSchema } from "~/auth/forms";
 import { requireUser } from "~/auth/session.server";
 import { formatDate } from "~/catalogue/format";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { LIMITS } from "~/feed/params";
-import { type FieldErrors, invalid, parseForm } from "~/utils/forms";
+import { type FieldErrors, invalid, parseForm, readForm } from "~/utils/forms";
 import type { Route } from "./+types/account";
 
 export async function loader({ request }: Route.LoaderArgs) {
@@ -23,22 +23,10 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
-const profileSchema = z.object({
-  intent: z.literal("profile"),
-  handle: z.string().trim().toLowerCase().regex(/^[a-z0-9][a-z0-9_-]{2,29}$/, "3–30 characters: letters, digits, - and _, starting with a letter or digit"),
-  pressureUnit: z.enum(["psi", "bar", "kPa"]),
-  lengthUnit: z.enum(["in", "mm"]),
-  forceUnit: z.enum(["lbf", "N"]),
-});
-const endSessionSchema = z.object({ intent: z.literal("end-session"), ref: z.string().regex(/^[0-9a-f]{16}$/) });
-const endOthersSchema = z.object({ intent: z.literal("end-other-sessions") });
-const createKeySchema = z.object({ intent: z.literal("create-key"), name: z.string().trim().min(1, "Give the key a name, e.g. the project it is for").max(60) });
-const revokeKeySchema = z.object({ intent: z.literal("revoke-key"), keyId: z.coerce.number().int().positive() });
-const accountSchema = z.discriminatedUnion("intent", [profileSchema, endSessionSchema, endOthersSchema, createKeySchema, revokeKeySchema]);
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requireUser(request);
-  const form = parseForm(accountSchema, await request.formData());
+  const form = parseForm(accountSchema, await readForm(request));
   if (!form.ok) return invalid(form.errors, form.values);
   const input = form.data;
   switch (input.intent) {

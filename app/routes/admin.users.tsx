@@ -1,32 +1,24 @@
 import { data, Form, Link } from "react-router";
-import { z } from "zod";
 import { changeRole, recentRoleChanges, RoleChangeError, searchUsers } from "~/auth/roles.server";
+import { roleSchema, userSearchSchema } from "~/auth/forms";
 import { requireRole } from "~/auth/session.server";
 import { formatDate } from "~/catalogue/format";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
-import { parseForm } from "~/utils/forms";
+import { parseForm, readForm } from "~/utils/forms";
 import type { Route } from "./+types/admin.users";
-
-const searchSchema = z.object({ q: z.string().trim().max(100).default("") });
 
 export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, "admin");
-  const parsed = searchSchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
-  if (!parsed.success) throw data("The search must be at most 100 characters", { status: 400 });
+  const parsed = userSearchSchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  if (!parsed.success) throw data(parsed.error.issues[0]!.message, { status: 400 });
   const [users, changes] = await Promise.all([searchUsers(db, parsed.data.q), recentRoleChanges(db)]);
   return { q: parsed.data.q, users, changes, adminId: admin.id };
 }
 
-const roleSchema = z.object({
-  intent: z.enum(["grant", "revoke"]),
-  userId: z.coerce.number().int().positive(),
-  role: z.enum(["moderator", "admin"]),
-});
-
 export async function action({ request }: Route.ActionArgs) {
   const admin = await requireRole(request, "admin");
-  const form = parseForm(roleSchema, await request.formData());
+  const form = parseForm(roleSchema, await readForm(request));
   if (!form.ok) throw data("That role change is not valid", { status: 400 });
   try {
     const changed = await changeRole(db, admin.id, form.data.userId, form.data.role, form.data.intent);

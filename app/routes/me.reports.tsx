@@ -11,13 +11,15 @@ import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
 import { EvidenceError, publishableFiles, setEvidencePublic } from "~/reports/evidence.server";
 import { listOwnReports } from "~/reports/reports.server";
 import { EDITABLE, WITHDRAWABLE } from "~/reports/status";
+import { readForm } from "~/utils/forms";
 import { groupBy } from "~/utils/group";
+import { idField, parseIdSearchParam } from "~/utils/params";
 import type { Route } from "./+types/me.reports";
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const url = new URL(request.url);
-  const submitted = Number(url.searchParams.get("submitted")) || null;
+  const submitted = parseIdSearchParam(request, "submitted");
   const [reports, notices, files] = await Promise.all([
     listOwnReports(db, user.id),
     db.selectFrom("notices").select(["id", "message", "created_at", "read_at", "report_id"]).where("user_id", "=", user.id)
@@ -27,11 +29,11 @@ export async function loader({ request }: Route.LoaderArgs) {
   return { reports, notices, files, submitted, withdrawn: url.searchParams.has("withdrawn") };
 }
 
-const publishForm = z.object({ evidenceId: z.coerce.number().int().positive().max(2_147_483_647), publish: z.enum(["yes", "no"]) });
+const publishForm = z.object({ evidenceId: idField(), publish: z.enum(["yes", "no"]) });
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readForm(request);
   const intent = form.get("intent");
   if (intent === "publish-evidence") {
     const parsed = publishForm.safeParse(Object.fromEntries(form));

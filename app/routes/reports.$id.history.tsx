@@ -1,22 +1,21 @@
 import { data } from "react-router";
-import { z } from "zod";
 import { hasRole, requireUser } from "~/auth/session.server";
 import { LogList } from "~/components/decision-log";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { reportLog } from "~/moderation/decide.server";
 import { moderatorsMaySee } from "~/moderation/visibility";
+import { parseIdParam } from "~/utils/params";
 import type { Route } from "./+types/reports.$id.history";
 
 // A report's moderation log, for its reporter and for moderators.
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  const id = z.coerce.number().int().positive().safeParse(params.id);
-  if (!id.success) throw data("No such report", { status: 404 });
-  const report = await db.selectFrom("reports").select(["id", "reporter_id", "status", "version"]).where("id", "=", id.data).executeTakeFirst();
+  const id = parseIdParam(params.id, "No such report");
+  const report = await db.selectFrom("reports").select(["id", "reporter_id", "status", "version"]).where("id", "=", id).executeTakeFirst();
   const own = report?.reporter_id === user.id;
   if (!report || (!own && !(hasRole(user, "moderator") && moderatorsMaySee(report.status)))) throw data("No such report among yours", { status: 404 });
-  return { report, log: await reportLog(db, id.data) };
+  return { report, log: await reportLog(db, id) };
 }
 
 export default function ReportHistory({ loaderData }: Route.ComponentProps) {

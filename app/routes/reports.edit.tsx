@@ -15,10 +15,11 @@ import { db } from "~/db.server";
 import { CORROSION_LEVELS, type INLET_SOURCES, type OUTCOMES, parseDraft, reportSchema, toFormValues, VEHICLE_CLASSES } from "~/reports/form-schema";
 import { EDITABLE } from "~/reports/status";
 import { findModel, getOwnReport, jobTypesByCategory, recentSupplies, ReportError, saveDraft, submitReport, suggestModels, withdrawReport } from "~/reports/reports.server";
+import { readForm } from "~/utils/forms";
 import { groupBy } from "~/utils/group";
+import { idField, parseIdParam } from "~/utils/params";
+import { hasControlCharacters } from "~/utils/text";
 import type { Route } from "./+types/reports.edit";
-
-const idParam = z.coerce.number().int().positive();
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
@@ -30,9 +31,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   let evidence: EvidenceItem[] = [];
   let status: string = "new";
   if (params.id !== undefined) {
-    const id = idParam.safeParse(params.id);
-    if (!id.success) throw data("No such report among yours", { status: 404 });
-    const own = await getOwnReport(db, user.id, id.data).catch((e) => {
+    const id = parseIdParam(params.id, "No such report among yours");
+    const own = await getOwnReport(db, user.id, id).catch((e) => {
       if (e instanceof ReportError) throw data(e.message, { status: e.status });
       throw e;
     });
@@ -62,16 +62,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requireUser(request);
-  const formData = await request.formData();
+  const pathId = params.id === undefined ? undefined : parseIdParam(params.id, "No such report among yours");
+  const formData = await readForm(request);
   const intent = String(formData.get("intent") ?? "submit");
-  const rawId = formData.get("reportId") || params.id;
-  const reportId = rawId ? idParam.safeParse(rawId) : null;
-  if (reportId && !reportId.success) throw data("No such report among yours", { status: 404 });
-  const id = reportId?.data;
+  const field = formData.get("reportId");
+  const reportId = field ? idField().safeParse(field) : null;
+  if (reportId && !reportId.success) throw data("The report number sent with the form is not valid; reload the page", { status: 400 });
+  const id = reportId?.data ?? pathId;
 
   // Without JavaScript the tool is typed, not picked: accept it when it names exactly one model.
-  if (!formData.get("toolModel") && formData.get("toolQuery")) {
-    const hits = await suggestModels(db, String(formData.get("toolQuery")).slice(0, 80), 2);
+  const toolQuery = formData.get("toolQuery");
+  if (!formData.get("toolModel") && typeof toolQuery === "string" && toolQuery && !hasControlCharacters(toolQuery)) {
+    const hits = await suggestModels(db, toolQuery.slice(0, 80), 2);
     if (hits.length === 1) formData.set("toolModel", hits[0]!.slug);
   }
 
@@ -111,6 +113,7 @@ export function shouldRevalidate({ formData, defaultShouldRevalidate }: ShouldRe
 
 const input = "mt-1 block w-full rounded border border-stone-300 px-3 py-3 text-base aria-[invalid]:border-red-600";
 const section = "space-y-4 rounded-lg border border-stone-200 bg-white p-4";
+const UNCHECKED_INTENTS = new Set(["withdraw", "save-draft"]);
 const STORAGE_KEY = (id: number | null) => `bayproof:report-form:${id ?? "new"}`;
 
 export default function ReportEditor({ loaderData, actionData }: Route.ComponentProps) {
@@ -133,7 +136,11 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
     defaultValue: loaderData.values as Record<string, unknown>,
     shouldValidate: "onBlur",
     shouldRevalidate: "onInput",
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: reportSchema }),
+    // Withdrawing and saving a draft take the form as it is: only submitting checks every field.
+    onValidate: ({ formData }) =>
+      UNCHECKED_INTENTS.has(String(formData.get("intent")))
+        ? parseWithZod(formData, { schema: reportSchema.or(z.any()) as unknown as typeof reportSchema })
+        : parseWithZod(formData, { schema: reportSchema }),
   });
 
   useEffect(() => {

@@ -1,10 +1,10 @@
 import { data, Form, Link, useNavigation } from "react-router";
-import { z } from "zod";
 import { requireRole } from "~/auth/session.server";
 import { FITTING_LABELS, formatDate, formatDuration, formatHoseId, formatPressure, INLET_SOURCE_LABELS, OUTCOME_LABELS, VEHICLE_LABELS } from "~/catalogue/format";
 import { ErrorPage } from "~/components/error-page";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { db } from "~/db.server";
+import { decisionSchema } from "~/moderation/decision-form";
 import { claim, decide, DecisionError, reportLog } from "~/moderation/decide.server";
 import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
 import { changesSinceLastVersion, reviewDetail } from "~/moderation/queue.server";
@@ -12,19 +12,18 @@ import { CHECKLIST, type ChecklistKey, REASONS } from "~/moderation/reasons";
 import { LogList } from "~/components/decision-log";
 import { TRUST_LABELS } from "~/moderation/trust";
 import { lpsToScfm } from "~/air/units";
+import { formValues, readForm } from "~/utils/forms";
+import { idField, parseIdParam } from "~/utils/params";
 import type { Route } from "./+types/review.$reportId";
-
-const idSchema = z.coerce.number().int().positive();
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const moderator = await requireRole(request, "moderator");
-  const id = idSchema.safeParse(params.reportId);
-  if (!id.success) throw data("No such report", { status: 404 });
-  const detail = await reviewDetail(db, id.data);
+  const id = parseIdParam(params.reportId, "No such report");
+  const detail = await reviewDetail(db, id);
   if (!detail) throw data("No such report", { status: 404 });
   const own = detail.report.reporter_id === moderator.id;
-  const claimState = own ? null : await claim(db, moderator.id, id.data);
-  const log = await reportLog(db, id.data);
+  const claimState = own ? null : await claim(db, moderator.id, id);
+  const log = await reportLog(db, id);
   const seenDecisions = log.filter((d) => ["accept", "return", "reject"].includes(d.action)).length;
   return {
     ...detail,
@@ -37,29 +36,29 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
-const decisionSchema = z.object({
-  action: z.enum(["accept", "return", "reject"], { error: "Pick accept, return or reject" }),
-  reasonCode: z.string({ error: "Pick a reason" }).min(1, "Pick a reason").max(40),
-  note: z.string().max(4000).optional(),
-  version: z.coerce.number().int().positive(),
-  seenDecisions: z.coerce.number().int().min(0),
-});
-
 export async function action({ request, params }: Route.ActionArgs) {
   const moderator = await requireRole(request, "moderator");
-  const id = idSchema.safeParse(params.reportId);
-  if (!id.success) throw data("No such report", { status: 404 });
-  const form = await request.formData();
-  const parsed = decisionSchema.safeParse(Object.fromEntries(form));
-  if (!parsed.success) return data({ ok: false as const, message: parsed.error.issues[0]!.message }, { status: 400 });
+  const id = parseIdParam(params.reportId, "No such report");
+  const form = await readForm(request);
+  const values = formValues(form);
+  const parsed = decisionSchema.safeParse(values);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0]!;
+    return data({ ok: false as const, message: issue.message, field: String(issue.path[0] ?? ""), note: typeof values.note === "string" ? values.note : "" }, { status: 400 });
+  }
   const checklist = Object.fromEntries(Object.keys(CHECKLIST).map((k) => [k, form.get(`check_${k}`) === "on"])) as Record<ChecklistKey, boolean>;
   const evidence: Record<number, "verified" | "failed"> = {};
   for (const [k, v] of form) {
-    const m = k.match(/^evidence_(\d+)$/);
-    if (m && (v === "verified" || v === "failed")) evidence[Number(m[1])] = v;
+    const m = k.match(/^evidence_(.*)$/);
+    if (!m) continue;
+    const evidenceId = idField().safeParse(m[1]);
+    if (!evidenceId.success || (v !== "verified" && v !== "failed")) {
+      return data({ ok: false as const, message: "Mark each file verified or failed" }, { status: 400 });
+    }
+    evidence[evidenceId.data] = v;
   }
   try {
-    const result = await decide(db, moderator.id, id.data, { ...parsed.data, note: parsed.data.note ?? null, checklist, evidence });
+    const result = await decide(db, moderator.id, id, { ...parsed.data, note: parsed.data.note ?? null, checklist, evidence });
     return { ok: true as const, message: result.outcome === "awaiting_second_look" ? "Accepted; it now needs a second look from another moderator." : `Decision recorded: ${result.outcome}. The reporter is told by mail.` };
   } catch (error) {
     if (error instanceof DecisionError) return data({ ok: false as const, message: error.message }, { status: error.status });
@@ -70,6 +69,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 export default function ReviewReport({ loaderData, actionData }: Route.ComponentProps) {
   const { report: r, media, usual, trust, own, claim, log, seenDecisions, changes, units } = loaderData;
   const busy = useNavigation().state !== "idle";
+  const noteError = actionData && !actionData.ok && "field" in actionData && actionData.field === "note" ? actionData.message : undefined;
   const p = (kpa: number | null) => formatPressure(kpa, units.pu);
   const waiting = r.status === "submitted";
   const canDecide = waiting && !own && claim?.mine;
@@ -204,7 +204,10 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
           </label>
           <label className="block">
             <span className="font-semibold">Note to the reporter</span>
-            <textarea name="note" rows={3} className="mt-1 block w-full rounded border border-stone-300 px-3 py-2" placeholder="For a return: what to change" />
+            <textarea name="note" rows={3} defaultValue={actionData && "note" in actionData ? String(actionData.note) : undefined}
+              aria-invalid={noteError ? true : undefined} aria-describedby={noteError ? "note-error" : undefined}
+              className="mt-1 block w-full rounded border border-stone-300 px-3 py-2" placeholder="For a return: what to change" />
+            {noteError && <span id="note-error" className="mt-1 block text-sm text-red-700">{noteError}</span>}
           </label>
           <button type="submit" disabled={busy} className="rounded bg-bay-700 px-5 py-3 font-semibold text-white">Record the decision</button>
         </Form>

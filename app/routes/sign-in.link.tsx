@@ -3,6 +3,7 @@ import { z } from "zod";
 import { consumeSignInLink } from "~/auth/email-link.server";
 import { createSession, safeRedirectPath } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { readForm } from "~/utils/forms";
 import type { Route } from "./+types/sign-in.link";
 
 const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{43}$/);
@@ -23,7 +24,7 @@ const REASONS = {
 } as const;
 
 export async function action({ request }: Route.ActionArgs) {
-  const form = await request.formData();
+  const form = await readForm(request);
   const token = tokenSchema.safeParse(form.get("token"));
   if (!token.success) throw data(REASONS.unknown, { status: 400 });
   const result = await consumeSignInLink(token.data);

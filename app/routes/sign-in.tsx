@@ -1,10 +1,10 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
-import { z } from "zod";
 import { requestSignInLink } from "~/auth/email-link.server";
+import { emailSchema } from "~/auth/forms";
 import { providers } from "~/auth/oidc.server";
 import { getUser, safeRedirectPath } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
-import { type FieldErrors, invalid, parseForm } from "~/utils/forms";
+import { type FieldErrors, invalid, parseForm, readForm } from "~/utils/forms";
 import type { Route } from "./+types/sign-in";
 
 export async function loader({ request }: Route.LoaderArgs) {
@@ -13,13 +13,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   return { redirectTo, providers: Object.values(providers).map((p) => ({ id: p.id, name: p.name })) };
 }
 
-const emailSchema = z.object({
-  email: z.string().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@shop.example").max(254)),
-  redirectTo: z.string().optional(),
-});
-
 export async function action({ request }: Route.ActionArgs) {
-  const form = parseForm(emailSchema, await request.formData());
+  const form = parseForm(emailSchema, await readForm(request));
   if (!form.ok) return invalid(form.errors, form.values);
   const redirectTo = safeRedirectPath(form.data.redirectTo);
   const result = await requestSignInLink(form.data.email, request, redirectTo);

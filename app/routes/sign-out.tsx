@@ -1,5 +1,6 @@
 import { redirect } from "react-router";
 import { destroySession } from "~/auth/session.server";
+import { readForm } from "~/utils/forms";
 import type { Route } from "./+types/sign-out";
 
 // Signing out changes state, so it is a POST only; a plain visit just goes home.
@@ -8,5 +9,6 @@ export async function loader() {
 }
 
 export async function action({ request }: Route.ActionArgs) {
+  await readForm(request);
   return redirect("/", { headers: { "Set-Cookie": await destroySession(request) } });
 }

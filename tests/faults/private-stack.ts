@@ -1,7 +1,7 @@
 // A stack of the fault suite's own — PostgreSQL with the demo data, the fakes, server.js — so it
 // can kill the server and restart the database without disturbing the shared test stack.
 import { type ChildProcess, spawn } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
+import { closeSync, mkdtempSync, openSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { startFakes } from "../../fakes/index";
@@ -34,6 +34,9 @@ export async function startPrivateStack() {
   const build = buildApp(root, () => {}, { inheritOutput: false });
   if (!build.ok) throw new Error(`build failed:\n${build.output}`);
 
+  // The server's errors, for a look after a failed run.
+  const serverLog = openSync(path.join(dataDir, "server.log"), "a");
+  cleanups.push(() => closeSync(serverLog));
   let server: ChildProcess | undefined;
   const startServer = async () => {
     server = spawn(process.execPath, ["server.js"], {
@@ -42,7 +45,7 @@ export async function startPrivateStack() {
         ...process.env, ...fakes.env, DATABASE_URL: database.url, HOST: "127.0.0.1", PORT: String(port),
         APP_ORIGIN: baseUrl, NODE_ENV: "production", AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true", BAYPROOF_TRUST_PROXY: "1",
       },
-      stdio: ["ignore", "ignore", "ignore"],
+      stdio: ["ignore", "ignore", serverLog],
     });
     await waitForHttp(baseUrl, server, 180_000);
   };

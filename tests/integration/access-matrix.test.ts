@@ -52,7 +52,8 @@ const matrix: [string, string, (() => Record<string, string>) | null, Record<Who
   ["GET", "/", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/models", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/sign-in", null, { visitor: 200, reporter: 302, moderator: 302, admin: 302 }],
-  ["POST", "/api/evidence/1/publish", () => ({}), { visitor: 401, reporter: 400, moderator: 400, admin: 400 }],
+  // A form where JSON is expected: refused for its content type, once the caller is known.
+  ["POST", "/api/evidence/1/publish", () => ({}), { visitor: 401, reporter: 415, moderator: 415, admin: 415 }],
   ["GET", "/data", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/api/v1/job-types", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["POST", "/api/v1/job-types", () => ({}), { visitor: 405, reporter: 405, moderator: 405, admin: 405 }],

@@ -120,6 +120,23 @@ describe("drafts and submission", () => {
     expect(row.flags).not.toContain("inlet_above_regulator");
   });
 
+  it("withdraws an incomplete draft, from the form and from the reports list", async () => {
+    for (const from of ["form", "list"] as const) {
+      const saved = await reporter.post("/reports/new", { toolModel: "brackwater-bh-150", jobType: "ball-joint-separation", intent: "save-draft" });
+      expect(saved.status).toBe(302);
+      const id = Number(saved.headers.get("location")!.match(/\/reports\/(\d+)\/edit/)![1]);
+      // The report form posts every field it has (here: almost none); the list posts only the id.
+      const body: Record<string, string> = from === "list"
+        ? { intent: "withdraw", reportId: String(id) }
+        : { intent: "withdraw", reportId: String(id), toolModel: "brackwater-bh-150", jobType: "ball-joint-separation", notes: "", inlet: "" };
+      const res = await reporter.post(`/reports/${id}/edit`, body);
+      expect(res.status).toBe(302);
+      expect(res.headers.get("location")).toBe("/me/reports?withdrawn=1");
+      const row = await db.selectFrom("reports").select(["status", "outcome", "submitted_at"]).where("id", "=", id).executeTakeFirstOrThrow();
+      expect(row).toEqual({ status: "withdrawn", outcome: null, submitted_at: null });
+    }
+  });
+
   it("withdraws before a decision, never after", async () => {
     const res = await reporter.post("/reports/new", validReport());
     const id = Number(res.headers.get("location")!.match(/submitted=(\d+)/)![1]);

@@ -67,6 +67,17 @@ describe("reports table rules", () => {
     expect(error?.message).toMatch(/reports_complete_unless_draft/);
   });
 
+  it("lets a draft withdrawn as it stood stay incomplete, but nothing that was ever submitted", async () => {
+    const draft: NewReport = { reporter_id: valid.reporter_id, tool_model_id: valid.tool_model_id, category_id: valid.category_id, job_type_id: valid.job_type_id };
+    expect(await tryInsert({ ...draft, status: "withdrawn" })).toBeNull();
+    expect((await tryInsert({ ...draft, status: "withdrawn", submitted_at: new Date() }))?.message).toMatch(/reports_complete_unless_draft/);
+    for (const status of ["submitted", "returned", "accepted", "rejected"] as const) {
+      const accepted_at = status === "accepted" ? new Date() : null;
+      expect((await tryInsert({ ...draft, status, submitted_at: new Date(), accepted_at }))?.message, status).toMatch(/reports_complete_unless_draft/);
+    }
+    expect(await tryInsert({ ...valid, status: "withdrawn" })).toBeNull();
+  });
+
   it("refuses hose bores outside 4–25 mm", async () => {
     expect((await tryInsert({ ...valid, hose_id_mm: 2 }))?.message).toMatch(/hose_id_mm_check/);
   });

@@ -27,7 +27,7 @@ async function stopChild(child: ChildProcess) {
 
 export default async function setup(project: TestProject) {
   const running = project.vitest.projects.map((p) => p.name);
-  if (!running.some((name) => name === "integration" || name === "e2e")) return;
+  if (!running.some((name) => name === "integration" || name === "e2e" || name === "hostile")) return;
   if (running.includes("e2e")) ensureChromium();
 
   const cleanups: (() => Promise<void> | void)[] = [];
