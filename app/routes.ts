@@ -48,6 +48,7 @@ export default [
     route("datapackage.json", "routes/api.v1.datapackage.ts"),
     route("*", "routes/api.v1.$.ts"),
   ]),
+  route("api/*", "routes/api.$.ts"),
   route("data", "routes/data.tsx"),
   route("dev/mail", "routes/dev.mail.tsx"),
   route("dev/mail/:id", "routes/dev.mail.$id.tsx"),

@@ -6,21 +6,28 @@
 import { createHash } from "node:crypto";
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { ListObjectsV2Command, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { ListObjectsCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import type { Kysely } from "kysely";
 import type { Database } from "../db/schema";
 
 const media = (name: string) => readFileSync(path.join(import.meta.dirname, "media", name));
 
+/**
+ * Every key in the bucket, a page of up to 1,000 at a time. The first version of the listing
+ * call, paged by the last key seen (S3's own rule when no delimiter is given): the local store's
+ * second version pages with a token it enciphers with DES, which Node 20's OpenSSL 3 refuses, so
+ * any listing longer than one page failed there.
+ */
 async function storedKeys(s3: S3Client, bucket: string) {
   const keys = new Set<string>();
-  let token: string | undefined;
-  do {
-    const page = await s3.send(new ListObjectsV2Command({ Bucket: bucket, ContinuationToken: token }));
-    for (const o of page.Contents ?? []) if (o.Key) keys.add(o.Key);
-    token = page.IsTruncated ? page.NextContinuationToken : undefined;
-  } while (token);
-  return keys;
+  let marker: string | undefined;
+  for (;;) {
+    const page = await s3.send(new ListObjectsCommand({ Bucket: bucket, Marker: marker }));
+    const contents = page.Contents ?? [];
+    for (const o of contents) if (o.Key) keys.add(o.Key);
+    if (!page.IsTruncated || contents.length === 0) return keys;
+    marker = page.NextMarker ?? contents.at(-1)!.Key;
+  }
 }
 
 export async function ensureDemoEvidence(db: Kysely<Database>, env: Record<string, string>) {

@@ -147,3 +147,13 @@ describe("API keys", () => {
     expect((await other.post("/account", { intent: "revoke-key", keyId: String(key.id) })).status).toBe(404);
   });
 });
+
+describe("an /api address that does not exist", () => {
+  it("answers a JSON 404, for reads and writes alike, never the HTML page", async () => {
+    for (const res of [await new Browserish().get("/api/nope"), await new Browserish().get("/api/"), await new Browserish().post("/api/nope", { a: "1" })]) {
+      expect(res.status).toBe(404);
+      expect(res.headers.get("content-type")).toMatch(/application\/json/);
+      expect((await res.json()).error.code).toBe("not_found");
+    }
+  });
+});
