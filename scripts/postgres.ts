@@ -223,7 +223,13 @@ export async function startPostgres(options: PostgresOptions): Promise<RunningPo
     stop() {
       if (stopped) return;
       stopped = true;
-      run(pgCtl, ["-D", dataDir, "-m", "fast", "-w", "stop"], { allowFail: true });
+      // A shutdown checkpoint can take minutes on a busy machine: wait for it rather than leave
+      // a server running; only if it still has not stopped, stop it without one.
+      const r = run(pgCtl, ["-D", dataDir, "-m", "fast", "-w", "-t", "300", "stop"], { allowFail: true });
+      if (r.status !== 0 && run(pgCtl, ["-D", dataDir, "status"], { allowFail: true }).status === 0) {
+        log(`PostgreSQL did not stop in time (${(r.stderr || r.stdout).trim()}); stopping it at once`);
+        run(pgCtl, ["-D", dataDir, "-m", "immediate", "-w", "-t", "60", "stop"], { allowFail: true });
+      }
       log("PostgreSQL stopped");
     },
   };

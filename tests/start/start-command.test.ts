@@ -100,7 +100,8 @@ async function until(what: string, condition: () => boolean | Promise<boolean>, 
 }
 
 async function expectAllGone(procs: Proc[], ports: Ports) {
-  await until("every started process to exit", () => !procs.some(stillRunning)).catch((error: Error) => {
+  // PostgreSQL's shutdown checkpoint can take minutes on a busy machine; the start command waits for it.
+  await until("every started process to exit", () => !procs.some(stillRunning), 420_000).catch((error: Error) => {
     const left = procs.filter(stillRunning).map((p) => `${p.pid}: ${commandLine(p.pid)}`);
     throw new Error(`${error.message}; still running: ${left.join("; ")}`);
   });
@@ -126,8 +127,10 @@ function clusterDirFrom(output: string, dataDir: string) {
 
 async function stopWithCtrlC(run: Awaited<ReturnType<typeof start>>, pids: Proc[], ports: Ports) {
   process.kill(-run.child.pid!, "SIGINT");
-  await until("npm start to exit", () => run.child.exitCode != null || run.child.signalCode != null);
-  await expectAllGone(pids, ports);
+  await until("npm start to exit", () => run.child.exitCode != null || run.child.signalCode != null, 420_000);
+  await expectAllGone(pids, ports).catch((error: Error) => {
+    throw new Error(`${error.message}\nwhat the start command said:\n${run.output().slice(-3000)}`);
+  });
 }
 
 describe("npm start from a fresh clone", () => {
