@@ -1,31 +1,19 @@
 // A stack of the fault suite's own — PostgreSQL with the demo data, the fakes, server.js — so it
 // can kill the server and restart the database without disturbing the shared test stack.
 import { type ChildProcess, spawn } from "node:child_process";
-import { closeSync, mkdtempSync, openSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { closeSync, openSync } from "node:fs";
 import path from "node:path";
-import { startFakes } from "../../fakes/index";
 import { reindexAll, searchClient } from "../../app/search/search.server";
 import { createDb } from "../../db/database";
 import { buildApp } from "../../scripts/build-app";
 import { waitForHttp } from "../../scripts/wait-http";
-import { freePort, startTestDatabase } from "../support/system";
+import { startTestServices } from "../support/system";
 
 const root = path.resolve(import.meta.dirname, "../..");
 
 export async function startPrivateStack() {
   const cleanups: (() => Promise<unknown> | unknown)[] = [];
-  const database = await startTestDatabase();
-  cleanups.push(() => database.stop());
-  const dataDir = mkdtempSync(path.join(tmpdir(), "bayproof-faults-"));
-  cleanups.push(() => rmSync(dataDir, { recursive: true, force: true }));
-  const port = await freePort();
-  const baseUrl = `http://127.0.0.1:${port}`;
-  const fakes = await startFakes({
-    ports: { oidc: await freePort(), smtp: await freePort(), s3: await freePort(), search: await freePort() },
-    dataDir,
-    appOrigins: [baseUrl],
-  });
+  const { database, dataDir, port, baseUrl, fakes } = await startTestServices(cleanups, "bayproof-faults-");
   let fakesStopped = false;
   cleanups.push(() => fakesStopped || fakes.stop());
   const db = createDb(database.url, 4);

@@ -3,17 +3,15 @@
 // build of the app, and server.js on a free loopback port — the path `npm start` takes.
 // A run of only the unit project starts nothing.
 import { type ChildProcess, spawn } from "node:child_process";
-import { closeSync, mkdirSync, openSync, readFileSync, mkdtempSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { closeSync, mkdirSync, openSync, readFileSync } from "node:fs";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
-import { startFakes } from "../../fakes/index";
 import { reindexAll, searchClient } from "../../app/search/search.server";
 import { createDb } from "../../db/database";
 import { buildApp } from "../../scripts/build-app";
 import { ensureDemoEvidence } from "../../seeds/demo-evidence";
 import { waitForHttp } from "../../scripts/wait-http";
-import { ensureChromium, freePort, startTestDatabase } from "./system";
+import { ensureChromium, startTestServices } from "./system";
 
 const root = path.resolve(import.meta.dirname, "../..");
 
@@ -35,17 +33,7 @@ export default async function setup(project: TestProject) {
     for (const c of cleanups.reverse()) await c();
   };
   try {
-    const database = await startTestDatabase();
-    cleanups.push(() => database.stop());
-    const dataDir = mkdtempSync(path.join(tmpdir(), "bayproof-test-data-"));
-    cleanups.push(() => rmSync(dataDir, { recursive: true, force: true }));
-    const port = await freePort();
-    const baseUrl = `http://127.0.0.1:${port}`;
-    const fakes = await startFakes({
-      ports: { oidc: await freePort(), smtp: await freePort(), s3: await freePort(), search: await freePort() },
-      dataDir,
-      appOrigins: [baseUrl],
-    });
+    const { database, port, baseUrl, fakes } = await startTestServices(cleanups);
     cleanups.push(() => fakes.stop());
 
     {

@@ -5,11 +5,32 @@ import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { createDb } from "../../db/database";
+import { startFakes } from "../../fakes/index";
 import { prepareDatabase } from "../../scripts/prepare-db";
 import { freePort } from "../../scripts/free-port";
 import { startPostgres } from "../../scripts/postgres";
 
 export { freePort };
+
+/**
+ * A throwaway database with the demo data, a data folder, and the fakes on free ports, for a
+ * server that will listen at the returned `baseUrl`. Each clean-up is pushed onto `cleanups`
+ * (run them last first).
+ */
+export async function startTestServices(cleanups: (() => Promise<unknown> | unknown)[], prefix = "bayproof-test-data-") {
+  const database = await startTestDatabase();
+  cleanups.push(() => database.stop());
+  const dataDir = mkdtempSync(path.join(tmpdir(), prefix));
+  cleanups.push(() => rmSync(dataDir, { recursive: true, force: true }));
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const fakes = await startFakes({
+    ports: { oidc: await freePort(), smtp: await freePort(), s3: await freePort(), search: await freePort() },
+    dataDir,
+    appOrigins: [baseUrl],
+  });
+  return { database, dataDir, port, baseUrl, fakes };
+}
 
 /** A fresh cluster in a temporary folder, never the demo data; removed on stop. */
 export async function startTestDatabase() {
