@@ -38,7 +38,8 @@ export async function claimRunState(dataDir: string, log: (s: string) => void) {
     }
   }
   const state: RunState = { startPid: process.pid, children: {} };
-  const save = () => writeFileSync(file, `${JSON.stringify(state, null, 2)}\n`);
+  let released = false;
+  const save = () => released || writeFileSync(file, `${JSON.stringify(state, null, 2)}\n`);
   save();
   return {
     file,
@@ -48,6 +49,7 @@ export async function claimRunState(dataDir: string, log: (s: string) => void) {
       save();
     },
     release() {
+      released = true;
       rmSync(file, { force: true });
     },
   };

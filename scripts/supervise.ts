@@ -22,7 +22,9 @@ export class Supervisor {
       const child = launch();
       this.children.set(name, child);
       child.on("exit", (code, signal) => {
-        if (this.stopping) return;
+        // A clean exit was asked for (the Ctrl-C that reaches the whole process group reaches the
+        // children first): only a crash or a kill is restarted.
+        if (this.stopping || code === 0) return;
         const now = Date.now();
         restarts.push(now);
         while (restarts[0]! < now - 60_000) restarts.shift();
