@@ -2,10 +2,10 @@
 // success rises with inlet pressure and with tool size on seized jobs, times are long-tailed,
 // air supplies vary from shop to shop. The structure is for the demo only, not a finding.
 import seedrandom from "seedrandom";
-import { couplerPressureDropBar, type CouplerProfile } from "../app/air/couplers";
+import { couplerPressureDropBar } from "../app/air/couplers";
 import { airDemandLps } from "../app/air/demand";
 import { hosePressureDropBar } from "../app/air/hose";
-import { ATMOSPHERE_KPA, inToMm, ftToM, psiToKpa } from "../app/air/units";
+import { ATMOSPHERE_KPA, type CouplerProfile, inToMm, ftToM, psiToKpa } from "../app/domain";
 import { plausibilityFlags } from "../app/moderation/flags";
 import type { CorrosionLevel, InletSource, Outcome, ReportStatus, VehicleClass } from "../db/schema";
 import { jobTypes, models, type ModelSeed } from "./catalogue";

@@ -1,4 +1,4 @@
-import { ATMOSPHERE_KPA, RATED_INLET_KPA } from "./units";
+import { ATMOSPHERE_KPA, RATED_INLET_KPA } from "~/domain";
 
 /**
  * Free-air demand of a tool at a given gauge inlet pressure, from its rated consumption at

@@ -1,14 +1,15 @@
 // The /models filters and sort, read leniently from the URL: whatever parses is applied, the rest
 // is named in a note. Shared by the page, its resource route and the browser.
 import { z } from "zod";
+import { FITTINGS, slugField } from "~/domain";
 
 export const SORTABLE = ["tool", "price", "weight", "length", "reports", "success"] as const;
 export type SortKey = (typeof SORTABLE)[number];
 
 const fields = {
-  category: z.string().regex(/^[a-z0-9-]{1,40}$/, "category"),
-  fitting: z.enum(["shank-0.401", "shank-0.498", "drive-1/4", "drive-3/8", "drive-1/2", "drive-3/4", "drive-1"], { error: "fitting" }),
-  job: z.string().regex(/^[a-z0-9-]{1,80}$/, "job"),
+  category: slugField("category"),
+  fitting: z.enum(FITTINGS, { error: "fitting" }),
+  job: slugField("job"),
   maxPrice: z.coerce.number({ error: "maximum price" }).min(0, "maximum price").max(100_000, "maximum price"),
   maxWeight: z.coerce.number({ error: "maximum weight" }).gt(0, "maximum weight").max(50, "maximum weight"),
   minReports: z.coerce.number({ error: "minimum reports" }).int("minimum reports").min(0, "minimum reports").max(100_000, "minimum reports"),

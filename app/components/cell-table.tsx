@@ -1,6 +1,6 @@
 import { Link } from "react-router";
 import type { StatsCell } from "../../db/schema";
-import { formatDuration } from "~/catalogue/format";
+import { formatDuration } from "~/domain";
 import { FEW_REPORTS } from "~/stats/cells";
 import { IntervalBar, pct, plainLine } from "./intervals";
 

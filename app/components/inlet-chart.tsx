@@ -1,12 +1,10 @@
 import { scaleLinear } from "d3-scale";
 import { line } from "d3-shape";
-import { COMMON_HOSE_IDS_IN } from "~/air/calculator-form";
-import type { CouplerProfile } from "~/air/couplers";
 import { inletAlongLengths } from "~/air/supply";
-import { ftToM, inToMm, kpaTo, mToFt, type PressureUnit } from "~/air/units";
+import { type CouplerProfile, ftToM, HOSE_BORES, inToMm, kpaTo, mToFt, type PressureUnit } from "~/domain";
 
 const COLOURS = ["#b45309", "#2f6b5f", "#1d4ed8", "#7c3aed"];
-const LABELS = ["1/4 in", "5/16 in", "3/8 in", "1/2 in"];
+const LABELS = HOSE_BORES.map((b) => `${b.inText} in`);
 
 interface Props {
   supplyKpa: number;
@@ -24,8 +22,8 @@ export function InletChart({ supplyKpa, ratedLps, couplerProfile, couplerCount, 
   const W = 560, H = 300, m = { l: 48, r: 16, t: 12, b: 40 };
   const maxLength = Math.max(metric ? 30 : ftToM(100), current.hoseLengthM);
   const lengths = Array.from({ length: 41 }, (_, i) => (maxLength * i) / 40);
-  const series = COMMON_HOSE_IDS_IN.map((d) =>
-    inletAlongLengths(supplyKpa, ratedLps, { hoseIdMm: inToMm(d), couplerProfile, couplerCount }, lengths),
+  const series = HOSE_BORES.map((b) =>
+    inletAlongLengths(supplyKpa, ratedLps, { hoseIdMm: inToMm(b.in), couplerProfile, couplerCount }, lengths),
   );
   const x = scaleLinear().domain([0, metric ? maxLength : mToFt(maxLength)]).range([m.l, W - m.r]);
   // Zoom on the band that matters: from a little under the lowest curve (or the rating) to the supply.

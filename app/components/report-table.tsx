@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import {
   formatDate, formatDuration, formatHoseId, formatPressure, OUTCOME_LABELS, VEHICLE_LABELS,
-} from "~/catalogue/format";
+} from "~/domain";
 import type { AcceptedReportRow } from "~/catalogue/queries.server";
 
 const OUTCOME_STYLES: Record<string, string> = {

@@ -1,5 +1,5 @@
 import { Form, Link } from "react-router";
-import { formatPressure, formatPrice } from "~/catalogue/format";
+import { FITTING_LABELS, formatPressure, formatPrice, type PressureUnit, SHANKS } from "~/domain";
 import { pct } from "./intervals";
 
 export interface WhichToolRow {
@@ -15,7 +15,7 @@ export interface WhichToolRow {
 
 /** The shopper's supply in, per tool: what reaches it, the fitted chance there, what else it needs. */
 export function WhichToolPanel({ jobSlug, percussive, values, note, rows, pu }: {
-  jobSlug: string; percussive: boolean; values: Record<string, string>; note: string | null; rows: WhichToolRow[] | null; pu: "psi" | "bar" | "kPa";
+  jobSlug: string; percussive: boolean; values: Record<string, string>; note: string | null; rows: WhichToolRow[] | null; pu: PressureUnit;
 }) {
   const input = "mt-1 block w-full rounded border border-stone-300 px-3 py-2";
   return (
@@ -29,7 +29,7 @@ export function WhichToolPanel({ jobSlug, percussive, values, note, rows, pu }: 
         {percussive ? (
           <label className="text-sm"><span className="font-semibold">Bits you own</span>
             <select name="bits" defaultValue={values.bits ?? ""} className={input}>
-              <option value="">none yet</option><option value="shank-0.401">0.401 in shank</option><option value="shank-0.498">0.498 in shank</option>
+              <option value="">none yet</option>{SHANKS.map((s) => <option key={s} value={s}>{FITTING_LABELS[s]}</option>)}
             </select>
           </label>
         ) : <span />}

@@ -1,5 +1,6 @@
 // The feed described for machines: an OpenAPI 3.1 document and a Frictionless Data Package
 // descriptor of the bulk files, both made from fields.ts and schemas.ts.
+import { SLUG_PATTERN } from "~/domain";
 import { type Field, REPORT_FIELDS } from "./fields";
 import { componentSchema, SCHEMA_NAMES } from "./schemas";
 import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "./params";
@@ -24,7 +25,7 @@ const json = (schema: string, description: string) => ({ description, content: {
 const q = (name: string, description: string, schema: Json = { type: "string" }) => ({ name, in: "query", required: false, description, schema });
 // What params.ts accepts: a plain date (2026-12-01) or an RFC 3339 date-time with its offset.
 const dateOrDateTime = { type: "string", anyOf: [{ format: "date" }, { format: "date-time" }] };
-const slugQ = (name: string, what: string) => q(name, `Only ${what} with this slug.`, { type: "string", pattern: "^[a-z0-9]+([-.][a-z0-9]+)*$" });
+const slugQ = (name: string, what: string) => q(name, `Only ${what} with this slug.`, { type: "string", pattern: SLUG_PATTERN });
 
 // Every operation can answer these: the parent route refuses unknown parameters and bad paths
 // (400), bad or revoked keys (401) and callers over their limit (429) before any endpoint runs.

@@ -1,7 +1,9 @@
 // The open feed's record types, field by field: the one description from which the JSON Schemas,
 // the OpenAPI document, the Data Package's Table Schemas, the CSV columns and the /data page's
 // dictionary are all made. Units are SI throughout.
-import { CORROSION_LEVELS, COUPLER_PROFILE_CODES, INLET_SOURCES, OUTCOMES, VEHICLE_CLASSES } from "~/reports/form-schema";
+import {
+  CORROSION_LEVELS, COUPLER_PROFILES, FITTINGS, INLET_SOURCES, type Limit, LIMITS, OUTCOMES, SLUG_PATTERN, VEHICLE_CLASSES,
+} from "~/domain";
 
 export type FieldType = "integer" | "number" | "string" | "boolean" | "datetime" | "string-array" | "object";
 
@@ -14,14 +16,18 @@ export interface Field {
   unit?: string;
   enum?: readonly string[];
   minimum?: number;
+  /** The value must be more than `minimum` (JSON Schema's exclusiveMinimum). */
+  minimumExclusive?: boolean;
   maximum?: number;
   pattern?: string;
   /** For "object" fields: their own fields. */
   fields?: Field[];
 }
 
-export const SLUG_PATTERN = "^[a-z0-9]+([-.][a-z0-9]+)*$";
 const slug = (name: string, description: string): Field => ({ name, type: "string", pattern: SLUG_PATTERN, description });
+/** A field's unit and range, as the forms check them (app/domain/limits.ts). */
+const within = ({ unit, min, max, aboveMin }: Limit) =>
+  ({ ...(unit ? { unit } : {}), minimum: min, maximum: max, ...(aboveMin ? { minimumExclusive: true } : {}) });
 
 export const REPORT_FIELDS: Field[] = [
   { name: "id", type: "integer", minimum: 1, description: "The report's number; stable, and the key of /api/v1/reports/{id}." },
@@ -33,23 +39,23 @@ export const REPORT_FIELDS: Field[] = [
   { name: "accepted_at", type: "datetime", description: "When a moderator accepted the report (UTC, microseconds). With id, the feed's sort order." },
   { name: "version", type: "integer", minimum: 1, description: "Which submitted version of the report was accepted." },
   { name: "vehicle_class", type: "string", enum: VEHICLE_CLASSES, description: "Class of vehicle or machine worked on." },
-  { name: "component_age_years", type: "number", nullable: true, unit: "a", minimum: 0, maximum: 80, description: "Age of the part worked on, in years." },
+  { name: "component_age_years", type: "number", nullable: true, ...within(LIMITS.componentAge), description: "Age of the part worked on, in years." },
   { name: "corrosion_level", type: "string", enum: CORROSION_LEVELS, description: "Corrosion of the joint, as the reporter judged it." },
   { name: "attachment", type: "string", nullable: true, description: "Bit or socket used, in the reporter's words." },
-  { name: "attachment_length_mm", type: "number", nullable: true, unit: "mm", minimum: 0, maximum: 1000, description: "Length of the bit or extension, in millimetres." },
-  { name: "regulator_kpa", type: "number", unit: "kPa", minimum: 0, maximum: 2000, description: "Regulator set pressure, gauge, in kilopascals." },
-  { name: "inlet_kpa", type: "number", unit: "kPa", minimum: 0, maximum: 2000, description: "Pressure at the tool inlet under load, gauge, in kilopascals." },
+  { name: "attachment_length_mm", type: "number", nullable: true, ...within(LIMITS.attachmentLength), description: "Length of the bit or extension, in millimetres." },
+  { name: "regulator_kpa", type: "number", ...within(LIMITS.gaugePressure), description: "Regulator set pressure, gauge, in kilopascals." },
+  { name: "inlet_kpa", type: "number", ...within(LIMITS.gaugePressure), description: "Pressure at the tool inlet under load, gauge, in kilopascals." },
   { name: "inlet_source", type: "string", enum: INLET_SOURCES, description: "How the inlet pressure was obtained." },
-  { name: "hose_id_mm", type: "number", unit: "mm", minimum: 4, maximum: 25, description: "Hose inside diameter, in millimetres." },
-  { name: "hose_length_m", type: "number", unit: "m", minimum: 0, maximum: 100, description: "Hose length, in metres." },
-  { name: "coupler_profile", type: "string", nullable: true, enum: COUPLER_PROFILE_CODES, description: "Quick-coupler profile on the line." },
-  { name: "coupler_count", type: "integer", minimum: 0, description: "Number of couplers between regulator and tool." },
-  { name: "compressor_lps", type: "number", nullable: true, unit: "L/s", minimum: 0, maximum: 500, description: "Compressor free-air delivery, in litres per second." },
-  { name: "tank_l", type: "number", nullable: true, unit: "L", minimum: 0, maximum: 5000, description: "Receiver (tank) volume, in litres." },
+  { name: "hose_id_mm", type: "number", ...within(LIMITS.hoseBore), description: "Hose inside diameter, in millimetres." },
+  { name: "hose_length_m", type: "number", ...within(LIMITS.hoseLength), description: "Hose length, in metres." },
+  { name: "coupler_profile", type: "string", nullable: true, enum: COUPLER_PROFILES, description: "Quick-coupler profile on the line." },
+  { name: "coupler_count", type: "integer", ...within(LIMITS.couplerCount), description: "Number of couplers between regulator and tool." },
+  { name: "compressor_lps", type: "number", nullable: true, ...within(LIMITS.compressorDelivery), description: "Compressor free-air delivery, in litres per second." },
+  { name: "tank_l", type: "number", nullable: true, ...within(LIMITS.tankVolume), description: "Receiver (tank) volume, in litres." },
   { name: "outcome", type: "string", enum: OUTCOMES, description: "How the job ended." },
-  { name: "time_to_result_s", type: "number", unit: "s", minimum: 1, maximum: 28800, description: "Time from first blow to the result, in seconds." },
-  { name: "attempts", type: "integer", minimum: 1, maximum: 50, description: "Separate attempts made." },
-  { name: "trigger_control", type: "integer", nullable: true, minimum: 1, maximum: 5, description: "Reporter's rating of trigger control, 1 (poor) to 5 (fine)." },
+  { name: "time_to_result_s", type: "number", ...within(LIMITS.timeToResult), description: "Time from first blow to the result, in seconds." },
+  { name: "attempts", type: "integer", ...within(LIMITS.attempts), description: "Separate attempts made." },
+  { name: "trigger_control", type: "integer", nullable: true, ...within(LIMITS.triggerControl), description: "Reporter's rating of trigger control, 1 (poor) to 5 (fine)." },
   { name: "notes", type: "string", nullable: true, description: "The reporter's notes, as accepted." },
   { name: "evidence_count", type: "integer", minimum: 0, description: "Video and photo files that came with the report." },
   { name: "evidence_urls", type: "string-array", description: "Links to the evidence files the reporter chose to publish (each redirects to the file). In CSV, a JSON array." },
@@ -62,7 +68,7 @@ export const MODEL_FIELDS: Field[] = [
   slug("category", "Tool category slug."),
   { name: "model_code", type: "string", description: "The maker's model code." },
   { name: "name", type: "string", description: "The model's name." },
-  { name: "fitting", type: "string", enum: ["shank-0.401", "shank-0.498", "drive-1/4", "drive-3/8", "drive-1/2", "drive-3/4", "drive-1"], description: "Bit shank (inches) or square drive size." },
+  { name: "fitting", type: "string", enum: FITTINGS, description: "Bit shank (inches) or square drive size." },
   { name: "bore_mm", type: "number", nullable: true, unit: "mm", minimum: 0, description: "Piston bore, in millimetres." },
   { name: "stroke_mm", type: "number", nullable: true, unit: "mm", minimum: 0, description: "Piston stroke, in millimetres." },
   { name: "blows_per_minute", type: "number", nullable: true, unit: "1/min", minimum: 0, description: "Blow rate at rated pressure." },

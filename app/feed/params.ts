@@ -1,6 +1,6 @@
 // Query parameters of the feed, each with the message a caller sees when it does not parse.
 import { z } from "zod";
-import { SLUG_PATTERN } from "./fields";
+import { SLUG_MAX_LENGTH, SLUG_PATTERN } from "~/domain";
 
 /** Requests a minute: per anonymous client, and per API key. */
 export const LIMITS = {
@@ -11,7 +11,7 @@ export const LIMITS = {
 export const MAX_LIMIT = 500;
 export const DEFAULT_LIMIT = 100;
 
-export const slugParam = z.string({ error: "is required" }).max(80, { error: "is longer than a slug can be" })
+export const slugParam = z.string({ error: "is required" }).max(SLUG_MAX_LENGTH, { error: "is longer than a slug can be" })
   .regex(new RegExp(SLUG_PATTERN), { error: "must be a slug such as 'ball-joint-separation'" }).optional();
 
 /** An RFC 3339 date-time with its offset, or a plain date (midnight UTC). */

@@ -26,7 +26,7 @@ function fieldSchema(f: Field): Json {
   if (f.fields) Object.assign(s, objectOf(f.fields));
   if (f.enum) s.enum = f.nullable ? [...f.enum, null] : [...f.enum];
   if (f.pattern) s.pattern = f.pattern;
-  if (f.minimum !== undefined) s.minimum = f.minimum;
+  if (f.minimum !== undefined) s[f.minimumExclusive ? "exclusiveMinimum" : "minimum"] = f.minimum;
   if (f.maximum !== undefined) s.maximum = f.maximum;
   if (f.nullable) s.type = [s.type, "null"];
   return s;

@@ -3,7 +3,7 @@ import { endOtherSessions, endSession, handleTaken, listSessions } from "~/auth/
 import { countActiveKeys, createApiKey, listApiKeys, MAX_KEYS_PER_USER, revokeApiKey } from "~/auth/api-keys.server";
 import { accountSchema } from "~/auth/forms";
 import { requireUser } from "~/auth/session.server";
-import { formatDate } from "~/catalogue/format";
+import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { LIMITS } from "~/feed/params";

@@ -2,7 +2,7 @@ import { data, Form, Link, useNavigation } from "react-router";
 import { z } from "zod";
 import { BAN_REASON_MAX, BAN_REASON_MIN, BanError, changeBan, userForAdmin } from "~/auth/bans.server";
 import { requireRole } from "~/auth/session.server";
-import { formatDate } from "~/catalogue/format";
+import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { parseForm } from "~/utils/forms";

@@ -2,7 +2,7 @@ import { data, Form, Link } from "react-router";
 import { changeRole, recentRoleChanges, RoleChangeError, searchUsers } from "~/auth/roles.server";
 import { roleSchema, userSearchSchema } from "~/auth/forms";
 import { requireRole } from "~/auth/session.server";
-import { formatDate } from "~/catalogue/format";
+import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { parseForm, readForm } from "~/utils/forms";

@@ -3,7 +3,7 @@ import { area, line } from "d3-shape";
 import { useEffect, useState } from "react";
 import { data, Form, Link, useFetcher } from "react-router";
 import { z } from "zod";
-import { kpaToPsi, psiToKpa } from "~/air/units";
+import { kpaToPsi, psiToKpa } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { IntervalsExplained, pct } from "~/components/intervals";
 import { getJobBySlug } from "~/catalogue/queries.server";

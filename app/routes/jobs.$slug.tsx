@@ -1,8 +1,6 @@
 import { db } from "~/db.server";
 import { Link } from "react-router";
-import { z } from "zod";
-import { parseMeasure } from "~/air/calculator-form";
-import { ftToM, inToMm, psiToKpa } from "~/air/units";
+import { supplySchema } from "~/air/supply-form";
 import { getUser } from "~/auth/session.server";
 import { WhichToolPanel, type WhichToolRow } from "~/components/which-tool-panel";
 import { atSupply } from "~/stats/which-tool";
@@ -12,7 +10,7 @@ import { ErrorPage } from "~/components/error-page";
 import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
-import { FITTING_LABELS, formatPrice } from "~/catalogue/format";
+import { FITTING_LABELS, formatPrice, toolName } from "~/domain";
 import { acceptedReports, countAccepted, getJobBySlug } from "~/catalogue/queries.server";
 import { FEW_REPORTS } from "~/stats/cells";
 import { cellsForJob, type JobCell } from "~/stats/cells.server";
@@ -21,14 +19,6 @@ import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/jobs.$slug";
 
 const PER_PAGE = 20;
-
-const supplySchema = z.object({
-  reg: z.preprocess(parseMeasure, z.number({ error: "Regulator: a number of psi" }).min(10, "Regulator: 10–290 psi").max(290, "Regulator: 10–290 psi")),
-  hid: z.preprocess(parseMeasure, z.number({ error: "Hose ID: inches, e.g. 3/8" }).min(0.16, "Hose ID: 5/32–1 in").max(1, "Hose ID: 5/32–1 in")),
-  hlen: z.preprocess(parseMeasure, z.number({ error: "Hose length: a number of feet" }).gt(0, "Hose length: up to 330 ft").max(330, "Hose length: up to 330 ft")),
-  cc: z.preprocess((v) => (v === "" || v == null ? 2 : Number(v)), z.number({ error: "Couplers: 0–10" }).int("Couplers: 0–10").min(0, "Couplers: 0–10").max(10, "Couplers: 0–10")),
-  bits: z.enum(["", "shank-0.401", "shank-0.498"], { error: "Bits: 0.401 or 0.498 in shank" }).default(""),
-});
 
 export async function loader({ params, request }: Route.LoaderArgs) {
   const slug = parseSlug(params.slug);
@@ -48,10 +38,9 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     const supply = supplySchema.safeParse(search);
     if (!supply.success) note = `Could not use your supply: ${supply.error.issues.map((i) => i.message).join("; ")}.`;
     else {
-      const line = { hoseIdMm: inToMm(supply.data.hid), hoseLengthM: ftToM(supply.data.hlen), couplerProfile: "industrial_m" as const, couplerCount: supply.data.cc };
       which = models.map((m) => {
-        const r = atSupply({ slug: m.model_slug, fitting: m.fitting, ratedLps: m.rated_air_lps, fit: m.fit }, { regulatorKpa: psiToKpa(supply.data.reg), line, bits: supply.data.bits || null });
-        return { slug: m.model_slug, label: `${m.maker_name} ${m.model_code}`, price: m.street_price_cents, weightKg: m.weight_kg, inletKpa: r.inletKpa, predicted: r.predicted, reason: m.adj_reason, needs: r.needs };
+        const r = atSupply({ slug: m.model_slug, fitting: m.fitting, ratedLps: m.rated_air_lps, fit: m.fit }, supply.data);
+        return { slug: m.model_slug, label: toolName(m.maker_name, m.model_code), price: m.street_price_cents, weightKg: m.weight_kg, inletKpa: r.inletKpa, predicted: r.predicted, reason: m.adj_reason, needs: r.needs };
       }).sort((a, b) => (b.predicted?.lower ?? -1) - (a.predicted?.lower ?? -1));
     }
   }
@@ -95,7 +84,7 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
             <CellTable
               firstColumn="Tool"
               rows={models.map((m, i) => ({
-                key: m.model_slug, href: `/models/${m.model_slug}`, label: `${m.maker_name} ${m.model_code}`,
+                key: m.model_slug, href: `/models/${m.model_slug}`, label: toolName(m.maker_name, m.model_code),
                 sub: `${FITTING_LABELS[m.fitting]} · ${m.weight_kg} kg · ${formatPrice(m.street_price_cents)}`, tag: tagFor(models, i), ...m,
               }))}
             />
@@ -123,7 +112,7 @@ function tagFor(models: JobCell[], i: number): string | undefined {
 
 function chartRows(models: JobCell[]) {
   return models.map((m, i) => ({
-    key: m.model_slug, label: `${m.maker_name} ${m.model_code}`, estimate: m.estimate, lower: m.lower, upper: m.upper, n: m.n,
+    key: m.model_slug, label: toolName(m.maker_name, m.model_code), estimate: m.estimate, lower: m.lower, upper: m.upper, n: m.n,
     tag: tagFor(models, i), muted: m.n < FEW_REPORTS,
   }));
 }

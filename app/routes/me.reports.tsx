@@ -3,7 +3,7 @@ import { sql } from "kysely";
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import { requireUser } from "~/auth/session.server";
-import { formatDate } from "~/catalogue/format";
+import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { OutcomeBadge } from "~/components/report-table";
 import { db } from "~/db.server";

@@ -6,10 +6,9 @@ import { IntervalsExplained } from "~/components/intervals";
 import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
-import { FITTING_LABELS, formatPressure, formatPrice } from "~/catalogue/format";
+import { FITTING_LABELS, formatPressure, formatPrice, lpsToScfm, toolName } from "~/domain";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
-import { lpsToScfm } from "~/air/units";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/models.$slug";
@@ -53,7 +52,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
     <div className="space-y-6">
       <header>
         <p className="text-sm text-stone-600">{model.category_name} · {model.maker_name}</p>
-        <h1 className="text-2xl font-bold">{model.maker_name} {model.model_code}</h1>
+        <h1 className="text-2xl font-bold">{toolName(model.maker_name, model.model_code)}</h1>
         <p className="text-stone-700">{model.name}</p>
       </header>
 
@@ -98,7 +97,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
 
 export function meta({ data }: Route.MetaArgs) {
   if (!data) return [{ title: "Not found — Bayproof" }];
-  return [{ title: `${data.model.maker_name} ${data.model.model_code} — Bayproof` }];
+  return [{ title: `${toolName(data.model.maker_name, data.model.model_code)} — Bayproof` }];
 }
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {

@@ -1,7 +1,7 @@
 import { type ColumnDef, flexRender, getCoreRowModel, getSortedRowModel, type SortingState, useReactTable } from "@tanstack/react-table";
 import { useMemo, useRef, useState } from "react";
 import { Form, Link, type ShouldRevalidateFunctionArgs, useFetcher, useNavigate } from "react-router";
-import { FITTING_LABELS, formatPrice } from "~/catalogue/format";
+import { FITTING_LABELS, formatPrice } from "~/domain";
 import { filtersToSearch, type ModelFilters, parseModelFilters, type SortKey } from "~/catalogue/model-filters";
 import { filterOptions, modelsTable, type ModelTableRow } from "~/catalogue/models-table.server";
 import { ErrorPage } from "~/components/error-page";

@@ -4,15 +4,13 @@ import { useEffect, useRef, useState } from "react";
 import { data, Form, redirect, type ShouldRevalidateFunctionArgs, useFetcher, useLocation, useNavigation } from "react-router";
 import { z } from "zod";
 import { requireUser } from "~/auth/session.server";
-import { VEHICLE_LABELS } from "~/catalogue/format";
-import { COUPLER_PROFILES } from "~/air/couplers";
-import { pressureToKpa } from "~/air/units";
+import { CORROSION_LEVELS, COUPLER_LABELS, COUPLER_PROFILES, INLET_SOURCE_CHOICES, OUTCOME_CHOICES, pressureToKpa, VEHICLE_CLASSES, VEHICLE_LABELS } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { EvidenceUploader, type EvidenceItem } from "~/components/report-form/evidence-uploader";
 import { ToolPicker, type ToolChoice } from "~/components/report-form/tool-picker";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { db } from "~/db.server";
-import { CORROSION_LEVELS, type INLET_SOURCES, type OUTCOMES, parseDraft, reportSchema, toFormValues, VEHICLE_CLASSES } from "~/reports/form-schema";
+import { parseDraft, reportSchema, toFormValues } from "~/reports/form-schema";
 import { EDITABLE } from "~/reports/status";
 import { findModel, getOwnReport, jobTypesByCategory, recentSupplies, ReportError, saveDraft, submitReport, suggestModels, withdrawReport } from "~/reports/reports.server";
 import { readForm } from "~/utils/forms";
@@ -288,7 +286,7 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
           </div>
           <fieldset>
             <legend className="font-semibold">How did you get the inlet pressure?</legend>
-            <RadioChoices field={fields.inletSource} labels={INLET_SOURCE_LABELS} className="mt-1 grid gap-2" />
+            <RadioChoices field={fields.inletSource} labels={INLET_SOURCE_CHOICES} className="mt-1 grid gap-2" />
           </fieldset>
           {overRated && (
             <p role="alert" className="rounded border-l-4 border-red-600 bg-red-50 p-3 text-sm">
@@ -303,7 +301,7 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
               <span className="font-semibold">Couplers</span>
               <select {...getSelectProps(fields.couplerProfile)} className={input}>
                 <option value="">— profile —</option>
-                {Object.entries(COUPLER_PROFILES).map(([k, c]) => <option key={k} value={k}>{c.label}</option>)}
+                {COUPLER_PROFILES.map((k) => <option key={k} value={k}>{COUPLER_LABELS[k]}</option>)}
               </select>
             </label>
             <TextField label="How many couplers" field={fields.couplerCount} inputMode="numeric" />
@@ -314,7 +312,7 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
 
         <fieldset className={section}>
           <legend className="px-1 text-lg font-semibold">Result</legend>
-          <RadioChoices field={fields.outcome} labels={OUTCOME_LABELS} className="grid gap-2" />
+          <RadioChoices field={fields.outcome} labels={OUTCOME_CHOICES} className="grid gap-2" />
           <div className="grid grid-cols-2 gap-3">
             <TextField label="Time to result" field={fields.time} placeholder="45 s, 3 min, 1:30" />
             <TextField label="Attempts" field={fields.attempts} inputMode="numeric" />
@@ -362,17 +360,6 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
 function FieldError({ message }: { message?: string }) {
   return message ? <span className="mt-1 block text-sm text-red-700">{message}</span> : null;
 }
-
-const INLET_SOURCE_LABELS: Record<(typeof INLET_SOURCES)[number], string> = {
-  measured_at_inlet: "Measured at the tool inlet while it ran",
-  read_at_regulator: "Read at the regulator",
-  estimated: "Estimated",
-};
-const OUTCOME_LABELS: Record<(typeof OUTCOMES)[number], string> = {
-  freed: "Freed it",
-  freed_with_help: "Freed with help (heat, another tool)",
-  not_freed: "Did not free it",
-};
 
 /** One radio per choice, in the order of `labels`, with the field's error below. */
 function RadioChoices({ field, labels, className }: { field: Parameters<typeof getInputProps>[0]; labels: Record<string, string>; className: string }) {

@@ -1,6 +1,6 @@
 import { data, Form, Link, useNavigation } from "react-router";
 import { requireRole } from "~/auth/session.server";
-import { FITTING_LABELS, formatDate, formatDuration, formatHoseId, formatPressure, INLET_SOURCE_LABELS, OUTCOME_LABELS, VEHICLE_LABELS } from "~/catalogue/format";
+import { FITTING_LABELS, formatDate, formatDuration, formatHoseId, formatPressure, INLET_SOURCE_LABELS, lpsToScfm, OUTCOME_LABELS, toolName, VEHICLE_LABELS } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { db } from "~/db.server";
@@ -11,7 +11,6 @@ import { changesSinceLastVersion, reviewDetail } from "~/moderation/queue.server
 import { CHECKLIST, type ChecklistKey, REASONS } from "~/moderation/reasons";
 import { LogList } from "~/components/decision-log";
 import { TRUST_LABELS } from "~/moderation/trust";
-import { lpsToScfm } from "~/air/units";
 import { formValues, readForm } from "~/utils/forms";
 import { idField, parseIdParam } from "~/utils/params";
 import type { Route } from "./+types/review.$reportId";
@@ -75,7 +74,7 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
   const canDecide = waiting && !own && claim?.mine;
   const accepts = log.filter((d) => d.action === "accept" && d.report_version === r.version).length;
   const rows: [string, string][] = [
-    ["Tool", `${r.maker} ${r.model_code} (${r.category})`], ["Job", r.job],
+    ["Tool", `${toolName(r.maker, r.model_code)} (${r.category})`], ["Job", r.job],
     ["Vehicle", VEHICLE_LABELS[r.vehicle_class ?? ""] ?? "—"], ["Part age", r.component_age_years == null ? "—" : `${r.component_age_years} years`],
     ["Corrosion", r.corrosion_level ?? "—"], ["Bit or socket", `${r.attachment ?? "—"}${r.attachment_length_mm ? `, ${Math.round(r.attachment_length_mm)} mm` : ""}`],
     ["Regulator", p(r.regulator_kpa)], ["At the tool inlet", `${p(r.inlet_kpa)} (${INLET_SOURCE_LABELS[r.inlet_source ?? ""] ?? "—"})`],
@@ -90,7 +89,7 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
     <div className="space-y-5">
       <header>
         <p className="text-sm"><Link to="/review" className="text-bay-700 underline">← Queue</Link></p>
-        <h1 className="text-2xl font-bold">Report #{r.id} · {r.maker} {r.model_code} · {r.job}</h1>
+        <h1 className="text-2xl font-bold">Report #{r.id} · {toolName(r.maker, r.model_code)} · {r.job}</h1>
         <p className="text-sm text-stone-600">
           By {r.reporter} ({TRUST_LABELS[trust]}) · submitted {formatDate(r.submitted_at)} · version {r.version} · status {r.status}
           {accepts > 0 && waiting ? ` · accepted once, waiting for a second look` : ""}

@@ -1,7 +1,7 @@
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import { requireRole } from "~/auth/session.server";
-import { formatDate } from "~/catalogue/format";
+import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { FLAG_EXPLANATIONS } from "~/moderation/flags";

@@ -1,5 +1,5 @@
 import { Form, Link } from "react-router";
-import { FITTING_LABELS } from "~/catalogue/format";
+import { FITTING_LABELS } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { parseSearch } from "~/search/query";

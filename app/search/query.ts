@@ -1,6 +1,4 @@
-import { z } from "zod";
-
-const slug = z.string().regex(/^[a-z0-9]+([-./][a-z0-9]+)*$/).max(80);
+import { isFitting, isSlug } from "~/domain";
 
 /** Search parameters, leniently: an over-long query is cut, unreadable facets are dropped and named. */
 export function parseSearch(params: URLSearchParams) {
@@ -10,7 +8,7 @@ export function parseSearch(params: URLSearchParams) {
   for (const key of ["category", "job", "shank", "kind"] as const) {
     const v = params.get(key);
     if (!v) continue;
-    const ok = key === "kind" ? v === "model" || v === "report" : slug.safeParse(v).success;
+    const ok = key === "kind" ? v === "model" || v === "report" : key === "shank" ? isFitting(v) : isSlug(v);
     if (ok) filters[key] = v;
     else ignored.push(key);
   }

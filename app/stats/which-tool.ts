@@ -1,7 +1,7 @@
 // "Which tool for my job and my air?": for each tool with a pressure fit, the pressure its rated
 // air use would get through the shopper's line, and the fitted success there. Pure.
 import { operatingInletPressure, type Line } from "~/air/supply";
-import { RATED_INLET_KPA } from "~/air/units";
+import { RATED_INLET_KPA, type Shank } from "~/domain";
 import { type CellFigures, predictAt } from "./cells";
 
 export interface ToolAtSupply {
@@ -15,7 +15,7 @@ export interface Supply {
   regulatorKpa: number;
   line: Line;
   /** The hammer bits the shopper already owns, if any. */
-  bits: "shank-0.401" | "shank-0.498" | null;
+  bits: Shank | null;
 }
 
 export function atSupply(tool: ToolAtSupply, supply: Supply) {

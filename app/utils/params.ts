@@ -1,13 +1,11 @@
 import { z } from "zod";
+import { isSlug } from "~/domain";
 import { invariantResponse } from "./http";
-
-const slugSchema = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/).max(80);
 
 /** A route's :slug param; anything malformed is simply not found. */
 export function parseSlug(value: string | undefined): string {
-  const parsed = slugSchema.safeParse(value);
-  invariantResponse(parsed.success, "Not found", 404);
-  return parsed.data;
+  invariantResponse(isSlug(value), "Not found", 404);
+  return value;
 }
 
 const pageSchema = z.coerce.number().int().min(1).max(10_000).default(1);

@@ -1,7 +1,7 @@
 // Filing a report through the route's action: validation, drafts, submission, flags, versions.
 import { sql } from "kysely";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { psiToKpa } from "../../app/air/units";
+import { psiToKpa } from "../../app/domain";
 import { testDb } from "../support/db";
 import { type Browserish, signedInAs } from "../support/http";
 import { validReport } from "../support/reports";

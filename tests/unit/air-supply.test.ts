@@ -1,10 +1,10 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { calculatorSchema, parseMeasure, toSupplyInput, CALCULATOR_DEFAULTS } from "~/air/calculator-form";
+import { calculatorSchema, toSupplyInput, CALCULATOR_DEFAULTS } from "~/air/calculator-form";
 import { couplerPressureDropBar } from "~/air/couplers";
 import { airDemandLps } from "~/air/demand";
 import { analyseSupply, type Line, lineLossKpa, operatingInletPressure, supplyNeededKpa, tankRunTimeS } from "~/air/supply";
-import { ATMOSPHERE_KPA, galToL, psiToKpa, RATED_INLET_KPA } from "~/air/units";
+import { ATMOSPHERE_KPA, galToL, parseMeasure, psiToKpa, RATED_INLET_KPA } from "~/domain";
 
 const line: Line = { hoseIdMm: 9.525, hoseLengthM: 15.24, couplerProfile: "industrial_m", couplerCount: 2 };
 

@@ -3,7 +3,7 @@ import { airDemandLps } from "~/air/demand";
 import { hosePressureDropBar } from "~/air/hose";
 import {
   absoluteToGaugeKpa, barToKpa, galToL, gaugeToAbsoluteKpa, inToMm, kpaToPsi, lbfToN, lpsToScfm, psiToKpa, RATED_INLET_KPA, scfmToLps,
-} from "~/air/units";
+} from "~/domain";
 
 describe("unit conversions", () => {
   it("matches the published constants", () => {

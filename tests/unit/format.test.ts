@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatDuration, formatHoseId, formatPressure } from "~/catalogue/format";
+import { formatDuration, formatHoseId, formatPressure } from "~/domain";
 
 describe("display formats", () => {
   it("shows hose bores in the fractions they are sold in", () => {

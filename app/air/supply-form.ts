@@ -1,0 +1,27 @@
+// The shopper's supply on a job page ("Which tool, on your air?"): typed in psi, inches and feet,
+// checked against the same SI limits as every other form, and read out in SI for the ranking.
+import { z } from "zod";
+import {
+  DEFAULT_COUPLER_PROFILE, ftToM, inToMm, LIMITS, parseMeasure, psiToKpa, rangeShort, SHANKS, withinLimit,
+} from "~/domain";
+
+const { couplerCount } = LIMITS;
+const couplers = `Couplers: ${couplerCount.min}–${couplerCount.max}`;
+
+export const supplySchema = z.object({
+  reg: z.preprocess(parseMeasure, z.number({ error: "Regulator: a number of psi" })
+    .refine((psi) => withinLimit(LIMITS.gaugePressure, psiToKpa(psi)), `Regulator: ${rangeShort(LIMITS.gaugePressure, "psi")}`)),
+  hid: z.preprocess(parseMeasure, z.number({ error: "Hose ID: inches, e.g. 3/8" })
+    .refine((inches) => withinLimit(LIMITS.hoseBore, inToMm(inches)), `Hose ID: ${rangeShort(LIMITS.hoseBore, "in")}`)),
+  hlen: z.preprocess(parseMeasure, z.number({ error: "Hose length: a number of feet" })
+    .refine((ft) => withinLimit(LIMITS.hoseLength, ftToM(ft)), `Hose length: ${rangeShort(LIMITS.hoseLength, "ft")}`)),
+  cc: z.preprocess((v) => (v === "" || v == null ? 2 : Number(v)),
+    z.number({ error: couplers }).int(couplers).min(couplerCount.min, couplers).max(couplerCount.max, couplers)),
+  bits: z.enum(["", ...SHANKS], { error: "Bits: 0.401 or 0.498 in shank" }).default(""),
+}).transform(({ reg, hid, hlen, cc, bits }) => ({
+  regulatorKpa: psiToKpa(reg),
+  line: { hoseIdMm: inToMm(hid), hoseLengthM: ftToM(hlen), couplerProfile: DEFAULT_COUPLER_PROFILE, couplerCount: cc },
+  bits: bits || null,
+}));
+
+export type ShopperSupply = z.output<typeof supplySchema>;

@@ -1,0 +1,59 @@
+// The range of every quantity a form takes, in SI: the forms check against these, the feed
+// publishes them, and the reports table's CHECK constraints (migrations/) hold the same bounds.
+// Each limit also carries its bounds as the trade would state them in other units, rounded for a
+// message ("at most 330 ft" for 100 m): the SI comparison decides, the words only explain.
+
+export interface Limit {
+  /** SI unit symbol of min and max (as the feed publishes it); none for counts and ratings. */
+  unit?: string;
+  min: number;
+  max: number;
+  /** The value must be more than `min` (a hose of no length, a tank of no volume). */
+  aboveMin?: boolean;
+  /** The bounds as written in messages, by the unit the reader typed in. */
+  stated: Record<string, readonly [string, string]>;
+}
+
+export const LIMITS = {
+  /** Any gauge pressure: regulator, tool inlet, tank cut-out. 2,000 kPa ≈ 290 psi. */
+  gaugePressure: { unit: "kPa", min: 0, max: 2000, stated: { kPa: ["0", "2,000"], psi: ["0", "290"], bar: ["0", "20"] } },
+  /** Hose inside diameter. 4 mm ≈ 5/32 in. */
+  hoseBore: { unit: "mm", min: 4, max: 25, stated: { mm: ["4", "25"], in: ["5/32", "1"] } },
+  hoseLength: { unit: "m", min: 0, aboveMin: true, max: 100, stated: { m: ["0", "100"], ft: ["0", "330"] } },
+  attachmentLength: { unit: "mm", min: 0, aboveMin: true, max: 1000, stated: { mm: ["0", "1,000"], in: ["0", "39"] } },
+  /** Compressor free-air delivery. */
+  compressorDelivery: { unit: "L/s", min: 0, aboveMin: true, max: 500, stated: { "l/s": ["0", "500"], SCFM: ["0", "1,000"] } },
+  tankVolume: { unit: "L", min: 0, aboveMin: true, max: 5000, stated: { l: ["0", "5,000"], gal: ["0", "1,300"] } },
+  /** A tool's rated air use (free air at 90 psi), as typed into the calculator. */
+  toolAirUse: { unit: "L/s", min: 0.1, max: 50, stated: { "l/s": ["0.1", "50"], SCFM: ["0.2", "100"] } },
+  couplerCount: { min: 0, max: 10, stated: {} },
+  componentAge: { unit: "a", min: 0, max: 80, stated: {} },
+  timeToResult: { unit: "s", min: 1, max: 28800, stated: {} },
+  attempts: { min: 1, max: 50, stated: {} },
+  triggerControl: { min: 1, max: 5, stated: {} },
+} as const satisfies Record<string, Limit>;
+
+/** Whether an SI value lies within the limit. */
+export const withinLimit = (limit: Limit, si: number) =>
+  (limit.aboveMin ? si > limit.min : si >= limit.min) && si <= limit.max;
+
+function stated(limit: Limit, unit: string): readonly [string, string] {
+  const bounds = limit.stated[unit];
+  if (!bounds) throw new Error(`no stated bounds in ${unit}`);
+  return bounds;
+}
+
+/** The form's message: "Between 4 and 25 mm", "More than 0, at most 330 ft". */
+export function rangeMessage(limit: Limit, unit: string): string {
+  const [lo, hi] = stated(limit, unit);
+  return limit.aboveMin ? `More than ${lo}, at most ${hi} ${unit}` : `Between ${lo} and ${hi} ${unit}`;
+}
+
+/** The short form for a compact panel: "5/32–1 in", "up to 330 ft". */
+export function rangeShort(limit: Limit, unit: string): string {
+  const [lo, hi] = stated(limit, unit);
+  return limit.aboveMin && limit.min === 0 ? `up to ${hi} ${unit}` : `${lo}–${hi} ${unit}`;
+}
+
+/** Pressures are checked in kPa whatever the unit typed, and say so: "Between 0 and 2,000 kPa (290 psi)". */
+export const PRESSURE_RANGE_MESSAGE = `${rangeMessage(LIMITS.gaugePressure, "kPa")} (${LIMITS.gaugePressure.stated.psi[1]} psi)`;
