@@ -2,13 +2,13 @@
 // and the browser (live results). Values arrive in the reader's units and leave in SI.
 import { z } from "zod";
 import {
-  COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, LENGTH_UNITS, LIMITS, parseMeasure, PRESSURE_RANGE_MESSAGE, PRESSURE_UNITS,
-  pressureToKpa, rangeMessage, SYSTEM_UNITS, toSi, withinLimit,
+  COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, LENGTH_UNITS, RANGES, parseMeasure, PRESSURE_RANGE_MESSAGE, PRESSURE_UNITS,
+  pressureToKpa, rangeMessage, SYSTEM_UNITS, toSi, inRange,
 } from "~/domain";
 import type { SupplyInput } from "./supply";
 
 const measure = (message: string) => z.preprocess(parseMeasure, z.number({ error: message }).finite(message));
-const { couplerCount } = LIMITS;
+const { couplerCount } = RANGES;
 
 export const calculatorSchema = z
   .object({
@@ -31,17 +31,17 @@ export const calculatorSchema = z
     const kpa = (x: number) => pressureToKpa(x, v.pu);
     const units = SYSTEM_UNITS[v.lu];
     const add = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
-    if (!withinLimit(LIMITS.gaugePressure, kpa(v.supply))) add("supply", PRESSURE_RANGE_MESSAGE);
-    if (!withinLimit(LIMITS.hoseBore, toSi("bore", v.hid, v.lu))) add("hid", rangeMessage(LIMITS.hoseBore, units.bore));
-    if (!withinLimit(LIMITS.hoseLength, toSi("hose", v.hlen, v.lu))) add("hlen", rangeMessage(LIMITS.hoseLength, units.hose));
+    if (!inRange(RANGES.gaugePressure, kpa(v.supply))) add("supply", PRESSURE_RANGE_MESSAGE);
+    if (!inRange(RANGES.hoseBore, toSi("bore", v.hid, v.lu))) add("hid", rangeMessage(RANGES.hoseBore, units.bore));
+    if (!inRange(RANGES.hoseLength, toSi("hose", v.hlen, v.lu))) add("hlen", rangeMessage(RANGES.hoseLength, units.hose));
     if (!v.tool && v.cons === "") add("cons", "Pick a tool or type its air use");
-    if (v.cons !== "" && !withinLimit(LIMITS.toolAirUse, toSi("flow", v.cons, v.lu))) add("cons", rangeMessage(LIMITS.toolAirUse, units.flow));
+    if (v.cons !== "" && !inRange(RANGES.toolAirUse, toSi("flow", v.cons, v.lu))) add("cons", rangeMessage(RANGES.toolAirUse, units.flow));
     // 0 is a tank on its own, with no compressor behind it.
-    if (v.comp !== 0 && !withinLimit(LIMITS.compressorDelivery, toSi("flow", v.comp, v.lu))) {
-      add("comp", `Between 0 and ${LIMITS.compressorDelivery.stated[units.flow][1]} ${units.flow}`);
+    if (v.comp !== 0 && !inRange(RANGES.compressorDelivery, toSi("flow", v.comp, v.lu))) {
+      add("comp", `Between 0 and ${RANGES.compressorDelivery.stated[units.flow][1]} ${units.flow}`);
     }
-    if (!withinLimit(LIMITS.tankVolume, toSi("volume", v.tank, v.lu))) add("tank", rangeMessage(LIMITS.tankVolume, units.volume));
-    if (!withinLimit(LIMITS.gaugePressure, kpa(v.cout))) add("cout", PRESSURE_RANGE_MESSAGE);
+    if (!inRange(RANGES.tankVolume, toSi("volume", v.tank, v.lu))) add("tank", rangeMessage(RANGES.tankVolume, units.volume));
+    if (!inRange(RANGES.gaugePressure, kpa(v.cout))) add("cout", PRESSURE_RANGE_MESSAGE);
     if (v.cin < 0 || v.cin >= v.cout) add("cin", "Below the cut-out pressure");
   });
 

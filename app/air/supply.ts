@@ -1,7 +1,7 @@
 // What reaches the tool: the operating inlet pressure where supply minus line loss balances the
 // tool's demand, and how long a receiver tank holds the tool at its rating. Pure functions; all
 // pressures in kPa gauge unless named abs, flows in l/s of free air, volumes in litres.
-import { ATMOSPHERE_KPA, type CouplerProfile, LIMITS, RATED_INLET_KPA, withinLimit } from "~/domain";
+import { ATMOSPHERE_KPA, type CouplerProfile, RANGES, RATED_INLET_KPA, inRange } from "~/domain";
 import { couplerPressureDropBar } from "./couplers";
 import { airDemandLps } from "./demand";
 import { hosePressureDropBar } from "./hose";
@@ -42,7 +42,7 @@ export interface OperatingPoint {
  * the root is unique when it exists. Tolerance 1e-6 kPa.
  */
 export function operatingInletPressure(supplyKpa: number, ratedLps: number, line: Line): OperatingPoint {
-  if (!withinLimit(LIMITS.gaugePressure, supplyKpa)) throw new RangeError(`supply pressure must be ${LIMITS.gaugePressure.stated.kPa.join("–")} kPa gauge`);
+  if (!inRange(RANGES.gaugePressure, supplyKpa)) throw new RangeError(`supply pressure must be ${RANGES.gaugePressure.stated.kPa.join("–")} kPa gauge`);
   if (!(ratedLps > 0)) throw new RangeError("rated air consumption must be more than 0 l/s");
   const residual = (p: number) => supplyKpa - lineLossKpa(supplyKpa, airDemandLps(ratedLps, p), line).total - p;
   let lo = 0;

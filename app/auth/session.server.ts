@@ -4,6 +4,7 @@ import { createCookie, redirect } from "react-router";
 import { sql } from "kysely";
 import { db } from "~/db.server";
 import { isHttps } from "~/config.server";
+import type { ForceUnit, LengthUnit, PressureUnit } from "~/domain";
 import { invariantResponse } from "~/utils/http";
 import { randomToken, sha256Hex } from "./tokens.server";
 
@@ -26,9 +27,9 @@ export interface SessionUser {
   handle: string;
   email: string;
   roles: Role[];
-  pressureUnit: "psi" | "bar" | "kPa";
-  lengthUnit: "in" | "mm";
-  forceUnit: "lbf" | "N";
+  pressureUnit: PressureUnit;
+  lengthUnit: LengthUnit;
+  forceUnit: ForceUnit;
   sessionHash: string;
 }
 

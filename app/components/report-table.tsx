@@ -1,6 +1,6 @@
 import { Link } from "react-router";
 import {
-  formatDate, formatDuration, formatHoseId, formatPressure, OUTCOME_LABELS, VEHICLE_LABELS,
+  formatDate, formatDuration, formatHoseId, formatPressure, OUTCOME_LABELS, toolName, VEHICLE_LABELS,
 } from "~/domain";
 import type { AcceptedReportRow } from "~/catalogue/queries.server";
 
@@ -31,7 +31,7 @@ export function ReportList({ reports, show = ["tool", "job"] }: { reports: Accep
               <OutcomeBadge outcome={r.outcome} />
               {show.includes("tool") && (
                 <Link to={`/models/${r.model_slug}`} className="font-semibold text-bay-700 underline-offset-2 hover:underline">
-                  {r.maker_name} {r.model_code}
+                  {toolName(r.maker_name, r.model_code)}
                 </Link>
               )}
               {show.includes("job") && (

@@ -27,6 +27,10 @@ export type PressureUnit = (typeof PRESSURE_UNITS)[number];
 export const LENGTH_UNITS = ["in", "mm"] as const;
 export type LengthUnit = (typeof LENGTH_UNITS)[number];
 
+/** The force units a user may pick, for bench figures. */
+export const FORCE_UNITS = ["lbf", "N"] as const;
+export type ForceUnit = (typeof FORCE_UNITS)[number];
+
 /** Each system's units, by quantity: what a label or a message names. */
 export const SYSTEM_UNITS = {
   in: { bore: "in", length: "in", hose: "ft", flow: "SCFM", volume: "gal" },

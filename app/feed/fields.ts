@@ -2,7 +2,7 @@
 // the OpenAPI document, the Data Package's Table Schemas, the CSV columns and the /data page's
 // dictionary are all made. Units are SI throughout.
 import {
-  CORROSION_LEVELS, COUPLER_PROFILES, FITTINGS, INLET_SOURCES, type Limit, LIMITS, OUTCOMES, SLUG_PATTERN, VEHICLE_CLASSES,
+  CORROSION_LEVELS, COUPLER_PROFILES, FITTINGS, INLET_SOURCES, type Range, RANGES, OUTCOMES, SLUG_PATTERN, VEHICLE_CLASSES,
 } from "~/domain";
 
 export type FieldType = "integer" | "number" | "string" | "boolean" | "datetime" | "string-array" | "object";
@@ -25,8 +25,8 @@ export interface Field {
 }
 
 const slug = (name: string, description: string): Field => ({ name, type: "string", pattern: SLUG_PATTERN, description });
-/** A field's unit and range, as the forms check them (app/domain/limits.ts). */
-const within = ({ unit, min, max, aboveMin }: Limit) =>
+/** A field's unit and range, as the forms check them (app/domain/ranges.ts). */
+const within = ({ unit, min, max, aboveMin }: Range) =>
   ({ ...(unit ? { unit } : {}), minimum: min, maximum: max, ...(aboveMin ? { minimumExclusive: true } : {}) });
 
 export const REPORT_FIELDS: Field[] = [
@@ -39,23 +39,23 @@ export const REPORT_FIELDS: Field[] = [
   { name: "accepted_at", type: "datetime", description: "When a moderator accepted the report (UTC, microseconds). With id, the feed's sort order." },
   { name: "version", type: "integer", minimum: 1, description: "Which submitted version of the report was accepted." },
   { name: "vehicle_class", type: "string", enum: VEHICLE_CLASSES, description: "Class of vehicle or machine worked on." },
-  { name: "component_age_years", type: "number", nullable: true, ...within(LIMITS.componentAge), description: "Age of the part worked on, in years." },
+  { name: "component_age_years", type: "number", nullable: true, ...within(RANGES.componentAge), description: "Age of the part worked on, in years." },
   { name: "corrosion_level", type: "string", enum: CORROSION_LEVELS, description: "Corrosion of the joint, as the reporter judged it." },
   { name: "attachment", type: "string", nullable: true, description: "Bit or socket used, in the reporter's words." },
-  { name: "attachment_length_mm", type: "number", nullable: true, ...within(LIMITS.attachmentLength), description: "Length of the bit or extension, in millimetres." },
-  { name: "regulator_kpa", type: "number", ...within(LIMITS.gaugePressure), description: "Regulator set pressure, gauge, in kilopascals." },
-  { name: "inlet_kpa", type: "number", ...within(LIMITS.gaugePressure), description: "Pressure at the tool inlet under load, gauge, in kilopascals." },
+  { name: "attachment_length_mm", type: "number", nullable: true, ...within(RANGES.attachmentLength), description: "Length of the bit or extension, in millimetres." },
+  { name: "regulator_kpa", type: "number", ...within(RANGES.gaugePressure), description: "Regulator set pressure, gauge, in kilopascals." },
+  { name: "inlet_kpa", type: "number", ...within(RANGES.gaugePressure), description: "Pressure at the tool inlet under load, gauge, in kilopascals." },
   { name: "inlet_source", type: "string", enum: INLET_SOURCES, description: "How the inlet pressure was obtained." },
-  { name: "hose_id_mm", type: "number", ...within(LIMITS.hoseBore), description: "Hose inside diameter, in millimetres." },
-  { name: "hose_length_m", type: "number", ...within(LIMITS.hoseLength), description: "Hose length, in metres." },
+  { name: "hose_id_mm", type: "number", ...within(RANGES.hoseBore), description: "Hose inside diameter, in millimetres." },
+  { name: "hose_length_m", type: "number", ...within(RANGES.hoseLength), description: "Hose length, in metres." },
   { name: "coupler_profile", type: "string", nullable: true, enum: COUPLER_PROFILES, description: "Quick-coupler profile on the line." },
-  { name: "coupler_count", type: "integer", ...within(LIMITS.couplerCount), description: "Number of couplers between regulator and tool." },
-  { name: "compressor_lps", type: "number", nullable: true, ...within(LIMITS.compressorDelivery), description: "Compressor free-air delivery, in litres per second." },
-  { name: "tank_l", type: "number", nullable: true, ...within(LIMITS.tankVolume), description: "Receiver (tank) volume, in litres." },
+  { name: "coupler_count", type: "integer", ...within(RANGES.couplerCount), description: "Number of couplers between regulator and tool." },
+  { name: "compressor_lps", type: "number", nullable: true, ...within(RANGES.compressorDelivery), description: "Compressor free-air delivery, in litres per second." },
+  { name: "tank_l", type: "number", nullable: true, ...within(RANGES.tankVolume), description: "Receiver (tank) volume, in litres." },
   { name: "outcome", type: "string", enum: OUTCOMES, description: "How the job ended." },
-  { name: "time_to_result_s", type: "number", ...within(LIMITS.timeToResult), description: "Time from first blow to the result, in seconds." },
-  { name: "attempts", type: "integer", ...within(LIMITS.attempts), description: "Separate attempts made." },
-  { name: "trigger_control", type: "integer", nullable: true, ...within(LIMITS.triggerControl), description: "Reporter's rating of trigger control, 1 (poor) to 5 (fine)." },
+  { name: "time_to_result_s", type: "number", ...within(RANGES.timeToResult), description: "Time from first blow to the result, in seconds." },
+  { name: "attempts", type: "integer", ...within(RANGES.attempts), description: "Separate attempts made." },
+  { name: "trigger_control", type: "integer", nullable: true, ...within(RANGES.triggerControl), description: "Reporter's rating of trigger control, 1 (poor) to 5 (fine)." },
   { name: "notes", type: "string", nullable: true, description: "The reporter's notes, as accepted." },
   { name: "evidence_count", type: "integer", minimum: 0, description: "Video and photo files that came with the report." },
   { name: "evidence_urls", type: "string-array", description: "Links to the evidence files the reporter chose to publish (each redirects to the file). In CSV, a JSON array." },

@@ -4,6 +4,7 @@ import type { Kysely } from "kysely";
 import type { Database } from "../../db/schema";
 import { sendMail } from "~/auth/mail.server";
 import { config } from "~/config.server";
+import { toolName } from "~/domain";
 import { reasonLabel } from "./reasons";
 
 const VERBS = { accept: "accepted", return: "returned to you for changes", reject: "rejected" } as const;
@@ -19,7 +20,7 @@ export async function sendDecisionMail(db: Kysely<Database>, decisionId: number)
   const lines = [
     `Hello ${d.handle},`,
     "",
-    `Your report #${d.report_id} (${d.maker} ${d.model_code}, ${d.job}) was ${verb}.`,
+    `Your report #${d.report_id} (${toolName(d.maker, d.model_code)}, ${d.job}) was ${verb}.`,
     `Reason: ${reasonLabel(d.reason_code)}.`,
     ...(d.note ? ["", d.action === "return" ? `What to change: ${d.note}` : `Note: ${d.note}`] : []),
     "",

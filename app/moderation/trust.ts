@@ -1,6 +1,7 @@
 // Trust levels from a reporter's decided reports. Pure; shown in the review queue.
 
-export type TrustLevel = "new" | "building" | "trusted" | "held";
+export const TRUST_LEVELS = ["new", "building", "trusted", "held"] as const;
+export type TrustLevel = (typeof TRUST_LEVELS)[number];
 
 export interface History {
   accepted: number;

@@ -8,6 +8,7 @@
 import { sql, type Kysely } from "kysely";
 import type { Database } from "../../db/schema";
 import { randomToken } from "~/auth/tokens.server";
+import type { EvidenceKind } from "~/domain";
 import { EVIDENCE_TYPES, isEvidenceType, MAX_BYTES } from "~/storage/evidence-types";
 import { copyObject, deleteObject, isStorageOutage, objectSize, presignPut, readHead, sha256OfObject } from "~/storage/s3.server";
 import { sniffEvidenceType } from "~/storage/sniff.server";
@@ -56,7 +57,7 @@ export async function createUpload(db: Db, userId: number, reportId: number, cla
 }
 
 type Check =
-  | { done: { id: number; kind: "video" | "photo"; contentType: string; size: number; sha256: string }; upload: string }
+  | { done: { id: number; kind: EvidenceKind; contentType: string; size: number; sha256: string }; upload: string }
   | { refused: EvidenceError };
 
 /**

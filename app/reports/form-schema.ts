@@ -3,9 +3,9 @@
 // as the SI columns of the reports table.
 import { z } from "zod";
 import {
-  CORROSION_LEVELS, COUPLER_PROFILES, INLET_SOURCES, LENGTH_UNITS, type Limit, LIMITS, OUTCOMES, parseDuration, parseMeasure,
+  CORROSION_LEVELS, COUPLER_PROFILES, INLET_SOURCES, LENGTH_UNITS, type Range, RANGES, OUTCOMES, parseDuration, parseMeasure,
   PRESSURE_RANGE_MESSAGE, PRESSURE_UNITS, pressureToKpa, kpaTo, type LengthUnit, type PressureUnit, rangeMessage, slugField,
-  SYSTEM_UNITS, fromSi, toSi, VEHICLE_CLASSES, withinLimit,
+  SYSTEM_UNITS, fromSi, toSi, VEHICLE_CLASSES, inRange,
 } from "~/domain";
 import { GAUGE_ERROR_KPA } from "~/moderation/flags";
 import { plainText } from "~/utils/text";
@@ -13,7 +13,7 @@ import type { Report } from "../../db/schema";
 
 const measure = (required: string) => z.preprocess((v) => (v === undefined || v === "" ? undefined : parseMeasure(v)), z.number({ error: required }).finite(required));
 const optionalMeasure = (message: string) => measure(message).optional();
-const int = (message: string, { min, max }: Limit) =>
+const int = (message: string, { min, max }: Range) =>
   z.preprocess((v) => (v === undefined || v === "" ? undefined : Number(v)), z.number({ error: message }).int(message).min(min, `At least ${min}`).max(max, `At most ${max}`));
 
 /** Each field alone, so a draft can keep whatever is valid so far. */
@@ -23,7 +23,7 @@ export const reportFields = {
   toolModel: slugField("Pick the tool from the suggestions"),
   jobType: slugField("Pick the job"),
   vehicleClass: z.enum(VEHICLE_CLASSES, { error: "Pick the vehicle class" }),
-  componentAge: int("Age in whole years", LIMITS.componentAge).optional(),
+  componentAge: int("Age in whole years", RANGES.componentAge).optional(),
   corrosion: z.enum(CORROSION_LEVELS, { error: "Pick how corroded it was" }),
   attachment: plainText().trim().max(120, "At most 120 characters").optional(),
   attachmentLength: optionalMeasure("Enter the bit or socket length as a number"),
@@ -33,15 +33,15 @@ export const reportFields = {
   hoseId: measure("Enter the hose inside diameter, e.g. 3/8"),
   hoseLength: measure("Enter the hose length"),
   couplerProfile: z.enum(COUPLER_PROFILES).optional(),
-  couplerCount: int("Couplers come in whole numbers", LIMITS.couplerCount),
+  couplerCount: int("Couplers come in whole numbers", RANGES.couplerCount),
   compressor: optionalMeasure("Enter the compressor's delivery as a number"),
   tank: optionalMeasure("Enter the tank size as a number"),
   outcome: z.enum(OUTCOMES, { error: "Say how it ended" }),
   time: z.preprocess((v) => (v === undefined || v === "" ? undefined : parseDuration(v)),
     z.number({ error: "Enter the time, e.g. 45 s, 3 min or 1:30" }).finite("Enter the time, e.g. 45 s, 3 min or 1:30")
-      .min(LIMITS.timeToResult.min, "At least 1 second").max(LIMITS.timeToResult.max, "At most 8 hours")),
-  attempts: int("Attempts in whole numbers", LIMITS.attempts),
-  triggerControl: int("Rate 1 to 5", LIMITS.triggerControl).optional(),
+      .min(RANGES.timeToResult.min, "At least 1 second").max(RANGES.timeToResult.max, "At most 8 hours")),
+  attempts: int("Attempts in whole numbers", RANGES.attempts),
+  triggerControl: int("Rate 1 to 5", RANGES.triggerControl).optional(),
   notes: plainText().max(4000, "At most 4,000 characters")
     .refine((t) => !/<\s*[a-z!/]/i.test(t), "Notes are plain text: leave out <tags>")
     .optional(),
@@ -51,11 +51,11 @@ type Fields = { [K in keyof typeof reportFields]: z.output<(typeof reportFields)
 
 /** The fields typed in a system's unit, with the limit each is checked against in SI. */
 const MEASURED = {
-  attachmentLength: { quantity: "length", limit: LIMITS.attachmentLength },
-  hoseId: { quantity: "bore", limit: LIMITS.hoseBore },
-  hoseLength: { quantity: "hose", limit: LIMITS.hoseLength },
-  compressor: { quantity: "flow", limit: LIMITS.compressorDelivery },
-  tank: { quantity: "volume", limit: LIMITS.tankVolume },
+  attachmentLength: { quantity: "length", limit: RANGES.attachmentLength },
+  hoseId: { quantity: "bore", limit: RANGES.hoseBore },
+  hoseLength: { quantity: "hose", limit: RANGES.hoseLength },
+  compressor: { quantity: "flow", limit: RANGES.compressorDelivery },
+  tank: { quantity: "volume", limit: RANGES.tankVolume },
 } as const;
 
 /** SI checks that depend on the units chosen, with messages in the reporter's units. */
@@ -63,14 +63,14 @@ function checkRanges(v: Partial<Fields>, add: (path: keyof Fields, message: stri
   const pu = v.pu ?? "psi";
   const lu = v.lu ?? "in";
   const kpa = (x: number) => pressureToKpa(x, pu);
-  if (v.regulator != null && !withinLimit(LIMITS.gaugePressure, kpa(v.regulator))) add("regulator", PRESSURE_RANGE_MESSAGE);
-  if (v.inlet != null && !withinLimit(LIMITS.gaugePressure, kpa(v.inlet))) add("inlet", PRESSURE_RANGE_MESSAGE);
+  if (v.regulator != null && !inRange(RANGES.gaugePressure, kpa(v.regulator))) add("regulator", PRESSURE_RANGE_MESSAGE);
+  if (v.inlet != null && !inRange(RANGES.gaugePressure, kpa(v.inlet))) add("inlet", PRESSURE_RANGE_MESSAGE);
   if (v.inlet != null && v.regulator != null && kpa(v.inlet) > kpa(v.regulator) + GAUGE_ERROR_KPA) {
     add("inlet", "Higher than the regulator by more than gauge error: check both readings");
   }
   for (const [key, { quantity, limit }] of Object.entries(MEASURED) as [keyof typeof MEASURED, (typeof MEASURED)[keyof typeof MEASURED]][]) {
     const typed = v[key];
-    if (typed != null && !withinLimit(limit, toSi(quantity, typed, lu))) add(key, rangeMessage(limit, SYSTEM_UNITS[lu][quantity]));
+    if (typed != null && !inRange(limit, toSi(quantity, typed, lu))) add(key, rangeMessage(limit, SYSTEM_UNITS[lu][quantity]));
   }
 }
 

@@ -2,6 +2,7 @@
 // Every function takes `db` first and checks ownership itself.
 import { type Kysely, sql } from "kysely";
 import type { Database } from "../../db/schema";
+import { toolName } from "~/domain";
 import { submitFlags } from "~/moderation/submit-flags.server";
 import { type ReportForm, toColumns, type parseDraft } from "./form-schema";
 import { EDITABLE, WITHDRAWABLE } from "./status";
@@ -61,7 +62,7 @@ export async function getOwnReport(db: Db, userId: number, reportId: number) {
   const model = await db.selectFrom("tool_models as m").innerJoin("makers as mk", "mk.id", "m.maker_id")
     .select(["m.slug", "m.model_code", "mk.name as maker_name"]).where("m.id", "=", r.tool_model_id).executeTakeFirstOrThrow();
   const job = await db.selectFrom("job_types").select(["slug"]).where("id", "=", r.job_type_id).executeTakeFirstOrThrow();
-  return { report: r, modelSlug: model.slug, modelLabel: `${model.maker_name} ${model.model_code}`, jobSlug: job.slug };
+  return { report: r, modelSlug: model.slug, modelLabel: toolName(model.maker_name, model.model_code), jobSlug: job.slug };
 }
 
 /** Creates or updates a draft from whatever is valid so far; needs a tool and a job. */

@@ -3,7 +3,7 @@ import { endOtherSessions, endSession, handleTaken, listSessions } from "~/auth/
 import { countActiveKeys, createApiKey, listApiKeys, MAX_KEYS_PER_USER, revokeApiKey } from "~/auth/api-keys.server";
 import { accountSchema } from "~/auth/forms";
 import { requireUser } from "~/auth/session.server";
-import { formatDate } from "~/domain";
+import { FORCE_UNITS, formatDate, LENGTH_UNITS, PRESSURE_UNITS } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { LIMITS } from "~/feed/params";
@@ -79,9 +79,9 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
             <input name="handle" defaultValue={typed("handle", user.handle)} className={input} aria-invalid={errors.handle ? true : undefined} />
             {errors.handle && <span className="text-sm text-red-700">{errors.handle[0]}</span>}
           </label>
-          <UnitSelect name="pressureUnit" label="Pressure" options={["psi", "bar", "kPa"]} value={typed("pressureUnit", user.pressureUnit)} />
-          <UnitSelect name="lengthUnit" label="Hose and bit sizes" options={["in", "mm"]} value={typed("lengthUnit", user.lengthUnit)} />
-          <UnitSelect name="forceUnit" label="Force" options={["lbf", "N"]} value={typed("forceUnit", user.forceUnit)} />
+          <UnitSelect name="pressureUnit" label="Pressure" options={[...PRESSURE_UNITS]} value={typed("pressureUnit", user.pressureUnit)} />
+          <UnitSelect name="lengthUnit" label="Hose and bit sizes" options={[...LENGTH_UNITS]} value={typed("lengthUnit", user.lengthUnit)} />
+          <UnitSelect name="forceUnit" label="Force" options={[...FORCE_UNITS]} value={typed("forceUnit", user.forceUnit)} />
           <div className="sm:col-span-2">
             <button type="submit" disabled={busy} className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Save profile</button>
           </div>

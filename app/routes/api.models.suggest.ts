@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { db } from "~/db.server";
+import { toolName } from "~/domain";
 import { suggestModels } from "~/reports/reports.server";
 import type { Route } from "./+types/api.models.suggest";
 
@@ -12,7 +13,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const models = parsed.data.q.length < 1 ? [] : await suggestModels(db, parsed.data.q);
   return Response.json({
     suggestions: models.map((m) => ({
-      slug: m.slug, label: `${m.maker_name} ${m.model_code}`, detail: `${m.name} · ${m.category_name}`,
+      slug: m.slug, label: toolName(m.maker_name, m.model_code), detail: `${m.name} · ${m.category_name}`,
       categorySlug: m.category_slug, action: m.action, maxInletKpa: m.max_inlet_kpa,
     })),
   });

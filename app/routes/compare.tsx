@@ -3,7 +3,7 @@ import { area, line } from "d3-shape";
 import { useEffect, useState } from "react";
 import { data, Form, Link, useFetcher } from "react-router";
 import { z } from "zod";
-import { kpaToPsi, psiToKpa } from "~/domain";
+import { kpaToPsi, psiToKpa, toolName } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { IntervalsExplained, pct } from "~/components/intervals";
 import { getJobBySlug } from "~/catalogue/queries.server";
@@ -37,7 +37,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   return {
     job, psi, pairs,
     cells: cells.map((c) => ({
-      slug: c.model_slug, label: `${c.maker_name} ${c.model_code}`, n: c.n, successes: c.successes, estimate: c.estimate, lower: c.lower, upper: c.upper,
+      slug: c.model_slug, label: toolName(c.maker_name, c.model_code), n: c.n, successes: c.successes, estimate: c.estimate, lower: c.lower, upper: c.upper,
       fit: c.fit, adjReason: c.adj_reason, at: c.fit ? predictAt(c.fit, atKpa) : null,
     })),
   };

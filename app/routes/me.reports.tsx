@@ -3,7 +3,7 @@ import { sql } from "kysely";
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import { requireUser } from "~/auth/session.server";
-import { formatDate } from "~/domain";
+import { formatDate, toolName } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { OutcomeBadge } from "~/components/report-table";
 import { db } from "~/db.server";
@@ -98,7 +98,7 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
               <li key={r.id} className="rounded-lg border border-stone-200 bg-white p-3" data-testid={`report-${r.id}`}>
                 <div className="flex flex-wrap items-center gap-2">
                   <span className="font-semibold">#{r.id}</span>
-                  <span>{r.maker_name} {r.model_code}</span>
+                  <span>{toolName(r.maker_name, r.model_code)}</span>
                   <span className="text-stone-600">· {r.job_name}</span>
                   <OutcomeBadge outcome={r.outcome} />
                   <span className="ml-auto text-xs text-stone-500">{r.submitted_at ? `submitted ${formatDate(r.submitted_at)}` : `started ${formatDate(r.created_at)}`} · v{r.version} · {r.evidence} files</span>

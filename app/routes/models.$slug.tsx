@@ -6,7 +6,7 @@ import { IntervalsExplained } from "~/components/intervals";
 import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
-import { FITTING_LABELS, formatPressure, formatPrice, lpsToScfm, toolName } from "~/domain";
+import { FITTING_LABELS, formatFlow, formatPressure, formatPrice, toolName } from "~/domain";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
 import { invariantResponse } from "~/utils/http";
@@ -42,7 +42,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
     spec("Maker's max torque", "max_torque_nm", model.max_torque_nm == null ? null : `${model.max_torque_nm} N·m`),
     spec("Weight", "weight_kg", `${model.weight_kg} kg`),
     spec("Length", "length_mm", `${model.length_mm} mm`),
-    spec("Rated air use", "rated_air_lps", `${model.rated_air_lps} l/s (${lpsToScfm(model.rated_air_lps).toFixed(1)} SCFM) at 90 psi`),
+    spec("Rated air use", "rated_air_lps", `${model.rated_air_lps} l/s (${formatFlow(model.rated_air_lps)}) at 90 psi`),
     { label: "Air inlet", value: model.air_inlet, source: "maker sheet" },
     { label: "Maximum inlet pressure", value: formatPressure(model.max_inlet_kpa), source: "maker sheet" },
     { label: "Street price", value: formatPrice(model.street_price_cents), source: "typical" },

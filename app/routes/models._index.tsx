@@ -1,7 +1,7 @@
 import { type ColumnDef, flexRender, getCoreRowModel, getSortedRowModel, type SortingState, useReactTable } from "@tanstack/react-table";
 import { useMemo, useRef, useState } from "react";
 import { Form, Link, type ShouldRevalidateFunctionArgs, useFetcher, useNavigate } from "react-router";
-import { FITTING_LABELS, formatPrice } from "~/domain";
+import { FITTING_LABELS, formatPrice, toolName } from "~/domain";
 import { filtersToSearch, type ModelFilters, parseModelFilters, type SortKey } from "~/catalogue/model-filters";
 import { filterOptions, modelsTable, type ModelTableRow } from "~/catalogue/models-table.server";
 import { ErrorPage } from "~/components/error-page";
@@ -48,10 +48,10 @@ export default function Models({ loaderData }: Route.ComponentProps) {
 
   const columns = useMemo<ColumnDef<ModelTableRow>[]>(() => [
     {
-      id: "tool", header: "Tool", accessorFn: (r) => `${r.maker_name} ${r.model_code}`,
+      id: "tool", header: "Tool", accessorFn: (r) => toolName(r.maker_name, r.model_code),
       cell: ({ row: { original: r } }) => (
         <>
-          <Link to={`/models/${r.slug}`} className="font-semibold text-bay-700 hover:underline">{r.maker_name} {r.model_code}</Link>
+          <Link to={`/models/${r.slug}`} className="font-semibold text-bay-700 hover:underline">{toolName(r.maker_name, r.model_code)}</Link>
           <div className="text-xs text-stone-500">{r.name} · {r.category_name}</div>
         </>
       ),

@@ -1,20 +1,20 @@
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import { requireRole } from "~/auth/session.server";
-import { formatDate } from "~/domain";
+import { formatDate, slugField, toolName } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { db } from "~/db.server";
 import { FLAG_EXPLANATIONS } from "~/moderation/flags";
 import { queueCounts, reviewQueue } from "~/moderation/queue.server";
-import { TRUST_LABELS } from "~/moderation/trust";
+import { TRUST_LABELS, TRUST_LEVELS } from "~/moderation/trust";
 import { jobTypesByCategory } from "~/reports/reports.server";
 import type { Route } from "./+types/review._index";
 
 const filterSchema = z.object({
   flag: z.enum(Object.keys(FLAG_EXPLANATIONS) as [string, ...string[]]).optional().or(z.literal("")),
-  category: z.string().regex(/^[a-z0-9-]*$/).max(40).optional(),
-  job: z.string().regex(/^[a-z0-9-]*$/).max(80).optional(),
-  trust: z.enum(["new", "building", "trusted", "held"]).optional().or(z.literal("")),
+  category: slugField().optional().or(z.literal("")),
+  job: slugField().optional().or(z.literal("")),
+  trust: z.enum(TRUST_LEVELS).optional().or(z.literal("")),
   age: z.coerce.number().int().min(0).max(365).optional().or(z.literal("")),
 });
 
@@ -81,7 +81,7 @@ export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
           <li key={r.id}>
             <Link to={`/review/${r.id}`} className="flex flex-wrap items-center gap-x-3 gap-y-1 px-3 py-3 hover:bg-bay-50" data-testid="queue-row">
               <span className="font-semibold">#{r.id}</span>
-              <span>{r.maker} {r.model_code}</span>
+              <span>{toolName(r.maker, r.model_code)}</span>
               <span className="text-stone-600">{r.job}</span>
               {r.flags.map((f) => <span key={f} className="rounded bg-amber-100 px-2 text-xs">⚑ {f.replaceAll("_", " ")}</span>)}
               {r.accepts > 0 && <span className="rounded bg-bay-100 px-2 text-xs">needs second look</span>}

@@ -4,6 +4,7 @@ import { type Kysely, sql } from "kysely";
 import { circuitBreaker, ConsecutiveBreaker, handleAll, type CircuitBreakerPolicy } from "cockatiel";
 import { Meilisearch } from "meilisearch";
 import type { Database } from "../../db/schema";
+import { toolName } from "~/domain";
 
 type Db = Kysely<Database>;
 export const INDEX = "bayproof";
@@ -63,7 +64,7 @@ const modelDocs = (db: Db, modelIds?: number[]) => {
     .select(["m.slug", "m.model_code", "m.name", "m.fitting", "mk.name as maker", "c.slug as category", "c.name as category_name"]);
   if (modelIds) q = q.where("m.id", "in", modelIds);
   return q.execute().then((rows) => rows.map((m): SearchDoc => ({
-    id: `model-${m.slug}`, kind: "model", title: `${m.maker} ${m.model_code}`, url: `/models/${m.slug}`, maker: m.maker, model_code: m.model_code,
+    id: `model-${m.slug}`, kind: "model", title: toolName(m.maker, m.model_code), url: `/models/${m.slug}`, maker: m.maker, model_code: m.model_code,
     name: m.name, category: m.category, category_name: m.category_name, shank: m.fitting,
   })));
 };
@@ -75,7 +76,7 @@ const reportDocs = (db: Db, reportIds?: number[]) => {
     .where("r.status", "=", "accepted");
   if (reportIds) q = q.where("r.id", "in", reportIds);
   return q.execute().then((rows) => rows.map((r): SearchDoc => ({
-    id: `report-${r.id}`, kind: "report", title: `${r.job_name} with the ${r.maker} ${r.model_code}`, url: `/models/${r.slug}`, maker: r.maker,
+    id: `report-${r.id}`, kind: "report", title: `${r.job_name} with the ${toolName(r.maker, r.model_code)}`, url: `/models/${r.slug}`, maker: r.maker,
     model_code: r.model_code, name: r.name, category: r.category, category_name: r.category_name, shank: r.fitting, job: r.job, job_name: r.job_name,
     vehicle_class: r.vehicle_class?.replaceAll("_", " ") ?? "", notes: r.notes ?? "",
   })));
@@ -142,8 +143,8 @@ async function databaseSearch(db: Db, q: string, f: SearchFilters, limit: number
     .$if(!!f.shank, (qb) => qb.where("m.fitting", "=", f.shank as never))
     .orderBy("r.accepted_at", "desc").limit(limit).execute();
   const hits: SearchResult["hits"] = [
-    ...models.map((m) => ({ id: `model-${m.slug}`, kind: "model" as const, title: `${m.maker} ${m.model_code}`, url: `/models/${m.slug}`, category_name: m.category_name, shank: m.fitting })),
-    ...reports.map((r) => ({ id: `report-${r.id}`, kind: "report" as const, title: `${r.job_name} with the ${r.maker} ${r.model_code}`, url: `/models/${r.slug}`, category_name: r.category_name, job_name: r.job_name, notes: r.notes ?? "", shank: r.fitting })),
+    ...models.map((m) => ({ id: `model-${m.slug}`, kind: "model" as const, title: toolName(m.maker, m.model_code), url: `/models/${m.slug}`, category_name: m.category_name, shank: m.fitting })),
+    ...reports.map((r) => ({ id: `report-${r.id}`, kind: "report" as const, title: `${r.job_name} with the ${toolName(r.maker, r.model_code)}`, url: `/models/${r.slug}`, category_name: r.category_name, job_name: r.job_name, notes: r.notes ?? "", shank: r.fitting })),
   ].slice(0, limit);
   return { source: "database", hits, total: hits.length, facets: {} };
 }

@@ -5,11 +5,12 @@ import "@uppy/core/css/style.min.css";
 import "@uppy/dashboard/css/style.min.css";
 import { useEffect, useState } from "react";
 import type Uppy from "@uppy/core";
+import { EVIDENCE_KIND_LABELS, type EvidenceKind } from "~/domain";
 import { EVIDENCE_TYPES, MAX_BYTES } from "~/storage/evidence-types";
 
 export interface EvidenceItem {
   id: number;
-  kind: "video" | "photo";
+  kind: EvidenceKind;
   contentType: string | null;
   size: number | null;
   status: string;
@@ -92,7 +93,7 @@ export function EvidenceUploader({ reportId, initial }: { reportId: number | nul
         <ul className="space-y-1 text-sm" aria-label="Attached evidence">
           {items.map((e) => (
             <li key={e.id} className="flex flex-wrap items-center justify-between gap-2 rounded bg-bay-100 px-3 py-2">
-              <span>✓ {e.kind === "video" ? "Video" : "Photo"} ({e.contentType}, {e.size ? `${(e.size / 1024 / 1024).toFixed(1)} MB` : "size unknown"}) — checked</span>
+              <span>✓ {EVIDENCE_KIND_LABELS[e.kind]} ({e.contentType}, {e.size ? `${(e.size / 1024 / 1024).toFixed(1)} MB` : "size unknown"}) — checked</span>
               <PublishToggle item={e} onChange={(isPublic) => setItems((list) => list.map((x) => (x.id === e.id ? { ...x, isPublic } : x)))} onProblem={(p) => setProblems((ps) => [...ps, p])} />
             </li>
           ))}

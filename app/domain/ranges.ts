@@ -1,9 +1,9 @@
 // The range of every quantity a form takes, in SI: the forms check against these, the feed
 // publishes them, and the reports table's CHECK constraints (migrations/) hold the same bounds.
-// Each limit also carries its bounds as the trade would state them in other units, rounded for a
+// Each range also carries its bounds as the trade would state them in other units, rounded for a
 // message ("at most 330 ft" for 100 m): the SI comparison decides, the words only explain.
 
-export interface Limit {
+export interface Range {
   /** SI unit symbol of min and max (as the feed publishes it); none for counts and ratings. */
   unit?: string;
   min: number;
@@ -14,7 +14,7 @@ export interface Limit {
   stated: Record<string, readonly [string, string]>;
 }
 
-export const LIMITS = {
+export const RANGES = {
   /** Any gauge pressure: regulator, tool inlet, tank cut-out. 2,000 kPa ≈ 290 psi. */
   gaugePressure: { unit: "kPa", min: 0, max: 2000, stated: { kPa: ["0", "2,000"], psi: ["0", "290"], bar: ["0", "20"] } },
   /** Hose inside diameter. 4 mm ≈ 5/32 in. */
@@ -31,29 +31,29 @@ export const LIMITS = {
   timeToResult: { unit: "s", min: 1, max: 28800, stated: {} },
   attempts: { min: 1, max: 50, stated: {} },
   triggerControl: { min: 1, max: 5, stated: {} },
-} as const satisfies Record<string, Limit>;
+} as const satisfies Record<string, Range>;
 
-/** Whether an SI value lies within the limit. */
-export const withinLimit = (limit: Limit, si: number) =>
-  (limit.aboveMin ? si > limit.min : si >= limit.min) && si <= limit.max;
+/** Whether an SI value lies within the range. */
+export const inRange = (range: Range, si: number) =>
+  (range.aboveMin ? si > range.min : si >= range.min) && si <= range.max;
 
-function stated(limit: Limit, unit: string): readonly [string, string] {
-  const bounds = limit.stated[unit];
+function stated(range: Range, unit: string): readonly [string, string] {
+  const bounds = range.stated[unit];
   if (!bounds) throw new Error(`no stated bounds in ${unit}`);
   return bounds;
 }
 
 /** The form's message: "Between 4 and 25 mm", "More than 0, at most 330 ft". */
-export function rangeMessage(limit: Limit, unit: string): string {
-  const [lo, hi] = stated(limit, unit);
-  return limit.aboveMin ? `More than ${lo}, at most ${hi} ${unit}` : `Between ${lo} and ${hi} ${unit}`;
+export function rangeMessage(range: Range, unit: string): string {
+  const [lo, hi] = stated(range, unit);
+  return range.aboveMin ? `More than ${lo}, at most ${hi} ${unit}` : `Between ${lo} and ${hi} ${unit}`;
 }
 
 /** The short form for a compact panel: "5/32–1 in", "up to 330 ft". */
-export function rangeShort(limit: Limit, unit: string): string {
-  const [lo, hi] = stated(limit, unit);
-  return limit.aboveMin && limit.min === 0 ? `up to ${hi} ${unit}` : `${lo}–${hi} ${unit}`;
+export function rangeShort(range: Range, unit: string): string {
+  const [lo, hi] = stated(range, unit);
+  return range.aboveMin && range.min === 0 ? `up to ${hi} ${unit}` : `${lo}–${hi} ${unit}`;
 }
 
 /** Pressures are checked in kPa whatever the unit typed, and say so: "Between 0 and 2,000 kPa (290 psi)". */
-export const PRESSURE_RANGE_MESSAGE = `${rangeMessage(LIMITS.gaugePressure, "kPa")} (${LIMITS.gaugePressure.stated.psi[1]} psi)`;
+export const PRESSURE_RANGE_MESSAGE = `${rangeMessage(RANGES.gaugePressure, "kPa")} (${RANGES.gaugePressure.stated.psi[1]} psi)`;
