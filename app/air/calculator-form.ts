@@ -2,7 +2,7 @@
 // and the browser (live results). Values arrive in the reader's units and leave in SI.
 import { z } from "zod";
 import {
-  COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, LENGTH_UNITS, RANGES, parseMeasure, PRESSURE_RANGE_MESSAGE, PRESSURE_UNITS,
+  COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, type LengthUnit, LENGTH_UNITS, RANGES, parseMeasure, PRESSURE_RANGE_MESSAGE, PRESSURE_UNITS,
   pressureToKpa, rangeMessage, SYSTEM_UNITS, toSi, inRange,
 } from "~/domain";
 import type { SupplyInput } from "./supply";
@@ -48,7 +48,7 @@ export const calculatorSchema = z
 export type CalculatorValues = z.input<typeof calculatorSchema>;
 export type CalculatorForm = z.output<typeof calculatorSchema>;
 
-export const CALCULATOR_DEFAULTS: Record<"in" | "mm", Record<string, string>> = {
+export const CALCULATOR_DEFAULTS: Record<LengthUnit, Record<string, string>> = {
   in: { pu: "psi", lu: "in", supply: "100", hid: "3/8", hlen: "50", cp: DEFAULT_COUPLER_PROFILE, cc: "2", tool: "", cons: "4", comp: "10", tank: "60", cout: "150", cin: "120" },
   mm: { pu: "bar", lu: "mm", supply: "7", hid: "9.5", hlen: "15", cp: DEFAULT_COUPLER_PROFILE, cc: "2", tool: "", cons: "2", comp: "5", tank: "230", cout: "10", cin: "8" },
 };

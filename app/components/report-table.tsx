@@ -1,10 +1,10 @@
 import { Link } from "react-router";
 import {
-  formatDate, formatDuration, formatHoseId, formatPressure, OUTCOME_LABELS, toolName, VEHICLE_LABELS,
+  formatDate, formatDuration, formatHoseId, formatPressure, type Labels, type Outcome, OUTCOME_LABELS, toolName, VEHICLE_LABELS,
 } from "~/domain";
 import type { AcceptedReportRow } from "~/catalogue/queries.server";
 
-const OUTCOME_STYLES: Record<string, string> = {
+const OUTCOME_STYLES: Labels<Outcome> = {
   freed: "bg-bay-100 text-bay-900",
   freed_with_help: "bg-amber-100 text-amber-900",
   not_freed: "bg-stone-200 text-stone-800",

@@ -1,19 +1,20 @@
 import { z } from "zod";
 import { db } from "~/db.server";
+import { RANGES, slugField } from "~/domain";
 import { adjustedAtReference, predictAt } from "~/stats/cells";
 import { cellBySlugs } from "~/stats/cells.server";
 import type { Route } from "./+types/api.stats.cell";
 
 const query = z.object({
-  model: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/).max(80),
-  job: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/).max(80),
-  inlet_kpa: z.coerce.number().min(0).max(2000).optional(),
+  model: slugField(),
+  job: slugField(),
+  inlet_kpa: z.coerce.number().min(RANGES.gaugePressure.min).max(RANGES.gaugePressure.max).optional(),
 });
 
 // One stored cell as JSON, with the pressure-adjusted success at `inlet_kpa` where a fit exists.
 export async function loader({ request }: Route.LoaderArgs) {
   const parsed = query.safeParse(Object.fromEntries(new URL(request.url).searchParams));
-  if (!parsed.success) return Response.json({ error: "Give model and job as slugs, and inlet_kpa between 0 and 2000" }, { status: 400 });
+  if (!parsed.success) return Response.json({ error: `Give model and job as slugs, and inlet_kpa between ${RANGES.gaugePressure.min} and ${RANGES.gaugePressure.max}` }, { status: 400 });
   const cell = await cellBySlugs(db, parsed.data.model, parsed.data.job);
   if (!cell) return Response.json({ error: "No accepted reports for this tool on this job" }, { status: 404 });
   const at = parsed.data.inlet_kpa;

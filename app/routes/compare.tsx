@@ -3,7 +3,7 @@ import { area, line } from "d3-shape";
 import { useEffect, useState } from "react";
 import { data, Form, Link, useFetcher } from "react-router";
 import { z } from "zod";
-import { kpaToPsi, psiToKpa, toolName } from "~/domain";
+import { kpaToPsi, psiToKpa, slugField, toolName } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { IntervalsExplained, pct } from "~/components/intervals";
 import { getJobBySlug } from "~/catalogue/queries.server";
@@ -13,7 +13,7 @@ import { predictAt } from "~/stats/cells";
 import { cellBySlugs } from "~/stats/cells.server";
 import type { Route } from "./+types/compare";
 
-const slug = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/).max(80);
+const slug = slugField();
 const querySchema = z.object({
   job: slug,
   models: z.string().max(400).transform((s) => [...new Set(s.split(",").map((x) => x.trim()).filter(Boolean))]).pipe(z.array(slug).min(2, "Pick two to four tools").max(4, "At most four tools")),

@@ -1,5 +1,6 @@
 // One (tool model, job type) cell's figures from its accepted reports. Pure; the refresh job
 // (refresh.server.ts) feeds it and stores the result.
+import type { InletSource } from "~/domain";
 import { bootstrapMedianInterval } from "./continuous";
 import { logisticFit, logisticPredict } from "./logistic";
 import { wilsonInterval } from "./proportions";
@@ -13,7 +14,7 @@ export interface CellReport {
   freed: boolean;
   timeS: number;
   inletKpa: number;
-  inletSource: "measured_at_inlet" | "read_at_regulator" | "estimated";
+  inletSource: InletSource;
 }
 
 export interface CellFigures {

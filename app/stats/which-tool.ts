@@ -1,7 +1,7 @@
 // "Which tool for my job and my air?": for each tool with a pressure fit, the pressure its rated
 // air use would get through the shopper's line, and the fitted success there. Pure.
 import { operatingInletPressure, type Line } from "~/air/supply";
-import { RATED_INLET_KPA, type Shank } from "~/domain";
+import { FITTING_LABELS, RATED_INLET_KPA, type Shank } from "~/domain";
 import { type CellFigures, predictAt } from "./cells";
 
 export interface ToolAtSupply {
@@ -22,7 +22,7 @@ export function atSupply(tool: ToolAtSupply, supply: Supply) {
   const point = operatingInletPressure(supply.regulatorKpa, tool.ratedLps, supply.line);
   const needs: string[] = [];
   if (supply.bits && tool.fitting.startsWith("shank-") && tool.fitting !== supply.bits) {
-    needs.push(`${tool.fitting === "shank-0.498" ? "0.498" : "0.401"} in shank bits (yours will not fit; never use a shank adapter)`);
+    needs.push(`${FITTING_LABELS[tool.fitting]} bits (yours will not fit; never use a shank adapter)`);
   }
   if (point.inletKpa < RATED_INLET_KPA - 1) needs.push("a bigger air supply or hose: it would run below its 90 psi rating");
   return {
