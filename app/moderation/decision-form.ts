@@ -14,7 +14,8 @@ const CHECK_FIELDS = Object.fromEntries(Object.keys(CHECKLIST).map((k) => [`chec
 
 const FILE_VERDICT = "Mark each file verified or failed";
 /** One radio group per evidence file, named `evidence_<id>`. */
-const evidenceVerdicts = z.looseRecord(z.templateLiteral(["evidence_", z.string()]), z.enum(["verified", "failed"], { error: FILE_VERDICT }));
+const evidenceKey = z.templateLiteral(["evidence_", z.string()]);
+const evidenceVerdicts = z.looseRecord(evidenceKey, z.enum(["verified", "failed"], { error: FILE_VERDICT }));
 
 export const claimSchema = z.object({ intent: z.literal("claim") });
 
@@ -34,6 +35,7 @@ export const decisionSchema = decisionFields.transform((v, ctx) => {
   const files = evidenceVerdicts.safeParse(v);
   const evidence: Record<number, "verified" | "failed"> = {};
   for (const [key, verdict] of Object.entries(files.success ? files.data : {})) {
+    if (!evidenceKey.safeParse(key).success) continue; // the record lets the form's other fields through
     const id = idField().safeParse(key.slice("evidence_".length));
     if (id.success) evidence[id.data] = verdict;
     else ctx.addIssue({ code: "custom", path: [key], message: FILE_VERDICT });
