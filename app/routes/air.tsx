@@ -8,6 +8,7 @@ import { kpaTo, lpsToScfm, type PressureUnit } from "~/air/units";
 import { getUser } from "~/auth/session.server";
 import { listModels } from "~/catalogue/queries.server";
 import { ErrorPage } from "~/components/error-page";
+import { Field as FieldPrimitive, inputClass, Select as SelectPrimitive } from "~/components/field";
 import { InletChart } from "~/components/inlet-chart";
 import { db } from "~/db.server";
 import { type FieldErrors } from "~/utils/forms";
@@ -199,29 +200,17 @@ function Figure({ label, value, warn = false }: { label: string; value: string; 
 
 const formatRun = (s: number) => (s < 120 ? `${Math.round(s)} s` : `${(s / 60).toFixed(1)} min`);
 
-const inputClass = "mt-1 block w-full rounded border border-stone-300 px-3 py-3 text-base";
-
+/** A calculator field: the shared Field, bound to the typed values and their errors. */
 function Field({ name, label, values, errors, ...rest }: { name: string; label: string; values: Record<string, string>; errors: FieldErrors } & React.InputHTMLAttributes<HTMLInputElement>) {
-  const error = errors[name]?.[0];
   return (
-    <label className="block">
-      <span className="text-sm font-semibold">{label}</span>
-      <input name={name} defaultValue={values[name] ?? ""} aria-invalid={error ? true : undefined} aria-describedby={error ? `${name}-error` : undefined}
-        className={`${inputClass} ${error ? "border-red-600" : ""}`} autoComplete="off" {...rest} />
-      {error && <span id={`${name}-error`} className="text-sm text-red-700">{error}</span>}
-    </label>
+    <FieldPrimitive id={name} label={label} labelClassName="text-sm font-semibold" error={errors[name]?.[0]}>
+      {(control) => <input name={name} defaultValue={values[name] ?? ""} {...control} className={inputClass} autoComplete="off" {...rest} />}
+    </FieldPrimitive>
   );
 }
 
 function Select({ name, label, value, options }: { name: string; label: string; value: string | undefined; options: [string, string][] }) {
-  return (
-    <label className="block">
-      <span className="text-sm font-semibold">{label}</span>
-      <select name={name} defaultValue={value} className={inputClass}>
-        {options.map(([v, text]) => <option key={v} value={v}>{text}</option>)}
-      </select>
-    </label>
-  );
+  return <SelectPrimitive id={name} name={name} label={label} labelClassName="text-sm font-semibold" defaultValue={value} options={options} />;
 }
 
 function SafetyNotes() {
