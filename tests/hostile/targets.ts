@@ -138,7 +138,7 @@ export const transport: fc.Arbitrary<Transport> = fc.oneof(
 export const damage = (fields: string[]) =>
   fc.record({
     changed: fields.length ? fc.uniqueArray(fc.tuple(fc.constantFrom(...fields), hostileText), { maxLength: 3, selector: ([k]) => k }) : fc.constant([] as [string, string][]),
-    missing: fields.length ? fc.subarray(fields, { maxLength: 2 }) : fc.constant([] as string[]),
+    missing: fields.length ? fc.subarray(fields, { maxLength: Math.min(2, fields.length) }) : fc.constant([] as string[]),
     repeated: fields.length ? fc.subarray(fields, { maxLength: 1 }) : fc.constant([] as string[]),
     transport,
   });
