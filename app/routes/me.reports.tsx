@@ -13,7 +13,7 @@ import { markNoticesRead, recentNotices } from "~/reports/notices.server";
 import { offlineDraftKey } from "~/reports/offline-draft";
 import { listOwnReports } from "~/reports/reports.server";
 import { EDITABLE, WITHDRAWABLE } from "~/reports/status";
-import { readForm } from "~/utils/forms";
+import { formValues, readForm } from "~/utils/forms";
 import { groupBy } from "~/utils/group";
 import { idField, parseIdSearchParam } from "~/utils/params";
 import type { Route } from "./+types/me.reports";
@@ -30,25 +30,28 @@ export async function loader({ request }: Route.LoaderArgs) {
   return { reports, notices, files, submitted, withdrawn: url.searchParams.has("withdrawn") };
 }
 
-const publishForm = z.object({ evidenceId: idField(), publish: z.enum(["yes", "no"]) });
+const myReportsForm = z.discriminatedUnion("intent", [
+  z.object({ intent: z.literal("publish-evidence"), evidenceId: idField(), publish: z.enum(["yes", "no"]) }),
+  z.object({ intent: z.literal("read-notices") }),
+]);
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requireUser(request);
-  const form = await readForm(request);
-  const intent = form.get("intent");
-  if (intent === "publish-evidence") {
-    const parsed = publishForm.safeParse(Object.fromEntries(form));
-    if (!parsed.success) throw data("Say which file, and whether to publish it", { status: 400 });
-    try {
-      await setEvidencePublic(db, user.id, parsed.data.evidenceId, parsed.data.publish === "yes");
-    } catch (error) {
-      if (error instanceof EvidenceError) throw data(error.message, { status: error.status });
-      throw error;
-    }
+  const parsed = myReportsForm.safeParse(formValues(await readForm(request)));
+  if (!parsed.success) {
+    throw data(parsed.error.issues[0]?.path[0] === "intent" ? "Unknown request" : "Say which file, and whether to publish it", { status: 400 });
+  }
+  const input = parsed.data;
+  if (input.intent === "read-notices") {
+    await markNoticesRead(db, user.id);
     return { ok: true };
   }
-  if (intent !== "read-notices") throw data("Unknown request", { status: 400 });
-  await markNoticesRead(db, user.id);
+  try {
+    await setEvidencePublic(db, user.id, input.evidenceId, input.publish === "yes");
+  } catch (error) {
+    if (error instanceof EvidenceError) throw data(error.message, { status: error.status });
+    throw error;
+  }
   return { ok: true };
 }
 
