@@ -1,4 +1,4 @@
-import { data, Form, Link, useNavigation } from "react-router";
+import { Form, Link, useNavigation } from "react-router";
 import { endOtherSessions, endSession, listSessions } from "~/auth/account.server";
 import { countActiveKeys, createApiKey, listApiKeys, MAX_KEYS_PER_USER, revokeApiKey } from "~/auth/api-keys.server";
 import { accountSchema } from "~/auth/forms";
@@ -11,6 +11,7 @@ import { Field, inputClass, Select } from "~/components/field";
 import { db } from "~/db.server";
 import { LIMITS } from "~/feed/params";
 import { type FieldErrors, invalid, parseForm, readForm } from "~/utils/forms";
+import { invariantResponse } from "~/utils/http";
 import type { Route } from "./+types/account";
 
 export async function loader({ request }: Route.LoaderArgs) {
@@ -38,7 +39,7 @@ export async function action({ request }: Route.ActionArgs) {
       return { ok: true as const, message: "Profile saved." };
     }
     case "end-session":
-      if (!(await endSession(db, user.id, input.ref))) throw data("No such session on your account", { status: 404 });
+      invariantResponse(await endSession(db, user.id, input.ref), "No such session on your account", 404);
       return { ok: true as const, message: "That session is signed out." };
     case "end-other-sessions":
       await endOtherSessions(db, user.id, user.sessionHash);
@@ -51,7 +52,7 @@ export async function action({ request }: Route.ActionArgs) {
       return { ok: true as const, message: "Key created.", newKey: { name: input.name, key } };
     }
     case "revoke-key":
-      if (!(await revokeApiKey(db, user.id, input.keyId))) throw data("No such active key on your account", { status: 404 });
+      invariantResponse(await revokeApiKey(db, user.id, input.keyId), "No such active key on your account", 404);
       return { ok: true as const, message: "Key revoked." };
   }
 }

@@ -14,6 +14,7 @@ import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
 import { openReview, reviewAction } from "~/moderation/review.server";
 import { TRUST_LABELS } from "~/moderation/trust";
 import { formValues, readForm } from "~/utils/forms";
+import { invariantResponse } from "~/utils/http";
 import { parseIdParam } from "~/utils/params";
 import type { Route } from "./+types/review.$reportId";
 
@@ -21,7 +22,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const moderator = await requireRole(request, "moderator");
   const id = parseIdParam(params.reportId, "No such report");
   const review = await openReview(db, moderator.id, id);
-  if (!review) throw data("No such report", { status: 404 });
+  invariantResponse(review, "No such report", 404);
   return { ...review, units: { pu: moderator.pressureUnit, lu: moderator.lengthUnit } };
 }
 
