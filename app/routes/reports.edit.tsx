@@ -16,12 +16,6 @@ import type { Route } from "./+types/reports.edit";
 
 const NOT_FOUND = "No such report among yours";
 
-/** A refusal the page shows as an error page. */
-function refused(error: unknown): never {
-  if (error instanceof ReportError) throw data(error.message, { status: error.status });
-  throw error;
-}
-
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const id = params.id === undefined ? null : parseIdParam(params.id, NOT_FOUND);
@@ -119,6 +113,12 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
       </Form>
     </div>
   );
+}
+
+/** A refusal the page shows as an error page. */
+function refused(error: unknown): never {
+  if (error instanceof ReportError) throw data(error.message, { status: error.status });
+  throw error;
 }
 
 export function meta() {
