@@ -23,8 +23,3 @@ export async function endSession(db: Db, userId: number, hashPrefix: string) {
 export async function endOtherSessions(db: Db, userId: number, currentHash: string) {
   await db.deleteFrom("sessions").where("user_id", "=", userId).where("id_hash", "!=", currentHash).execute();
 }
-
-export async function handleTaken(db: Db, handle: string, userId: number) {
-  const row = await db.selectFrom("users").select("id").where("handle", "=", handle).where("id", "!=", userId).executeTakeFirst();
-  return !!row;
-}

@@ -1,21 +1,18 @@
-// Moderation rules: claims, decisions with their second look, evidence verdicts. Everything that
+// Moderation rules: decisions with their second look, evidence verdicts. Everything that
 // changes a report happens in one transaction with the report row locked, and every step writes
 // a row to the append-only decisions log.
 import { type Kysely, sql, type Transaction } from "kysely";
 import type { Database } from "../../db/schema";
 import { enqueue, MAIL_RETRY, QUEUES } from "~/jobs/queue.server";
+import { holdClaimToDecide } from "./claims.server";
+import { DecisionError } from "./decision-error";
 import { moderatorsMaySee } from "./visibility";
 import { type ChecklistKey, type DecisionKind, isReason, reasonLabel } from "./reasons";
 import { needsSecondLook, trustLevel, type History } from "./trust";
 
 type Db = Kysely<Database>;
-export const CLAIM_MINUTES = 15;
 
-export class DecisionError extends Error {
-  constructor(message: string, readonly status: 400 | 403 | 404 | 409) {
-    super(message);
-  }
-}
+export { DecisionError };
 
 /** Reporter histories for trust levels, for one or many reporters. */
 export async function histories(db: Db | Transaction<Database>, reporterIds: number[]): Promise<Map<number, History>> {
@@ -35,60 +32,6 @@ export async function histories(db: Db | Transaction<Database>, reporterIds: num
     }
   }
   return out;
-}
-
-/** Takes a free or expired claim, or renews one's own; undefined while someone else's is live. */
-async function takeClaim(trx: Transaction<Database>, moderatorId: number, reportId: number) {
-  const taken = await sql<{ moderator_id: number; expires_at: Date; fresh: boolean }>`
-    insert into report_claims (report_id, moderator_id, expires_at)
-    values (${reportId}, ${moderatorId}, now() + ${`${CLAIM_MINUTES} minutes`}::interval)
-    on conflict (report_id) do update set moderator_id = excluded.moderator_id, claimed_at = now(), expires_at = excluded.expires_at
-      where report_claims.expires_at < now() or report_claims.moderator_id = excluded.moderator_id
-    returning moderator_id, expires_at, (xmax = 0) as fresh`.execute(trx);
-  return taken.rows[0];
-}
-
-/**
- * Claims a report for CLAIM_MINUTES: takes a free or expired claim, or renews one's own; a live
- * claim by someone else stays theirs. One statement, so two moderators opening the same report
- * at once cannot both win.
- */
-export async function claim(db: Db, moderatorId: number, reportId: number) {
-  return db.transaction().execute(async (trx) => {
-    const report = await trx.selectFrom("reports").select(["id", "status", "reporter_id", "version"]).where("id", "=", reportId).executeTakeFirst();
-    if (!report || !moderatorsMaySee(report.status)) throw new DecisionError("No such report", 404);
-    const none = { held: false as const, mine: false, expiresAt: null, holder: null };
-    if (report.reporter_id === moderatorId || report.status !== "submitted") return none;
-    // Whoever gave the first accept leaves the report free for the second look.
-    const accepted = await trx.selectFrom("decisions").select("id").where("report_id", "=", reportId)
-      .where("moderator_id", "=", moderatorId).where("action", "=", "accept").where("report_version", "=", report.version).executeTakeFirst();
-    if (accepted) return { ...none, alreadyAccepted: true };
-    const row = await takeClaim(trx, moderatorId, reportId);
-    if (row) {
-      if (row.fresh) {
-        await trx.insertInto("decisions").values({ report_id: reportId, moderator_id: moderatorId, action: "claim", reason_code: "review_started", report_version: report.version }).execute();
-      }
-      return { held: true as const, mine: true, expiresAt: row.expires_at, holder: null };
-    }
-    const holder = await trx.selectFrom("report_claims as c").innerJoin("users as u", "u.id", "c.moderator_id")
-      .select(["u.handle", "c.expires_at"]).where("c.report_id", "=", reportId).executeTakeFirstOrThrow();
-    return { held: true as const, mine: false, expiresAt: holder.expires_at, holder: holder.handle };
-  });
-}
-
-/**
- * The rule for deciding: nobody else may hold a live claim. The decider takes the claim (a free or
- * expired one) or renews their own in the decision's transaction, with the same upsert as claim(),
- * so a claim taken a moment ago by another moderator cannot slip in between check and decision. A
- * decision that fails rolls the claim back with everything else; one that ends the review drops it.
- * Another moderator's live claim answers 409 with who holds it and until when.
- */
-async function holdClaimToDecide(trx: Transaction<Database>, moderatorId: number, reportId: number) {
-  if (await takeClaim(trx, moderatorId, reportId)) return;
-  const holder = await trx.selectFrom("report_claims as c").innerJoin("users as u", "u.id", "c.moderator_id")
-    .select(["u.handle", "c.expires_at"]).where("c.report_id", "=", reportId).executeTakeFirstOrThrow();
-  const until = new Date(holder.expires_at).toISOString().slice(11, 16);
-  throw new DecisionError(`${holder.handle} has this report open until ${until} UTC; deciding waits until they decide or their claim runs out.`, 409);
 }
 
 export interface DecisionInput {

@@ -37,10 +37,15 @@ export interface FlagInput {
   maxInletKpa: number;
 }
 
+/** The safety rule: an inlet pressure above the tool's rating, beyond gauge error (the form warns, the report is flagged). */
+export function aboveRatedInlet(inletKpa: number, maxInletKpa: number): boolean {
+  return inletKpa > maxInletKpa + GAUGE_ERROR_KPA;
+}
+
 /** The flags that follow from the report's own numbers. */
 export function plausibilityFlags(r: FlagInput): FlagCode[] {
   const flags: FlagCode[] = [];
-  if (r.inletKpa > r.maxInletKpa + GAUGE_ERROR_KPA) flags.push("above_rated_inlet");
+  if (aboveRatedInlet(r.inletKpa, r.maxInletKpa)) flags.push("above_rated_inlet");
   if (r.inletKpa > r.regulatorKpa + GAUGE_ERROR_KPA) flags.push("inlet_above_regulator");
   if (Math.max(r.inletKpa, r.regulatorKpa) > PRESSURE_LIMIT_KPA) flags.push("pressure_above_limit");
   return flags;

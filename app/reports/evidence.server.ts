@@ -128,6 +128,13 @@ export async function setEvidencePublic(db: Db, userId: number, evidenceId: numb
   return { id: evidenceId, isPublic };
 }
 
+/** A report's files as its editor lists them (pending uploads left out). */
+export async function listReportEvidence(db: Db, reportId: number) {
+  const rows = await db.selectFrom("evidence").select(["id", "kind", "content_type", "size_bytes", "status", "is_public"])
+    .where("report_id", "=", reportId).where("status", "!=", "pending").execute();
+  return rows.map((e) => ({ id: e.id, kind: e.kind, contentType: e.content_type, size: e.size_bytes == null ? null : Number(e.size_bytes), status: e.status, isPublic: e.is_public }));
+}
+
 /** The reporter's checked files, by report, with whether each is published. */
 export async function publishableFiles(db: Db, userId: number) {
   return db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")

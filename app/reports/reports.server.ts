@@ -19,7 +19,7 @@ export class ReportError extends Error {
 export async function findModel(db: Db, slug: string) {
   return db.selectFrom("tool_models as m").innerJoin("tool_categories as c", "c.id", "m.category_id")
     .innerJoin("makers as mk", "mk.id", "m.maker_id")
-    .select(["m.id", "m.slug", "m.category_id", "m.max_inlet_kpa", "m.model_code", "mk.name as maker_name", "c.action", "c.name as category_name"])
+    .select(["m.id", "m.slug", "m.category_id", "m.max_inlet_kpa", "m.model_code", "mk.name as maker_name", "c.action", "c.slug as category_slug", "c.name as category_name"])
     .where("m.slug", "=", slug).executeTakeFirst();
 }
 

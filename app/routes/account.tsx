@@ -1,13 +1,17 @@
-import { data, Form, Link, useNavigation } from "react-router";
-import { endOtherSessions, endSession, handleTaken, listSessions } from "~/auth/account.server";
+import { Form, Link, useNavigation } from "react-router";
+import { endOtherSessions, endSession, listSessions } from "~/auth/account.server";
 import { countActiveKeys, createApiKey, listApiKeys, MAX_KEYS_PER_USER, revokeApiKey } from "~/auth/api-keys.server";
 import { accountSchema } from "~/auth/forms";
+import { saveProfile } from "~/auth/profile.server";
 import { requireUser } from "~/auth/session.server";
 import { FORCE_UNITS, formatDate, LENGTH_UNITS, PRESSURE_UNITS } from "~/domain";
+import { SessionsSection } from "~/components/account/sessions-section";
 import { ErrorPage } from "~/components/error-page";
+import { Field, inputClass, Select } from "~/components/field";
 import { db } from "~/db.server";
 import { LIMITS } from "~/feed/params";
 import { type FieldErrors, invalid, parseForm, readForm } from "~/utils/forms";
+import { invariantResponse } from "~/utils/http";
 import type { Route } from "./+types/account";
 
 export async function loader({ request }: Route.LoaderArgs) {
@@ -31,13 +35,11 @@ export async function action({ request }: Route.ActionArgs) {
   const input = form.data;
   switch (input.intent) {
     case "profile": {
-      if (await handleTaken(db, input.handle, user.id)) return invalid({ handle: ["That handle is taken"] }, form.values);
-      await db.updateTable("users").set({ handle: input.handle, pressure_unit: input.pressureUnit, length_unit: input.lengthUnit, force_unit: input.forceUnit })
-        .where("id", "=", user.id).execute();
+      if ((await saveProfile(db, user.id, input)) === "handle-taken") return invalid({ handle: ["That handle is taken"] }, form.values);
       return { ok: true as const, message: "Profile saved." };
     }
     case "end-session":
-      if (!(await endSession(db, user.id, input.ref))) throw data("No such session on your account", { status: 404 });
+      invariantResponse(await endSession(db, user.id, input.ref), "No such session on your account", 404);
       return { ok: true as const, message: "That session is signed out." };
     case "end-other-sessions":
       await endOtherSessions(db, user.id, user.sessionHash);
@@ -50,12 +52,11 @@ export async function action({ request }: Route.ActionArgs) {
       return { ok: true as const, message: "Key created.", newKey: { name: input.name, key } };
     }
     case "revoke-key":
-      if (!(await revokeApiKey(db, user.id, input.keyId))) throw data("No such active key on your account", { status: 404 });
+      invariantResponse(await revokeApiKey(db, user.id, input.keyId), "No such active key on your account", 404);
       return { ok: true as const, message: "Key revoked." };
   }
 }
 
-const input = "mt-1 block w-full rounded border border-stone-300 px-3 py-3 text-base";
 const card = "rounded-lg border border-stone-200 bg-white p-4";
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
@@ -74,47 +75,19 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         <p className="mb-3 text-sm text-stone-600">Your handle is the only name shown publicly. Your e-mail ({user.email}) is never shown or shared.</p>
         <Form method="post" className="grid gap-3 sm:grid-cols-2">
           <input type="hidden" name="intent" value="profile" />
-          <label className="sm:col-span-2">
-            <span className="font-semibold">Public handle</span>
-            <input name="handle" defaultValue={typed("handle", user.handle)} className={input} aria-invalid={errors.handle ? true : undefined} />
-            {errors.handle && <span className="text-sm text-red-700">{errors.handle[0]}</span>}
-          </label>
-          <UnitSelect name="pressureUnit" label="Pressure" options={[...PRESSURE_UNITS]} value={typed("pressureUnit", user.pressureUnit)} />
-          <UnitSelect name="lengthUnit" label="Hose and bit sizes" options={[...LENGTH_UNITS]} value={typed("lengthUnit", user.lengthUnit)} />
-          <UnitSelect name="forceUnit" label="Force" options={[...FORCE_UNITS]} value={typed("forceUnit", user.forceUnit)} />
+          <Field id="handle" label="Public handle" error={errors.handle?.[0]} className="sm:col-span-2">
+            {(control) => <input name="handle" defaultValue={typed("handle", user.handle)} {...control} className={inputClass} />}
+          </Field>
+          <Select id="pressureUnit" name="pressureUnit" label="Pressure" options={unitOptions(PRESSURE_UNITS)} defaultValue={typed("pressureUnit", user.pressureUnit)} />
+          <Select id="lengthUnit" name="lengthUnit" label="Hose and bit sizes" options={unitOptions(LENGTH_UNITS)} defaultValue={typed("lengthUnit", user.lengthUnit)} />
+          <Select id="forceUnit" name="forceUnit" label="Force" options={unitOptions(FORCE_UNITS)} defaultValue={typed("forceUnit", user.forceUnit)} />
           <div className="sm:col-span-2">
             <button type="submit" disabled={busy} className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Save profile</button>
           </div>
         </Form>
       </section>
 
-      <section className={card} aria-labelledby="sessions-heading">
-        <h2 id="sessions-heading" className="mb-2 text-lg font-semibold">Where you are signed in</h2>
-        <p className="mb-3 text-sm text-stone-600">A session ends after 14 days without use, and after 60 days in any case.</p>
-        <ul className="divide-y divide-stone-100">
-          {sessions.map((s) => (
-            <li key={s.ref} className="flex flex-wrap items-center justify-between gap-2 py-2 text-sm">
-              <span>
-                <span className="font-semibold">{s.current ? "This device" : describeAgent(s.userAgent)}</span>{" "}
-                <span className="text-stone-600">· {s.method === "oidc" ? "provider" : "e-mail link"} · since {formatDate(s.createdAt)} · last seen {formatDate(s.lastSeenAt)}</span>
-              </span>
-              {!s.current && (
-                <Form method="post">
-                  <input type="hidden" name="intent" value="end-session" />
-                  <input type="hidden" name="ref" value={s.ref} />
-                  <button type="submit" className="rounded border border-stone-300 px-3 py-2">Sign out</button>
-                </Form>
-              )}
-            </li>
-          ))}
-        </ul>
-        {sessions.length > 1 && (
-          <Form method="post" className="mt-3">
-            <input type="hidden" name="intent" value="end-other-sessions" />
-            <button type="submit" className="rounded border border-stone-300 px-3 py-2 text-sm">Sign out everywhere else</button>
-          </Form>
-        )}
-      </section>
+      <SessionsSection sessions={sessions} />
 
       <section className={card} aria-labelledby="keys-heading">
         <h2 id="keys-heading" className="mb-2 text-lg font-semibold">API keys for the open data feed</h2>
@@ -130,13 +103,11 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         )}
         <Form method="post" className="flex flex-wrap items-end gap-2">
           <input type="hidden" name="intent" value="create-key" />
-          <label className="flex-1">
-            <span className="text-sm font-semibold">Key name</span>
-            <input name="name" defaultValue={values.intent === "create-key" ? String(values.name ?? "") : ""} className={input} aria-invalid={errors.name ? true : undefined} />
-          </label>
+          <Field id="key-name" label="Key name" labelClassName="text-sm font-semibold" error={errors.name?.[0]} className="flex-1">
+            {(control) => <input name="name" defaultValue={values.intent === "create-key" ? String(values.name ?? "") : ""} {...control} className={inputClass} />}
+          </Field>
           <button type="submit" disabled={busy} className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Create key</button>
         </Form>
-        {errors.name && <p className="text-sm text-red-700">{errors.name[0]}</p>}
         {keys.length > 0 && (
           <ul className="mt-3 divide-y divide-stone-100 text-sm">
             {keys.map((k) => (
@@ -161,25 +132,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
   );
 }
 
-function UnitSelect({ name, label, options, value }: { name: string; label: string; options: string[]; value: string }) {
-  return (
-    <label>
-      <span className="font-semibold">{label}</span>
-      <select name={name} defaultValue={value} className={input}>
-        {options.map((o) => <option key={o} value={o}>{o}</option>)}
-      </select>
-    </label>
-  );
-}
-
-function describeAgent(ua: string | null) {
-  if (!ua) return "Unknown device";
-  if (/iPhone|Android/.test(ua)) return "Phone";
-  if (/Chrome|Chromium/.test(ua)) return "Chromium-based browser";
-  if (/Firefox/.test(ua)) return "Firefox";
-  if (/Safari/.test(ua)) return "Safari";
-  return "Other device";
-}
+const unitOptions = (units: readonly string[]) => units.map((u) => [u, u] as const);
 
 export function meta() {
   return [{ title: "Your account — Bayproof" }];

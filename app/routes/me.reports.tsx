@@ -1,17 +1,19 @@
 import { useEffect } from "react";
-import { sql } from "kysely";
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import { requireUser } from "~/auth/session.server";
 import { formatDate, toolName } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
+import { OpenDataFiles } from "~/components/my-reports/open-data-files";
 import { OutcomeBadge } from "~/components/report-table";
 import { db } from "~/db.server";
 import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
 import { EvidenceError, publishableFiles, setEvidencePublic } from "~/reports/evidence.server";
+import { markNoticesRead, recentNotices } from "~/reports/notices.server";
+import { offlineDraftKey } from "~/reports/offline-draft";
 import { listOwnReports } from "~/reports/reports.server";
 import { EDITABLE, WITHDRAWABLE } from "~/reports/status";
-import { readForm } from "~/utils/forms";
+import { formValues, readForm } from "~/utils/forms";
 import { groupBy } from "~/utils/group";
 import { idField, parseIdSearchParam } from "~/utils/params";
 import type { Route } from "./+types/me.reports";
@@ -22,32 +24,34 @@ export async function loader({ request }: Route.LoaderArgs) {
   const submitted = parseIdSearchParam(request, "submitted");
   const [reports, notices, files] = await Promise.all([
     listOwnReports(db, user.id),
-    db.selectFrom("notices").select(["id", "message", "created_at", "read_at", "report_id"]).where("user_id", "=", user.id)
-      .orderBy("created_at", "desc").limit(10).execute(),
+    recentNotices(db, user.id),
     publishableFiles(db, user.id),
   ]);
   return { reports, notices, files, submitted, withdrawn: url.searchParams.has("withdrawn") };
 }
 
-const publishForm = z.object({ evidenceId: idField(), publish: z.enum(["yes", "no"]) });
+const myReportsForm = z.discriminatedUnion("intent", [
+  z.object({ intent: z.literal("publish-evidence"), evidenceId: idField(), publish: z.enum(["yes", "no"]) }),
+  z.object({ intent: z.literal("read-notices") }),
+]);
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requireUser(request);
-  const form = await readForm(request);
-  const intent = form.get("intent");
-  if (intent === "publish-evidence") {
-    const parsed = publishForm.safeParse(Object.fromEntries(form));
-    if (!parsed.success) throw data("Say which file, and whether to publish it", { status: 400 });
-    try {
-      await setEvidencePublic(db, user.id, parsed.data.evidenceId, parsed.data.publish === "yes");
-    } catch (error) {
-      if (error instanceof EvidenceError) throw data(error.message, { status: error.status });
-      throw error;
-    }
+  const parsed = myReportsForm.safeParse(formValues(await readForm(request)));
+  if (!parsed.success) {
+    throw data(parsed.error.issues[0]?.path[0] === "intent" ? "Unknown request" : "Say which file, and whether to publish it", { status: 400 });
+  }
+  const input = parsed.data;
+  if (input.intent === "read-notices") {
+    await markNoticesRead(db, user.id);
     return { ok: true };
   }
-  if (intent !== "read-notices") throw data("Unknown request", { status: 400 });
-  await db.updateTable("notices").set({ read_at: sql`now()` }).where("user_id", "=", user.id).where("read_at", "is", null).execute();
+  try {
+    await setEvidencePublic(db, user.id, input.evidenceId, input.publish === "yes");
+  } catch (error) {
+    if (error instanceof EvidenceError) throw data(error.message, { status: error.status });
+    throw error;
+  }
   return { ok: true };
 }
 
@@ -69,8 +73,8 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
   const byStatus = groupBy(reports, (r) => r.status);
   useEffect(() => {
     if (!submitted) return;
-    localStorage.removeItem("bayproof:report-form:new");
-    localStorage.removeItem(`bayproof:report-form:${submitted}`);
+    localStorage.removeItem(offlineDraftKey(null));
+    localStorage.removeItem(offlineDraftKey(submitted));
   }, [submitted]);
   return (
     <div className="space-y-6">
@@ -134,30 +138,6 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
         </section>
       ))}
     </div>
-  );
-}
-
-/** Publishing a report's files with the open data after it left the form (a plain form each). */
-function OpenDataFiles({ files }: { files: { id: number; kind: string; is_public: boolean }[] }) {
-  return (
-    <details className="mt-2 text-sm">
-      <summary className="cursor-pointer text-bay-700">Files in the open data ({files.filter((f) => f.is_public).length} of {files.length} published)</summary>
-      <p className="mt-1 text-xs text-stone-600">Published files are linked from the open data feed (CC BY 4.0) once the report is accepted. Publish only what shows no faces, number plates or customer details.</p>
-      <ul className="mt-1 space-y-1">
-        {files.map((f, i) => (
-          <li key={f.id} className="flex flex-wrap items-center justify-between gap-2 rounded bg-bay-50 px-2 py-1">
-            <span>{f.kind === "video" ? "Video" : "Photo"} {i + 1}: {f.is_public ? "published" : "not published"}</span>
-            <Form method="post">
-              <input type="hidden" name="evidenceId" value={f.id} />
-              <input type="hidden" name="publish" value={f.is_public ? "no" : "yes"} />
-              <button type="submit" name="intent" value="publish-evidence" className="rounded border border-stone-400 px-2 py-1">
-                {f.is_public ? "Take it out of the open data" : "Publish with the open data"}
-              </button>
-            </Form>
-          </li>
-        ))}
-      </ul>
-    </details>
   );
 }
 

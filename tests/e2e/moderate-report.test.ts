@@ -44,6 +44,8 @@ async function signIn(page: Page, account: RegExp) {
 async function acceptOldest(page: Page, reason: string) {
   await page.getByTestId("queue-row").first().click();
   await page.getByRole("heading", { name: new RegExp(`Report #${reportId}`) }).waitFor();
+  await page.getByRole("button", { name: "Start this review" }).click();
+  await page.getByText(/Held for you until/).waitFor();
   const video = page.locator("video").first();
   await video.evaluate((v: HTMLVideoElement) => v.play());
   await page.waitForFunction(() => (document.querySelector("video")?.currentTime ?? 0) > 0.2);

@@ -162,9 +162,9 @@ beforeAll(async () => {
     submittedReport: Number(new URL(submitted.location!, baseUrl()).searchParams.get("submitted")),
     targetUser: target.id,
   };
-  // Opening a report claims it for the moderator: done here, so the page a refused decision
-  // renders again changes nothing.
-  for (const who of ["moderator", "admin"] as const) await send(who, "GET", `/review/${own.submittedReport}`);
+  // Starting the review claims the report for the moderator (the admin's start finds it held):
+  // done here, so the decisions that follow meet a claim already taken.
+  for (const who of ["moderator", "admin"] as const) await send(who, "POST", `/review/${own.submittedReport}`, encodeBody([["intent", "claim"]], "urlencoded"));
 });
 
 afterAll(() => {

@@ -5,7 +5,7 @@
 import fc from "fast-check";
 import type { z } from "zod";
 import { accountSchema, emailSchema, roleSchema, userSearchSchema } from "../../app/auth/forms";
-import { decisionSchema } from "../../app/moderation/decision-form";
+import { claimSchema, decisionFields } from "../../app/moderation/decision-form";
 import { reportFields } from "../../app/reports/form-schema";
 import { validReport } from "../support/reports";
 
@@ -86,7 +86,8 @@ export const FORM_TARGETS: FormTarget[] = [
   })),
   { kind: "form", path: () => "/me/reports", fields: ["intent", "evidenceId", "publish"], who: ALL,
     base: (_, n): Record<string, string> => (n % 2 ? { intent: "publish-evidence", evidenceId: "1", publish: "yes" } : { intent: "read-notices" }) },
-  { kind: "form", path: (own) => `/review/${own.submittedReport}`, fields: [...fieldsOf(decisionSchema), "evidence_1", "check_tool"], who: ALL,
+  { kind: "form", path: (own) => `/review/${own.submittedReport}`, fields: fieldsOf(claimSchema), who: ALL, base: () => ({ intent: "claim" }) },
+  { kind: "form", path: (own) => `/review/${own.submittedReport}`, fields: [...fieldsOf(decisionFields), "evidence_1", "check_tool"], who: ALL,
     base: () => ({ action: "return", reasonCode: "gauge_unreadable", note: "Show the gauge", version: "1", seenDecisions: "0" }) },
 ];
 
@@ -137,7 +138,7 @@ export const transport: fc.Arbitrary<Transport> = fc.oneof(
 export const damage = (fields: string[]) =>
   fc.record({
     changed: fields.length ? fc.uniqueArray(fc.tuple(fc.constantFrom(...fields), hostileText), { maxLength: 3, selector: ([k]) => k }) : fc.constant([] as [string, string][]),
-    missing: fields.length ? fc.subarray(fields, { maxLength: 2 }) : fc.constant([] as string[]),
+    missing: fields.length ? fc.subarray(fields, { maxLength: Math.min(2, fields.length) }) : fc.constant([] as string[]),
     repeated: fields.length ? fc.subarray(fields, { maxLength: 1 }) : fc.constant([] as string[]),
     transport,
   });

@@ -37,6 +37,11 @@ async function decideAs(client: Browserish, id: number, form: Record<string, str
   return client.post(`/review/${id}`, { version: String(s.version), seenDecisions: String(s.seen), ...form });
 }
 
+/** Starting a review takes the claim: an explicit POST, never the page's GET. */
+async function startReview(client: Browserish, id: number) {
+  return client.post(`/review/${id}`, { intent: "claim" });
+}
+
 beforeAll(async () => {
   mod1 = await signedInAs(db, "moderator@demo.bayproof.test");
   mod2 = await signedInAs(db, "moderator2@demo.bayproof.test");
@@ -107,9 +112,12 @@ describe("what moderators never see", () => {
 });
 
 describe("claims and concurrency", () => {
-  it("claims a report for the first moderator who opens it and shows others who holds it", async () => {
+  it("claims a report for the first moderator who starts the review and shows others who holds it", async () => {
     const { id } = await freshReport();
     expect((await mod1.get(`/review/${id}`)).status).toBe(200);
+    // Opening the page only reads: the claim is taken by starting the review (a POST).
+    expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
+    expect((await startReview(mod1, id)).status).toBe(200);
     const other = await (await mod2.get(`/review/${id}`)).text();
     expect(other).toMatch(/mod-harriet<!-- --> has this report open|mod-harriet has this report open/);
     const claims = await db.selectFrom("decisions").select("action").where("report_id", "=", id).where("action", "=", "claim").execute();
@@ -118,7 +126,7 @@ describe("claims and concurrency", () => {
 
   it("lets only the holder of a live claim decide, and anyone once it has run out", async () => {
     const { id } = await freshReport();
-    expect((await mod1.get(`/review/${id}`)).status).toBe(200); // mod1 now holds the claim
+    expect((await startReview(mod1, id)).status).toBe(200); // mod1 now holds the claim
     const blocked = await decideAs(mod2, id, { action: "reject", reasonCode: "job_not_shown" });
     expect(blocked.status).toBe(409);
     expect(await blocked.text()).toMatch(/mod-harriet has this report open until/);
@@ -133,10 +141,24 @@ describe("claims and concurrency", () => {
 
   it("lets the holder of the claim decide", async () => {
     const { id } = await freshReport();
-    expect((await mod1.get(`/review/${id}`)).status).toBe(200);
+    expect((await startReview(mod1, id)).status).toBe(200);
     expect((await decideAs(mod1, id, { action: "reject", reasonCode: "job_not_shown" })).status).toBe(200);
     expect((await state(id)).status).toBe("rejected");
     expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
+  });
+
+  it("refuses to start a review another moderator holds, or one not waiting, and writes nothing", async () => {
+    const { id } = await freshReport();
+    expect((await startReview(mod1, id)).status).toBe(200);
+    expect((await startReview(mod1, id)).status).toBe(200); // renewing one's own claim
+    const taken = await startReview(mod2, id);
+    expect(taken.status).toBe(409);
+    expect(await taken.text()).toMatch(/mod-harriet has this report open until/);
+    const claims = await db.selectFrom("decisions").select("moderator_id").where("report_id", "=", id).where("action", "=", "claim").execute();
+    expect(claims).toHaveLength(1);
+    const accepted = await db.selectFrom("reports").select("id").where("status", "=", "accepted").executeTakeFirstOrThrow();
+    expect((await startReview(mod1, accepted.id)).status).toBe(409);
+    expect((await mod1.post(`/review/${id}`, { intent: "take-over" })).status).toBe(400);
   });
 
   it("lets one of two simultaneous decisions win and tells the other", async () => {

@@ -1,0 +1,27 @@
+// The user's own profile: the public handle and the units they enter and read figures in.
+import type { Kysely } from "kysely";
+import type { z } from "zod";
+import type { Database } from "../../db/schema";
+import type { profileSchema } from "./forms";
+
+type Db = Kysely<Database>;
+export type Profile = Omit<z.output<typeof profileSchema>, "intent">;
+
+/** Whether another user already has this handle. */
+export async function handleTaken(db: Db, handle: string, userId: number) {
+  const row = await db.selectFrom("users").select("id").where("handle", "=", handle).where("id", "!=", userId).executeTakeFirst();
+  return !!row;
+}
+
+/** Saves the profile; a handle someone else holds (checked first, and by the unique index when two race) is refused. */
+export async function saveProfile(db: Db, userId: number, p: Profile): Promise<"saved" | "handle-taken"> {
+  if (await handleTaken(db, p.handle, userId)) return "handle-taken";
+  try {
+    await db.updateTable("users").set({ handle: p.handle, pressure_unit: p.pressureUnit, length_unit: p.lengthUnit, force_unit: p.forceUnit })
+      .where("id", "=", userId).execute();
+    return "saved";
+  } catch (error) {
+    if ((error as { code?: string }).code === "23505") return "handle-taken";
+    throw error;
+  }
+}

@@ -1,0 +1,115 @@
+// The report form's sections. Each takes the conform fields it fills; units follow the account.
+import { getTextareaProps } from "@conform-to/react";
+import type { ReactNode } from "react";
+import {
+  CORROSION_LEVELS, COUPLER_LABELS, COUPLER_PROFILES, INLET_SOURCE_CHOICES, type LengthUnit, OUTCOME_CHOICES, pressureToKpa,
+  type PressureUnit, VEHICLE_CLASSES, VEHICLE_LABELS,
+} from "~/domain";
+import { Field, inputClass } from "~/components/field";
+import { SafetyCautions } from "~/components/safety-cautions";
+import { aboveRatedInlet } from "~/moderation/flags";
+import { groupBy } from "~/utils/group";
+import { RadioField, SelectField, TextField } from "./conform-fields";
+import type { ReportFields } from "./hooks";
+import { type ToolChoice, ToolPicker } from "./tool-picker";
+
+export function Section({ legend, children }: { legend: string; children: ReactNode }) {
+  return (
+    <fieldset className="space-y-4 rounded-lg border border-stone-200 bg-white p-4">
+      <legend className="px-1 text-lg font-semibold">{legend}</legend>
+      {children}
+    </fieldset>
+  );
+}
+
+interface Job { slug: string; name: string; category_slug: string; category_name: string }
+
+export function ToolAndJob({ fields, tool, jobs, metric, onPick }: { fields: ReportFields; tool: ToolChoice | null; jobs: Job[]; metric: boolean; onPick: (tool: ToolChoice | null) => void }) {
+  const jobGroups = [...groupBy(jobs.filter((j) => !tool?.categorySlug || j.category_slug === tool.categorySlug), (j) => j.category_name)]
+    .map(([label, list]) => ({ label, options: list.map((j) => [j.slug, j.name] as const) }));
+  return (
+    <Section legend="Tool and job">
+      <ToolPicker initial={tool} error={fields.toolModel.errors?.[0]} onPick={onPick} />
+      <SelectField key={`job-${tool?.categorySlug ?? "all"}`} field={fields.jobType} label="Job" options={[["", "— pick the job —"], ...jobGroups]} />
+      <div className="grid grid-cols-2 gap-3">
+        <SelectField field={fields.vehicleClass} label="Vehicle" options={[["", "—"], ...VEHICLE_CLASSES.map((v) => [v, VEHICLE_LABELS[v] ?? v] as const)]} />
+        <SelectField field={fields.corrosion} label="Corrosion" options={[["", "—"], ...CORROSION_LEVELS.map((c) => [c, c] as const)]} />
+        <TextField label="Part age, years" field={fields.componentAge} inputMode="numeric" />
+        <TextField label={`Bit or socket length, ${metric ? "mm" : "in"}`} field={fields.attachmentLength} inputMode="decimal" />
+      </div>
+      <TextField label="Bit or socket used" field={fields.attachment} placeholder="e.g. pickle fork, tapered punch" />
+      {tool?.action === "percussive" && <SafetyCautions action="percussive" />}
+    </Section>
+  );
+}
+
+type Supply = Record<"regulator" | "hoseId" | "hoseLength" | "couplerProfile" | "couplerCount" | "compressor" | "tank", string>;
+
+interface SupplyProps { fields: ReportFields; pu: PressureUnit; lu: LengthUnit; supplies: Supply[]; inletTyped: string; tool: ToolChoice | null; onReuse: (supply: Supply) => void }
+
+export function AirSupply({ fields, pu, lu, supplies, inletTyped, tool, onReuse }: SupplyProps) {
+  const metric = lu === "mm";
+  const inletKpa = Number(inletTyped) > 0 ? pressureToKpa(Number(inletTyped), pu) : 0;
+  const overRated = tool != null && aboveRatedInlet(inletKpa, tool.maxInletKpa);
+  return (
+    <Section legend="Air supply">
+      {supplies.length > 0 && (
+        <div>
+          <p className="text-sm font-semibold">Your recent supplies — tap to reuse</p>
+          <div className="mt-1 flex flex-wrap gap-2">
+            {supplies.map((s, i) => (
+              <button key={i} type="button" onClick={() => onReuse(s)} className="rounded-full border border-bay-700 px-3 py-2 text-sm text-bay-700">
+                {s.regulator} {pu} · {s.hoseId} {metric ? "mm" : "in"} × {s.hoseLength} {metric ? "m" : "ft"}{s.couplerCount ? ` · ${s.couplerCount} couplers` : ""}
+              </button>
+            ))}
+          </div>
+        </div>
+      )}
+      <div className="grid grid-cols-2 gap-3">
+        <TextField label={`Regulator, ${pu}`} field={fields.regulator} inputMode="decimal" />
+        <TextField label={`At the tool inlet, ${pu}`} field={fields.inlet} inputMode="decimal" />
+      </div>
+      <RadioField field={fields.inletSource} legend="How did you get the inlet pressure?" choices={INLET_SOURCE_CHOICES} />
+      {overRated && (
+        <p role="alert" className="rounded border-l-4 border-red-600 bg-red-50 p-3 text-sm">
+          That is above this tool's rated inlet pressure. Running a tool over its rating can break bits, retainers and the tool itself:
+          follow the maker's instructions. The report will be flagged for the moderators.
+        </p>
+      )}
+      <div className="grid grid-cols-2 gap-3">
+        <TextField label={`Hose inside diameter, ${metric ? "mm" : "in"}`} field={fields.hoseId} placeholder={metric ? "9.5" : "3/8"} />
+        <TextField label={`Hose length, ${metric ? "m" : "ft"}`} field={fields.hoseLength} inputMode="decimal" />
+        <SelectField field={fields.couplerProfile} label="Couplers" options={[["", "— profile —"], ...COUPLER_PROFILES.map((k) => [k, COUPLER_LABELS[k]] as const)]} />
+        <TextField label="How many couplers" field={fields.couplerCount} inputMode="numeric" />
+        <TextField label={`Compressor delivery, ${metric ? "l/s" : "SCFM"}`} field={fields.compressor} inputMode="decimal" />
+        <TextField label={`Tank, ${metric ? "l" : "gal"}`} field={fields.tank} inputMode="decimal" />
+      </div>
+    </Section>
+  );
+}
+
+const TRIGGER_RATINGS = { 1: "1", 2: "2", 3: "3", 4: "4", 5: "5" };
+
+export function Result({ fields }: { fields: ReportFields }) {
+  return (
+    <Section legend="Result">
+      <RadioField field={fields.outcome} choices={OUTCOME_CHOICES} className="grid gap-2" />
+      <div className="grid grid-cols-2 gap-3">
+        <TextField label="Time to result" field={fields.time} placeholder="45 s, 3 min, 1:30" />
+        <TextField label="Attempts" field={fields.attempts} inputMode="numeric" />
+      </div>
+      <RadioField field={fields.triggerControl} legend="Trigger control (1 = hard to feather, 5 = easy)" choices={TRIGGER_RATINGS} className="mt-1 flex gap-2"
+        choiceClassName="flex flex-1 items-center justify-center gap-2 rounded border border-stone-300 py-3" />
+    </Section>
+  );
+}
+
+export function Notes({ fields }: { fields: ReportFields }) {
+  return (
+    <Section legend="Notes">
+      <Field id={fields.notes.id} label="Notes" labelClassName="sr-only" error={fields.notes.errors?.[0]}>
+        {(control) => <textarea {...getTextareaProps(fields.notes)} {...control} rows={4} className={inputClass} placeholder="Penetrant, heat, anything a moderator should know" />}
+      </Field>
+    </Section>
+  );
+}
