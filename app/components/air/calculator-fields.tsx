@@ -1,6 +1,7 @@
 // The fields of "What reaches my tool?": units, supply and line, tool, compressor and tank.
 import type { CalculatorTool, TypedValues } from "~/air/calculator";
 import { COUPLER_LABELS, COUPLER_PROFILES, HOSE_BORES, LENGTH_UNITS, PRESSURE_UNITS, type PressureUnit, SYSTEM_UNITS } from "~/domain";
+import { Field as FieldPrimitive, inputClass, Select as SelectPrimitive } from "~/components/field";
 import type { FieldErrors } from "~/utils/forms";
 
 export function CalculatorFields({ values, errors, tools, metric, pu }: {
@@ -47,27 +48,15 @@ export function CalculatorFields({ values, errors, tools, metric, pu }: {
   );
 }
 
-const inputClass = "mt-1 block w-full rounded border border-stone-300 px-3 py-3 text-base";
-
+/** A calculator field: the shared Field, bound to the typed values and their errors. */
 function Field({ name, label, values, errors, ...rest }: { name: string; label: string; values: TypedValues; errors: FieldErrors } & React.InputHTMLAttributes<HTMLInputElement>) {
-  const error = errors[name]?.[0];
   return (
-    <label className="block">
-      <span className="text-sm font-semibold">{label}</span>
-      <input name={name} defaultValue={values[name] ?? ""} aria-invalid={error ? true : undefined} aria-describedby={error ? `${name}-error` : undefined}
-        className={`${inputClass} ${error ? "border-red-600" : ""}`} autoComplete="off" {...rest} />
-      {error && <span id={`${name}-error`} className="text-sm text-red-700">{error}</span>}
-    </label>
+    <FieldPrimitive id={name} label={label} labelClassName="text-sm font-semibold" error={errors[name]?.[0]}>
+      {(control) => <input name={name} defaultValue={values[name] ?? ""} {...control} className={inputClass} autoComplete="off" {...rest} />}
+    </FieldPrimitive>
   );
 }
 
-function Select({ name, label, value, options }: { name: string; label: string; value: string | undefined; options: (readonly [string, string])[] }) {
-  return (
-    <label className="block">
-      <span className="text-sm font-semibold">{label}</span>
-      <select name={name} defaultValue={value} className={inputClass}>
-        {options.map(([v, text]) => <option key={v} value={v}>{text}</option>)}
-      </select>
-    </label>
-  );
+function Select({ name, label, value, options }: { name: string; label: string; value: string | undefined; options: [string, string][] }) {
+  return <SelectPrimitive id={name} name={name} label={label} labelClassName="text-sm font-semibold" defaultValue={value} options={options} />;
 }
