@@ -61,16 +61,18 @@ export function couplerOutletPa(p1: number, flowLps: number, cv: number): number
   const p1Psia = p1 / 1000 / KPA_PER_PSI;
   const tR = LINE_T_K * 1.8;
   const scfh = (flowLps / LPS_PER_SCFM) * 60;
-  const q = (x: number) => 1360 * cv * p1Psia * (1 - x / 1.5) * Math.sqrt(x / tR);
-  if (scfh >= q(0.5)) return 0;
-  let lo = 0;
-  let hi = 0.5;
-  for (let i = 0; i < 60; i++) {
-    const mid = (lo + hi) / 2;
-    if (q(mid) < scfh) lo = mid;
-    else hi = mid;
+  // q = c·(1 − x/1.5)·√x with c = 1360·Cv·P₁/√T₁; choked (no solution) above q(x_T = 0.5).
+  const c = (1360 * cv * p1Psia) / Math.sqrt(tR);
+  if (scfh >= c * (1 - 0.5 / 1.5) * Math.sqrt(0.5)) return 0;
+  // Fixed point x = (q/c / (1 − x/1.5))², which contracts on the subcritical branch.
+  let x = (scfh / c) ** 2;
+  for (let i = 0; i < 100; i++) {
+    const next = (scfh / c / (1 - x / 1.5)) ** 2;
+    if (next >= 0.5) return 0;
+    if (Math.abs(next - x) < 1e-13) return p1 * (1 - next);
+    x = next;
   }
-  return p1 * (1 - (lo + hi) / 2);
+  return p1 * (1 - x);
 }
 
 export interface WorldLine {
@@ -90,18 +92,36 @@ export function worldOutletKpa(regulatorKpa: number, flowLps: number, line: Worl
 
 /**
  * The inlet pressure while the tool runs: its free-air draw grows with absolute inlet pressure
- * (a choked port), from `runningLpsAt90` at 90 psi. Bisection on [0, regulator].
+ * (a choked port), from `runningLpsAt90` at 90 psi. The residual outlet − p falls as p rises; the
+ * Illinois form of regula falsi on [0, regulator] finds its root to 1e-7 kPa.
  */
 export function worldInletKpa(regulatorKpa: number, runningLpsAt90: number, line: WorldLine) {
   const at90Abs = 90 * KPA_PER_PSI + FREE_AIR_PA / 1000;
   const demand = (p: number) => (runningLpsAt90 * (p + FREE_AIR_PA / 1000)) / at90Abs;
-  let lo = 0;
-  let hi = regulatorKpa;
-  for (let i = 0; i < 50; i++) {
-    const mid = (lo + hi) / 2;
-    if (worldOutletKpa(regulatorKpa, demand(mid), line) > mid) lo = mid;
-    else hi = mid;
-  }
-  const inletKpa = (lo + hi) / 2;
+  const residual = (p: number) => worldOutletKpa(regulatorKpa, demand(p), line) - p;
+  let a = 0;
+  let fa = residual(a);
+  let b = regulatorKpa;
+  let fb = residual(b);
+  let inletKpa = 0;
+  if (fa > 0 && fb < 0) {
+    let side = 0;
+    for (let i = 0; i < 100; i++) {
+      inletKpa = (a * fb - b * fa) / (fb - fa);
+      const f = residual(inletKpa);
+      if (Math.abs(f) < 1e-7 || b - a < 1e-9) break;
+      if (f > 0) {
+        a = inletKpa;
+        fa = f;
+        if (side === -1) fb /= 2;
+        side = -1;
+      } else {
+        b = inletKpa;
+        fb = f;
+        if (side === 1) fa /= 2;
+        side = 1;
+      }
+    }
+  } else if (fb >= 0) inletKpa = regulatorKpa;
   return { inletKpa, demandLps: demand(inletKpa) };
 }
