@@ -10,10 +10,11 @@ export async function up(db: Kysely<any>): Promise<void> {
     add column running_air_lps double precision check (running_air_lps > 0 and running_air_lps < 400),
     add column running_air_source text check (running_air_source in ('maker_sheet', 'measured', 'estimated')),
     add column running_air_factor double precision check (running_air_factor >= 1 and running_air_factor <= 10),
-    add constraint tool_models_running_air_sourced check (
-      (running_air_lps is null and running_air_source is null and running_air_factor is null)
-      or (running_air_lps is not null and running_air_source = 'estimated' and running_air_factor is not null)
-      or (running_air_lps is not null and running_air_source in ('maker_sheet', 'measured') and running_air_factor is null))`.execute(db);
+    add constraint tool_models_running_air_sourced check (case
+      when running_air_lps is null then running_air_source is null and running_air_factor is null
+      when running_air_source = 'estimated' then running_air_factor is not null
+      when running_air_source in ('maker_sheet', 'measured') then running_air_factor is null
+      else false end)`.execute(db);
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
