@@ -88,6 +88,11 @@ export interface ToolModelsTable {
   rated_air_lps: number;
   max_inlet_kpa: ColumnType<number, number | undefined, number>;
   measured_specs: TextArray;
+  /** Air use while running (hammering, impacting), l/s free air at 90 psi; migration 2026-12-02T12.30. */
+  running_air_lps: number | null;
+  running_air_source: "maker_sheet" | "measured" | "estimated" | null;
+  /** Set only when the source is "estimated": running = rated × factor. */
+  running_air_factor: number | null;
   created_at: Timestamp;
 }
 

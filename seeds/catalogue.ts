@@ -111,3 +111,21 @@ export const models: ModelSeed[] = [
   { maker: "brackwater", category: "air-ratchet", code: "BR-100", name: "High-torque ratchet", fitting: "drive-3/8", rpm: 160, torqueNm: 110, weightKg: 1.3, lengthMm: 300, priceUsd: 99, inlet: NPT14, ratedLps: 2.0, popularity: 0.55 },
   { maker: "halvard", category: "air-ratchet", code: "HR-12", name: "1/2 in ratchet", fitting: "drive-1/2", rpm: 150, torqueNm: 135, weightKg: 1.5, lengthMm: 340, priceUsd: 139, inlet: NPT14, ratedLps: 2.1, popularity: 0.3 },
 ];
+
+/**
+ * Demo only: each model's air use while running (hammering, impacting) in the demo world, and what
+ * the catalogue says of it — the maker's sheet, a measurement, or the average times a stated factor.
+ * The world's tools draw 2–3× their average while hammering or impacting (issue 17, from memory),
+ * ratchets 1.3–1.8×.
+ */
+export const runningAir = models.map((m, i) => {
+  const spread = (i * 0.37) % 1;
+  const ratchet = m.category === "air-ratchet";
+  const trueLps = Math.round(m.ratedLps * (ratchet ? 1.3 + 0.5 * spread : 2 + spread) * 100) / 100;
+  const source = i % 4 === 0 ? "maker_sheet" as const : i % 5 === 0 ? "measured" as const : "estimated" as const;
+  const factor = ratchet ? 1.5 : 2.5;
+  const lps = source === "maker_sheet" ? Math.round(trueLps * 10) / 10
+    : source === "measured" ? Math.round(trueLps * (0.95 + 0.1 * ((i * 0.61) % 1)) * 100) / 100
+      : Math.round(m.ratedLps * factor * 100) / 100;
+  return { trueLps, catalogue: { lps, source, factor: source === "estimated" ? factor : null } };
+});

@@ -2,7 +2,7 @@
 // Loading into a database that already has a catalogue does nothing.
 import { type Kysely, sql } from "kysely";
 import type { Database, NewDecision, NewReport } from "../db/schema";
-import { categories, jobTypes, makers, models } from "./catalogue";
+import { categories, jobTypes, makers, models, runningAir } from "./catalogue";
 import { DEMO_OIDC_PROVIDER, demoSubject, people, shops } from "./people";
 import { generateReports, makeRng } from "./reports";
 
@@ -44,7 +44,7 @@ export async function loadDemoScenario(db: Kysely<Database>): Promise<{ loaded: 
 
     const modelRows = await trx
       .insertInto("tool_models")
-      .values(models.map((m) => ({
+      .values(models.map((m, i) => ({
         slug: slugify(`${m.maker} ${m.code}`), maker_id: makerId.get(m.maker)!, category_id: categoryId.get(m.category)!,
         model_code: m.code, name: m.name, fitting: m.fitting,
         bore_mm: m.boreMm ?? null, stroke_mm: m.strokeMm ?? null,
@@ -52,6 +52,8 @@ export async function loadDemoScenario(db: Kysely<Database>): Promise<{ loaded: 
         weight_kg: m.weightKg, length_mm: m.lengthMm, street_price_cents: m.priceUsd * 100,
         air_inlet: m.inlet, rated_air_lps: m.ratedLps, max_inlet_kpa: m.maxInletKpa ?? DEFAULT_MAX_INLET_KPA,
         measured_specs: m.measured ?? [],
+        running_air_lps: runningAir[i]!.catalogue.lps, running_air_source: runningAir[i]!.catalogue.source,
+        running_air_factor: runningAir[i]!.catalogue.factor,
       })))
       .returning(["id", "category_id"])
       .execute();

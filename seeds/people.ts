@@ -11,12 +11,12 @@ export interface ShopSeed {
 }
 
 export const shops: ShopSeed[] = [
-  { name: "Cinderlane Auto Repair", city: "Brimwick", region: "East Vale", trade: "automotive", air: { regulatorPsi: 92, compressorLps: 7, tankL: 230, hoseIdIn: 0.25, hoseFt: 35 } },
-  { name: "Northgate Fleet Services", city: "Fennport", region: "Coastal", trade: "fleet", air: { regulatorPsi: 104, compressorLps: 25, tankL: 450, hoseIdIn: 0.375, hoseFt: 50 } },
-  { name: "Ridgeback Heavy Repair", city: "Caddon Ridge", region: "High Plains", trade: "heavy_equipment", air: { regulatorPsi: 108, compressorLps: 40, tankL: 900, hoseIdIn: 0.5, hoseFt: 50 } },
-  { name: "Tamarind Truck & Trailer", city: "Ostermoor", region: "High Plains", trade: "fleet", air: { regulatorPsi: 98, compressorLps: 18, tankL: 450, hoseIdIn: 0.375, hoseFt: 75 } },
-  { name: "Willowmere Garage", city: "Vellan Falls", region: "East Vale", trade: "automotive", air: { regulatorPsi: 88, compressorLps: 5, tankL: 110, hoseIdIn: 0.25, hoseFt: 25 } },
-  { name: "Ironbark Equipment Service", city: "Corranby", region: "North Reach", trade: "heavy_equipment", air: { regulatorPsi: 110, compressorLps: 35, tankL: 900, hoseIdIn: 0.5, hoseFt: 75 } },
+  { name: "Cinderlane Auto Repair", city: "Brimwick", region: "East Vale", trade: "automotive", air: { regulatorPsi: 95, compressorLps: 7, tankL: 230, hoseIdIn: 0.25, hoseFt: 35 } },
+  { name: "Northgate Fleet Services", city: "Fennport", region: "Coastal", trade: "fleet", air: { regulatorPsi: 110, compressorLps: 25, tankL: 450, hoseIdIn: 0.375, hoseFt: 50 } },
+  { name: "Ridgeback Heavy Repair", city: "Caddon Ridge", region: "High Plains", trade: "heavy_equipment", air: { regulatorPsi: 115, compressorLps: 40, tankL: 900, hoseIdIn: 0.5, hoseFt: 50 } },
+  { name: "Tamarind Truck & Trailer", city: "Ostermoor", region: "High Plains", trade: "fleet", air: { regulatorPsi: 105, compressorLps: 18, tankL: 450, hoseIdIn: 0.375, hoseFt: 75 } },
+  { name: "Willowmere Garage", city: "Vellan Falls", region: "East Vale", trade: "automotive", air: { regulatorPsi: 90, compressorLps: 5, tankL: 110, hoseIdIn: 0.25, hoseFt: 25 } },
+  { name: "Ironbark Equipment Service", city: "Corranby", region: "North Reach", trade: "heavy_equipment", air: { regulatorPsi: 120, compressorLps: 35, tankL: 900, hoseIdIn: 0.5, hoseFt: 75 } },
   { name: "Saltmarsh Transit Depot", city: "Thistlebay", region: "Coastal", trade: "fleet", air: { regulatorPsi: 100, compressorLps: 20, tankL: 450, hoseIdIn: 0.375, hoseFt: 35 } },
   { name: "Foxhollow Motor Works", city: "Wexhollow", region: "North Reach", trade: "automotive", air: { regulatorPsi: 96, compressorLps: 9, tankL: 230, hoseIdIn: 0.3125, hoseFt: 50 } },
 ];
