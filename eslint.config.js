@@ -70,6 +70,8 @@ export default defineConfig(
       globals: { ...globals.node },
     },
     rules: {
+      // A variable declared early so a callback can see it, assigned once later, stays `let`.
+      "prefer-const": ["error", { ignoreReadBeforeAssign: true }],
       // `_name` marks a parameter or element kept for its position (a callback's signature, a tuple).
       "@typescript-eslint/no-unused-vars": [
         "error",
