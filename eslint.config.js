@@ -132,6 +132,12 @@ export default defineConfig(
     files: ["app/**/*.tsx"],
     extends: [reactHooks.configs.flat["recommended-latest"]],
     languageOptions: { globals: { ...globals.browser } },
+    rules: {
+      // Warns that the React Compiler would skip a component; the build does not use the compiler.
+      "react-hooks/incompatible-library": "off",
+      // A missing dependency is a stale value on screen: an error, like the other rules of hooks.
+      "react-hooks/exhaustive-deps": "error",
+    },
   },
   {
     files: ["app/**/*.{ts,tsx}", "db/**/*.ts", "migrations/**/*.ts"],
