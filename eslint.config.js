@@ -175,7 +175,8 @@ export default defineConfig(
         "error",
         {
           default: "disallow",
-          message: "{{from.element.type}}{{from.file.categories}} may not import {{to.element.type}}{{to.file.categories}} (DEVELOPERS.md, Layers)",
+          message:
+            "{{from.element.type}}{{from.file.categories}} may not import {{to.element.type}}{{to.file.categories}} (DEVELOPERS.md, Layers)",
           policies: [
             ...Object.entries(LAYERS)
               .filter(([, to]) => to.length > 0)

@@ -96,7 +96,9 @@ export function DataTable({
       >
         <table className={cx("w-full text-left text-sm", width?.table, className)}>
           {caption && <caption className="px-3 py-2 text-left font-semibold">{caption}</caption>}
-          {head && <thead className={framed ? "bg-stone-100 text-xs uppercase text-stone-600" : undefined}>{head}</thead>}
+          {head && (
+            <thead className={framed ? "bg-stone-100 text-xs uppercase text-stone-600" : undefined}>{head}</thead>
+          )}
           <tbody className={cx(framed && "divide-y divide-stone-100", bodyClassName)}>{children}</tbody>
         </table>
       </div>

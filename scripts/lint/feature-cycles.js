@@ -80,7 +80,8 @@ export function featureCycles({ appDir, resolve }) {
       type: "problem",
       docs: { description: "Feature folders of app/ must not import each other in a circle" },
       messages: {
-        cycle: "{{from}} imports {{to}}, and {{to}} already reaches {{from}} ({{loop}}): move the shared need into a module of its own.",
+        cycle:
+          "{{from}} imports {{to}}, and {{to}} already reaches {{from}} ({{loop}}): move the shared need into a module of its own.",
       },
       schema: [],
     },
@@ -95,7 +96,12 @@ export function featureCycles({ appDir, resolve }) {
         const to = target && featureOf(appDir, target);
         if (!to || to === from) return;
         const back = findPath(graph, to, from);
-        if (back) context.report({ node: node.source, messageId: "cycle", data: { from, to, loop: [from, ...back].join(" → ") } });
+        if (back)
+          context.report({
+            node: node.source,
+            messageId: "cycle",
+            data: { from, to, loop: [from, ...back].join(" → ") },
+          });
       }
       return {
         ImportDeclaration: check,
