@@ -143,6 +143,9 @@ export default defineConfig(
     files: ["app/**/*.{ts,tsx}", "db/**/*.ts", "migrations/**/*.ts"],
     plugins: { "import-x": importX, boundaries, bayproof: house },
     settings: {
+      // import-x reads the imported files itself: with TypeScript's parser, or it sees no imports in them.
+      "import-x/parsers": { "@typescript-eslint/parser": [".ts", ".tsx"] },
+      "import-x/extensions": [".ts", ".tsx", ".js", ".cjs", ".mjs"],
       "import-x/resolver-next": [createNodeResolver(resolver.options)],
       "import/resolver": { [resolverFile]: {} },
       "boundaries/root-path": root,
