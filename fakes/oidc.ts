@@ -45,7 +45,7 @@ export async function startOidcProvider({ port, accounts }: { port: number; acco
 
   service.on("beforeAuthorizeRedirect", (redirect: { url: URL }, req: { query: Record<string, unknown> }) => {
     const code = redirect.url.searchParams.get("code");
-    const chosen = String(req.query.account ?? "");
+    const chosen = typeof req.query.account === "string" ? req.query.account : "";
     let account = accounts.find((a) => a.subject === chosen);
     if (chosen === "new") {
       const id = randomBytes(4).toString("hex");
@@ -54,7 +54,8 @@ export async function startOidcProvider({ port, accounts }: { port: number; acco
     if (code && account) byCode.set(code, account);
   });
   service.on("beforeTokenSigning", (token: { payload: Record<string, unknown> }, req: { body?: Record<string, unknown> }) => {
-    const account = byCode.get(String(req.body?.code ?? ""));
+    const code = req.body?.code;
+    const account = typeof code === "string" ? byCode.get(code) : undefined;
     if (!account) return;
     Object.assign(token.payload, { sub: account.subject, email: account.email, email_verified: true, name: account.label });
   });

@@ -1,5 +1,7 @@
 // Just the part of s3rver's API the fake uses (the package ships no types).
 declare module "s3rver" {
+  import type { IncomingMessage, ServerResponse } from "node:http";
+
   interface S3rverOptions {
     address?: string;
     port?: number;
@@ -13,7 +15,7 @@ declare module "s3rver" {
     constructor(options: S3rverOptions);
     run(): Promise<{ address: string; port: number }>;
     /** Koa's request listener; s3rver's own server listens with it. */
-    callback(): (req: import("node:http").IncomingMessage, res: import("node:http").ServerResponse) => void;
+    callback(): (req: IncomingMessage, res: ServerResponse) => void;
     close(): Promise<void>;
   }
 }

@@ -42,7 +42,10 @@ interface Postings {
   attr: number[];
 }
 
-const fieldText = (v: unknown) => (Array.isArray(v) ? v.join(" ") : v == null ? "" : String(v));
+/** A document value as text: strings, numbers and booleans as written, anything else as JSON. */
+export const scalarText = (v: unknown) =>
+  typeof v === "string" ? v : typeof v === "number" || typeof v === "boolean" ? String(v) : JSON.stringify(v);
+const fieldText = (v: unknown) => (Array.isArray(v) ? v.map(scalarText).join(" ") : v == null ? "" : scalarText(v));
 
 export class SearchEngine {
   private readonly docs: Doc[];

@@ -3,7 +3,7 @@
 // backed by an in-memory index per index uid (search-engine.ts: MiniSearch's tokenizer and radix
 // tree, ranked by the service's default rules).
 import http from "node:http";
-import { type Doc, SearchEngine } from "./search-engine";
+import { type Doc, scalarText, SearchEngine } from "./search-engine";
 
 interface Index {
   uid: string;
@@ -48,7 +48,7 @@ export async function startSearchService({ port }: { port: number }) {
 
   const engineFor = (index: Index) => {
     if (index.engine) return index.engine;
-    const sample = index.docs.values().next().value as Doc | undefined;
+    const sample = index.docs.values().next().value;
     const fields = index.settings.searchableAttributes[0] === "*" || index.settings.searchableAttributes.length === 0
       ? Object.keys(sample ?? {}).filter((k) => k !== index.primaryKey)
       : index.settings.searchableAttributes;
@@ -56,7 +56,7 @@ export async function startSearchService({ port }: { port: number }) {
     return index.engine;
   };
 
-  const server = http.createServer(async (req, res) => {
+  const answer = async (req: http.IncomingMessage, res: http.ServerResponse) => {
     const url = new URL(req.url ?? "/", `http://127.0.0.1:${port}`);
     const send = (status: number, body: unknown) => res.writeHead(status, { "Content-Type": "application/json" }).end(JSON.stringify(body));
     const fail = (status: number, code: string, message: string) => send(status, { message, code, type: "invalid_request", link: "" });
@@ -132,7 +132,7 @@ export async function startSearchService({ port }: { port: number }) {
         const facetDistribution: Record<string, Record<string, number>> = {};
         for (const f of facets) {
           const dist: Record<string, number> = {};
-          for (const h of hits) for (const v of [h[f]].flat()) if (v != null) dist[String(v)] = (dist[String(v)] ?? 0) + 1;
+          for (const h of hits) for (const v of [h[f]].flat()) if (v != null) dist[scalarText(v)] = (dist[scalarText(v)] ?? 0) + 1;
           facetDistribution[f] = dist;
         }
         return send(200, {
@@ -144,7 +144,8 @@ export async function startSearchService({ port }: { port: number }) {
     } catch (error) {
       return fail(400, (error as { code?: string }).code ?? "bad_request", (error as Error).message);
     }
-  });
+  };
+  const server = http.createServer((req, res) => void answer(req, res));
   await new Promise<void>((resolve, reject) => {
     server.once("error", reject);
     server.listen(port, "127.0.0.1", () => resolve());

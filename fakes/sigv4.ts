@@ -119,7 +119,7 @@ export function verifySigV4(req: SignedRequest, secrets: Map<string, string>, no
   ].join("\n");
   const scope = `${day}/${region}/${service}/${terminator}`;
   const stringToSign = [ALGORITHM, amzDate, scope, sha256Hex(canonicalRequest)].join("\n");
-  const key = hmac(hmac(hmac(hmac(`AWS4${secret}`, day!), region), service), terminator);
+  const key = hmac(hmac(hmac(hmac(`AWS4${secret}`, day), region), service), terminator);
   const expected = Buffer.from(hmac(key, stringToSign).toString("hex"));
   const given = Buffer.from(signature);
   if (expected.length !== given.length || !timingSafeEqual(expected, given)) {

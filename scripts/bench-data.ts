@@ -1,8 +1,9 @@
 // Synthetic data for the benchmarks: 400 models in 4 categories, 40 job types, `reports` accepted
 // reports spread evenly over each category's models and jobs.
 import { type Kysely, sql } from "kysely";
+import type { Database } from "../db/schema";
 
-export async function buildBenchData(db: Kysely<any>, reports: number) {
+export async function buildBenchData(db: Kysely<Database>, reports: number) {
   await sql`insert into users (email, handle) values ('bench@demo.bayproof.test', 'bench-reporter')`.execute(db);
   await sql`insert into makers (slug, name) select 'bench-maker-' || i, 'Bench maker ' || i from generate_series(1, 10) i`.execute(db);
   await sql`insert into tool_categories (slug, name, action, description)

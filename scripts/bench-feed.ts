@@ -91,7 +91,7 @@ try {
     for (let i = 0; i < 20 && path; i++) {
       const t = performance.now();
       const res = await fetch(`${origin}${path}`, { headers: { authorization: `Bearer ${key}` } });
-      const body = await res.json();
+      const body = (await res.json()) as { next_cursor?: string | null };
       times.push(performance.now() - t);
       path = body.next_cursor ? `/api/v1/reports?${query}&cursor=${body.next_cursor}` : "";
     }

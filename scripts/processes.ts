@@ -53,7 +53,7 @@ export function portInUse(port: number): Promise<boolean> {
 export function portHolder(port: number): { pid: number; command: string } | null {
   const inodes = new Set<string>();
   for (const table of ["/proc/net/tcp", "/proc/net/tcp6"]) {
-    let text = "";
+    let text: string;
     try {
       text = readFileSync(table, "utf8");
     } catch {
@@ -75,7 +75,7 @@ export function portHolder(port: number): { pid: number; command: string } | nul
       continue;
     }
     for (const fd of fds) {
-      let target = "";
+      let target: string;
       try {
         target = readlinkSync(`/proc/${entry}/fd/${fd}`);
       } catch {

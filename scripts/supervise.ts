@@ -47,6 +47,6 @@ export class Supervisor {
   /** SIGTERM to every child (SIGKILL after a grace period); resolves once all are gone. */
   async stopAll() {
     this.stopping = true;
-    await Promise.all([...this.children.values()].map((c) => (c.pid ? stopProcess(c.pid) : undefined)));
+    await Promise.all([...this.children.values()].flatMap((c) => (c.pid ? [stopProcess(c.pid)] : [])));
   }
 }

@@ -9,10 +9,9 @@ const db = createDb(pool);
 const log = (s: string) => console.log(`[worker] ${s}`);
 const worker = await startWorker(url, db, pool, log);
 log("waiting for jobs");
-for (const signal of ["SIGINT", "SIGTERM"] as const) {
-  process.on(signal, async () => {
-    await worker.stop();
-    await db.destroy();
-    process.exit(0);
-  });
+async function shutdown() {
+  await worker.stop();
+  await db.destroy();
+  process.exit(0);
 }
+for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => void shutdown());

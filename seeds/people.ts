@@ -43,14 +43,14 @@ export interface PersonSeed {
 const DOMAIN = "demo.bayproof.test";
 
 export const people: PersonSeed[] = [
-  ...reporterHandles.map((handle, i) => ({
+  ...reporterHandles.map((handle, i): PersonSeed => ({
     handle,
     // The first reporter has the well-known demo address.
     email: i === 0 ? `reporter@${DOMAIN}` : `${handle}@${DOMAIN}`,
     shopIndex: i % shops.length,
     roles: [],
-    pressureUnit: (i % 5 === 4 ? "bar" : "psi") as "psi" | "bar",
-    lengthUnit: (i % 5 === 4 ? "mm" : "in") as "in" | "mm",
+    pressureUnit: i % 5 === 4 ? "bar" : "psi",
+    lengthUnit: i % 5 === 4 ? "mm" : "in",
   })),
   { handle: "mod-harriet", email: `moderator@${DOMAIN}`, shopIndex: 1, roles: ["moderator"], pressureUnit: "psi", lengthUnit: "in" },
   { handle: "mod-quentin", email: `moderator2@${DOMAIN}`, shopIndex: 2, roles: ["moderator"], pressureUnit: "bar", lengthUnit: "mm" },

@@ -1,4 +1,5 @@
 import { isRouteErrorResponse, Link } from "react-router";
+import { Card } from "./ui";
 
 // One rendering of thrown responses and errors for every route: per-status messages,
 // stack traces only in development.
@@ -29,12 +30,12 @@ export function ErrorPage({ error }: { error: unknown }) {
     stack = error.stack;
   }
   return (
-    <section className="rounded-lg border border-stone-200 bg-white p-6">
+    <Card as="section" padding="lg">
       <h1 className="text-2xl font-bold">{title}</h1>
       <p className="mt-2 text-stone-700">{body}</p>
       {detail && <p className="mt-2 text-stone-700">{detail}</p>}
       {stack && <pre className="mt-4 overflow-x-auto rounded bg-stone-100 p-3 text-xs">{stack}</pre>}
       <p className="mt-4"><Link to="/" className="text-bay-700 underline">Back to the start page</Link></p>
-    </section>
+    </Card>
   );
 }

@@ -3,6 +3,7 @@ import {
   formatDate, formatDuration, formatHoseId, formatPressure, type Labels, type Outcome, OUTCOME_LABELS, toolName, VEHICLE_LABELS,
 } from "~/domain";
 import type { AcceptedReportRow } from "~/catalogue/queries.server";
+import { Card } from "./ui";
 
 const OUTCOME_STYLES: Labels<Outcome> = {
   freed: "bg-bay-100 text-bay-900",
@@ -23,7 +24,7 @@ export function OutcomeBadge({ outcome }: { outcome: string | null }) {
 export function ReportList({ reports, show = ["tool", "job"] }: { reports: AcceptedReportRow[]; show?: ("tool" | "job")[] }) {
   if (reports.length === 0) return <p className="text-stone-600">No accepted reports yet.</p>;
   return (
-    <ul className="divide-y divide-stone-200 rounded-lg border border-stone-200 bg-white">
+    <Card as="ul" padding="none" className="divide-y divide-stone-200">
       {reports.map((r) => (
         <li key={r.id} className="flex flex-col gap-1 p-3 sm:flex-row sm:items-center sm:gap-4">
           <div className="flex min-w-0 flex-1 flex-col">
@@ -51,6 +52,6 @@ export function ReportList({ reports, show = ["tool", "job"] }: { reports: Accep
           </dl>
         </li>
       ))}
-    </ul>
+    </Card>
   );
 }

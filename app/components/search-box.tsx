@@ -4,18 +4,19 @@ import { Form, Link, useFetcher } from "react-router";
 /** The header's search: a plain GET form to /search, with suggestions from /api/search as you type. */
 export function SearchBox() {
   const fetcher = useFetcher<{ hits: { id: string; title: string; url: string; kind: string; detail?: string }[] }>();
+  // fetcher.load keeps its identity across renders (the fetcher object does not).
+  const { load } = fetcher;
   const [q, setQ] = useState("");
   const [open, setOpen] = useState(false);
   useEffect(() => {
     if (q.trim().length < 2) return;
-    const t = setTimeout(() => fetcher.load(`/api/search?q=${encodeURIComponent(q.trim())}`), 150);
+    const t = setTimeout(() => void load(`/api/search?q=${encodeURIComponent(q.trim())}`), 150);
     return () => clearTimeout(t);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [q]);
+  }, [q, load]);
   const hits = open && q.trim().length >= 2 ? fetcher.data?.hits ?? [] : [];
   return (
     <Form method="get" action="/search" role="search" className="relative w-full sm:w-64" onSubmit={() => setOpen(false)}>
-      <input name="q" value={q} onChange={(e) => { setQ(e.target.value); setOpen(true); }} onBlur={(e) => { if (!e.currentTarget.form?.contains(e.relatedTarget as Node | null)) setOpen(false); }}
+      <input name="q" value={q} onChange={(e) => { setQ(e.target.value); setOpen(true); }} onBlur={(e) => { if (!e.currentTarget.form?.contains(e.relatedTarget)) setOpen(false); }}
         aria-label="Search tools and reports" placeholder="Search tools and reports" autoComplete="off"
         className="w-full rounded bg-bay-700 px-3 py-2 text-sm text-white placeholder:text-bay-100" />
       {hits.length > 0 && (

@@ -2,6 +2,7 @@ import { Link } from "react-router";
 import { groupBy } from "~/utils/group";
 import { db } from "~/db.server";
 import { ReportList } from "~/components/report-table";
+import { Card } from "~/components/ui";
 import { acceptedReports, countAccepted, listJobs } from "~/catalogue/queries.server";
 import type { Route } from "./+types/_index";
 
@@ -36,7 +37,7 @@ export default function Home({ loaderData }: Route.ComponentProps) {
         <h2 id="jobs-heading" className="mb-3 text-xl font-bold">Jobs</h2>
         <div className="grid gap-4 sm:grid-cols-3">
           {[...byCategory].map(([category, list]) => (
-            <div key={category} className="rounded-lg border border-stone-200 bg-white p-4">
+            <Card key={category}>
               <h3 className="mb-2 font-semibold text-bay-700">{category}</h3>
               <ul className="space-y-1">
                 {list.map((j) => (
@@ -48,7 +49,7 @@ export default function Home({ loaderData }: Route.ComponentProps) {
                   </li>
                 ))}
               </ul>
-            </div>
+            </Card>
           ))}
         </div>
       </section>

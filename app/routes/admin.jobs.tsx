@@ -2,6 +2,7 @@ import { data, Form, useNavigation } from "react-router";
 import { z } from "zod";
 import { requireRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { buttonClass, DataTable } from "~/components/ui";
 import { db } from "~/db.server";
 import { sendAgain, stuckJobs } from "~/jobs/stuck.server";
 import { parseForm } from "~/utils/forms";
@@ -43,18 +44,18 @@ export default function AdminJobs({ loaderData, actionData }: Route.ComponentPro
       <section aria-labelledby="failed-heading" className="space-y-2">
         <h2 id="failed-heading" className="text-lg font-semibold">Failed ({failed.length})</h2>
         {failed.length === 0 ? <p className="text-stone-600">Nothing is stuck.</p> : (
-          <JobTable jobs={failed} when="Gave up" action={(id) => (
+          <JobTable label="Failed work" jobs={failed} when="Gave up" action={(id) => (
             <Form method="post">
               <input type="hidden" name="jobId" value={id} />
               <button type="submit" name="intent" value="send-again" disabled={busy}
-                className="rounded bg-bay-700 px-3 py-2 font-semibold text-white disabled:opacity-60">Send again</button>
+                className={buttonClass("primary", "sm")}>Send again</button>
             </Form>
           )} />
         )}
       </section>
       <section aria-labelledby="retrying-heading" className="space-y-2">
         <h2 id="retrying-heading" className="text-lg font-semibold">Waiting for another try ({retrying.length})</h2>
-        {retrying.length === 0 ? <p className="text-stone-600">None.</p> : <JobTable jobs={retrying} when="Next try" />}
+        {retrying.length === 0 ? <p className="text-stone-600">None.</p> : <JobTable label="Work waiting for another try" jobs={retrying} when="Next try" />}
       </section>
     </div>
   );
@@ -62,17 +63,14 @@ export default function AdminJobs({ loaderData, actionData }: Route.ComponentPro
 
 type Job = Route.ComponentProps["loaderData"]["failed"][number];
 
-function JobTable({ jobs, when, action }: { jobs: Job[]; when: string; action?: (id: string) => React.ReactNode }) {
+function JobTable({ label, jobs, when, action }: { label: string; jobs: Job[]; when: string; action?: (id: string) => React.ReactNode }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-      <table className="w-full min-w-[48rem] text-left text-sm">
-        <thead className="bg-stone-100 text-xs uppercase text-stone-600">
-          <tr>
-            <th className="px-3 py-2">Queue</th><th className="px-3 py-2">What it was for</th><th className="px-3 py-2">Last error</th>
-            <th className="px-3 py-2">Tries</th><th className="px-3 py-2">{when}</th>{action && <th className="px-3 py-2"><span className="sr-only">Action</span></th>}
-          </tr>
-        </thead>
-        <tbody className="divide-y divide-stone-100 align-top">
+    <DataTable label={label} minWidth="48rem" bodyClassName="align-top" head={
+      <tr>
+        <th className="px-3 py-2">Queue</th><th className="px-3 py-2">What it was for</th><th className="px-3 py-2">Last error</th>
+        <th className="px-3 py-2">Tries</th><th className="px-3 py-2">{when}</th>{action && <th className="px-3 py-2"><span className="sr-only">Action</span></th>}
+      </tr>
+    }>
           {jobs.map((j) => (
             <tr key={j.id}>
               <td className="px-3 py-2 font-mono text-xs">{j.queue}</td>
@@ -83,9 +81,7 @@ function JobTable({ jobs, when, action }: { jobs: Job[]; when: string; action?: 
               {action && <td className="px-3 py-2">{j.canSendAgain ? action(j.id) : null}</td>}
             </tr>
           ))}
-        </tbody>
-      </table>
-    </div>
+    </DataTable>
   );
 }
 

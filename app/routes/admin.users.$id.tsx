@@ -4,6 +4,7 @@ import { BAN_REASON_MAX, BAN_REASON_MIN, BanError, changeBan, userForAdmin } fro
 import { requireRole } from "~/auth/session.server";
 import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
+import { buttonClass, Card, cardClass } from "~/components/ui";
 import { db } from "~/db.server";
 import { parseForm } from "~/utils/forms";
 import { invariantResponse } from "~/utils/http";
@@ -56,7 +57,7 @@ export default function AdminUser({ loaderData, actionData }: Route.ComponentPro
       <header>
         <h1 className="text-2xl font-bold">{user.handle}</h1>
         <p className="text-sm text-stone-600">
-          {user.email} · joined {formatDate(user.created_at)} · {banned ? `banned since ${formatDate(user.banned_at!)}` : "in good standing"} ·
+          {user.email} · joined {formatDate(user.created_at)} · {banned ? `banned since ${formatDate(user.banned_at)}` : "in good standing"} ·
           {" "}{sessions} session{sessions === 1 ? "" : "s"} · {activeKeys} active API key{activeKeys === 1 ? "" : "s"}
         </p>
       </header>
@@ -64,7 +65,7 @@ export default function AdminUser({ loaderData, actionData }: Route.ComponentPro
         <p role={actionData.ok ? "status" : "alert"} className={`rounded px-3 py-2 ${actionData.ok ? "bg-bay-100" : "bg-red-100 text-red-900"}`}>{actionData.message}</p>
       )}
       {self ? <p className="text-stone-600">This is your own account; another admin would have to ban it.</p> : (
-        <Form method="post" className="space-y-3 rounded-lg border border-stone-300 bg-white p-4">
+        <Form method="post" className={cardClass("md", "space-y-3")}>
           <h2 className="font-semibold">{banned ? "Lift the ban" : "Ban this account"}</h2>
           <p className="text-sm text-stone-600">
             {banned ? "They may sign in again; their old sessions and keys stay ended." : "Every session ends now and every API key is revoked. Their reports stay."}
@@ -75,7 +76,7 @@ export default function AdminUser({ loaderData, actionData }: Route.ComponentPro
               className="mt-1 block w-full rounded border border-stone-300 px-3 py-2" />
           </label>
           <button type="submit" name="intent" value={banned ? "unban" : "ban"} disabled={busy}
-            className={`rounded px-5 py-3 font-semibold text-white ${banned ? "bg-bay-700" : "bg-red-800"}`}>
+            className={buttonClass(banned ? "primary" : "danger")}>
             {banned ? "Unban" : "Ban"}
           </button>
         </Form>
@@ -83,13 +84,13 @@ export default function AdminUser({ loaderData, actionData }: Route.ComponentPro
       <section aria-labelledby="bans-heading">
         <h2 id="bans-heading" className="mb-2 text-lg font-semibold">Bans and unbans</h2>
         {bans.length === 0 ? <p className="text-stone-600">None.</p> : (
-          <ul className="rounded-lg border border-stone-200 bg-white text-sm">
+          <Card as="ul" padding="none" className="text-sm">
             {bans.map((b) => (
               <li key={b.id} className="border-b border-stone-100 px-3 py-2 last:border-0">
                 {formatDate(b.created_at)}: {b.actor_handle ?? "someone"} {b.change === "ban" ? "banned" : "unbanned"} — {b.reason}
               </li>
             ))}
-          </ul>
+          </Card>
         )}
       </section>
     </div>

@@ -4,6 +4,7 @@ import { roleSchema, userSearchSchema } from "~/auth/forms";
 import { requireRole } from "~/auth/session.server";
 import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
+import { buttonClass, Card, DataTable } from "~/components/ui";
 import { db } from "~/db.server";
 import { parseForm, readForm } from "~/utils/forms";
 import type { Route } from "./+types/admin.users";
@@ -40,14 +41,11 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
       <Form method="get" className="flex gap-2">
         <label className="sr-only" htmlFor="q">Search by handle or e-mail</label>
         <input id="q" name="q" defaultValue={q} placeholder="Handle or e-mail" className="flex-1 rounded border border-stone-300 px-3 py-3" />
-        <button type="submit" className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Search</button>
+        <button type="submit" className={buttonClass()}>Search</button>
       </Form>
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-        <table className="w-full min-w-[40rem] text-left text-sm">
-          <thead className="bg-stone-100 text-xs uppercase text-stone-600">
-            <tr><th className="px-3 py-2">Handle</th><th className="px-3 py-2">E-mail</th><th className="px-3 py-2">Shop</th><th className="px-3 py-2">Roles</th></tr>
-          </thead>
-          <tbody className="divide-y divide-stone-100">
+      <DataTable label="Users" minWidth="40rem" head={
+        <tr><th className="px-3 py-2">Handle</th><th className="px-3 py-2">E-mail</th><th className="px-3 py-2">Shop</th><th className="px-3 py-2">Roles</th></tr>
+      }>
             {users.map((u) => (
               <tr key={u.id}>
                 <td className="px-3 py-2 font-semibold">
@@ -77,19 +75,17 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
                 </td>
               </tr>
             ))}
-          </tbody>
-        </table>
-      </div>
+      </DataTable>
       <section aria-labelledby="log-heading">
         <h2 id="log-heading" className="mb-2 text-lg font-semibold">Recent role changes</h2>
         {changes.length === 0 ? <p className="text-stone-600">None yet.</p> : (
-          <ul className="rounded-lg border border-stone-200 bg-white text-sm">
+          <Card as="ul" padding="none" className="text-sm">
             {changes.map((c) => (
               <li key={c.id} className="border-b border-stone-100 px-3 py-2 last:border-0">
                 {formatDate(c.created_at)}: {c.actor_handle ?? "someone"} {c.change === "grant" ? "made" : "removed"} {c.user_handle} {c.change === "grant" ? "a" : "as"} {c.role}
               </li>
             ))}
-          </ul>
+          </Card>
         )}
       </section>
     </div>

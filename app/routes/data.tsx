@@ -1,9 +1,10 @@
 import { Link } from "react-router";
+import { DataDictionary, SnapshotSection } from "~/components/open-data";
+import { DataTable } from "~/components/ui";
 import { config } from "~/config.server";
 import { db } from "~/db.server";
 import { latestSnapshot } from "~/feed/snapshot.server";
 import { citation, LICENCE } from "~/feed/documents";
-import { type Field, RECORD_TYPES, type RecordType } from "~/feed/fields";
 import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "~/feed/params";
 import type { Route } from "./+types/data";
 
@@ -11,10 +12,6 @@ export async function loader() {
   const day = new Date().toISOString().slice(0, 10);
   return { origin: config.appOrigin, citation: citation(config.appOrigin, day), snapshot: await latestSnapshot(db) };
 }
-
-const TYPE_LABEL: Record<Field["type"], string> = {
-  integer: "integer", number: "number", string: "text", boolean: "true/false", datetime: "date-time (UTC)", "string-array": "list of text", object: "object",
-};
 
 const ENDPOINTS = [
   ["/api/v1/reports", "report-page", "Accepted reports, a page at a time (filters model, job, category, accepted_since, accepted_until; limit, cursor)"],
@@ -51,14 +48,11 @@ export default function Data({ loaderData }: Route.ComponentProps) {
         <p className="mt-2 text-sm text-stone-600">Give the date you retrieved it, and the <code>as_of</code> of your walk when you page through reports, so others can find the same rows.</p>
       </section>
 
-      <Snapshot snapshot={loaderData.snapshot} origin={origin} />
+      <SnapshotSection snapshot={loaderData.snapshot} origin={origin} />
 
       <section aria-labelledby="endpoints" className="space-y-2">
         <h2 id="endpoints" className="text-lg font-semibold">Endpoints</h2>
-        <div className="overflow-x-auto">
-          <table className="w-full text-left text-sm">
-            <thead><tr className="border-b"><th className="py-1 pr-3">Path</th><th className="py-1 pr-3">Schema</th><th className="py-1">What</th></tr></thead>
-            <tbody>
+        <DataTable label="Endpoints" framed={false} head={<tr className="border-b"><th className="py-1 pr-3">Path</th><th className="py-1 pr-3">Schema</th><th className="py-1">What</th></tr>}>
               {ENDPOINTS.map(([path, schema, what]) => (
                 <tr key={path} className="border-b border-stone-100 align-top">
                   <td className="py-1 pr-3 font-mono text-xs">{path}</td>
@@ -66,9 +60,7 @@ export default function Data({ loaderData }: Route.ComponentProps) {
                   <td className="py-1">{what}</td>
                 </tr>
               ))}
-            </tbody>
-          </table>
-        </div>
+        </DataTable>
         <p className="text-sm">
           Machine-readable: <a className="underline" href="/api/v1/openapi.json">OpenAPI 3.1 document</a>,{" "}
           <a className="underline" href="/api/v1/datapackage.json">Data Package descriptor</a> of the bulk files, and a JSON Schema (2020-12) for every
@@ -110,91 +102,8 @@ export default function Data({ loaderData }: Route.ComponentProps) {
         </p>
       </section>
 
-      <section aria-labelledby="dictionary" className="space-y-6">
-        <h2 id="dictionary" className="text-lg font-semibold">Data dictionary</h2>
-        {(Object.keys(RECORD_TYPES) as RecordType[]).map((type) => <Dictionary key={type} type={type} />)}
-      </section>
+      <DataDictionary />
     </article>
-  );
-}
-
-function Snapshot({ snapshot, origin }: { snapshot: Route.ComponentProps["loaderData"]["snapshot"]; origin: string }) {
-  return (
-    <section aria-labelledby="snapshot" className="space-y-2">
-      <h2 id="snapshot" className="text-lg font-semibold">Daily snapshot</h2>
-      {!snapshot ? (
-        <p className="text-sm text-stone-600">The first snapshot has not been written yet. One is written every day at 03:15 UTC.</p>
-      ) : (
-        <>
-          <p className="max-w-prose text-sm">
-            Every report accepted as of <strong>{snapshot.createdAt.replace("T", " ").slice(0, 19)} UTC</strong> ({snapshot.reportCount} reports),
-            gzipped, open to anyone — no account or key. A new snapshot is written every day at 03:15 UTC; these links name this one, so the
-            SHA-256 below always matches what you download.
-          </p>
-          <div className="overflow-x-auto">
-            <table className="w-full text-left text-sm">
-              <thead><tr className="border-b"><th className="py-1 pr-3">File</th><th className="py-1 pr-3">Size</th><th className="py-1">SHA-256</th></tr></thead>
-              <tbody>
-                {snapshot.files.map((f) => (
-                  <tr key={f.format} className="border-b border-stone-100 align-top">
-                    <td className="py-1 pr-3"><a className="underline" href={f.path} download>{f.path.split("/").pop()}</a> <span className="text-stone-500">({f.format.toUpperCase()})</span></td>
-                    <td className="py-1 pr-3 whitespace-nowrap">{formatBytes(f.bytes)}</td>
-                    <td className="py-1 break-all font-mono text-xs">{f.sha256}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
-          <pre className="overflow-x-auto rounded bg-stone-900 p-3 text-xs text-stone-100">{[
-            `curl -s -O '${origin}${snapshot.files[0]!.path}'`,
-            `echo '${snapshot.files[0]!.sha256}  reports.${snapshot.files[0]!.format}.gz' | sha256sum -c`,
-          ].join("\n")}</pre>
-        </>
-      )}
-    </section>
-  );
-}
-
-/** A file size in the unit a person reads (powers of 1024, as `ls -h` shows them). */
-function formatBytes(bytes: number) {
-  const units = ["bytes", "KiB", "MiB", "GiB"];
-  let value = bytes;
-  let unit = 0;
-  while (value >= 1024 && unit < units.length - 1) {
-    value /= 1024;
-    unit++;
-  }
-  return unit === 0 ? `${bytes} bytes` : `${value.toFixed(1)} ${units[unit]}`;
-}
-
-function Dictionary({ type }: { type: RecordType }) {
-  const t = RECORD_TYPES[type];
-  const rows = t.fields.flatMap((f) => [f, ...(f.fields ?? []).map((g) => ({ ...g, name: `${f.name}.${g.name}` }))]);
-  return (
-    <div>
-      <h3 className="font-semibold">{t.title} <a className="text-sm font-normal underline" href={`/api/v1/schema/${type}.json`}>{type}.json</a></h3>
-      <div className="overflow-x-auto">
-        <table className="mt-1 w-full text-left text-sm">
-          <thead><tr className="border-b"><th className="py-1 pr-3">Field</th><th className="py-1 pr-3">Type</th><th className="py-1 pr-3">Unit (SI)</th><th className="py-1">Meaning</th></tr></thead>
-          <tbody>
-            {rows.map((f) => (
-              <tr key={f.name} className="border-b border-stone-100 align-top">
-                <td className="py-1 pr-3 font-mono text-xs">{f.name}</td>
-                <td className="py-1 pr-3">{TYPE_LABEL[f.type]}{f.nullable ? ", may be empty" : ""}</td>
-                <td className="py-1 pr-3">{f.unit ?? "—"}</td>
-                <td className="py-1">
-                  {f.description}
-                  {f.enum && <span className="block text-xs text-stone-600">One of: {f.enum.join(", ")}</span>}
-                  {(f.minimum !== undefined || f.maximum !== undefined) && (
-                    <span className="block text-xs text-stone-600">Range: {f.minimum ?? "…"} to {f.maximum ?? "…"}</span>
-                  )}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
-    </div>
   );
 }
 

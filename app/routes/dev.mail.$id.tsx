@@ -1,5 +1,6 @@
 import { Link } from "react-router";
 import { ErrorPage } from "~/components/error-page";
+import { Card } from "~/components/ui";
 import { getMessage } from "~/dev/mail.server";
 import type { Route } from "./+types/dev.mail.$id";
 
@@ -12,14 +13,14 @@ export default function DevMailMessage({ loaderData }: Route.ComponentProps) {
   // Make links in the plain-text body clickable; nothing else is interpreted.
   const parts = m.text.split(/(https?:\/\/\S+)/g);
   return (
-    <article className="space-y-3 rounded-lg border border-stone-200 bg-white p-4">
+    <Card as="article" className="space-y-3">
       <p><Link to="/dev/mail" className="text-bay-700 underline">← All local mail</Link></p>
       <h1 className="text-xl font-bold">{m.subject}</h1>
       <p className="text-sm text-stone-600">From {m.from} to {m.to} · {m.date}</p>
       <pre className="whitespace-pre-wrap break-all font-sans">
         {parts.map((p, i) => (/^https?:\/\//.test(p) ? <a key={i} href={p} className="text-bay-700 underline">{p}</a> : p))}
       </pre>
-    </article>
+    </Card>
   );
 }
 

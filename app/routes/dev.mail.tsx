@@ -1,5 +1,6 @@
 import { Link } from "react-router";
 import { ErrorPage } from "~/components/error-page";
+import { Card } from "~/components/ui";
 import { listMessages } from "~/dev/mail.server";
 import type { Route } from "./+types/dev.mail";
 
@@ -14,7 +15,7 @@ export default function DevMail({ loaderData }: Route.ComponentProps) {
       <h1 className="text-2xl font-bold">Local mail</h1>
       <p className="text-sm text-stone-600">Messages the local mail catcher received (newest first). This page does not exist in production.</p>
       {loaderData.messages.length === 0 ? <p>No mail yet.</p> : (
-        <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white">
+        <Card as="ul" padding="none" className="divide-y divide-stone-100">
           {loaderData.messages.map((m) => (
             <li key={m.id}>
               <Link to={`/dev/mail/${m.id}`} className="block px-3 py-3 hover:bg-bay-50">
@@ -22,7 +23,7 @@ export default function DevMail({ loaderData }: Route.ComponentProps) {
               </Link>
             </li>
           ))}
-        </ul>
+        </Card>
       )}
     </div>
   );

@@ -1,6 +1,7 @@
 import { Link } from "react-router";
 import { db } from "~/db.server";
 import { listJobs } from "~/catalogue/queries.server";
+import { cardClass } from "~/components/ui";
 import { groupBy } from "~/utils/group";
 import type { Route } from "./+types/jobs._index";
 
@@ -22,7 +23,7 @@ export default function Jobs({ loaderData }: Route.ComponentProps) {
           <ul className="grid gap-3 sm:grid-cols-2">
             {jobs.map((j) => (
               <li key={j.slug}>
-                <Link to={`/jobs/${j.slug}`} className="block h-full rounded-lg border border-stone-200 bg-white p-4 hover:border-bay-600">
+                <Link to={`/jobs/${j.slug}`} className={cardClass("md", "block h-full hover:border-bay-600")}>
                   <span className="flex justify-between gap-2 font-semibold">
                     {j.name}
                     <span className="text-sm font-normal text-stone-500">{j.accepted_reports} reports</span>

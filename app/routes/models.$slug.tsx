@@ -6,6 +6,7 @@ import { IntervalsExplained } from "~/components/intervals";
 import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
+import { buttonClass, Card } from "~/components/ui";
 import { FITTING_LABELS, formatFlow, formatPressure, formatPrice, toolName } from "~/domain";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
@@ -56,7 +57,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
         <p className="text-stone-700">{model.name}</p>
       </header>
 
-      <section aria-labelledby="specs-heading" className="rounded-lg border border-stone-200 bg-white p-4">
+      <Card as="section" aria-labelledby="specs-heading">
         <h2 id="specs-heading" className="mb-2 font-semibold">Specifications</h2>
         <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-2">
           {specs.map((s) => (
@@ -66,7 +67,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
             </div>
           ))}
         </dl>
-      </section>
+      </Card>
 
       <section aria-labelledby="jobs-heading">
         <h2 id="jobs-heading" className="mb-1 text-lg font-semibold">On the job</h2>
@@ -79,7 +80,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
       </section>
 
       <p>
-        <Link to={`/air?tool=${model.slug}`} className="inline-block rounded border border-bay-700 px-4 py-3 font-semibold text-bay-700">
+        <Link to={`/air?tool=${model.slug}`} className={buttonClass("secondary", "md", "inline-block")}>
           Will my air supply feed this tool? →
         </Link>
       </p>

@@ -6,6 +6,7 @@ import { filtersToSearch, type ModelFilters, parseModelFilters, type SortKey } f
 import { filterOptions, modelsTable, type ModelTableRow } from "~/catalogue/models-table.server";
 import { ErrorPage } from "~/components/error-page";
 import { IntervalBar, pct } from "~/components/intervals";
+import { buttonClass, cardClass, DataTable } from "~/components/ui";
 import { db } from "~/db.server";
 import type { Route } from "./+types/models._index";
 
@@ -40,10 +41,10 @@ export default function Models({ loaderData }: Route.ComponentProps) {
     const f = Object.fromEntries([...form].filter(([, v]) => v !== "")) as Record<string, string>;
     const s = nextSorting[0];
     if (s) Object.assign(f, { sort: COLUMN_SORT[s.id] ?? "tool", dir: s.desc ? "desc" : "asc" });
-    const search = filtersToSearch(f as ModelFilters);
+    const search = filtersToSearch(f);
     lastFetchedSearch = search;
-    fetcher.load(`/api/models?${search}`);
-    navigate(`?${search}`, { preventScrollReset: true });
+    void fetcher.load(`/api/models?${search}`);
+    void navigate(`?${search}`, { preventScrollReset: true });
   }
 
   const columns = useMemo<ColumnDef<ModelTableRow>[]>(() => [
@@ -87,7 +88,7 @@ export default function Models({ loaderData }: Route.ComponentProps) {
   return (
     <div className="space-y-4">
       <h1 className="text-2xl font-bold">Tools</h1>
-      <Form method="get" ref={formRef} onChange={() => apply()} className="grid grid-cols-2 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-6">
+      <Form method="get" ref={formRef} onChange={() => apply()} className={cardClass("sm", "grid grid-cols-2 gap-3 sm:grid-cols-6")}>
         <label className="text-sm">Category
           <select name="category" defaultValue={f.category ?? ""} className={select}><option value="">Any</option>{options.categories.map((c) => <option key={c.slug} value={c.slug}>{c.name}</option>)}</select>
         </label>
@@ -102,14 +103,12 @@ export default function Models({ loaderData }: Route.ComponentProps) {
         <label className="text-sm">At least … reports<input name="minReports" defaultValue={f.minReports ?? ""} inputMode="numeric" className={select} /></label>
         <input type="hidden" name="sort" value={f.sort ?? ""} />
         <input type="hidden" name="dir" value={f.dir ?? ""} />
-        <noscript><button type="submit" className="rounded bg-bay-700 px-3 py-2 text-white">Filter</button></noscript>
+        <noscript><button type="submit" className={buttonClass("primary", "sm")}>Filter</button></noscript>
       </Form>
       {current.ignored.length > 0 && <p role="alert" className="text-sm text-amber-800">Left out filters that could not be read: {current.ignored.join(", ")}.</p>}
       <p className="text-sm text-stone-600" role="status">{current.rows.length} tools{fetcher.state === "loading" ? " · updating…" : ""}</p>
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-        <table className="w-full min-w-[52rem] text-left text-sm">
-          <thead className="bg-stone-100 text-xs uppercase text-stone-600">
-            {table.getHeaderGroups().map((g) => (
+      <DataTable label="Tools" minWidth="52rem" head={
+            table.getHeaderGroups().map((g) => (
               <tr key={g.id}>
                 {g.headers.map((h) => (
                   <th key={h.id} className="px-3 py-2" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "desc" ? "descending" : "ascending") : undefined}>
@@ -121,17 +120,14 @@ export default function Models({ loaderData }: Route.ComponentProps) {
                   </th>
                 ))}
               </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-stone-100">
+            ))
+      }>
             {table.getRowModel().rows.map((row) => (
               <tr key={row.id} data-testid="model-row">
                 {row.getVisibleCells().map((cell) => <td key={cell.id} className="px-3 py-2">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
               </tr>
             ))}
-          </tbody>
-        </table>
-      </div>
+      </DataTable>
     </div>
   );
 }

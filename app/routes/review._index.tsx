@@ -3,6 +3,7 @@ import { z } from "zod";
 import { requireRole } from "~/auth/session.server";
 import { formatDate, slugField, toolName } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
+import { buttonClass, Card, cardClass } from "~/components/ui";
 import { db } from "~/db.server";
 import { FLAG_EXPLANATIONS } from "~/moderation/flags";
 import { queueCounts, reviewQueue } from "~/moderation/queue.server";
@@ -26,18 +27,19 @@ export async function loader({ request }: Route.LoaderArgs) {
   const [rows, counts, jobs] = await Promise.all([
     reviewQueue(db, moderator.id, {
       flag: f.flag || undefined, category: f.category || undefined, job: f.job || undefined,
-      trust: (f.trust || undefined) as never, olderThanDays: typeof f.age === "number" ? f.age : undefined,
+      trust: f.trust || undefined, olderThanDays: typeof f.age === "number" ? f.age : undefined,
     }),
     queueCounts(db),
     jobTypesByCategory(db),
   ]);
-  return { rows, counts, jobs, filters: f };
+  // Counted here, once, so the page says the same on the server and in the browser.
+  const waitDays = counts.oldest ? Math.floor((Date.now() - new Date(counts.oldest).getTime()) / 86_400_000) : 0;
+  return { rows, counts, jobs, filters: f, waitDays };
 }
 
 export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
-  const { rows, counts, jobs, filters } = loaderData;
+  const { rows, counts, jobs, filters, waitDays } = loaderData;
   const categories = [...new Map(jobs.map((j) => [j.category_slug, j.category_name])).entries()];
-  const waitDays = counts.oldest ? Math.floor((Date.now() - new Date(counts.oldest).getTime()) / 86_400_000) : 0;
   const select = "rounded border border-stone-300 px-2 py-2 text-sm";
   return (
     <div className="space-y-4">
@@ -50,7 +52,7 @@ export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
         <Count label="Flagged" value={counts.flagged} />
         <Count label="Oldest wait" value={`${waitDays} days`} />
       </dl>
-      <Form method="get" className="flex flex-wrap gap-2 rounded-lg border border-stone-200 bg-white p-3">
+      <Form method="get" className={cardClass("sm", "flex flex-wrap gap-2")}>
         <select name="flag" defaultValue={filters.flag ?? ""} className={select} aria-label="Flag">
           <option value="">Any flags</option>
           {Object.keys(FLAG_EXPLANATIONS).map((f) => <option key={f} value={f}>{f.replaceAll("_", " ")}</option>)}
@@ -73,10 +75,10 @@ export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
           <option value="7">Older than a week</option>
           <option value="30">Older than a month</option>
         </select>
-        <button type="submit" className="rounded bg-bay-700 px-4 py-2 text-sm font-semibold text-white">Filter</button>
+        <button type="submit" className={buttonClass("primary", "sm")}>Filter</button>
       </Form>
       <p className="text-sm text-stone-600">Oldest first. Your own reports are not listed: nobody decides on their own report.</p>
-      <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white">
+      <Card as="ul" padding="none" className="divide-y divide-stone-100">
         {rows.map((r) => (
           <li key={r.id}>
             <Link to={`/review/${r.id}`} className="flex flex-wrap items-center gap-x-3 gap-y-1 px-3 py-3 hover:bg-bay-50" data-testid="queue-row">
@@ -92,17 +94,17 @@ export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
           </li>
         ))}
         {rows.length === 0 && <li className="px-3 py-3 text-stone-600">Nothing waiting with these filters.</li>}
-      </ul>
+      </Card>
     </div>
   );
 }
 
 function Count({ label, value }: { label: string; value: number | string }) {
   return (
-    <div className="rounded-lg border border-stone-200 bg-white p-3">
+    <Card padding="sm">
       <dt className="text-xs text-stone-600">{label}</dt>
       <dd className="text-2xl font-bold">{value}</dd>
-    </div>
+    </Card>
   );
 }
 

@@ -1,5 +1,6 @@
 import { requireRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { DataTable } from "~/components/ui";
 import { db } from "~/db.server";
 import { reviewStats } from "~/moderation/queue.server";
 import type { Route } from "./+types/review.stats";
@@ -20,9 +21,9 @@ export default function ReviewStats({ loaderData }: Route.ComponentProps) {
       <p>Median time from submission to decision, last 90 days: <strong>{medianHours.hours == null ? "—" : `${medianHours.hours.toFixed(1)} hours`}</strong> ({medianHours.n} decisions).</p>
       <section aria-labelledby="weeks-heading">
         <h2 id="weeks-heading" className="mb-2 text-lg font-semibold">Queue by week (last 12 weeks)</h2>
-        <table className="w-full rounded-lg border border-stone-200 bg-white text-sm">
-          <thead className="bg-stone-100 text-xs uppercase text-stone-600"><tr><th className="px-3 py-2 text-left">Week of</th><th className="px-3 py-2 text-left">Waiting at week's end</th><th className="px-3 py-2 text-right">Submitted</th><th className="px-3 py-2 text-right">Decided</th></tr></thead>
-          <tbody className="divide-y divide-stone-100">
+        <DataTable label="Queue by week" head={
+          <tr><th className="px-3 py-2 text-left">Week of</th><th className="px-3 py-2 text-left">Waiting at week's end</th><th className="px-3 py-2 text-right">Submitted</th><th className="px-3 py-2 text-right">Decided</th></tr>
+        }>
             {weeks.map((w) => (
               <tr key={w.week}>
                 <td className="px-3 py-1.5">{w.week}</td>
@@ -36,21 +37,17 @@ export default function ReviewStats({ loaderData }: Route.ComponentProps) {
                 <td className="px-3 py-1.5 text-right">{w.decided}</td>
               </tr>
             ))}
-          </tbody>
-        </table>
+        </DataTable>
       </section>
       <section aria-labelledby="mods-heading">
         <h2 id="mods-heading" className="mb-2 text-lg font-semibold">Decisions per moderator per week</h2>
-        <div className="overflow-x-auto">
-          <table className="w-full rounded-lg border border-stone-200 bg-white text-sm">
-            <thead className="bg-stone-100 text-xs uppercase text-stone-600"><tr><th className="px-3 py-2 text-left">Moderator</th>{modWeeks.map((w) => <th key={w} className="px-3 py-2 text-right">{w}</th>)}</tr></thead>
-            <tbody className="divide-y divide-stone-100">
+        <DataTable label="Decisions per moderator per week" scrollHint head={
+          <tr><th className="px-3 py-2 text-left">Moderator</th>{modWeeks.map((w) => <th key={w} className="px-3 py-2 text-right">{w}</th>)}</tr>
+        }>
               {moderators.map((m) => (
                 <tr key={m}><td className="px-3 py-1.5 font-semibold">{m}</td>{modWeeks.map((w) => <td key={w} className="px-3 py-1.5 text-right">{perModerator.find((r) => r.moderator === m && r.week === w)?.decisions ?? 0}</td>)}</tr>
               ))}
-            </tbody>
-          </table>
-        </div>
+        </DataTable>
       </section>
     </div>
   );

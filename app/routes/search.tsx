@@ -1,6 +1,7 @@
 import { Form, Link } from "react-router";
 import { FITTING_LABELS } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
+import { buttonClass, Card } from "~/components/ui";
 import { db } from "~/db.server";
 import { parseSearch } from "~/search/query";
 import { search } from "~/search/search.server";
@@ -28,7 +29,7 @@ export default function SearchPage({ loaderData }: Route.ComponentProps) {
       <Form method="get" className="flex gap-2" role="search">
         <input name="q" defaultValue={q} aria-label="Search tools and reports" placeholder="Maker, model code, job, vehicle…" className="flex-1 rounded border border-stone-300 px-3 py-3" />
         {Object.entries(filters).map(([k, v]) => <input key={k} type="hidden" name={k} value={v} />)}
-        <button type="submit" className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Search</button>
+        <button type="submit" className={buttonClass()}>Search</button>
       </Form>
       {(ignored.length > 0 || truncated) && (
         <p role="alert" className="text-sm text-amber-800">
@@ -59,7 +60,7 @@ export default function SearchPage({ loaderData }: Route.ComponentProps) {
           </aside>
           <section aria-label="Results">
             <p className="mb-2 text-sm text-stone-600">{result.total} matches</p>
-            <ul className="divide-y divide-stone-100 rounded-lg border border-stone-200 bg-white">
+            <Card as="ul" padding="none" className="divide-y divide-stone-100">
               {result.hits.map((h) => (
                 <li key={h.id} className="px-3 py-2">
                   <Link to={h.url} className="font-semibold text-bay-700 hover:underline" data-testid="search-hit">{h.title}</Link>
@@ -68,7 +69,7 @@ export default function SearchPage({ loaderData }: Route.ComponentProps) {
                 </li>
               ))}
               {result.hits.length === 0 && <li className="px-3 py-3 text-stone-600">Nothing matches.</li>}
-            </ul>
+            </Card>
           </section>
         </div>
       )}

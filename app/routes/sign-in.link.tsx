@@ -3,6 +3,7 @@ import { z } from "zod";
 import { consumeSignInLink } from "~/auth/email-link.server";
 import { createSession, safeRedirectPath } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { buttonClass, Card } from "~/components/ui";
 import { readForm } from "~/utils/forms";
 import type { Route } from "./+types/sign-in.link";
 
@@ -35,15 +36,15 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function SignInLink({ loaderData }: Route.ComponentProps) {
   return (
-    <section className="mx-auto max-w-md rounded-lg border border-stone-200 bg-white p-6">
+    <Card as="section" padding="lg" className="mx-auto max-w-md">
       <h1 className="text-2xl font-bold">Finish signing in</h1>
       <p className="mt-2 text-stone-700">Press the button to sign in on this device.</p>
       <Form method="post" className="mt-4">
         <input type="hidden" name="token" value={loaderData.token} />
         <input type="hidden" name="redirectTo" value={loaderData.redirectTo} />
-        <button type="submit" className="w-full rounded bg-bay-700 px-4 py-3 font-semibold text-white">Sign in</button>
+        <button type="submit" className={buttonClass("primary", "md", "w-full")}>Sign in</button>
       </Form>
-    </section>
+    </Card>
   );
 }
 

@@ -4,6 +4,7 @@ import { emailSchema } from "~/auth/forms";
 import { providers } from "~/auth/oidc.server";
 import { getUser, safeRedirectPath } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { buttonClass, Card } from "~/components/ui";
 import { type FieldErrors, invalid, parseForm, readForm } from "~/utils/forms";
 import type { Route } from "./+types/sign-in";
 
@@ -38,22 +39,22 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
   const sending = useNavigation().state === "submitting";
   if (actionData?.ok) {
     return (
-      <section className="mx-auto max-w-md rounded-lg border border-stone-200 bg-white p-6">
+      <Card as="section" padding="lg" className="mx-auto max-w-md">
         <h1 className="text-2xl font-bold">Check your mail</h1>
         <p className="mt-2">We sent a sign-in link to <strong>{actionData.sentTo}</strong>. It works once, for 10 minutes.</p>
         <p className="mt-4 text-sm text-stone-600">Nothing arrived? Check the spam folder, or <Link to="/sign-in" className="underline">send another</Link>.</p>
-      </section>
+      </Card>
     );
   }
   const errors: FieldErrors = actionData && !actionData.ok ? actionData.errors : {};
   const values: Record<string, unknown> = actionData && !actionData.ok ? actionData.values : {};
   return (
-    <section className="mx-auto max-w-md space-y-6 rounded-lg border border-stone-200 bg-white p-6">
+    <Card as="section" padding="lg" className="mx-auto max-w-md space-y-6">
       <h1 className="text-2xl font-bold">Sign in</h1>
       <p className="text-stone-700">Signing in lets you file reports from the bay and follow the decisions on them. Browsing needs no account.</p>
       {providers.map((p) => (
         <a key={p.id} href={`/auth/${p.id}?redirectTo=${encodeURIComponent(redirectTo)}`}
-          className="block rounded bg-bay-700 px-4 py-3 text-center font-semibold text-white hover:bg-bay-900">
+          className={buttonClass("primary", "md", "block text-center")}>
           Continue with {p.name}
         </a>
       ))}
@@ -62,17 +63,17 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
         <input type="hidden" name="redirectTo" value={redirectTo} />
         <label className="block">
           <span className="font-semibold">E-mail address</span>
-          <input name="email" type="email" autoComplete="email" inputMode="email" required defaultValue={String(values.email ?? "")}
+          <input name="email" type="email" autoComplete="email" inputMode="email" required defaultValue={typeof values.email === "string" ? values.email : ""}
             aria-invalid={errors.email ? true : undefined} aria-describedby={errors.email ? "email-error" : undefined}
             className="mt-1 block w-full rounded border border-stone-300 px-3 py-3 text-base" />
         </label>
         {errors.email && <p id="email-error" className="text-sm text-red-700">{errors.email[0]}</p>}
         {actionData && !actionData.ok && actionData.formError && <p role="alert" className="text-sm text-red-700">{actionData.formError}</p>}
-        <button type="submit" disabled={sending} className="w-full rounded border border-bay-700 px-4 py-3 font-semibold text-bay-700 disabled:opacity-60">
+        <button type="submit" disabled={sending} className={buttonClass("secondary", "md", "w-full")}>
           {sending ? "Sending…" : "Mail me a sign-in link"}
         </button>
       </Form>
-    </section>
+    </Card>
   );
 }
 

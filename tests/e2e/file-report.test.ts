@@ -48,7 +48,7 @@ describe("filing a report from the bay", () => {
     const publish = page.getByRole("checkbox", { name: "Publish with the open data" });
     expect(await publish.isChecked()).toBe(false);
     await publish.check();
-    await page.waitForFunction(() => (document.querySelector("[aria-label='Attached evidence'] input[type=checkbox]") as HTMLInputElement | null)?.disabled === false);
+    await page.waitForFunction(() => document.querySelector<HTMLInputElement>("[aria-label='Attached evidence'] input[type=checkbox]")?.disabled === false);
     expect(await publish.isChecked()).toBe(true);
 
     await page.getByRole("button", { name: "Submit report" }).click();

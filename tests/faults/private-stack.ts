@@ -12,7 +12,7 @@ import { startTestServices } from "../support/system";
 const root = path.resolve(import.meta.dirname, "../..");
 
 export async function startPrivateStack() {
-  const cleanups: (() => Promise<unknown> | unknown)[] = [];
+  const cleanups: (() => unknown)[] = [];
   const { database, dataDir, port, baseUrl, fakes } = await startTestServices(cleanups, "bayproof-faults-");
   let fakesStopped = false;
   cleanups.push(() => fakesStopped || fakes.stop());

@@ -12,7 +12,7 @@ import { testDb } from "../support/db";
 import { baseUrl, cookieValue } from "../support/http";
 import { validReport } from "../support/reports";
 import {
-  damage, FORM_TARGETS, hostileJson, hostileText, JSON_TARGETS, type Own, PATH_ID_TARGETS, QUERY_TARGETS, type Transport, type Who, WHO,
+  damage, FORM_TARGETS, hostileJson, hostileText, JSON_TARGETS, type Own, PATH_ID_TARGETS, QUERY_TARGETS, type Transport, type Who,
 } from "./targets";
 
 const SEED = 20_261_202;

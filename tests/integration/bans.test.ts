@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApiKey } from "../../app/auth/api-keys.server";
 import { testDb } from "../support/db";
-import { Browserish, signedInAs } from "../support/http";
+import { type Browserish, signedInAs } from "../support/http";
 
 const db = testDb();
 let admin: Browserish;

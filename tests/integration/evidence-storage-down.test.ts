@@ -12,11 +12,12 @@ import { tinyPng } from "../support/files";
 import { signedInAs, type Browserish } from "../support/http";
 import { complete, newDraft, presign } from "../support/evidence";
 import { freePort } from "../support/system";
+import type * as CompleteRoute from "../../app/routes/api.evidence.$id.complete";
 
 const db = testDb();
 const dir = mkdtempSync(path.join(tmpdir(), "bayproof-stopped-store-"));
 let owner: Browserish;
-let route: typeof import("../../app/routes/api.evidence.$id.complete");
+let route: typeof CompleteRoute;
 let appPool: { end(): Promise<void> };
 
 beforeAll(async () => {

@@ -195,7 +195,7 @@ describe("the second look", () => {
     // The accept asked the worker to refresh the report's stats cell.
     const report = await db.selectFrom("reports").select(["tool_model_id", "job_type_id", "accepted_at"]).where("id", "=", id).executeTakeFirstOrThrow();
     const deadline = Date.now() + 60_000;
-    let cell;
+    let cell: { computed_at: Date } | undefined;
     do {
       cell = await db.selectFrom("stats_cells").select("computed_at").where("tool_model_id", "=", report.tool_model_id).where("job_type_id", "=", report.job_type_id).executeTakeFirst();
       if (cell && new Date(cell.computed_at) >= new Date(report.accepted_at!)) break;

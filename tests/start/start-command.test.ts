@@ -57,15 +57,15 @@ function cleanEnv(ports: Ports) {
 async function start(dir: string, ports: Ports) {
   const child = spawn("npm", ["start"], { cwd: dir, env: cleanEnv(ports), detached: true, stdio: ["ignore", "pipe", "pipe"] });
   let output = "";
-  child.stdout!.on("data", (d) => (output += d));
-  child.stderr!.on("data", (d) => (output += d));
+  child.stdout.on("data", (d) => (output += d));
+  child.stderr.on("data", (d) => (output += d));
   const serving = `Bayproof is serving on http://127.0.0.1:${ports.PORT}`;
   await new Promise<void>((resolve, reject) => {
     const check = () => {
       if (output.includes(serving)) return resolve();
       if (child.exitCode != null) return reject(new Error(`npm start exited with ${child.exitCode}:\n${output}`));
     };
-    child.stdout!.on("data", check);
+    child.stdout.on("data", check);
     child.on("exit", check);
   });
   return { child, output: () => output };

@@ -42,7 +42,7 @@ export async function newCheckedPage(browser: Browser, viewport = { width: 1280,
   return {
     page,
     /** Throws if the page logged an error; call at the end of each test. */
-    assertClean() {
+    assertClean: () => {
       if (problems.length) throw new Error(problems.join("\n"));
     },
     close: () => context.close(),

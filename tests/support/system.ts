@@ -17,7 +17,7 @@ export { freePort };
  * server that will listen at the returned `baseUrl`. Each clean-up is pushed onto `cleanups`
  * (run them last first).
  */
-export async function startTestServices(cleanups: (() => Promise<unknown> | unknown)[], prefix = "bayproof-test-data-") {
+export async function startTestServices(cleanups: (() => unknown)[], prefix = "bayproof-test-data-") {
   const database = await startTestDatabase();
   cleanups.push(() => database.stop());
   const dataDir = mkdtempSync(path.join(tmpdir(), prefix));
