@@ -2,10 +2,9 @@
 // revoked in the same transaction — and each ban or unban is logged with its reason in the
 // append-only ban_changes table, as role changes are in role_changes. Unbanning lets the person
 // sign in again; it revives no old session and no old key.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 
-type Db = Kysely<Database>;
 export const BAN_REASON_MIN = 3;
 export const BAN_REASON_MAX = 500;
 

@@ -1,8 +1,7 @@
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 import type { Role } from "./session.server";
 
-type Db = Kysely<Database>;
 
 export class RoleChangeError extends Error {}
 

@@ -1,8 +1,6 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 import { randomToken } from "./tokens.server";
 
-type Db = Kysely<Database> | Transaction<Database>;
 
 /** A new pseudonymous handle; the user can change it on /account. */
 function newHandle() {

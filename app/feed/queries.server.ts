@@ -2,13 +2,12 @@
 // timestamps already formatted by PostgreSQL. Pages and single records serialise that row; the
 // NDJSON file has PostgreSQL concatenate each line from the same columns (reportLine) and the
 // CSV takes them as text — see docs/decisions/005-open-feed.md.
-import { type Kysely, type RawBuilder, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { type RawBuilder, sql } from "kysely";
+import type { Db } from "../../db/database";
 import { adjustedAtReference } from "~/stats/cells";
 import { REPORT_FIELDS } from "./fields";
 import { FeedError } from "./http.server";
 
-type Db = Kysely<Database>;
 
 const iso = (column: RawBuilder<unknown>) => sql`to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
 

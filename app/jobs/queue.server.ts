@@ -1,8 +1,8 @@
 // Enqueueing background work from the app, inside the caller's transaction, so a decision and its
 // mail either both happen or neither does. Every queue's retry options live here, once.
 import PgBoss from "pg-boss";
-import { CompiledQuery, type Transaction } from "kysely";
-import type { Database } from "../../db/schema";
+import { CompiledQuery } from "kysely";
+import type { Trx } from "../../db/database";
 import { DEFAULT_DATABASE_URL } from "../../db/database";
 
 export const QUEUES = {
@@ -66,14 +66,14 @@ export function queue(): Promise<PgBoss> {
 }
 
 /** A pg-boss `db` option that runs its SQL through a Kysely transaction. */
-export function inTransaction(trx: Transaction<Database>) {
+export function inTransaction(trx: Trx) {
   return {
     executeSql: async (text: string, values: unknown[]) => ({ rows: (await trx.executeQuery(CompiledQuery.raw(text, values))).rows as unknown[] }),
   };
 }
 
 /** Enqueues a job through the caller's transaction, with its queue's options. */
-export async function enqueue(trx: Transaction<Database>, name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
+export async function enqueue(trx: Trx, name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
   const b = await queue();
   return b.send(name, data, { ...JOB_OPTIONS[name], ...options, db: inTransaction(trx) });
 }

@@ -1,9 +1,8 @@
 // Background work through pg-boss, a job queue kept in PostgreSQL: nothing is lost when a process
 // dies, and any number of workers can run. Started by scripts/worker.ts.
 import PgBoss from "pg-boss";
-import type { Kysely } from "kysely";
 import type pg from "pg";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 import { removeOrphanedEvidence } from "~/reports/evidence.server";
 import { sendDecisionMail } from "~/moderation/mail.server";
 import { refreshCell } from "~/stats/refresh.server";
@@ -13,7 +12,7 @@ import { defaultStore } from "~/storage/s3.server";
 import { config } from "~/config.server";
 import { createQueues, JOB_OPTIONS, QUEUES, WORKER_OPTIONS } from "./queue.server";
 
-export async function startWorker(connectionString: string, db: Kysely<Database>, pool: pg.Pool, log: (s: string) => void) {
+export async function startWorker(connectionString: string, db: Db, pool: pg.Pool, log: (s: string) => void) {
   const boss = new PgBoss({ connectionString, schema: "pgboss", ...WORKER_OPTIONS });
   boss.on("error", (error) => log(`queue error: ${error.message}`));
   await boss.start();

@@ -1,14 +1,13 @@
 // Moderation rules: claims, decisions with their second look, evidence verdicts. Everything that
 // changes a report happens in one transaction with the report row locked, and every step writes
 // a row to the append-only decisions log.
-import { type Kysely, sql, type Transaction } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db, Trx } from "../../db/database";
 import { enqueue, MAIL_RETRY, QUEUES } from "~/jobs/queue.server";
 import { moderatorsMaySee } from "./visibility";
 import { type ChecklistKey, type DecisionKind, isReason, reasonLabel } from "./reasons";
 import { needsSecondLook, trustLevel, type History } from "./trust";
 
-type Db = Kysely<Database>;
 export const CLAIM_MINUTES = 15;
 
 export class DecisionError extends Error {
@@ -18,7 +17,7 @@ export class DecisionError extends Error {
 }
 
 /** Reporter histories for trust levels, for one or many reporters. */
-export async function histories(db: Db | Transaction<Database>, reporterIds: number[]): Promise<Map<number, History>> {
+export async function histories(db: Db, reporterIds: number[]): Promise<Map<number, History>> {
   if (reporterIds.length === 0) return new Map();
   const rows = await db.selectFrom("reports").select(["reporter_id", "status", "decided_at"])
     .where("reporter_id", "in", reporterIds).where("status", "in", ["accepted", "returned", "rejected"])
@@ -38,7 +37,7 @@ export async function histories(db: Db | Transaction<Database>, reporterIds: num
 }
 
 /** Takes a free or expired claim, or renews one's own; undefined while someone else's is live. */
-async function takeClaim(trx: Transaction<Database>, moderatorId: number, reportId: number) {
+async function takeClaim(trx: Trx, moderatorId: number, reportId: number) {
   const taken = await sql<{ moderator_id: number; expires_at: Date; fresh: boolean }>`
     insert into report_claims (report_id, moderator_id, expires_at)
     values (${reportId}, ${moderatorId}, now() + ${`${CLAIM_MINUTES} minutes`}::interval)
@@ -83,7 +82,7 @@ export async function claim(db: Db, moderatorId: number, reportId: number) {
  * decision that fails rolls the claim back with everything else; one that ends the review drops it.
  * Another moderator's live claim answers 409 with who holds it and until when.
  */
-async function holdClaimToDecide(trx: Transaction<Database>, moderatorId: number, reportId: number) {
+async function holdClaimToDecide(trx: Trx, moderatorId: number, reportId: number) {
   if (await takeClaim(trx, moderatorId, reportId)) return;
   const holder = await trx.selectFrom("report_claims as c").innerJoin("users as u", "u.id", "c.moderator_id")
     .select(["u.handle", "c.expires_at"]).where("c.report_id", "=", reportId).executeTakeFirstOrThrow();

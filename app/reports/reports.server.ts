@@ -1,12 +1,11 @@
 // Filing reports: drafts, submission with flags and versions, withdrawal, the reporter's list.
 // Every function takes `db` first and checks ownership itself.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 import { submitFlags } from "~/moderation/submit-flags.server";
 import { type ReportForm, toColumns, type parseDraft } from "./form-schema";
 import { EDITABLE, WITHDRAWABLE } from "./status";
 
-type Db = Kysely<Database>;
 export { EDITABLE, WITHDRAWABLE };
 
 export class ReportError extends Error {
@@ -50,7 +49,7 @@ async function resolveToolAndJob(db: Db, toolSlug: string, jobSlug: string) {
 }
 
 /** The reporter's own report, locked for update; 404 when it is someone else's. */
-async function ownReport(db: Db | Kysely<Database>, userId: number, reportId: number) {
+async function ownReport(db: Db, userId: number, reportId: number) {
   const r = await db.selectFrom("reports").selectAll().where("id", "=", reportId).where("reporter_id", "=", userId).executeTakeFirst();
   if (!r) throw new ReportError("No such report among yours", 404);
   return r;

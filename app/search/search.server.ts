@@ -1,11 +1,10 @@
 // Search through the hosted search service (the meilisearch SDK; the local fake in development
 // and tests), with PostgreSQL as the fallback when the service cannot be reached.
-import { type Kysely, sql } from "kysely";
+import { sql } from "kysely";
 import { circuitBreaker, ConsecutiveBreaker, handleAll, type CircuitBreakerPolicy } from "cockatiel";
 import { Meilisearch } from "meilisearch";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 
-type Db = Kysely<Database>;
 export const INDEX = "bayproof";
 
 export const SEARCH_SETTINGS = {
