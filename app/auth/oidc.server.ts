@@ -4,8 +4,8 @@
 import { CodeChallengeMethod, decodeIdToken, generateCodeVerifier, generateState, OAuth2Client } from "arctic";
 import { createCookie } from "react-router";
 import { z } from "zod";
-import { db } from "~/db.server";
 import { config, isHttps } from "~/config.server";
+import type { Db } from "../../db/database";
 import { createUser, findUserByEmail } from "./users.server";
 
 const flowCookie = createCookie("bayproof_oidc", {
@@ -57,7 +57,7 @@ const claimsSchema = z.object({
 });
 
 /** Checks the callback against the remembered attempt and returns the user to sign in. */
-export async function finishSignIn(provider: typeof config.oidc, request: Request) {
+export async function finishSignIn(db: Db, provider: typeof config.oidc, request: Request) {
   const url = new URL(request.url);
   const flow = flowSchema.safeParse(await flowCookie.parse(request.headers.get("cookie")));
   if (!flow.success) throw new SignInError("This sign-in attempt has expired or was started in another browser. Start again.");

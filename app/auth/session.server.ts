@@ -2,9 +2,9 @@
 // Idle timeout 14 days (extended as the user comes back), absolute lifetime 60 days.
 import { createCookie, redirect } from "react-router";
 import { sql } from "kysely";
-import { db } from "~/db.server";
 import { isHttps } from "~/config.server";
 import { invariantResponse } from "~/utils/http";
+import type { Db } from "../../db/database";
 import { randomToken, sha256Hex } from "./tokens.server";
 
 export const IDLE_TIMEOUT_MS = 14 * 24 * 3600_000;
@@ -32,7 +32,7 @@ export interface SessionUser {
   sessionHash: string;
 }
 
-export async function createSession(userId: number, method: "oidc" | "email_link", request: Request) {
+export async function createSession(db: Db, userId: number, method: "oidc" | "email_link", request: Request) {
   const token = randomToken();
   await db
     .insertInto("sessions")
@@ -52,8 +52,8 @@ async function readToken(request: Request): Promise<string | null> {
   return typeof value === "string" && /^[A-Za-z0-9_-]{43}$/.test(value) ? value : null;
 }
 
-/** The signed-in user, or null. A tampered, expired or revoked cookie is simply no session. */
-export async function getUser(request: Request): Promise<SessionUser | null> {
+/** The session's user, read from the database. Pages and guards use `getUser`, read once per request. */
+async function readSessionUser(db: Db, request: Request): Promise<SessionUser | null> {
   const token = await readToken(request);
   if (!token) return null;
   const hash = sha256Hex(token);
@@ -77,6 +77,26 @@ export async function getUser(request: Request): Promise<SessionUser | null> {
     id: row.id, handle: row.handle, email: row.email, roles: row.roles,
     pressureUnit: row.pressure_unit, lengthUnit: row.length_unit, forceUnit: row.force_unit, sessionHash: hash,
   };
+}
+
+// The root middleware binds each request to the database it is served from. On a GET the first guard
+// that asks reads the session and every later one (root loader, route loaders) shares the answer; a
+// POST reads it afresh each time, since its action may change the user before the page's loaders run.
+const perRequest = new WeakMap<Request, { db: Db; memo: boolean; user?: Promise<SessionUser | null> }>();
+
+/** Called once per request by the root middleware, before any loader or action runs. */
+export function bindSession(db: Db, request: Request) {
+  const method = request.method.toUpperCase();
+  perRequest.set(request, { db, memo: method === "GET" || method === "HEAD" });
+}
+
+/** The signed-in user, or null. A tampered, expired or revoked cookie is simply no session. */
+export function getUser(request: Request): Promise<SessionUser | null> {
+  const entry = perRequest.get(request);
+  if (!entry) throw new Error("getUser: this request was not bound by the root middleware (bindSession)");
+  if (!entry.memo) return readSessionUser(entry.db, request);
+  entry.user ??= readSessionUser(entry.db, request);
+  return entry.user;
 }
 
 function signInRedirect(request: Request) {
@@ -103,7 +123,7 @@ export async function requireRole(request: Request, role: Role): Promise<Session
 }
 
 /** Ends the current session; returns the Set-Cookie that clears it. */
-export async function destroySession(request: Request) {
+export async function destroySession(db: Db, request: Request) {
   const token = await readToken(request);
   if (token) await db.deleteFrom("sessions").where("id_hash", "=", sha256Hex(token)).execute();
   return sessionCookie.serialize("", { maxAge: 0 });

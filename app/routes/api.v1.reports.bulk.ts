@@ -1,4 +1,5 @@
 import { config } from "~/config.server";
+import { db, pool } from "~/db.server";
 import { bulkResponse } from "~/feed/bulk.server";
 import { callerContext } from "~/feed/context";
 import { answer, FeedError, readParams } from "~/feed/http.server";
@@ -15,6 +16,6 @@ export async function loader({ request, context }: Route.LoaderArgs) {
         undefined, { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' });
     }
     const format = url.pathname.endsWith(".csv") ? "csv" : "ndjson";
-    return bulkResponse(request, format, config.appOrigin, new Date().toISOString().slice(0, 10));
+    return bulkResponse(db, pool, request, format, config.appOrigin, new Date().toISOString().slice(0, 10));
   });
 }

@@ -1,4 +1,5 @@
 import { admit } from "~/feed/access.server";
+import { db, pool } from "~/db.server";
 import { callerContext } from "~/feed/context";
 import { errorResponse, FeedError } from "~/feed/http.server";
 import type { Route } from "./+types/api.v1";
@@ -27,7 +28,7 @@ export const middleware: Route.MiddlewareFunction[] = [
       response = errorResponse(new FeedError(405, "method_not_allowed", "The feed is read-only: use GET.", undefined, { Allow: "GET, HEAD, OPTIONS" }));
     } else {
       try {
-        const caller = await admit(request);
+        const caller = await admit(db, pool, request);
         context.set(callerContext, caller);
         response = await next();
         for (const [k, v] of Object.entries(caller.headers)) response.headers.set(k, v);

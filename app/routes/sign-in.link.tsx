@@ -1,6 +1,7 @@
 import { data, Form, redirect } from "react-router";
 import { z } from "zod";
 import { consumeSignInLink } from "~/auth/email-link.server";
+import { db } from "~/db.server";
 import { createSession, safeRedirectPath } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
 import { readForm } from "~/utils/forms";
@@ -27,9 +28,9 @@ export async function action({ request }: Route.ActionArgs) {
   const form = await readForm(request);
   const token = tokenSchema.safeParse(form.get("token"));
   if (!token.success) throw data(REASONS.unknown, { status: 400 });
-  const result = await consumeSignInLink(token.data);
+  const result = await consumeSignInLink(db, token.data);
   if (!result.ok) throw data(REASONS[result.reason], { status: result.reason === "banned" ? 403 : 400 });
-  const cookie = await createSession(result.userId, "email_link", request);
+  const cookie = await createSession(db, result.userId, "email_link", request);
   return redirect(safeRedirectPath(form.get("redirectTo")), { headers: { "Set-Cookie": cookie } });
 }
 
