@@ -3,7 +3,7 @@
 import PgBoss from "pg-boss";
 import { CompiledQuery } from "kysely";
 import type { Trx } from "../../db/database";
-import { DEFAULT_DATABASE_URL } from "../../db/database";
+import { config } from "~/config.server";
 
 export const QUEUES = {
   evidenceCleanup: "evidence-cleanup",
@@ -56,7 +56,7 @@ let boss: Promise<PgBoss> | null = null;
 /** One pg-boss client per process; the app only sends, the worker (scripts/worker.ts) works. */
 export function queue(): Promise<PgBoss> {
   boss ??= (async () => {
-    const b = new PgBoss({ connectionString: process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL, schema: "pgboss", supervise: false, schedule: false, max: 2 });
+    const b = new PgBoss({ connectionString: config.databaseUrl, schema: "pgboss", supervise: false, schedule: false, max: 2 });
     b.on("error", (error) => console.warn(`[queue] ${error.message}`));
     await b.start();
     await createQueues(b);

@@ -3,6 +3,7 @@
 import { sql } from "kysely";
 import { circuitBreaker, ConsecutiveBreaker, handleAll, type CircuitBreakerPolicy } from "cockatiel";
 import { Meilisearch } from "meilisearch";
+import { config } from "~/config.server";
 import type { Db } from "../../db/database";
 
 export const INDEX = "bayproof";
@@ -41,7 +42,7 @@ export const SEARCH_TIMEOUT_MS = 5_000;
 export const BREAK_AFTER = 3;
 export const HALF_OPEN_AFTER_MS = 15_000;
 
-export function searchClient(host = process.env.SEARCH_URL ?? "http://127.0.0.1:54350", apiKey = process.env.SEARCH_API_KEY) {
+export function searchClient(host = config.search.url, apiKey = config.search.apiKey) {
   return new Meilisearch({ host, apiKey, timeout: SEARCH_TIMEOUT_MS });
 }
 
