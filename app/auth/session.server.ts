@@ -1,5 +1,6 @@
 // Sessions in PostgreSQL: the cookie carries a random id, the database only its SHA-256.
 // Idle timeout 14 days (extended as the user comes back), absolute lifetime 60 days.
+import { AsyncLocalStorage } from "node:async_hooks";
 import { createCookie, redirect } from "react-router";
 import { sql } from "kysely";
 import { isHttps } from "~/config.server";
@@ -79,24 +80,33 @@ async function readSessionUser(db: Db, request: Request): Promise<SessionUser | 
   };
 }
 
-// The root middleware binds each request to the database it is served from. On a GET the first guard
-// that asks reads the session and every later one (root loader, route loaders) shares the answer; a
-// POST reads it afresh each time, since its action may change the user before the page's loaders run.
-const perRequest = new WeakMap<Request, { db: Db; memo: boolean; user?: Promise<SessionUser | null> }>();
+// The root middleware runs each request's handling inside `withSessions(db, …)`. A GET's loaders
+// (root and route) share one read of the session; an action reads it afresh each time it asks, and
+// the loaders that follow a document POST (React Router gives them a GET request of their own) read
+// the user as the action left it.
+interface Serving {
+  db: Db;
+  users: WeakMap<Request, Promise<SessionUser | null>>;
+}
+const serving = new AsyncLocalStorage<Serving>();
 
-/** Called once per request by the root middleware, before any loader or action runs. */
-export function bindSession(db: Db, request: Request) {
-  const method = request.method.toUpperCase();
-  perRequest.set(request, { db, memo: method === "GET" || method === "HEAD" });
+/** Runs one request's handling (the root middleware) with the database its guards read from. */
+export function withSessions<T>(db: Db, work: () => T): T {
+  return serving.run({ db, users: new WeakMap() }, work);
 }
 
 /** The signed-in user, or null. A tampered, expired or revoked cookie is simply no session. */
 export function getUser(request: Request): Promise<SessionUser | null> {
-  const entry = perRequest.get(request);
-  if (!entry) throw new Error("getUser: this request was not bound by the root middleware (bindSession)");
-  if (!entry.memo) return readSessionUser(entry.db, request);
-  entry.user ??= readSessionUser(entry.db, request);
-  return entry.user;
+  const store = serving.getStore();
+  if (!store) throw new Error("getUser: called outside withSessions (the root middleware)");
+  const method = request.method.toUpperCase();
+  if (method !== "GET" && method !== "HEAD") return readSessionUser(store.db, request);
+  let user = store.users.get(request);
+  if (!user) {
+    user = readSessionUser(store.db, request);
+    store.users.set(request, user);
+  }
+  return user;
 }
 
 function signInRedirect(request: Request) {
