@@ -2,7 +2,7 @@
 // needed, each with DATABASE_URL and the storage variables.
 import { createDb, createPool } from "../db/database";
 import { config } from "../app/config.server";
-import { startWorker } from "../app/jobs/worker.server";
+import { startWorker } from "../app/worker.server";
 
 const url = config.databaseUrl;
 const pool = createPool(url, 4);

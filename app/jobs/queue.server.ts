@@ -14,6 +14,15 @@ export const QUEUES = {
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
+/** What each queue's jobs carry: `enqueue` takes it and the worker's handlers (`work`) receive it. */
+export interface JobPayloads {
+  [QUEUES.evidenceCleanup]: Record<string, never>;
+  [QUEUES.decisionMail]: { decisionId: number };
+  [QUEUES.statsRefresh]: { modelId: number; jobTypeId: number };
+  [QUEUES.searchIndex]: { reportId: number };
+  [QUEUES.feedSnapshot]: Record<string, never>;
+}
+
 /**
  * Mail must outlast a relay outage of a day. pg-boss (10.x, src/plans.js `failJobs`) waits
  * retryDelay × 2^(k−1) × (1 + random) seconds before retry k (the exponent stops growing at 16;
@@ -73,7 +82,19 @@ export function inTransaction(trx: Trx) {
 }
 
 /** Enqueues a job through the caller's transaction, with its queue's options. */
-export async function enqueue(trx: Trx, name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
+export function enqueue<N extends QueueName>(trx: Trx, name: N, data: JobPayloads[N], options: PgBoss.SendOptions = {}) {
+  return sendThrough(trx, name, data, options);
+}
+
+/** Sends again what a job of `name` carried when it was first sent (stuck.server.ts). */
+export async function sendThrough(trx: Trx, name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
   const b = await queue();
   return b.send(name, data, { ...JOB_OPTIONS[name], ...options, db: inTransaction(trx) });
+}
+
+/** The worker's side: one handler per job of queue `name`, given the payload `enqueue` was sent. */
+export function work<N extends QueueName>(boss: PgBoss, name: N, handler: (data: JobPayloads[N]) => Promise<void>) {
+  return boss.work<JobPayloads[N]>(name, async ([job]) => {
+    if (job) await handler(job.data);
+  });
 }

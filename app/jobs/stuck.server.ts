@@ -2,7 +2,7 @@
 // read from pg-boss's own job table, described in plain words, and sent again on an admin's word.
 import { sql } from "kysely";
 import type { Db } from "../../db/database";
-import { enqueue, inTransaction, queue, QUEUES, type QueueName } from "./queue.server";
+import { inTransaction, queue, QUEUES, type QueueName, sendThrough } from "./queue.server";
 
 export interface StuckJob {
   id: string;
@@ -105,7 +105,7 @@ export async function sendAgain(db: Db, id: string): Promise<SendAgainResult> {
     const job = rows[0];
     if (!job) return { ok: false as const, status: 404 as const, message: "That job is no longer on record; it may have been sent again already." };
     if (job.state !== "failed" || !isQueue(job.name)) return { ok: false as const, status: 409 as const, message: "Only failed work can be sent again." };
-    const newId = await enqueue(trx, job.name, job.data ?? {});
+    const newId = await sendThrough(trx, job.name, job.data ?? {});
     if (!newId) return { ok: false as const, status: 409 as const, message: "The same work is already waiting to run." };
     await boss.deleteJob(job.name, id, { db: inTransaction(trx) });
     return { ok: true as const, newId };
