@@ -1,7 +1,7 @@
 // API keys for the open feed: shown once at creation, stored as SHA-256, revocable.
 import { sql } from "kysely";
 import type { Db } from "../../db/database";
-import { randomToken, sha256Hex } from "./tokens.server";
+import { randomToken, sha256Hex } from "~/utils/tokens.server";
 
 export const MAX_KEYS_PER_USER = 10;
 

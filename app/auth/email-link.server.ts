@@ -7,7 +7,7 @@ import { clientKey } from "~/utils/client-address.server";
 import { config } from "~/config.server";
 import type { Db } from "../../db/database";
 import { sendMail } from "./mail.server";
-import { randomToken, sha256Hex } from "./tokens.server";
+import { randomToken, sha256Hex } from "~/utils/tokens.server";
 import { createUser, findUserByEmail } from "./users.server";
 
 export const LINK_LIFETIME_MS = 10 * 60_000;

@@ -6,7 +6,7 @@ import { sql } from "kysely";
 import { isHttps } from "~/config.server";
 import { invariantResponse } from "~/utils/http";
 import type { Db } from "../../db/database";
-import { randomToken, sha256Hex } from "./tokens.server";
+import { randomToken, sha256Hex } from "~/utils/tokens.server";
 
 export const IDLE_TIMEOUT_MS = 14 * 24 * 3600_000;
 export const ABSOLUTE_LIFETIME_MS = 60 * 24 * 3600_000;

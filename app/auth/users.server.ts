@@ -1,5 +1,5 @@
 import type { Db } from "../../db/database";
-import { randomToken } from "./tokens.server";
+import { randomToken } from "~/utils/tokens.server";
 
 
 /** A new pseudonymous handle; the user can change it on /account. */

@@ -7,7 +7,7 @@
 // ever signed for, checks and hashes that copy, records its key and removes the upload.
 import { sql } from "kysely";
 import type { Db } from "../../db/database";
-import { randomToken } from "~/auth/tokens.server";
+import { randomToken } from "~/utils/tokens.server";
 import { EVIDENCE_TYPES, isEvidenceType, MAX_BYTES } from "~/storage/evidence-types";
 import { copyObject, deleteObject, isStorageOutage, objectSize, presignPut, readHead, sha256OfObject } from "~/storage/s3.server";
 import { sniffEvidenceType } from "~/storage/sniff.server";
