@@ -7,7 +7,7 @@ import { verifyApiKey } from "~/auth/api-keys.server";
 import { clientKey } from "~/utils/client-address.server";
 import type pg from "pg";
 import type { Db } from "../../db/database";
-import { FeedError } from "./http.server";
+import { feedError } from "./http.server";
 import { LIMITS } from "./params";
 
 
@@ -39,10 +39,10 @@ async function identify(db: Db, request: Request): Promise<{ tier: Tier; key: st
   if (!header) return { tier: "anonymous", key: clientKey(request), userId: null };
   const m = /^Bearer\s+(\S{1,200})$/i.exec(header.trim());
   const challenge = { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' };
-  if (!m) throw new FeedError(401, "invalid_authorization", "Send an API key as \"Authorization: Bearer <key>\", or no Authorization header at all.", undefined, challenge);
+  if (!m) throw feedError(401, "invalid_authorization", "Send an API key as \"Authorization: Bearer <key>\", or no Authorization header at all.", undefined, challenge);
   const found = await verifyApiKey(db, m[1]!);
   if (!found) {
-    throw new FeedError(401, "invalid_api_key", "This API key is unknown or has been revoked; create a new one on your account page.", undefined,
+    throw feedError(401, "invalid_api_key", "This API key is unknown or has been revoked; create a new one on your account page.", undefined,
       { "WWW-Authenticate": 'Bearer realm="bayproof-feed", error="invalid_token"' });
   }
   return { tier: "key", key: `key-${found.id}`, userId: found.user_id };
@@ -56,10 +56,10 @@ export async function admit(db: Db, pool: pg.Pool, request: Request): Promise<Ca
     return { tier: who.tier, userId: who.userId, headers: { "RateLimit-Policy": policy(who.tier), RateLimit: state(who.tier, res) } };
   } catch (error) {
     if (!(error instanceof RateLimiterRes)) {
-      throw new FeedError(503, "unavailable", "The feed cannot count requests right now; try again in a minute.", undefined, { "Retry-After": "60" });
+      throw feedError(503, "unavailable", "The feed cannot count requests right now; try again in a minute.", undefined, { "Retry-After": "60" });
     }
     const retry = String(Math.max(1, Math.ceil(error.msBeforeNext / 1000)));
-    throw new FeedError(429, "rate_limited",
+    throw feedError(429, "rate_limited",
       who.tier === "anonymous"
         ? `More than ${LIMITS.anonymous.points} requests a minute from this client; wait ${retry} s, or use an API key (${LIMITS.key.points} a minute).`
         : `More than ${LIMITS.key.points} requests a minute with this API key; wait ${retry} s.`,

@@ -4,7 +4,7 @@
 // used with other filters, is refused.
 import { createHash, createHmac, timingSafeEqual } from "node:crypto";
 import type { Db } from "../../db/database";
-import { FeedError } from "./http.server";
+import { feedError } from "./http.server";
 
 export interface CursorState {
   /** Accepted time of the last report sent, in microseconds since 1970 (a decimal string). */
@@ -34,7 +34,7 @@ export async function encodeCursor(db: Db, state: CursorState) {
   return `${payload}.${sign(await cursorSecret(db), payload).toString("base64url")}`;
 }
 
-const invalid = (why: string) => new FeedError(400, "invalid_cursor", `"cursor" ${why}; start again without it or use the next_cursor of the previous page.`, "cursor");
+const invalid = (why: string) => feedError(400, "invalid_cursor", `"cursor" ${why}; start again without it or use the next_cursor of the previous page.`, "cursor");
 
 export async function decodeCursor(db: Db, cursor: string, filters: string): Promise<CursorState> {
   const m = /^([A-Za-z0-9_-]{1,400})\.([A-Za-z0-9_-]{22})$/.exec(cursor);
@@ -52,6 +52,6 @@ export async function decodeCursor(db: Db, cursor: string, filters: string): Pro
   const [v, afterMicros, afterId, asOfMicros, digest] = Array.isArray(parts) ? parts : [];
   const micros = (x: unknown): x is string => typeof x === "string" && /^\d{1,18}$/.test(x);
   if (v !== 1 || !micros(afterMicros) || !Number.isSafeInteger(afterId) || !micros(asOfMicros) || typeof digest !== "string") throw invalid("cannot be read");
-  if (digest !== filters) throw new FeedError(400, "cursor_mismatch", `"cursor" belongs to a walk with other filters; keep the filters of its first page.`, "cursor");
+  if (digest !== filters) throw feedError(400, "cursor_mismatch", `"cursor" belongs to a walk with other filters; keep the filters of its first page.`, "cursor");
   return { afterMicros, afterId: afterId as number, asOfMicros, filters: digest };
 }

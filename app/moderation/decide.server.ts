@@ -7,12 +7,13 @@ import { enqueue, MAIL_RETRY, QUEUES } from "~/jobs/queue.server";
 import { moderatorsMaySee } from "./visibility";
 import { type ChecklistKey, type DecisionKind, isReason, reasonLabel } from "./reasons";
 import { needsSecondLook, trustLevel, type History } from "./trust";
+import { AppError } from "~/utils/errors";
 
 export const CLAIM_MINUTES = 15;
 
-export class DecisionError extends Error {
+export class DecisionError extends AppError {
   constructor(message: string, readonly status: 400 | 403 | 404 | 409) {
-    super(message);
+    super(message, status);
   }
 }
 

@@ -12,14 +12,15 @@ import { EVIDENCE_TYPES, isEvidenceType, MAX_BYTES } from "~/storage/evidence-ty
 import { copyObject, deleteObject, isStorageOutage, objectSize, presignPut, readHead, sha256OfObject } from "~/storage/s3.server";
 import { sniffEvidenceType } from "~/storage/sniff.server";
 import { EDITABLE } from "./status";
+import { AppError } from "~/utils/errors";
 
 export const MAX_EVIDENCE_PER_REPORT = 12;
 export const STORAGE_UNREACHABLE = "File storage is not reachable right now. Your file is kept on your device and the draft is unchanged: try again in a few minutes.";
 const NOT_EDITABLE = "Evidence can only be added while the report is a draft or returned";
 
-export class EvidenceError extends Error {
+export class EvidenceError extends AppError {
   constructor(message: string, readonly status: 400 | 404 | 409 | 413 | 415 | 422 | 503) {
-    super(message);
+    super(message, status);
   }
 }
 

@@ -5,12 +5,13 @@ import type { Db } from "../../db/database";
 import { submitFlags } from "~/moderation/submit-flags.server";
 import { type ReportForm, toColumns, type parseDraft } from "./form-schema";
 import { EDITABLE, WITHDRAWABLE } from "./status";
+import { AppError } from "~/utils/errors";
 
 export { EDITABLE, WITHDRAWABLE };
 
-export class ReportError extends Error {
+export class ReportError extends AppError {
   constructor(message: string, readonly status: 400 | 403 | 404 | 409, readonly field?: string) {
-    super(message);
+    super(message, status);
   }
 }
 
