@@ -49,9 +49,10 @@ async function resolveToolAndJob(db: Db, toolSlug: string, jobSlug: string) {
   return { model, job };
 }
 
-/** The reporter's own report, locked for update; 404 when it is someone else's. */
-async function ownReport(db: Db, userId: number, reportId: number) {
-  const r = await db.selectFrom("reports").selectAll().where("id", "=", reportId).where("reporter_id", "=", userId).executeTakeFirst();
+/** The reporter's own report (its row locked until the transaction ends when `lock`); 404 when it is someone else's. */
+async function ownReport(db: Db, userId: number, reportId: number, lock = false) {
+  const q = db.selectFrom("reports").selectAll().where("id", "=", reportId).where("reporter_id", "=", userId);
+  const r = await (lock ? q.forUpdate() : q).executeTakeFirst();
   if (!r) throw new ReportError("No such report among yours", 404);
   return r;
 }
@@ -71,7 +72,7 @@ export async function saveDraft(db: Db, userId: number, reportId: number | undef
   const columns = toColumns(draft);
   return db.transaction().execute(async (trx) => {
     if (reportId) {
-      const r = await ownReport(trx, userId, reportId);
+      const r = await ownReport(trx, userId, reportId, true); // a submit in flight waits, or finishes first and wins
       if (!EDITABLE.includes(r.status)) throw new ReportError("This report is no longer editable", 409);
       // A returned report stays complete (the database insists): a field cleared while fixing
       // it keeps its stored value until the report is resubmitted.

@@ -91,7 +91,7 @@ export async function reindexAll(db: Db, client = searchClient()) {
   return docs.length;
 }
 
-/** After an accept: the report's document and its model's. */
+/** After an accept: the report's document (a model's own document changes only with a full reindex). */
 export async function indexReport(db: Db, reportId: number, client = searchClient()) {
   const docs = await reportDocs(db, [reportId]);
   if (docs.length) await client.index(INDEX).addDocuments(docs).waitTask();
