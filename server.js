@@ -14,7 +14,7 @@
 //   - static files carry nosniff and a CSP that lets them load nothing but our own styles,
 //     fonts and images, and HSTS when APP_ORIGIN is https.
 //   - request bodies are capped per route before anything parses them (BODY_LIMITS below).
-// Plain JavaScript, run by node itself; HOST and PORT choose where it listens.
+// Plain JavaScript, run by node itself; HOST and PORT (app/config.server.ts) choose where it listens.
 import path from "node:path";
 import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
@@ -27,17 +27,21 @@ import { createRequestHandler } from "react-router";
 const CLIENT_ADDRESS_HEADER = "x-bayproof-client-address";
 /** Must equal HSTS in app/security.server.ts (a unit test checks). */
 const HSTS = "max-age=31536000; includeSubDomains";
-const STATIC_HEADERS = {
-  "Content-Security-Policy": "default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'",
-  "X-Content-Type-Options": "nosniff",
-  ...((process.env.APP_ORIGIN ?? "").startsWith("https://") ? { "Strict-Transport-Security": HSTS } : {}),
-};
 
 const root = path.dirname(fileURLToPath(import.meta.url));
 const build = await import(path.join(root, "build/server/index.js"));
-const handle = createRequestHandler(build, process.env.NODE_ENV);
 const crossSiteRefusal = build.entry.module.crossSiteRefusal;
 if (typeof crossSiteRefusal !== "function") throw new Error("app/entry.server.tsx must export crossSiteRefusal");
+/** The app's configuration (app/config.server.ts), read once from the environment by the build. */
+const config = build.entry.module.config;
+if (!config?.listen) throw new Error("app/entry.server.tsx must export config");
+const handle = createRequestHandler(build, config.mode);
+
+const STATIC_HEADERS = {
+  "Content-Security-Policy": "default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'",
+  "X-Content-Type-Options": "nosniff",
+  ...(config.appOrigin.startsWith("https://") ? { "Strict-Transport-Security": HSTS } : {}),
+};
 
 /** A 400 with a reason: the feed's JSON error under /api/v1, JSON under /api/, plain text elsewhere. */
 function badPath(req, res) {
@@ -173,8 +177,7 @@ app.all("*", async (req, res, next) => {
   }
 });
 
-const host = process.env.HOST ?? "127.0.0.1";
-const port = Number(process.env.PORT ?? 3000);
+const { host, port } = config.listen;
 const server = app.listen(port, host, () => console.log(`[server] http://${host}:${port}`));
 // Requests node's parser refuses before any route sees them (an address or headers over 16 KiB,
 // a malformed request line) get a reason too, in JSON since the path is not known.

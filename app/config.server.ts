@@ -1,13 +1,22 @@
-// Configuration from the environment, with local defaults (README, "Configuration").
+// Configuration from the environment, with local defaults (README, "Configuration"). Read once, when
+// the server (or the worker) starts; everything else takes its settings from here. server.js reads
+// the same object through the build (app/entry.server.tsx).
+import { DEFAULT_DATABASE_URL } from "../db/database";
+
 const env = process.env;
 
 const port = env.PORT ?? "3000";
 
 export const config = {
+  /** Where server.js listens. */
+  listen: { host: env.HOST ?? "127.0.0.1", port: Number(port) },
+  /** React Router's mode for the request handler ("production" unless told). */
+  mode: env.NODE_ENV,
   /** The origin users reach the app at; https turns on Secure and __Host- cookies. */
   appOrigin: (env.APP_ORIGIN ?? `http://127.0.0.1:${port}`).replace(/\/$/, ""),
   /** Trust the first X-Forwarded-For hop (only behind a load balancer that sets it). */
   trustProxy: env.BAYPROOF_TRUST_PROXY === "1",
+  databaseUrl: env.DATABASE_URL ?? DEFAULT_DATABASE_URL,
   oidc: {
     id: env.OIDC_PROVIDER_ID ?? "local",
     name: env.OIDC_PROVIDER_NAME ?? "Bayproof demo ID (local)",
@@ -22,6 +31,18 @@ export const config = {
     from: env.MAIL_FROM ?? "Bayproof <no-reply@bayproof.test>",
     /** Set only where the local mail catcher runs; turns on /dev/mail. */
     catcherDir: env.BAYPROOF_MAIL_CATCHER_DIR || null,
+  },
+  search: {
+    url: env.SEARCH_URL ?? "http://127.0.0.1:54350",
+    apiKey: env.SEARCH_API_KEY,
+  },
+  storage: {
+    endpoint: env.S3_ENDPOINT ?? "http://127.0.0.1:54340",
+    bucket: env.S3_BUCKET ?? "bayproof-evidence",
+    region: env.S3_REGION ?? "us-east-1",
+    forcePathStyle: env.S3_FORCE_PATH_STYLE !== "0",
+    accessKeyId: env.S3_ACCESS_KEY_ID ?? "S3RVER",
+    secretAccessKey: env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
   },
 };
 

@@ -1,11 +1,12 @@
 import { AsyncLocalStorage } from "node:async_hooks";
 import { data } from "react-router";
-import { createDb, createPool, DEFAULT_DATABASE_URL } from "../db/database";
+import { config } from "~/config.server";
+import { createDb, createPool } from "../db/database";
 
-// One pool per server process; the URL comes from the environment (see README, Configuration).
+// One pool per server process; the URL comes from the configuration (app/config.server.ts).
 // The pool itself is shared with what needs a bare client (the feed's cursors and rate limits).
 // Its connections are named, so an operator (or a test) can tell them apart in pg_stat_activity.
-export const pool = createPool(process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL, 10, "bayproof-web");
+export const pool = createPool(config.databaseUrl, 10, "bayproof-web");
 
 interface RequestKind {
   /** GET or HEAD: its reads may run again on a fresh connection. */

@@ -1,8 +1,8 @@
 import { useEffect } from "react";
 import { Form, Link, Links, Meta, NavLink, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
-import { getUser, hasRole } from "~/auth/session.server";
+import { getUser, hasRole, withSessions } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
-import { RETRY_AFTER_SECONDS, servingRequest } from "~/db.server";
+import { db, RETRY_AFTER_SECONDS, servingRequest } from "~/db.server";
 import { SearchBox } from "~/components/search-box";
 import { applySecurityHeaders, crossSiteRefusal, newNonce } from "~/security.server";
 import { nonceContext, useNonce } from "~/utils/nonce";
@@ -14,7 +14,7 @@ export const middleware: Route.MiddlewareFunction[] = [
   async ({ request, context }, next) => {
     const nonce = newNonce();
     context.set(nonceContext, nonce);
-    const response = crossSiteRefusal(request) ?? refuseUnreadableRequest(request) ?? (await servingRequest(request, next));
+    const response = crossSiteRefusal(request) ?? refuseUnreadableRequest(request) ?? (await servingRequest(request, () => withSessions(db, next)));
     if (response.status === 503 && !response.headers.has("Retry-After")) response.headers.set("Retry-After", RETRY_AFTER_SECONDS);
     applySecurityHeaders(response.headers, nonce, import.meta.env.DEV);
     return response;

@@ -1,7 +1,14 @@
-import { Kysely } from "kysely";
+import { Kysely, type Transaction } from "kysely";
 import pg from "pg";
 import { ConnectionLossDialect, type ConnectionLossPolicy, guardedPool, NO_RETRY } from "./connection-loss";
 import type { Database } from "./schema";
+
+/**
+ * What every query function takes first: the app's instance or an open transaction, so a caller can put
+ * several queries in one transaction. A function that must run inside one takes `Trx`.
+ */
+export type Db = Kysely<Database> | Transaction<Database>;
+export type Trx = Transaction<Database>;
 
 export const DEFAULT_DATABASE_URL = "postgres://bayproof@127.0.0.1:54320/bayproof";
 

@@ -1,9 +1,10 @@
 // The background worker: `npm start` runs one beside the web server; in production run as many as
 // needed, each with DATABASE_URL and the storage variables.
-import { createDb, createPool, DEFAULT_DATABASE_URL } from "../db/database";
-import { startWorker } from "../app/jobs/worker.server";
+import { createDb, createPool } from "../db/database";
+import { config } from "../app/config.server";
+import { startWorker } from "../app/worker.server";
 
-const url = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
+const url = config.databaseUrl;
 const pool = createPool(url, 4);
 const db = createDb(pool);
 const log = (s: string) => console.log(`[worker] ${s}`);

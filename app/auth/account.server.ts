@@ -1,7 +1,6 @@
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 
-type Db = Kysely<Database>;
 
 export async function listSessions(db: Db, userId: number) {
   return db

@@ -1,9 +1,8 @@
 // API keys for the open feed: shown once at creation, stored as SHA-256, revocable.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
-import { randomToken, sha256Hex } from "./tokens.server";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
+import { randomToken, sha256Hex } from "~/utils/tokens.server";
 
-type Db = Kysely<Database>;
 export const MAX_KEYS_PER_USER = 10;
 
 export async function createApiKey(db: Db, userId: number, name: string) {

@@ -2,25 +2,20 @@
 // revoked in the same transaction — and each ban or unban is logged with its reason in the
 // append-only ban_changes table, as role changes are in role_changes. Unbanning lets the person
 // sign in again; it revives no old session and no old key.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
+import { AppError } from "~/utils/errors";
 
-type Db = Kysely<Database>;
 export const BAN_REASON_MIN = 3;
 export const BAN_REASON_MAX = 500;
 
-export class BanError extends Error {
-  constructor(message: string, readonly status: 400 | 404) {
-    super(message);
-  }
-}
 
 /** Bans or unbans, logging who did it and why; a change that changes nothing logs nothing. */
 export async function changeBan(db: Db, actorId: number, userId: number, change: "ban" | "unban", reason: string) {
-  if (change === "ban" && actorId === userId) throw new BanError("You cannot ban yourself.", 400);
+  if (change === "ban" && actorId === userId) throw new AppError("You cannot ban yourself.", 400);
   return db.transaction().execute(async (trx) => {
     const target = await trx.selectFrom("users").select(["id", "banned_at"]).where("id", "=", userId).forUpdate().executeTakeFirst();
-    if (!target) throw new BanError("No such user.", 404);
+    if (!target) throw new AppError("No such user.", 404);
     if ((change === "ban") === (target.banned_at !== null)) return false;
     await trx.updateTable("users").set({ banned_at: change === "ban" ? sql`now()` : null }).where("id", "=", userId).execute();
     if (change === "ban") {

@@ -3,11 +3,11 @@
 // docs/decisions/006-mail-delivery.md): a link that cannot be mailed is removed again, so it does
 // not count toward the limits, and the person is asked to try again in a minute.
 import { sql } from "kysely";
-import { db } from "~/db.server";
 import { clientKey } from "~/utils/client-address.server";
 import { config } from "~/config.server";
+import type { Db } from "../../db/database";
 import { sendMail } from "./mail.server";
-import { randomToken, sha256Hex } from "./tokens.server";
+import { randomToken, sha256Hex } from "~/utils/tokens.server";
 import { createUser, findUserByEmail } from "./users.server";
 
 export const LINK_LIFETIME_MS = 10 * 60_000;
@@ -17,7 +17,7 @@ export const MAX_PER_CLIENT = 10;
 
 export type LinkRequestResult = { ok: true } | { ok: false; reason: "too_many_for_address" | "too_many_for_client" | "mail_failed" };
 
-export async function requestSignInLink(email: string, request: Request, redirectTo: string): Promise<LinkRequestResult> {
+export async function requestSignInLink(db: Db, email: string, request: Request, redirectTo: string): Promise<LinkRequestResult> {
   const address = email.toLowerCase();
   const client = clientKey(request);
   const counts = await db
@@ -65,7 +65,7 @@ export type ConsumeResult =
   | { ok: false; reason: "unknown" | "used" | "expired" | "banned" };
 
 /** Spends the link (once) and returns the user it signs in, creating the account on first use. */
-export async function consumeSignInLink(token: string): Promise<ConsumeResult> {
+export async function consumeSignInLink(db: Db, token: string): Promise<ConsumeResult> {
   const hash = sha256Hex(token);
   return db.transaction().execute(async (trx) => {
     const spent = await trx

@@ -4,9 +4,10 @@
 import { CodeChallengeMethod, decodeIdToken, generateCodeVerifier, generateState, OAuth2Client } from "arctic";
 import { createCookie } from "react-router";
 import { z } from "zod";
-import { db } from "~/db.server";
 import { config, isHttps } from "~/config.server";
+import type { Db } from "../../db/database";
 import { createUser, findUserByEmail } from "./users.server";
+import { AppError } from "~/utils/errors";
 
 const flowCookie = createCookie("bayproof_oidc", {
   httpOnly: true,
@@ -41,11 +42,6 @@ export async function startSignIn(provider: typeof config.oidc, redirectTo: stri
   return { url: url.toString(), cookie };
 }
 
-export class SignInError extends Error {
-  constructor(message: string, readonly status: 400 | 401 | 403 | 409 = 400) {
-    super(message);
-  }
-}
 
 const claimsSchema = z.object({
   iss: z.string(),
@@ -57,33 +53,33 @@ const claimsSchema = z.object({
 });
 
 /** Checks the callback against the remembered attempt and returns the user to sign in. */
-export async function finishSignIn(provider: typeof config.oidc, request: Request) {
+export async function finishSignIn(db: Db, provider: typeof config.oidc, request: Request) {
   const url = new URL(request.url);
   const flow = flowSchema.safeParse(await flowCookie.parse(request.headers.get("cookie")));
-  if (!flow.success) throw new SignInError("This sign-in attempt has expired or was started in another browser. Start again.");
+  if (!flow.success) throw new AppError("This sign-in attempt has expired or was started in another browser. Start again.");
   const providerError = url.searchParams.get("error");
-  if (providerError) throw new SignInError(`The sign-in provider refused: ${url.searchParams.get("error_description") ?? providerError}`, 401);
+  if (providerError) throw new AppError(`The sign-in provider refused: ${url.searchParams.get("error_description") ?? providerError}`, 401);
   const code = url.searchParams.get("code");
   const state = url.searchParams.get("state");
-  if (!code || !state || state !== flow.data.state) throw new SignInError("The sign-in response does not match this attempt (state). Start again.");
+  if (!code || !state || state !== flow.data.state) throw new AppError("The sign-in response does not match this attempt (state). Start again.");
 
   let idToken: string;
   try {
     const tokens = await client(provider).validateAuthorizationCode(provider.tokenUrl, code, flow.data.verifier);
     idToken = tokens.idToken();
   } catch {
-    throw new SignInError("The sign-in provider did not accept the code. Start again.", 401);
+    throw new AppError("The sign-in provider did not accept the code. Start again.", 401);
   }
   // The ID token comes straight from the token endpoint, so its signature need not be re-checked
   // (OpenID Connect Core §3.1.3.7); its claims still must match this client and this attempt.
   const claims = claimsSchema.safeParse(decodeIdToken(idToken));
-  if (!claims.success) throw new SignInError("The provider's ID token is missing required claims.", 401);
+  if (!claims.success) throw new AppError("The provider's ID token is missing required claims.", 401);
   const c = claims.data;
   const audiences = Array.isArray(c.aud) ? c.aud : [c.aud];
-  if (c.iss.replace(/\/$/, "") !== provider.issuer.replace(/\/$/, "")) throw new SignInError("The ID token is from another issuer.", 401);
-  if (!audiences.includes(provider.clientId)) throw new SignInError("The ID token is for another application.", 401);
-  if (c.exp * 1000 < Date.now()) throw new SignInError("The ID token has expired. Start again.", 401);
-  if (c.nonce !== flow.data.nonce) throw new SignInError("The ID token does not match this attempt (nonce). Start again.", 401);
+  if (c.iss.replace(/\/$/, "") !== provider.issuer.replace(/\/$/, "")) throw new AppError("The ID token is from another issuer.", 401);
+  if (!audiences.includes(provider.clientId)) throw new AppError("The ID token is for another application.", 401);
+  if (c.exp * 1000 < Date.now()) throw new AppError("The ID token has expired. Start again.", 401);
+  if (c.nonce !== flow.data.nonce) throw new AppError("The ID token does not match this attempt (nonce). Start again.", 401);
 
   const userId = await db.transaction().execute(async (trx) => {
     const linked = await trx
@@ -94,12 +90,12 @@ export async function finishSignIn(provider: typeof config.oidc, request: Reques
       .where("o.subject", "=", c.sub)
       .executeTakeFirst();
     if (linked) {
-      if (linked.banned_at) throw new SignInError("This account is suspended.", 403);
+      if (linked.banned_at) throw new AppError("This account is suspended.", 403);
       return linked.id;
     }
-    if (!c.email) throw new SignInError("The provider did not share an e-mail address; Bayproof needs one for decisions on your reports.");
+    if (!c.email) throw new AppError("The provider did not share an e-mail address; Bayproof needs one for decisions on your reports.");
     if (await findUserByEmail(trx, c.email)) {
-      throw new SignInError(
+      throw new AppError(
         "A Bayproof account already uses this e-mail address. Sign in with an e-mail link instead; accounts are never joined by e-mail alone.",
         409,
       );

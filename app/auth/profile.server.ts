@@ -1,10 +1,8 @@
 // The user's own profile: the public handle and the units they enter and read figures in.
-import type { Kysely } from "kysely";
 import type { z } from "zod";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 import type { profileSchema } from "./forms";
 
-type Db = Kysely<Database>;
 export type Profile = Omit<z.output<typeof profileSchema>, "intent">;
 
 /** Whether another user already has this handle. */

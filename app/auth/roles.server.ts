@@ -1,19 +1,18 @@
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 import type { Role } from "./session.server";
+import { AppError } from "~/utils/errors";
 
-type Db = Kysely<Database>;
 
-export class RoleChangeError extends Error {}
 
 /** Grants or removes a role, logging who did it; idempotent changes log nothing. */
 export async function changeRole(db: Db, actorId: number, userId: number, role: Role, change: "grant" | "revoke") {
   if (change === "revoke" && role === "admin" && actorId === userId) {
-    throw new RoleChangeError("You cannot remove your own admin role; ask another admin.");
+    throw new AppError("You cannot remove your own admin role; ask another admin.");
   }
   return db.transaction().execute(async (trx) => {
     const target = await trx.selectFrom("users").select("id").where("id", "=", userId).forUpdate().executeTakeFirst();
-    if (!target) throw new RoleChangeError("No such user.");
+    if (!target) throw new AppError("No such user.");
     const changed = change === "grant"
       ? (await trx.insertInto("user_roles").values({ user_id: userId, role, granted_by: actorId })
           .onConflict((oc) => oc.columns(["user_id", "role"]).doNothing()).executeTakeFirst()).numInsertedOrUpdatedRows! > 0n

@@ -1,12 +1,13 @@
 // Sessions in PostgreSQL: the cookie carries a random id, the database only its SHA-256.
 // Idle timeout 14 days (extended as the user comes back), absolute lifetime 60 days.
+import { AsyncLocalStorage } from "node:async_hooks";
 import { createCookie, redirect } from "react-router";
 import { sql } from "kysely";
-import { db } from "~/db.server";
 import { isHttps } from "~/config.server";
 import type { ForceUnit, LengthUnit, PressureUnit } from "~/domain";
 import { invariantResponse } from "~/utils/http";
-import { randomToken, sha256Hex } from "./tokens.server";
+import type { Db } from "../../db/database";
+import { randomToken, sha256Hex } from "~/utils/tokens.server";
 
 export const IDLE_TIMEOUT_MS = 14 * 24 * 3600_000;
 export const ABSOLUTE_LIFETIME_MS = 60 * 24 * 3600_000;
@@ -33,7 +34,7 @@ export interface SessionUser {
   sessionHash: string;
 }
 
-export async function createSession(userId: number, method: "oidc" | "email_link", request: Request) {
+export async function createSession(db: Db, userId: number, method: "oidc" | "email_link", request: Request) {
   const token = randomToken();
   await db
     .insertInto("sessions")
@@ -53,8 +54,8 @@ async function readToken(request: Request): Promise<string | null> {
   return typeof value === "string" && /^[A-Za-z0-9_-]{43}$/.test(value) ? value : null;
 }
 
-/** The signed-in user, or null. A tampered, expired or revoked cookie is simply no session. */
-export async function getUser(request: Request): Promise<SessionUser | null> {
+/** The session's user, read from the database. Pages and guards use `getUser`, read once per request. */
+async function readSessionUser(db: Db, request: Request): Promise<SessionUser | null> {
   const token = await readToken(request);
   if (!token) return null;
   const hash = sha256Hex(token);
@@ -78,6 +79,35 @@ export async function getUser(request: Request): Promise<SessionUser | null> {
     id: row.id, handle: row.handle, email: row.email, roles: row.roles,
     pressureUnit: row.pressure_unit, lengthUnit: row.length_unit, forceUnit: row.force_unit, sessionHash: hash,
   };
+}
+
+// The root middleware runs each request's handling inside `withSessions(db, …)`. A GET's loaders
+// (root and route) share one read of the session; an action reads it afresh each time it asks, and
+// the loaders that follow a document POST (React Router gives them a GET request of their own) read
+// the user as the action left it.
+interface Serving {
+  db: Db;
+  users: WeakMap<Request, Promise<SessionUser | null>>;
+}
+const serving = new AsyncLocalStorage<Serving>();
+
+/** Runs one request's handling (the root middleware) with the database its guards read from. */
+export function withSessions<T>(db: Db, work: () => T): T {
+  return serving.run({ db, users: new WeakMap() }, work);
+}
+
+/** The signed-in user, or null. A tampered, expired or revoked cookie is simply no session. */
+export function getUser(request: Request): Promise<SessionUser | null> {
+  const store = serving.getStore();
+  if (!store) throw new Error("getUser: called outside withSessions (the root middleware)");
+  const method = request.method.toUpperCase();
+  if (method !== "GET" && method !== "HEAD") return readSessionUser(store.db, request);
+  let user = store.users.get(request);
+  if (!user) {
+    user = readSessionUser(store.db, request);
+    store.users.set(request, user);
+  }
+  return user;
 }
 
 function signInRedirect(request: Request) {
@@ -104,7 +134,7 @@ export async function requireRole(request: Request, role: Role): Promise<Session
 }
 
 /** Ends the current session; returns the Set-Cookie that clears it. */
-export async function destroySession(request: Request) {
+export async function destroySession(db: Db, request: Request) {
   const token = await readToken(request);
   if (token) await db.deleteFrom("sessions").where("id_hash", "=", sha256Hex(token)).execute();
   return sessionCookie.serialize("", { maxAge: 0 });

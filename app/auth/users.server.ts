@@ -1,8 +1,6 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "../../db/schema";
-import { randomToken } from "./tokens.server";
+import type { Db } from "../../db/database";
+import { randomToken } from "~/utils/tokens.server";
 
-type Db = Kysely<Database> | Transaction<Database>;
 
 /** A new pseudonymous handle; the user can change it on /account. */
 function newHandle() {

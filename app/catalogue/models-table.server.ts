@@ -1,9 +1,8 @@
 // The /models table: one row per tool model with its stored-cell figures, filtered and sorted in SQL.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 import type { ModelFilters } from "./model-filters";
 
-type Db = Kysely<Database>;
 
 export async function modelsTable(db: Db, f: ModelFilters) {
   let q = db.selectFrom("tool_models as m")

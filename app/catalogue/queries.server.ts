@@ -1,8 +1,7 @@
 // Catalogue reads for the public pages. Each takes `db` first so callers can share a transaction.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 
-type Db = Kysely<Database>;
 
 export function modelsBase(db: Db) {
   return db

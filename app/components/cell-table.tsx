@@ -1,12 +1,28 @@
 import { Link } from "react-router";
-import type { StatsCell } from "../../db/schema";
 import { formatDuration } from "~/domain";
 import { FEW_REPORTS } from "~/stats/cells";
 import { IntervalBar, pct, plainLine } from "./intervals";
 
-export type CellRow = Pick<StatsCell,
-  | "n" | "successes" | "estimate" | "lower" | "upper" | "shrunk_estimate" | "time_n" | "time_median_s" | "time_lower_s"
-  | "time_upper_s" | "adj_estimate" | "adj_lower" | "adj_upper" | "adj_reason" | "measured_share"> & {
+/** The figures of one stored cell that the table shows (components never import db/). */
+interface CellFigures {
+  n: number;
+  successes: number;
+  estimate: number;
+  lower: number;
+  upper: number;
+  shrunk_estimate: number | null;
+  time_n: number;
+  time_median_s: number | null;
+  time_lower_s: number | null;
+  time_upper_s: number | null;
+  adj_estimate: number | null;
+  adj_lower: number | null;
+  adj_upper: number | null;
+  adj_reason: string | null;
+  measured_share: number;
+}
+
+export type CellRow = CellFigures & {
   key: string;
   href: string;
   label: string;

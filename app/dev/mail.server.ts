@@ -2,13 +2,13 @@
 import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
 import { simpleParser } from "mailparser";
-import { data } from "react-router";
 import { config } from "~/config.server";
+import { refuse } from "~/utils/http";
 
 const ID = /^[0-9]{13}-[a-z0-9]{6,12}$/;
 
 function catcherDir(): string {
-  if (!config.mail.catcherDir) throw data("Not found", { status: 404 });
+  if (!config.mail.catcherDir) refuse("Not found", 404);
   return config.mail.catcherDir;
 }
 
@@ -23,9 +23,9 @@ export async function listMessages(limit = 50) {
 
 export async function getMessage(id: string) {
   const dir = catcherDir();
-  if (!ID.test(id)) throw data("No such message", { status: 404 });
+  if (!ID.test(id)) refuse("No such message", 404);
   const raw = await readFile(path.join(dir, `${id}.eml`)).catch(() => null);
-  if (!raw) throw data("No such message", { status: 404 });
+  if (!raw) refuse("No such message", 404);
   const mail = await simpleParser(raw);
   return { id, to: mail.to && !Array.isArray(mail.to) ? mail.to.text : "", from: mail.from?.text ?? "", subject: mail.subject ?? "", date: mail.date?.toISOString() ?? null, text: mail.text ?? "" };
 }

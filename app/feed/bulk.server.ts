@@ -6,7 +6,7 @@ import { Readable } from "node:stream";
 import { createGzip } from "node:zlib";
 import type pg from "pg";
 import Cursor from "pg-cursor";
-import { db, pool } from "~/db.server";
+import type { Db } from "../../db/database";
 import { BATCH, batchText, type BulkFormat, RAW_TEXT, type RawRow } from "./dump.server";
 import { bulkQuery } from "./queries.server";
 
@@ -17,7 +17,7 @@ const CONTENT_TYPE: Record<BulkFormat, string> = {
   csv: "text/csv; charset=utf-8; header=present",
 };
 
-function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): ReadableStream<Uint8Array> {
+function reportStream(db: Db, pool: pg.Pool, format: BulkFormat, origin: string, signal: AbortSignal): ReadableStream<Uint8Array> {
   let client: pg.PoolClient | null = null;
   let cursor: Cursor | null = null;
   let first = true;
@@ -66,8 +66,8 @@ function reportStream(format: BulkFormat, origin: string, signal: AbortSignal): 
 }
 
 /** The whole file as a response; gzip-compressed here when the client accepts it. */
-export function bulkResponse(request: Request, format: BulkFormat, origin: string, day: string): Response {
-  let body = reportStream(format, origin, request.signal);
+export function bulkResponse(db: Db, pool: pg.Pool, request: Request, format: BulkFormat, origin: string, day: string): Response {
+  let body = reportStream(db, pool, format, origin, request.signal);
   const headers: Record<string, string> = {
     "Content-Type": CONTENT_TYPE[format],
     "Content-Disposition": `attachment; filename="bayproof-reports-${day}.${format}"`,

@@ -3,9 +3,8 @@
 // (so every app server accepts every other's cursors). A cursor that was altered, or that is
 // used with other filters, is refused.
 import { createHash, createHmac, timingSafeEqual } from "node:crypto";
-import type { Kysely } from "kysely";
-import type { Database } from "../../db/schema";
-import { FeedError } from "./http.server";
+import type { Db } from "../../db/database";
+import { feedError } from "./http.server";
 
 export interface CursorState {
   /** Accepted time of the last report sent, in microseconds since 1970 (a decimal string). */
@@ -17,7 +16,7 @@ export interface CursorState {
 }
 
 let secret: Promise<string> | null = null;
-function cursorSecret(db: Kysely<Database>) {
+function cursorSecret(db: Db) {
   if (!secret) {
     secret = db.selectFrom("app_secrets").select("value").where("name", "=", "feed-cursor").executeTakeFirstOrThrow().then((r) => r.value);
     secret.catch(() => (secret = null)); // a failed read is tried again next time
@@ -30,14 +29,14 @@ export const filtersDigest = (filters: Record<string, unknown>) =>
 
 const sign = (key: string, payload: string) => createHmac("sha256", key).update(payload).digest().subarray(0, 16);
 
-export async function encodeCursor(db: Kysely<Database>, state: CursorState) {
+export async function encodeCursor(db: Db, state: CursorState) {
   const payload = Buffer.from(JSON.stringify([1, state.afterMicros, state.afterId, state.asOfMicros, state.filters])).toString("base64url");
   return `${payload}.${sign(await cursorSecret(db), payload).toString("base64url")}`;
 }
 
-const invalid = (why: string) => new FeedError(400, "invalid_cursor", `"cursor" ${why}; start again without it or use the next_cursor of the previous page.`, "cursor");
+const invalid = (why: string) => feedError(400, "invalid_cursor", `"cursor" ${why}; start again without it or use the next_cursor of the previous page.`, "cursor");
 
-export async function decodeCursor(db: Kysely<Database>, cursor: string, filters: string): Promise<CursorState> {
+export async function decodeCursor(db: Db, cursor: string, filters: string): Promise<CursorState> {
   const m = /^([A-Za-z0-9_-]{1,400})\.([A-Za-z0-9_-]{22})$/.exec(cursor);
   if (!m) throw invalid("is not a cursor this feed issued");
   const [, payload, mac] = m as unknown as [string, string, string];
@@ -53,6 +52,6 @@ export async function decodeCursor(db: Kysely<Database>, cursor: string, filters
   const [v, afterMicros, afterId, asOfMicros, digest] = Array.isArray(parts) ? parts : [];
   const micros = (x: unknown): x is string => typeof x === "string" && /^\d{1,18}$/.test(x);
   if (v !== 1 || !micros(afterMicros) || !Number.isSafeInteger(afterId) || !micros(asOfMicros) || typeof digest !== "string") throw invalid("cannot be read");
-  if (digest !== filters) throw new FeedError(400, "cursor_mismatch", `"cursor" belongs to a walk with other filters; keep the filters of its first page.`, "cursor");
+  if (digest !== filters) throw feedError(400, "cursor_mismatch", `"cursor" belongs to a walk with other filters; keep the filters of its first page.`, "cursor");
   return { afterMicros, afterId: afterId as number, asOfMicros, filters: digest };
 }

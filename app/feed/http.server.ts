@@ -2,28 +2,19 @@
 // ETags with 304s, and the cache lifetimes of each kind of answer.
 import { createHash } from "node:crypto";
 import type { z } from "zod";
+import { AppError, failureAnswer } from "~/utils/errors";
 import { hasControlCharacters } from "~/utils/text";
 
-export class FeedError extends Error {
-  constructor(readonly status: number, readonly code: string, message: string, readonly parameter?: string, readonly headers: Record<string, string> = {}) {
-    super(message);
-  }
-}
+/** The feed's expected failures: an AppError with the code its JSON answer carries. */
+export const feedError = (status: number, code: string, message: string, parameter?: string, headers: Record<string, string> = {}) =>
+  new AppError(message, status, { code, field: parameter, headers });
 
-export function errorResponse(e: FeedError): Response {
-  return Response.json(
-    { error: { code: e.code, message: e.message, ...(e.parameter ? { parameter: e.parameter } : {}) } },
-    { status: e.status, headers: { "Cache-Control": "no-store", ...e.headers } },
-  );
-}
-
-/** Runs a loader body, turning FeedErrors (thrown anywhere inside) into their JSON answers. */
+/** Runs a loader body, turning expected failures (thrown anywhere inside) into the feed's JSON answers. */
 export async function answer(work: () => Promise<Response>): Promise<Response> {
   try {
     return await work();
   } catch (error) {
-    if (error instanceof FeedError) return errorResponse(error);
-    throw error;
+    return failureAnswer(error, "feed");
   }
 }
 
@@ -37,10 +28,10 @@ export function readParams<S extends Record<string, z.ZodType>>(url: URL, shape:
   for (const [name, value] of url.searchParams) {
     if (!Object.hasOwn(shape, name)) {
       const known = Object.keys(shape);
-      throw new FeedError(400, "unknown_parameter", `Unknown parameter "${name}"${known.length ? `; this endpoint takes ${known.join(", ")}` : "; this endpoint takes none"}.`, name);
+      throw feedError(400, "unknown_parameter", `Unknown parameter "${name}"${known.length ? `; this endpoint takes ${known.join(", ")}` : "; this endpoint takes none"}.`, name);
     }
-    if (seen.has(name)) throw new FeedError(400, "repeated_parameter", `Give "${name}" once.`, name);
-    if (hasControlCharacters(value)) throw new FeedError(400, "invalid_parameter", `"${name}" holds control characters (such as NUL).`, name);
+    if (seen.has(name)) throw feedError(400, "repeated_parameter", `Give "${name}" once.`, name);
+    if (hasControlCharacters(value)) throw feedError(400, "invalid_parameter", `"${name}" holds control characters (such as NUL).`, name);
     seen.add(name);
   }
   for (const [name, schema] of Object.entries(shape)) {
@@ -48,7 +39,7 @@ export function readParams<S extends Record<string, z.ZodType>>(url: URL, shape:
     const parsed = schema.safeParse(raw);
     if (!parsed.success) {
       const why = parsed.error.issues[0]?.message ?? "cannot be read";
-      throw new FeedError(400, "invalid_parameter", `"${name}" ${why}.`, name);
+      throw feedError(400, "invalid_parameter", `"${name}" ${why}.`, name);
     }
     out[name] = parsed.data;
   }

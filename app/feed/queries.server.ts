@@ -2,13 +2,12 @@
 // timestamps already formatted by PostgreSQL. Pages and single records serialise that row; the
 // NDJSON file has PostgreSQL concatenate each line from the same columns (reportLine) and the
 // CSV takes them as text — see docs/decisions/005-open-feed.md.
-import { type Kysely, type RawBuilder, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { type RawBuilder, sql } from "kysely";
+import type { Db } from "../../db/database";
 import { adjustedAtReference } from "~/stats/cells";
 import { REPORT_FIELDS } from "./fields";
-import { FeedError } from "./http.server";
+import { feedError } from "./http.server";
 
-type Db = Kysely<Database>;
 
 const iso = (column: RawBuilder<unknown>) => sql`to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
 
@@ -83,7 +82,7 @@ export async function resolveSlugs(db: Db, f: SlugFilters): Promise<Pick<ReportF
   const row = (await sql<Record<string, number | null>>`select ${sql.join(given.map((k) =>
     sql`(select id from ${sql.table(SLUG_TABLES[k][0])} where slug = ${f[k]!}) as ${sql.id(k)}`))}`.execute(db)).rows[0]!;
   for (const k of given) {
-    if (row[k] == null) throw new FeedError(400, "unknown_value", `"${k}": no ${SLUG_TABLES[k][1]} has the slug "${f[k]}" (see /api/v1/${SLUG_TABLES[k][2]}).`, k);
+    if (row[k] == null) throw feedError(400, "unknown_value", `"${k}": no ${SLUG_TABLES[k][1]} has the slug "${f[k]}" (see /api/v1/${SLUG_TABLES[k][2]}).`, k);
   }
   return { modelId: row.model ?? undefined, jobId: row.job ?? undefined, categoryId: row.category ?? undefined };
 }

@@ -11,10 +11,9 @@ import { Readable, Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { createGzip } from "node:zlib";
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand } from "@aws-sdk/client-s3";
-import type { Kysely } from "kysely";
 import type pg from "pg";
 import Cursor from "pg-cursor";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 import type { Store } from "~/storage/s3.server";
 import type { SnapshotInfo } from "./documents";
 import { BATCH, batchText, type BulkFormat, RAW_TEXT, type RawRow } from "./dump.server";
@@ -31,7 +30,7 @@ interface Written {
 }
 
 /** Streams one format through gzip to a file, hashing and counting the gzipped bytes. */
-async function writeFile(client: pg.PoolClient, db: Kysely<Database>, format: BulkFormat, origin: string, file: string): Promise<Written> {
+async function writeFile(client: pg.PoolClient, db: Db, format: BulkFormat, origin: string, file: string): Promise<Written> {
   const q = bulkQuery(db, origin, format);
   const cursor = client.query(new Cursor(q.sql, [...q.parameters], { rowMode: "array", types: RAW_TEXT }));
   let rows = 0;
@@ -61,7 +60,7 @@ async function writeFile(client: pg.PoolClient, db: Kysely<Database>, format: Bu
 }
 
 /** Writes a snapshot of the accepted reports now, stores both files, and records it. */
-export async function writeSnapshot(db: Kysely<Database>, pool: pg.Pool, store: Store, origin: string) {
+export async function writeSnapshot(db: Db, pool: pg.Pool, store: Store, origin: string) {
   const dir = await mkdtemp(path.join(tmpdir(), "bayproof-snapshot-"));
   const client = await pool.connect();
   try {
@@ -98,7 +97,7 @@ export async function writeSnapshot(db: Kysely<Database>, pool: pg.Pool, store: 
 }
 
 /** Keeps the newest KEEP snapshots (a day apart), so a download of an older one has time to finish. */
-async function pruneSnapshots(db: Kysely<Database>, store: Store) {
+async function pruneSnapshots(db: Db, store: Store) {
   const old = await db.selectFrom("feed_snapshots").select(["id", "ndjson_key", "csv_key"])
     .orderBy("created_at", "desc").orderBy("id", "desc").offset(KEEP).limit(100).execute();
   for (const s of old) {
@@ -108,7 +107,7 @@ async function pruneSnapshots(db: Kysely<Database>, store: Store) {
 }
 
 type Row = Awaited<ReturnType<typeof findRow>>;
-const findRow = (db: Kysely<Database>, id: number | "latest") =>
+const findRow = (db: Db, id: number | "latest") =>
   db.selectFrom("feed_snapshots").selectAll()
     .$if(id !== "latest", (q) => q.where("id", "=", id as number))
     .orderBy("created_at", "desc").orderBy("id", "desc").limit(1).executeTakeFirst();
@@ -128,11 +127,11 @@ function snapshotInfo(row: NonNullable<Row>): SnapshotInfo {
 }
 
 /** The newest snapshot, or a given one; null when there is none. */
-export async function findSnapshot(db: Kysely<Database>, id: number | "latest" = "latest"): Promise<SnapshotInfo | null> {
+export async function findSnapshot(db: Db, id: number | "latest" = "latest"): Promise<SnapshotInfo | null> {
   const row = await findRow(db, id);
   return row ? snapshotInfo(row) : null;
 }
-export const latestSnapshot = (db: Kysely<Database>) => findSnapshot(db, "latest");
+export const latestSnapshot = (db: Db) => findSnapshot(db, "latest");
 
 /** A stored file, whole or one byte range of it. */
 export async function readSnapshotObject(store: Store, key: string, range?: { start: number; end: number }) {

@@ -1,9 +1,9 @@
 // Enqueueing background work from the app, inside the caller's transaction, so a decision and its
 // mail either both happen or neither does. Every queue's retry options live here, once.
 import PgBoss from "pg-boss";
-import { CompiledQuery, type Transaction } from "kysely";
-import type { Database } from "../../db/schema";
-import { DEFAULT_DATABASE_URL } from "../../db/database";
+import { CompiledQuery } from "kysely";
+import type { Trx } from "../../db/database";
+import { config } from "~/config.server";
 
 export const QUEUES = {
   evidenceCleanup: "evidence-cleanup",
@@ -13,6 +13,15 @@ export const QUEUES = {
   feedSnapshot: "feed-snapshot",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
+
+/** What each queue's jobs carry: `enqueue` takes it and the worker's handlers (`work`) receive it. */
+export interface JobPayloads {
+  [QUEUES.evidenceCleanup]: Record<string, never>;
+  [QUEUES.decisionMail]: { decisionId: number };
+  [QUEUES.statsRefresh]: { modelId: number; jobTypeId: number };
+  [QUEUES.searchIndex]: { reportId: number };
+  [QUEUES.feedSnapshot]: Record<string, never>;
+}
 
 /**
  * Mail must outlast a relay outage of a day. pg-boss (10.x, src/plans.js `failJobs`) waits
@@ -56,7 +65,7 @@ let boss: Promise<PgBoss> | null = null;
 /** One pg-boss client per process; the app only sends, the worker (scripts/worker.ts) works. */
 export function queue(): Promise<PgBoss> {
   boss ??= (async () => {
-    const b = new PgBoss({ connectionString: process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL, schema: "pgboss", supervise: false, schedule: false, max: 2 });
+    const b = new PgBoss({ connectionString: config.databaseUrl, schema: "pgboss", supervise: false, schedule: false, max: 2 });
     b.on("error", (error) => console.warn(`[queue] ${error.message}`));
     await b.start();
     await createQueues(b);
@@ -66,14 +75,26 @@ export function queue(): Promise<PgBoss> {
 }
 
 /** A pg-boss `db` option that runs its SQL through a Kysely transaction. */
-export function inTransaction(trx: Transaction<Database>) {
+export function inTransaction(trx: Trx) {
   return {
     executeSql: async (text: string, values: unknown[]) => ({ rows: (await trx.executeQuery(CompiledQuery.raw(text, values))).rows as unknown[] }),
   };
 }
 
 /** Enqueues a job through the caller's transaction, with its queue's options. */
-export async function enqueue(trx: Transaction<Database>, name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
+export function enqueue<N extends QueueName>(trx: Trx, name: N, data: JobPayloads[N], options: PgBoss.SendOptions = {}) {
+  return sendThrough(trx, name, data, options);
+}
+
+/** Sends again what a job of `name` carried when it was first sent (stuck.server.ts). */
+export async function sendThrough(trx: Trx, name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
   const b = await queue();
   return b.send(name, data, { ...JOB_OPTIONS[name], ...options, db: inTransaction(trx) });
+}
+
+/** The worker's side: one handler per job of queue `name`, given the payload `enqueue` was sent. */
+export function work<N extends QueueName>(boss: PgBoss, name: N, handler: (data: JobPayloads[N]) => Promise<void>) {
+  return boss.work<JobPayloads[N]>(name, async ([job]) => {
+    if (job) await handler(job.data);
+  });
 }

@@ -1,8 +1,8 @@
 // Stuck work: background jobs that ran out of retries (failed) or are waiting for another try,
 // read from pg-boss's own job table, described in plain words, and sent again on an admin's word.
-import { sql, type Kysely } from "kysely";
-import type { Database } from "../../db/schema";
-import { enqueue, inTransaction, queue, QUEUES, type QueueName } from "./queue.server";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
+import { inTransaction, queue, QUEUES, type QueueName, sendThrough } from "./queue.server";
 
 export interface StuckJob {
   id: string;
@@ -35,7 +35,7 @@ interface JobRow {
 const isQueue = (name: string): name is QueueName => (Object.values(QUEUES) as string[]).includes(name);
 
 /** Failed jobs of every queue, then those waiting to retry after at least one failed attempt. */
-export async function stuckJobs(db: Kysely<Database>, limit = 200): Promise<StuckJob[]> {
+export async function stuckJobs(db: Db, limit = 200): Promise<StuckJob[]> {
   const { rows } = await sql<JobRow>`
     select id, name, data, state::text as state, retry_count, retry_limit, started_on, created_on, completed_on, start_after, output
     from pgboss.job
@@ -61,7 +61,7 @@ export async function stuckJobs(db: Kysely<Database>, limit = 200): Promise<Stuc
 const VERB: Record<string, string> = { accept: "accepted", return: "returned", reject: "rejected" };
 
 /** What each job was for, in the words of the people who would miss it. */
-async function describe(db: Kysely<Database>, jobs: JobRow[]): Promise<string[]> {
+async function describe(db: Db, jobs: JobRow[]): Promise<string[]> {
   const num = (j: JobRow, key: string) => (typeof j.data?.[key] === "number" ? (j.data[key] as number) : null);
   const decisionIds = jobs.filter((j) => j.name === QUEUES.decisionMail).map((j) => num(j, "decisionId")).filter((n): n is number => n != null);
   const decisions = decisionIds.length
@@ -97,7 +97,7 @@ export type SendAgainResult = { ok: true; newId: string } | { ok: false; status:
  * Sends a failed job again as a new job of its queue, with the queue's full retry schedule, and
  * removes the failed one — in one transaction, so it is never both or neither.
  */
-export async function sendAgain(db: Kysely<Database>, id: string): Promise<SendAgainResult> {
+export async function sendAgain(db: Db, id: string): Promise<SendAgainResult> {
   const boss = await queue();
   return db.transaction().execute(async (trx) => {
     const { rows } = await sql<{ name: string; data: object | null; state: string }>`
@@ -105,7 +105,7 @@ export async function sendAgain(db: Kysely<Database>, id: string): Promise<SendA
     const job = rows[0];
     if (!job) return { ok: false as const, status: 404 as const, message: "That job is no longer on record; it may have been sent again already." };
     if (job.state !== "failed" || !isQueue(job.name)) return { ok: false as const, status: 409 as const, message: "Only failed work can be sent again." };
-    const newId = await enqueue(trx, job.name, job.data ?? {});
+    const newId = await sendThrough(trx, job.name, job.data ?? {});
     if (!newId) return { ok: false as const, status: 409 as const, message: "The same work is already waiting to run." };
     await boss.deleteJob(job.name, id, { db: inTransaction(trx) });
     return { ok: true as const, newId };

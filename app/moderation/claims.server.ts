@@ -1,12 +1,11 @@
 // Claims: a moderator who starts a review holds the report for CLAIM_MINUTES, so two people do not
 // check the same evidence at once. A claim is only ever taken by a POST (starting the review, or
 // deciding); opening the page reads who holds it and changes nothing.
-import { type Kysely, sql, type Transaction } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db, Trx } from "../../db/database";
 import { DecisionError } from "./decision-error";
 import { moderatorsMaySee } from "./visibility";
 
-type Db = Kysely<Database>;
 export const CLAIM_MINUTES = 15;
 
 export interface ClaimState {
@@ -18,13 +17,13 @@ export interface ClaimState {
   alreadyAccepted: boolean;
 }
 
-async function acceptedThisVersion(db: Db | Transaction<Database>, moderatorId: number, reportId: number, version: number) {
+async function acceptedThisVersion(db: Db, moderatorId: number, reportId: number, version: number) {
   const row = await db.selectFrom("decisions").select("id").where("report_id", "=", reportId)
     .where("moderator_id", "=", moderatorId).where("action", "=", "accept").where("report_version", "=", version).executeTakeFirst();
   return row !== undefined;
 }
 
-async function liveClaim(db: Db | Transaction<Database>, reportId: number) {
+async function liveClaim(db: Db, reportId: number) {
   return db.selectFrom("report_claims as c").innerJoin("users as u", "u.id", "c.moderator_id")
     .select(["c.moderator_id", "u.handle", "c.expires_at"]).where("c.report_id", "=", reportId)
     .where("c.expires_at", ">", sql<Date>`now()`).executeTakeFirst();
@@ -38,7 +37,7 @@ export async function claimState(db: Db, moderatorId: number, report: { id: numb
 }
 
 /** Takes a free or expired claim, or renews one's own; undefined while someone else's is live. */
-async function takeClaim(trx: Transaction<Database>, moderatorId: number, reportId: number) {
+async function takeClaim(trx: Trx, moderatorId: number, reportId: number) {
   const taken = await sql<{ moderator_id: number; expires_at: Date; fresh: boolean }>`
     insert into report_claims (report_id, moderator_id, expires_at)
     values (${reportId}, ${moderatorId}, now() + ${`${CLAIM_MINUTES} minutes`}::interval)
@@ -48,7 +47,7 @@ async function takeClaim(trx: Transaction<Database>, moderatorId: number, report
   return taken.rows[0];
 }
 
-async function refuseHeld(trx: Transaction<Database>, reportId: number): Promise<never> {
+async function refuseHeld(trx: Trx, reportId: number): Promise<never> {
   const holder = await trx.selectFrom("report_claims as c").innerJoin("users as u", "u.id", "c.moderator_id")
     .select(["u.handle", "c.expires_at"]).where("c.report_id", "=", reportId).executeTakeFirstOrThrow();
   const until = new Date(holder.expires_at).toISOString().slice(11, 16);
@@ -86,7 +85,7 @@ export async function claim(db: Db, moderatorId: number, reportId: number) {
  * decision that fails rolls the claim back with everything else; one that ends the review drops it.
  * Another moderator's live claim answers 409 with who holds it and until when.
  */
-export async function holdClaimToDecide(trx: Transaction<Database>, moderatorId: number, reportId: number) {
+export async function holdClaimToDecide(trx: Trx, moderatorId: number, reportId: number) {
   if (await takeClaim(trx, moderatorId, reportId)) return;
   await refuseHeld(trx, reportId);
 }

@@ -1,8 +1,8 @@
 // Moderation rules: decisions with their second look, evidence verdicts. Everything that
 // changes a report happens in one transaction with the report row locked, and every step writes
 // a row to the append-only decisions log.
-import { type Kysely, sql, type Transaction } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db, Trx } from "../../db/database";
 import { enqueue, MAIL_RETRY, QUEUES } from "~/jobs/queue.server";
 import { holdClaimToDecide } from "./claims.server";
 import { DecisionError } from "./decision-error";
@@ -10,12 +10,10 @@ import { moderatorsMaySee } from "./visibility";
 import { type ChecklistKey, type DecisionKind, isReason, reasonLabel } from "./reasons";
 import { needsSecondLook, trustLevel, type History } from "./trust";
 
-type Db = Kysely<Database>;
-
 export { DecisionError };
 
 /** Reporter histories for trust levels, for one or many reporters. */
-export async function histories(db: Db | Transaction<Database>, reporterIds: number[]): Promise<Map<number, History>> {
+export async function histories(db: Db, reporterIds: number[]): Promise<Map<number, History>> {
   if (reporterIds.length === 0) return new Map();
   const rows = await db.selectFrom("reports").select(["reporter_id", "status", "decided_at"])
     .where("reporter_id", "in", reporterIds).where("status", "in", ["accepted", "returned", "rejected"])

@@ -1,7 +1,6 @@
 // The reporter's mail about a decision, sent by the worker from the decision-mail queue. A failed
 // delivery throws, and pg-boss retries it.
-import type { Kysely } from "kysely";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 import { sendMail } from "~/auth/mail.server";
 import { config } from "~/config.server";
 import { toolName } from "~/domain";
@@ -9,7 +8,7 @@ import { reasonLabel } from "./reasons";
 
 const VERBS = { accept: "accepted", return: "returned to you for changes", reject: "rejected" } as const;
 
-export async function sendDecisionMail(db: Kysely<Database>, decisionId: number) {
+export async function sendDecisionMail(db: Db, decisionId: number) {
   const d = await db.selectFrom("decisions as d").innerJoin("reports as r", "r.id", "d.report_id")
     .innerJoin("users as u", "u.id", "r.reporter_id").innerJoin("tool_models as m", "m.id", "r.tool_model_id")
     .innerJoin("makers as mk", "mk.id", "m.maker_id").innerJoin("job_types as j", "j.id", "r.job_type_id")

@@ -1,12 +1,11 @@
 // The review queue and the review page's data.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 import { presignGet } from "~/storage/s3.server";
 import { histories } from "./decide.server";
 import { HIDDEN_FROM_MODERATORS } from "./visibility";
 import { trustLevel, type TrustLevel } from "./trust";
 
-type Db = Kysely<Database>;
 
 export interface QueueFilter {
   flag?: string;

@@ -1,13 +1,11 @@
 // The review page: everything a moderator sees about one report, read without changing anything
 // (the claim is taken by starting the review, a POST), and the page's two actions.
-import type { Kysely } from "kysely";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 import { claim, claimState } from "./claims.server";
 import { decide, reportLog } from "./decide.server";
 import type { ReviewAction } from "./decision-form";
 import { changesSinceLastVersion, reviewDetail } from "./queue.server";
 
-type Db = Kysely<Database>;
 const DECISIONS = new Set(["accept", "return", "reject"]);
 
 /** The report, its evidence, the usual figures for the job, the log and who holds it; null when moderators may not see it. */

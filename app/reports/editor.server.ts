@@ -3,9 +3,8 @@
 // throw ReportError; answers the form shows (field errors, a failed autosave) are returned.
 import type { SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
-import type { Kysely } from "kysely";
 import { z } from "zod";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 import type { LengthUnit, PressureUnit } from "~/domain";
 import { hasControlCharacters } from "~/utils/text";
 import { idField } from "~/utils/params";
@@ -14,7 +13,6 @@ import { parseDraft, reportSchema, toFormValues } from "./form-schema";
 import { findModel, getOwnReport, jobTypesByCategory, recentSupplies, ReportError, saveDraft, submitReport, suggestModels, withdrawReport } from "./reports.server";
 import { EDITABLE } from "./status";
 
-type Db = Kysely<Database>;
 interface Reporter {
   id: number;
   pressureUnit: PressureUnit;

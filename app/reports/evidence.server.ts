@@ -5,23 +5,23 @@
 // A presigned URL can write its upload key (uploads/…) again until it expires, so checked evidence
 // never stays there: completion copies the upload to a key of its own (evidence/…) that no URL is
 // ever signed for, checks and hashes that copy, records its key and removes the upload.
-import { sql, type Kysely } from "kysely";
-import type { Database } from "../../db/schema";
-import { randomToken } from "~/auth/tokens.server";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
+import { randomToken } from "~/utils/tokens.server";
 import type { EvidenceKind } from "~/domain";
 import { EVIDENCE_TYPES, isEvidenceType, MAX_BYTES } from "~/storage/evidence-types";
 import { copyObject, deleteObject, isStorageOutage, objectSize, presignPut, readHead, sha256OfObject } from "~/storage/s3.server";
 import { sniffEvidenceType } from "~/storage/sniff.server";
 import { EDITABLE } from "./status";
+import { AppError } from "~/utils/errors";
 
-type Db = Kysely<Database>;
 export const MAX_EVIDENCE_PER_REPORT = 12;
 export const STORAGE_UNREACHABLE = "File storage is not reachable right now. Your file is kept on your device and the draft is unchanged: try again in a few minutes.";
 const NOT_EDITABLE = "Evidence can only be added while the report is a draft or returned";
 
-export class EvidenceError extends Error {
+export class EvidenceError extends AppError {
   constructor(message: string, readonly status: 400 | 404 | 409 | 413 | 415 | 422 | 503) {
-    super(message);
+    super(message, status);
   }
 }
 

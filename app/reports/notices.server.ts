@@ -1,9 +1,8 @@
 // In-app notices to a reporter (a decision on one of their reports): the newest few, and marking
 // them read. Written by moderation/decide.server.ts in the decision's transaction.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 
-type Db = Kysely<Database>;
 
 /** The reporter's newest notices, read or not. */
 export async function recentNotices(db: Db, userId: number, limit = 10) {

@@ -1,18 +1,18 @@
 // Filing reports: drafts, submission with flags and versions, withdrawal, the reporter's list.
 // Every function takes `db` first and checks ownership itself.
-import { type Kysely, sql } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 import { toolName } from "~/domain";
 import { submitFlags } from "~/moderation/submit-flags.server";
 import { type ReportForm, toColumns, type parseDraft } from "./form-schema";
 import { EDITABLE, WITHDRAWABLE } from "./status";
+import { AppError } from "~/utils/errors";
 
-type Db = Kysely<Database>;
 export { EDITABLE, WITHDRAWABLE };
 
-export class ReportError extends Error {
+export class ReportError extends AppError {
   constructor(message: string, readonly status: 400 | 403 | 404 | 409, readonly field?: string) {
-    super(message);
+    super(message, status);
   }
 }
 
@@ -50,9 +50,10 @@ async function resolveToolAndJob(db: Db, toolSlug: string, jobSlug: string) {
   return { model, job };
 }
 
-/** The reporter's own report, locked for update; 404 when it is someone else's. */
-async function ownReport(db: Db | Kysely<Database>, userId: number, reportId: number) {
-  const r = await db.selectFrom("reports").selectAll().where("id", "=", reportId).where("reporter_id", "=", userId).executeTakeFirst();
+/** The reporter's own report (its row locked until the transaction ends when `lock`); 404 when it is someone else's. */
+async function ownReport(db: Db, userId: number, reportId: number, lock = false) {
+  const q = db.selectFrom("reports").selectAll().where("id", "=", reportId).where("reporter_id", "=", userId);
+  const r = await (lock ? q.forUpdate() : q).executeTakeFirst();
   if (!r) throw new ReportError("No such report among yours", 404);
   return r;
 }
@@ -72,7 +73,7 @@ export async function saveDraft(db: Db, userId: number, reportId: number | undef
   const columns = toColumns(draft);
   return db.transaction().execute(async (trx) => {
     if (reportId) {
-      const r = await ownReport(trx, userId, reportId);
+      const r = await ownReport(trx, userId, reportId, true); // a submit in flight waits, or finishes first and wins
       if (!EDITABLE.includes(r.status)) throw new ReportError("This report is no longer editable", 409);
       // A returned report stays complete (the database insists): a field cleared while fixing
       // it keeps its stored value until the report is resubmitted.

@@ -1,8 +1,8 @@
-import { data } from "react-router";
+import { refuse } from "~/utils/http";
 
 // Any address no other route claims: a real 404 rendered by the root error boundary.
 export async function loader() {
-  throw data("Not found", { status: 404 });
+  refuse("Not found", 404);
 }
 
 export default function NotFound() {

@@ -1,11 +1,12 @@
 import { data, Form, Link, useNavigation } from "react-router";
 import { z } from "zod";
-import { BAN_REASON_MAX, BAN_REASON_MIN, BanError, changeBan, userForAdmin } from "~/auth/bans.server";
+import { BAN_REASON_MAX, BAN_REASON_MIN, changeBan, userForAdmin } from "~/auth/bans.server";
 import { requireRole } from "~/auth/session.server";
 import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { buttonClass, Card, cardClass } from "~/components/ui";
 import { db } from "~/db.server";
+import { failureAnswer } from "~/utils/errors";
 import { parseForm } from "~/utils/forms";
 import { invariantResponse } from "~/utils/http";
 import type { Route } from "./+types/admin.users.$id";
@@ -42,8 +43,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     const done = form.data.intent === "ban" ? "Banned: every session ended and every API key revoked." : "Unbanned: they may sign in again.";
     return { ok: true as const, message: changed ? `${done} Logged.` : "Nothing to change.", reason: "" };
   } catch (error) {
-    if (error instanceof BanError) return data({ ok: false as const, message: error.message, reason: form.data.reason }, { status: error.status });
-    throw error;
+    return failureAnswer(error, "form", { reason: form.data.reason });
   }
 }
 

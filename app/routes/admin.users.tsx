@@ -1,18 +1,20 @@
-import { data, Form, Link } from "react-router";
-import { changeRole, recentRoleChanges, RoleChangeError, searchUsers } from "~/auth/roles.server";
+import { Form, Link } from "react-router";
+import { changeRole, recentRoleChanges, searchUsers } from "~/auth/roles.server";
 import { roleSchema, userSearchSchema } from "~/auth/forms";
 import { requireRole } from "~/auth/session.server";
 import { formatDate } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { buttonClass, Card, DataTable } from "~/components/ui";
 import { db } from "~/db.server";
+import { failureAnswer } from "~/utils/errors";
 import { parseForm, readForm } from "~/utils/forms";
+import { refuse } from "~/utils/http";
 import type { Route } from "./+types/admin.users";
 
 export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, "admin");
   const parsed = userSearchSchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
-  if (!parsed.success) throw data(parsed.error.issues[0]!.message, { status: 400 });
+  if (!parsed.success) refuse(parsed.error.issues[0]!.message);
   const [users, changes] = await Promise.all([searchUsers(db, parsed.data.q), recentRoleChanges(db)]);
   return { q: parsed.data.q, users, changes, adminId: admin.id };
 }
@@ -20,13 +22,12 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   const admin = await requireRole(request, "admin");
   const form = parseForm(roleSchema, await readForm(request));
-  if (!form.ok) throw data("That role change is not valid", { status: 400 });
+  if (!form.ok) refuse("That role change is not valid");
   try {
     const changed = await changeRole(db, admin.id, form.data.userId, form.data.role, form.data.intent);
     return { ok: true as const, message: changed ? "Role updated and logged." : "Nothing to change." };
   } catch (error) {
-    if (error instanceof RoleChangeError) return data({ ok: false as const, message: error.message }, { status: 400 });
-    throw error;
+    return failureAnswer(error, "form");
   }
 }
 

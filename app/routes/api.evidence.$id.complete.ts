@@ -1,6 +1,8 @@
 import { requireApiUser } from "~/auth/session.server";
 import { db } from "~/db.server";
-import { completeUpload, EvidenceError } from "~/reports/evidence.server";
+import { completeUpload } from "~/reports/evidence.server";
+import { failureAnswer } from "~/utils/errors";
+import { postOnly } from "~/utils/http";
 import { isId } from "~/utils/params";
 import type { Route } from "./+types/api.evidence.$id.complete";
 
@@ -12,13 +14,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     return Response.json(await completeUpload(db, user.id, Number(params.id)));
   } catch (error) {
-    if (error instanceof EvidenceError) {
-      return Response.json({ error: error.message }, { status: error.status, headers: error.status === 503 ? { "Retry-After": "60" } : {} });
-    }
-    throw error;
+    const answer = failureAnswer(error, "api");
+    if (answer.status === 503) answer.headers.set("Retry-After", "60");
+    return answer;
   }
 }
 
-export async function loader() {
-  return Response.json({ error: "POST here once the upload has finished" }, { status: 405, headers: { Allow: "POST" } });
-}
+export const loader = postOnly("POST here once the upload has finished");

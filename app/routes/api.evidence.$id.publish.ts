@@ -1,8 +1,10 @@
 import { z } from "zod";
 import { requireApiUser } from "~/auth/session.server";
 import { db } from "~/db.server";
-import { EvidenceError, setEvidencePublic } from "~/reports/evidence.server";
+import { setEvidencePublic } from "~/reports/evidence.server";
+import { failureAnswer } from "~/utils/errors";
 import { readJson } from "~/utils/forms";
+import { postOnly } from "~/utils/http";
 import { isId } from "~/utils/params";
 import type { Route } from "./+types/api.evidence.$id.publish";
 
@@ -17,11 +19,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     return Response.json(await setEvidencePublic(db, user.id, Number(params.id), parsed.data.public));
   } catch (error) {
-    if (error instanceof EvidenceError) return Response.json({ error: error.message }, { status: error.status });
-    throw error;
+    return failureAnswer(error, "api");
   }
 }
 
-export async function loader() {
-  return Response.json({ error: "POST { \"public\": true } or { \"public\": false } here" }, { status: 405, headers: { Allow: "POST" } });
-}
+export const loader = postOnly("POST { \"public\": true } or { \"public\": false } here");

@@ -1,8 +1,10 @@
 import { z } from "zod";
 import { requireApiUser } from "~/auth/session.server";
 import { db } from "~/db.server";
-import { createUpload, EvidenceError } from "~/reports/evidence.server";
+import { createUpload } from "~/reports/evidence.server";
+import { failureAnswer } from "~/utils/errors";
 import { readJson } from "~/utils/forms";
+import { postOnly } from "~/utils/http";
 import { isId } from "~/utils/params";
 import { plainText } from "~/utils/text";
 import type { Route } from "./+types/api.reports.$id.evidence";
@@ -18,11 +20,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     return Response.json(await createUpload(db, user.id, Number(params.id), parsed.data));
   } catch (error) {
-    if (error instanceof EvidenceError) return Response.json({ error: error.message }, { status: error.status });
-    throw error;
+    return failureAnswer(error, "api");
   }
 }
 
-export async function loader() {
-  return Response.json({ error: "POST the file's type and size to get an upload URL" }, { status: 405, headers: { Allow: "POST" } });
-}
+export const loader = postOnly("POST the file's type and size to get an upload URL");

@@ -1,6 +1,6 @@
 import { config } from "~/config.server";
 import { db } from "~/db.server";
-import { answer, CACHE, FeedError, jsonResponse, readParams } from "~/feed/http.server";
+import { answer, CACHE, feedError, jsonResponse, readParams } from "~/feed/http.server";
 import { idParam } from "~/feed/params";
 import { reportById } from "~/feed/queries.server";
 import type { Route } from "./+types/api.v1.reports.$id";
@@ -10,9 +10,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return answer(async () => {
     readParams(new URL(request.url), {});
     const id = idParam.safeParse(params.id);
-    if (!id.success) throw new FeedError(400, "invalid_parameter", `"id" ${id.error.issues[0]?.message ?? "cannot be read"}: give a report number.`, "id");
+    if (!id.success) throw feedError(400, "invalid_parameter", `"id" ${id.error.issues[0]?.message ?? "cannot be read"}: give a report number.`, "id");
     const record = await reportById(db, config.appOrigin, id.data);
-    if (!record) throw new FeedError(404, "not_found", `No accepted report has the number ${id.data}.`, "id");
+    if (!record) throw feedError(404, "not_found", `No accepted report has the number ${id.data}.`, "id");
     return jsonResponse(request, record, CACHE.record);
   });
 }

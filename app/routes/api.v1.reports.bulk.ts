@@ -1,7 +1,8 @@
 import { config } from "~/config.server";
+import { db, pool } from "~/db.server";
 import { bulkResponse } from "~/feed/bulk.server";
 import { callerContext } from "~/feed/context";
-import { answer, FeedError, readParams } from "~/feed/http.server";
+import { answer, feedError, readParams } from "~/feed/http.server";
 import type { Route } from "./+types/api.v1.reports.bulk";
 
 // Every accepted report in one file (reports.ndjson or reports.csv), streamed. Bulk files are
@@ -11,10 +12,10 @@ export async function loader({ request, context }: Route.LoaderArgs) {
     const url = new URL(request.url);
     readParams(url, {});
     if (context.get(callerContext)?.tier !== "key") {
-      throw new FeedError(401, "api_key_required", "The bulk files need an API key: sign in, create one on your account page, and send it as \"Authorization: Bearer <key>\".",
+      throw feedError(401, "api_key_required", "The bulk files need an API key: sign in, create one on your account page, and send it as \"Authorization: Bearer <key>\".",
         undefined, { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' });
     }
     const format = url.pathname.endsWith(".csv") ? "csv" : "ndjson";
-    return bulkResponse(request, format, config.appOrigin, new Date().toISOString().slice(0, 10));
+    return bulkResponse(db, pool, request, format, config.appOrigin, new Date().toISOString().slice(0, 10));
   });
 }

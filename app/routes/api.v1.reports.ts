@@ -1,7 +1,7 @@
 import { config } from "~/config.server";
 import { db } from "~/db.server";
 import { decodeCursor, encodeCursor, filtersDigest } from "~/feed/cursor.server";
-import { answer, CACHE, FeedError, jsonResponse, readParams } from "~/feed/http.server";
+import { answer, CACHE, feedError, jsonResponse, readParams } from "~/feed/http.server";
 import { cursorParam, instantParam, limitParam, slugParam } from "~/feed/params";
 import { microsToIso, newHorizon, reportPage, resolveSlugs } from "~/feed/queries.server";
 import type { Route } from "./+types/api.v1.reports";
@@ -19,7 +19,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     const url = new URL(request.url);
     const { limit, cursor, ...filters } = readParams(url, params);
     if (filters.accepted_since && filters.accepted_until && filters.accepted_since >= filters.accepted_until) {
-      throw new FeedError(400, "invalid_parameter", `"accepted_until" must be later than "accepted_since".`, "accepted_until");
+      throw feedError(400, "invalid_parameter", `"accepted_until" must be later than "accepted_since".`, "accepted_until");
     }
     const ids = await resolveSlugs(db, filters);
     const digest = filtersDigest({ ...filters, accepted_since: filters.accepted_since?.toISOString(), accepted_until: filters.accepted_until?.toISOString() });

@@ -1,6 +1,6 @@
 import { Readable } from "node:stream";
 import { db } from "~/db.server";
-import { answer, FeedError, matchesIfNoneMatch, readParams } from "~/feed/http.server";
+import { answer, feedError, matchesIfNoneMatch, readParams } from "~/feed/http.server";
 import { findSnapshot, readSnapshotObject } from "~/feed/snapshot.server";
 import { defaultStore } from "~/storage/s3.server";
 import type { Route } from "./+types/api.v1.snapshots.$snapshot.$file";
@@ -13,10 +13,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     readParams(new URL(request.url), {});
     const which = params.snapshot === "latest" ? "latest" : /^[1-9]\d{0,9}$/.test(params.snapshot) ? Number(params.snapshot) : null;
     const format = ({ "reports.ndjson.gz": "ndjson", "reports.csv.gz": "csv" } as const)[params.file as "reports.ndjson.gz" | "reports.csv.gz"];
-    if (which === null || !format) throw new FeedError(404, "not_found", "No such file: use /api/v1/snapshots/latest/reports.ndjson.gz or reports.csv.gz.");
+    if (which === null || !format) throw feedError(404, "not_found", "No such file: use /api/v1/snapshots/latest/reports.ndjson.gz or reports.csv.gz.");
     const snapshot = await findSnapshot(db, which);
     if (!snapshot) {
-      throw new FeedError(404, "no_snapshot", which === "latest" ? "No snapshot has been written yet; one is written daily at 03:15 UTC." : "No such snapshot: it may have been replaced by newer ones (see /api/v1/datapackage.json).");
+      throw feedError(404, "no_snapshot", which === "latest" ? "No snapshot has been written yet; one is written daily at 03:15 UTC." : "No such snapshot: it may have been replaced by newer ones (see /api/v1/datapackage.json).");
     }
     const file = snapshot.files.find((f) => f.format === format)!;
     const etag = `"${file.sha256}"`;
@@ -31,7 +31,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
     const range = wantedRange(request, etag, file.bytes);
     if (range === "unsatisfiable") {
-      throw new FeedError(416, "range_not_satisfiable", `The file has ${file.bytes} bytes; ask for a range inside it.`, undefined, { "Content-Range": `bytes */${file.bytes}` });
+      throw feedError(416, "range_not_satisfiable", `The file has ${file.bytes} bytes; ask for a range inside it.`, undefined, { "Content-Range": `bytes */${file.bytes}` });
     }
     const length = range ? range.end - range.start + 1 : file.bytes;
     Object.assign(headers, { "Content-Type": "application/gzip", "Content-Length": String(length) });

@@ -1,6 +1,8 @@
 import { admit } from "~/feed/access.server";
+import { db, pool } from "~/db.server";
 import { callerContext } from "~/feed/context";
-import { errorResponse, FeedError } from "~/feed/http.server";
+import { feedError } from "~/feed/http.server";
+import { failureAnswer } from "~/utils/errors";
 import type { Route } from "./+types/api.v1";
 
 const CORS = {
@@ -24,16 +26,15 @@ export const middleware: Route.MiddlewareFunction[] = [
     }
     let response: Response;
     if (method !== "GET" && method !== "HEAD") {
-      response = errorResponse(new FeedError(405, "method_not_allowed", "The feed is read-only: use GET.", undefined, { Allow: "GET, HEAD, OPTIONS" }));
+      response = failureAnswer(feedError(405, "method_not_allowed", "The feed is read-only: use GET.", undefined, { Allow: "GET, HEAD, OPTIONS" }), "feed");
     } else {
       try {
-        const caller = await admit(request);
+        const caller = await admit(db, pool, request);
         context.set(callerContext, caller);
         response = await next();
         for (const [k, v] of Object.entries(caller.headers)) response.headers.set(k, v);
       } catch (error) {
-        if (!(error instanceof FeedError)) throw error;
-        response = errorResponse(error);
+        response = failureAnswer(error, "feed");
       }
     }
     for (const [k, v] of Object.entries(CORS)) response.headers.set(k, v);

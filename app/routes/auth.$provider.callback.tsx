@@ -1,21 +1,23 @@
-import { data, redirect } from "react-router";
-import { finishSignIn, getProvider, SignInError } from "~/auth/oidc.server";
+import { redirect } from "react-router";
+import { finishSignIn, getProvider } from "~/auth/oidc.server";
+import { db } from "~/db.server";
 import { createSession, safeRedirectPath } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { failureAnswer } from "~/utils/errors";
+import { refuse } from "~/utils/http";
 import type { Route } from "./+types/auth.$provider.callback";
 
 export async function loader({ params, request }: Route.LoaderArgs) {
   const provider = getProvider(params.provider);
-  if (!provider) throw data(`Unknown sign-in provider "${params.provider.slice(0, 40)}".`, { status: 400 });
+  if (!provider) refuse(`Unknown sign-in provider "${params.provider.slice(0, 40)}".`);
   try {
-    const { userId, redirectTo, clearCookie } = await finishSignIn(provider, request);
+    const { userId, redirectTo, clearCookie } = await finishSignIn(db, provider, request);
     const headers = new Headers();
     headers.append("Set-Cookie", clearCookie);
-    headers.append("Set-Cookie", await createSession(userId, "oidc", request));
+    headers.append("Set-Cookie", await createSession(db, userId, "oidc", request));
     return redirect(safeRedirectPath(redirectTo), { headers });
   } catch (error) {
-    if (error instanceof SignInError) throw data(error.message, { status: error.status });
-    throw error;
+    throw failureAnswer(error, "page");
   }
 }
 

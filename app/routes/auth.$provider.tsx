@@ -1,12 +1,13 @@
-import { data, redirect } from "react-router";
+import { redirect } from "react-router";
 import { getProvider, startSignIn } from "~/auth/oidc.server";
 import { safeRedirectPath } from "~/auth/session.server";
 import type { Route } from "./+types/auth.$provider";
+import { refuse } from "~/utils/http";
 
 // Starts the provider's sign-in; a GET so it can be a plain link (no form-action to a third party).
 export async function loader({ params, request }: Route.LoaderArgs) {
   const provider = getProvider(params.provider);
-  if (!provider) throw data(`Unknown sign-in provider "${params.provider.slice(0, 40)}".`, { status: 400 });
+  if (!provider) refuse(`Unknown sign-in provider "${params.provider.slice(0, 40)}".`);
   const redirectTo = safeRedirectPath(new URL(request.url).searchParams.get("redirectTo"));
   const { url, cookie } = await startSignIn(provider, redirectTo);
   return redirect(url, { headers: { "Set-Cookie": cookie } });

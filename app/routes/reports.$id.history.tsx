@@ -1,4 +1,3 @@
-import { data } from "react-router";
 import { hasRole, requireUser } from "~/auth/session.server";
 import { LogList } from "~/components/decision-log";
 import { ErrorPage } from "~/components/error-page";
@@ -7,6 +6,7 @@ import { reportLog } from "~/moderation/decide.server";
 import { moderatorsMaySee } from "~/moderation/visibility";
 import { parseIdParam } from "~/utils/params";
 import type { Route } from "./+types/reports.$id.history";
+import { refuse } from "~/utils/http";
 
 // A report's moderation log, for its reporter and for moderators.
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -14,7 +14,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = parseIdParam(params.id, "No such report");
   const report = await db.selectFrom("reports").select(["id", "reporter_id", "status", "version"]).where("id", "=", id).executeTakeFirst();
   const own = report?.reporter_id === user.id;
-  if (!report || (!own && !(hasRole(user, "moderator") && moderatorsMaySee(report.status)))) throw data("No such report among yours", { status: 404 });
+  if (!report || (!own && !(hasRole(user, "moderator") && moderatorsMaySee(report.status)))) refuse("No such report among yours", 404);
   return { report, log: await reportLog(db, id) };
 }
 

@@ -1,4 +1,4 @@
-import { data, Form, Link } from "react-router";
+import { Form, Link } from "react-router";
 import { z } from "zod";
 import { requireRole } from "~/auth/session.server";
 import { formatDate, slugField, toolName } from "~/domain";
@@ -10,6 +10,7 @@ import { queueCounts, reviewQueue } from "~/moderation/queue.server";
 import { TRUST_LABELS, TRUST_LEVELS } from "~/moderation/trust";
 import { jobTypesByCategory } from "~/reports/reports.server";
 import type { Route } from "./+types/review._index";
+import { refuse } from "~/utils/http";
 
 const filterSchema = z.object({
   flag: z.enum(Object.keys(FLAG_EXPLANATIONS) as [string, ...string[]]).optional().or(z.literal("")),
@@ -22,7 +23,7 @@ const filterSchema = z.object({
 export async function loader({ request }: Route.LoaderArgs) {
   const moderator = await requireRole(request, "moderator");
   const parsed = filterSchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
-  if (!parsed.success) throw data("Those filters are not valid", { status: 400 });
+  if (!parsed.success) refuse("Those filters are not valid");
   const f = parsed.data;
   const [rows, counts, jobs] = await Promise.all([
     reviewQueue(db, moderator.id, {

@@ -1,11 +1,13 @@
-import { data, Form, redirect } from "react-router";
+import { Form, redirect } from "react-router";
 import { z } from "zod";
 import { consumeSignInLink } from "~/auth/email-link.server";
+import { db } from "~/db.server";
 import { createSession, safeRedirectPath } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
 import { buttonClass, Card } from "~/components/ui";
 import { readForm } from "~/utils/forms";
 import type { Route } from "./+types/sign-in.link";
+import { refuse } from "~/utils/http";
 
 const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{43}$/);
 
@@ -13,7 +15,7 @@ const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{43}$/);
 export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const token = tokenSchema.safeParse(url.searchParams.get("token"));
-  if (!token.success) throw data("This sign-in link is incomplete. Copy the whole link from the message.", { status: 400 });
+  if (!token.success) refuse("This sign-in link is incomplete. Copy the whole link from the message.");
   return { token: token.data, redirectTo: safeRedirectPath(url.searchParams.get("redirectTo")) };
 }
 
@@ -27,10 +29,10 @@ const REASONS = {
 export async function action({ request }: Route.ActionArgs) {
   const form = await readForm(request);
   const token = tokenSchema.safeParse(form.get("token"));
-  if (!token.success) throw data(REASONS.unknown, { status: 400 });
-  const result = await consumeSignInLink(token.data);
-  if (!result.ok) throw data(REASONS[result.reason], { status: result.reason === "banned" ? 403 : 400 });
-  const cookie = await createSession(result.userId, "email_link", request);
+  if (!token.success) refuse(REASONS.unknown);
+  const result = await consumeSignInLink(db, token.data);
+  if (!result.ok) refuse(REASONS[result.reason], result.reason === "banned" ? 403 : 400);
+  const cookie = await createSession(db, result.userId, "email_link", request);
   return redirect(safeRedirectPath(form.get("redirectTo")), { headers: { "Set-Cookie": cookie } });
 }
 

@@ -1,5 +1,6 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { requestSignInLink } from "~/auth/email-link.server";
+import { db } from "~/db.server";
 import { emailSchema } from "~/auth/forms";
 import { providers } from "~/auth/oidc.server";
 import { getUser, safeRedirectPath } from "~/auth/session.server";
@@ -18,7 +19,7 @@ export async function action({ request }: Route.ActionArgs) {
   const form = parseForm(emailSchema, await readForm(request));
   if (!form.ok) return invalid(form.errors, form.values);
   const redirectTo = safeRedirectPath(form.data.redirectTo);
-  const result = await requestSignInLink(form.data.email, request, redirectTo);
+  const result = await requestSignInLink(db, form.data.email, request, redirectTo);
   if (!result.ok && result.reason === "mail_failed") {
     return data(
       { ok: false as const, errors: {}, values: form.values, formError: "The mail could not be sent just now. Try again in a minute." },

@@ -1,5 +1,6 @@
 import { redirect } from "react-router";
 import { destroySession } from "~/auth/session.server";
+import { db } from "~/db.server";
 import { readForm } from "~/utils/forms";
 import type { Route } from "./+types/sign-out";
 
@@ -10,5 +11,5 @@ export async function loader() {
 
 export async function action({ request }: Route.ActionArgs) {
   await readForm(request);
-  return redirect("/", { headers: { "Set-Cookie": await destroySession(request) } });
+  return redirect("/", { headers: { "Set-Cookie": await destroySession(db, request) } });
 }

@@ -1,12 +1,12 @@
 // Search through the hosted search service (the meilisearch SDK; the local fake in development
 // and tests), with PostgreSQL as the fallback when the service cannot be reached.
-import { type Kysely, sql } from "kysely";
+import { sql } from "kysely";
 import { circuitBreaker, ConsecutiveBreaker, handleAll, type CircuitBreakerPolicy } from "cockatiel";
 import { Meilisearch } from "meilisearch";
-import type { Database } from "../../db/schema";
+import { config } from "~/config.server";
+import type { Db } from "../../db/database";
 import { toolName } from "~/domain";
 
-type Db = Kysely<Database>;
 export const INDEX = "bayproof";
 
 export const SEARCH_SETTINGS = {
@@ -43,7 +43,7 @@ export const SEARCH_TIMEOUT_MS = 5_000;
 export const BREAK_AFTER = 3;
 export const HALF_OPEN_AFTER_MS = 15_000;
 
-export function searchClient(host = process.env.SEARCH_URL ?? "http://127.0.0.1:54350", apiKey = process.env.SEARCH_API_KEY) {
+export function searchClient(host = config.search.url, apiKey = config.search.apiKey) {
   return new Meilisearch({ host, apiKey, timeout: SEARCH_TIMEOUT_MS });
 }
 
@@ -92,7 +92,7 @@ export async function reindexAll(db: Db, client = searchClient()) {
   return docs.length;
 }
 
-/** After an accept: the report's document and its model's. */
+/** After an accept: the report's document (a model's own document changes only with a full reindex). */
 export async function indexReport(db: Db, reportId: number, client = searchClient()) {
   const docs = await reportDocs(db, [reportId]);
   if (docs.length) await client.index(INDEX).addDocuments(docs).waitTask();

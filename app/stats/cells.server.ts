@@ -1,8 +1,6 @@
 // Reads of the stored cells for pages and the API. Pages never recompute from raw reports.
-import type { Kysely } from "kysely";
-import type { Database } from "../../db/schema";
+import type { Db } from "../../db/database";
 
-type Db = Kysely<Database>;
 
 const cellColumns = [
   "s.n", "s.successes", "s.estimate", "s.lower", "s.upper", "s.shrunk_estimate", "s.shrunk_lower", "s.shrunk_upper",

@@ -1,11 +1,10 @@
 // Keeps stats_cells in step with accepted reports. A single accept refreshes its own cell and
 // re-shrinks its job type (a few dozen rows); the full refresh recomputes everything.
-import { type Kysely, sql, type Transaction } from "kysely";
-import type { Database } from "../../db/schema";
+import { sql } from "kysely";
+import type { Db } from "../../db/database";
 import { type CellFigures, type CellReport, cellFigures } from "./cells";
 import { shrinkProportions } from "./proportions";
 
-type Db = Kysely<Database> | Transaction<Database>;
 
 async function acceptedReports(db: Db, jobTypeId: number, modelId?: number) {
   let q = db.selectFrom("reports").select(["tool_model_id", "outcome", "time_to_result_s", "inlet_kpa", "inlet_source"])
@@ -57,7 +56,7 @@ async function store(db: Db, jobTypeId: number, byModel: Map<number, CellReport[
 }
 
 /** After an accept: that cell, then its job type's shrinkage. */
-export async function refreshCell(db: Kysely<Database>, modelId: number, jobTypeId: number) {
+export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
   await db.transaction().execute(async (trx) => {
     const byModel = await acceptedReports(trx, jobTypeId, modelId);
     if (byModel.size === 0) await trx.deleteFrom("stats_cells").where("tool_model_id", "=", modelId).where("job_type_id", "=", jobTypeId).execute();
@@ -67,7 +66,7 @@ export async function refreshCell(db: Kysely<Database>, modelId: number, jobType
 }
 
 /** Every cell, recomputed from the accepted reports. */
-export async function refreshAll(db: Kysely<Database>) {
+export async function refreshAll(db: Db) {
   const jobs = await db.selectFrom("job_types").select("id").orderBy("id").execute();
   let cells = 0;
   for (const job of jobs) {

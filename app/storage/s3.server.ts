@@ -5,20 +5,15 @@ import { createHash } from "node:crypto";
 import type { Readable } from "node:stream";
 import { CopyObjectCommand, DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
+import { config } from "~/config.server";
 
-const env = process.env;
-
-export const storageConfig = {
-  endpoint: env.S3_ENDPOINT ?? "http://127.0.0.1:54340",
-  bucket: env.S3_BUCKET ?? "bayproof-evidence",
-  region: env.S3_REGION ?? "us-east-1",
-};
+export const storageConfig = config.storage;
 
 const clientFor = (endpoint: string) => new S3Client({
   endpoint,
   region: storageConfig.region,
-  forcePathStyle: env.S3_FORCE_PATH_STYLE !== "0",
-  credentials: { accessKeyId: env.S3_ACCESS_KEY_ID ?? "S3RVER", secretAccessKey: env.S3_SECRET_ACCESS_KEY ?? "S3RVER" },
+  forcePathStyle: storageConfig.forcePathStyle,
+  credentials: { accessKeyId: storageConfig.accessKeyId, secretAccessKey: storageConfig.secretAccessKey },
   // Presigned browser PUTs cannot add the SDK's default checksum headers.
   requestChecksumCalculation: "WHEN_REQUIRED",
   responseChecksumValidation: "WHEN_REQUIRED",

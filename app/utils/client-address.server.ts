@@ -1,5 +1,5 @@
 // Who is asking, for rate limits (sign-in links, the open feed).
-import { sha256Hex } from "~/auth/tokens.server";
+import { sha256Hex } from "./tokens.server";
 import { config } from "~/config.server";
 
 /**

@@ -1,5 +1,6 @@
 import { data } from "react-router";
 import { z } from "zod";
+import { refuse } from "./http";
 
 export type FieldErrors = Record<string, string[] | undefined>;
 
@@ -25,11 +26,11 @@ export function formContentTypeProblem(request: Request): string | null {
  */
 export async function readForm(request: Request): Promise<FormData> {
   const problem = formContentTypeProblem(request);
-  if (problem) throw data(problem, { status: 415 });
+  if (problem) refuse(problem, 415);
   try {
     return await request.formData();
   } catch {
-    throw data("The form could not be read: its body is malformed. Send it again from the page.", { status: 400 });
+    refuse("The form could not be read: its body is malformed. Send it again from the page.");
   }
 }
 

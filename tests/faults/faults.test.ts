@@ -4,7 +4,7 @@
 // upload completion in tests/integration/evidence-uploads.test.ts, and a server that dies under
 // `npm start` being started again alone in tests/start/start-command.test.ts.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { randomToken, sha256Hex } from "../../app/auth/tokens.server";
+import { randomToken, sha256Hex } from "../../app/utils/tokens.server";
 import { Browserish, cookieValue } from "../support/http";
 import { validReport } from "../support/reports";
 import { startPrivateStack } from "./private-stack";

@@ -7,7 +7,7 @@ import { mkdirSync, writeFileSync } from "node:fs";
 import fc from "fast-check";
 import { sql } from "kysely";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { randomToken, sha256Hex } from "../../app/auth/tokens.server";
+import { randomToken, sha256Hex } from "../../app/utils/tokens.server";
 import { testDb } from "../support/db";
 import { baseUrl, cookieValue } from "../support/http";
 import { validReport } from "../support/reports";

@@ -18,6 +18,7 @@ const db = testDb();
 const dir = mkdtempSync(path.join(tmpdir(), "bayproof-stopped-store-"));
 let owner: Browserish;
 let route: typeof CompleteRoute;
+let withSessions: typeof import("../../app/auth/session.server").withSessions;
 let appPool: { end(): Promise<void> };
 
 beforeAll(async () => {
@@ -28,6 +29,7 @@ beforeAll(async () => {
   // The app modules read their configuration when first imported.
   Object.assign(process.env, { DATABASE_URL: inject("databaseUrl"), S3_ENDPOINT: stopped.url, S3_BUCKET: inject("s3").bucket });
   route = await import("../../app/routes/api.evidence.$id.complete");
+  ({ withSessions } = await import("../../app/auth/session.server"));
   appPool = (await import("../../app/db.server")).pool;
 });
 afterAll(async () => {
@@ -47,7 +49,8 @@ describe("checking an upload while storage is down", () => {
       method: "POST",
       headers: { cookie: [...owner.cookies].map(([k, v]) => `${k}=${v}`).join("; "), origin: owner.origin },
     });
-    const res = await route.action({ request, params: { id: String(signed.evidenceId) } } as Parameters<typeof route.action>[0]);
+    // In-process, as the root middleware would run it (the guards read the session through withSessions).
+    const res = await withSessions(db, () => route.action({ request, params: { id: String(signed.evidenceId) } } as Parameters<typeof route.action>[0]));
     expect(res.status).toBe(503);
     expect(res.headers.get("content-type")).toMatch(/application\/json/);
     expect((await res.json()).error).toMatch(/storage is not reachable.*kept on your device/i);

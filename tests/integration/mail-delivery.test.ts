@@ -181,12 +181,12 @@ describe("sign-in mail with the relay down", () => {
     process.env.SMTP_URL = `smtp://127.0.0.1:${await freePort()}`;
     process.env.DATABASE_URL = inject("databaseUrl");
     const { requestSignInLink } = await import("../../app/auth/email-link.server");
+    const { db, pool } = await import("../../app/db.server");
     const email = `relay-closed-${Date.now()}@demo.bayproof.test`;
     for (let i = 0; i < 4; i++) {
-      expect(await requestSignInLink(email, new Request("http://127.0.0.1/sign-in", { method: "POST" }), "/")).toEqual({ ok: false, reason: "mail_failed" });
+      expect(await requestSignInLink(db, email, new Request("http://127.0.0.1/sign-in", { method: "POST" }), "/")).toEqual({ ok: false, reason: "mail_failed" });
     }
     expect(await linksFor(email)).toBe(0);
-    const { pool } = await import("../../app/db.server");
     await pool.end();
   });
 });

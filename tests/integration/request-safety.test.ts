@@ -1,6 +1,6 @@
 // Forged cross-site posts, tampered cookies, sign-out, and the security headers.
 import { afterAll, describe, expect, it } from "vitest";
-import { sha256Hex } from "../../app/auth/tokens.server";
+import { sha256Hex } from "../../app/utils/tokens.server";
 import { testDb } from "../support/db";
 import { Browserish, cookieValue, signedInAs } from "../support/http";
 import { serverLogDuring } from "../support/server-log";

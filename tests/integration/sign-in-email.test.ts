@@ -1,6 +1,6 @@
 // One-time e-mail links, read back from the local mail catcher.
 import { afterAll, describe, expect, it } from "vitest";
-import { randomToken, sha256Hex } from "../../app/auth/tokens.server";
+import { randomToken, sha256Hex } from "../../app/utils/tokens.server";
 import { testDb } from "../support/db";
 import { Browserish } from "../support/http";
 import { latestMailTo, linkIn } from "../support/mail";

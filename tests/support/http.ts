@@ -1,6 +1,6 @@
 // A tiny cookie-keeping HTTP client for driving the served app the way a browser would.
 import { inject } from "vitest";
-import { randomToken, sha256Hex } from "../../app/auth/tokens.server";
+import { randomToken, sha256Hex } from "../../app/utils/tokens.server";
 import type { Kysely } from "kysely";
 import type { Database } from "../../db/schema";
 

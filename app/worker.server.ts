@@ -1,9 +1,10 @@
 // Background work through pg-boss, a job queue kept in PostgreSQL: nothing is lost when a process
-// dies, and any number of workers can run. Started by scripts/worker.ts.
+// dies, and any number of workers can run. Started by scripts/worker.ts. Like a route module, it
+// joins the features (each queue's handler); the queue itself (names, payloads, enqueue) is
+// app/jobs, which the features use and which imports none of them.
 import PgBoss from "pg-boss";
-import type { Kysely } from "kysely";
 import type pg from "pg";
-import type { Database } from "../../db/schema";
+import type { Db } from "../db/database";
 import { removeOrphanedEvidence } from "~/reports/evidence.server";
 import { sendDecisionMail } from "~/moderation/mail.server";
 import { refreshCell } from "~/stats/refresh.server";
@@ -11,32 +12,32 @@ import { indexReport } from "~/search/search.server";
 import { latestSnapshot, writeSnapshot } from "~/feed/snapshot.server";
 import { defaultStore } from "~/storage/s3.server";
 import { config } from "~/config.server";
-import { createQueues, JOB_OPTIONS, QUEUES, WORKER_OPTIONS } from "./queue.server";
+import { createQueues, JOB_OPTIONS, QUEUES, work, WORKER_OPTIONS } from "~/jobs/queue.server";
 
-export async function startWorker(connectionString: string, db: Kysely<Database>, pool: pg.Pool, log: (s: string) => void) {
+export async function startWorker(connectionString: string, db: Db, pool: pg.Pool, log: (s: string) => void) {
   const boss = new PgBoss({ connectionString, schema: "pgboss", ...WORKER_OPTIONS });
   boss.on("error", (error) => log(`queue error: ${error.message}`));
   await boss.start();
   await createQueues(boss);
   // Hourly: uploads older than a day that never joined a submitted report.
   await boss.schedule(QUEUES.evidenceCleanup, "17 * * * *", {}, JOB_OPTIONS[QUEUES.evidenceCleanup]);
-  await boss.work(QUEUES.evidenceCleanup, async () => {
+  await work(boss, QUEUES.evidenceCleanup, async () => {
     const removed = await removeOrphanedEvidence(db);
     if (removed) log(`removed ${removed} orphaned evidence objects`);
   });
-  await boss.work<{ decisionId: number }>(QUEUES.decisionMail, async ([job]) => {
-    await sendDecisionMail(db, job!.data.decisionId);
-    log(`mailed decision ${job!.data.decisionId}`);
+  await work(boss, QUEUES.decisionMail, async ({ decisionId }) => {
+    await sendDecisionMail(db, decisionId);
+    log(`mailed decision ${decisionId}`);
   });
-  await boss.work<{ modelId: number; jobTypeId: number }>(QUEUES.statsRefresh, async ([job]) => {
-    await refreshCell(db, job!.data.modelId, job!.data.jobTypeId);
+  await work(boss, QUEUES.statsRefresh, async ({ modelId, jobTypeId }) => {
+    await refreshCell(db, modelId, jobTypeId);
   });
-  await boss.work<{ reportId: number }>(QUEUES.searchIndex, async ([job]) => {
-    await indexReport(db, job!.data.reportId);
+  await work(boss, QUEUES.searchIndex, async ({ reportId }) => {
+    await indexReport(db, reportId);
   });
   // Daily at 03:15 UTC, and once now when there is none yet: the open data's bulk files.
   await boss.schedule(QUEUES.feedSnapshot, "15 3 * * *", {}, { ...JOB_OPTIONS[QUEUES.feedSnapshot], tz: "UTC" });
-  await boss.work(QUEUES.feedSnapshot, async () => {
+  await work(boss, QUEUES.feedSnapshot, async () => {
     const s = await writeSnapshot(db, pool, defaultStore, config.appOrigin);
     log(`wrote open-data snapshot ${s.id} (${s.reportCount} reports)`);
   });
