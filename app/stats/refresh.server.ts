@@ -1,68 +1,175 @@
-// Keeps stats_cells in step with accepted reports. A single accept refreshes its own cell and
-// re-shrinks its job type (a few dozen rows); the full refresh recomputes everything.
+// Keeps stats_cells and stats_jobs in step with accepted reports. An accept refreshes its own cell
+// and its job's pooled pressure fit (every cell of the job gets its new figure at 90 psi); the
+// job's shrinkage prior is kept from the last full refresh (docs/decisions/010). The full refresh
+// recomputes everything, one job type at a time. Each read brings a cell's reports as arrays (one
+// row per cell, not per report), so a million reports cost little more than the rows themselves.
 import { type Kysely, sql, type Transaction } from "kysely";
 import type { Database } from "../../db/schema";
 import { type CellFigures, type CellReport, cellFigures } from "./cells";
+import { type FitReport, type JobFit, jobPressureFit } from "./pressure";
 import { shrinkProportions } from "./proportions";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
-async function acceptedReports(db: Db, jobTypeId: number, modelId?: number) {
-  let q = db.selectFrom("reports").select(["tool_model_id", "outcome", "time_to_result_s", "inlet_kpa", "inlet_source"])
-    .where("job_type_id", "=", jobTypeId).where("status", "=", "accepted");
-  if (modelId != null) q = q.where("tool_model_id", "=", modelId);
-  const rows = await q.execute();
-  const byModel = new Map<number, CellReport[]>();
-  for (const r of rows) {
-    const list = byModel.get(r.tool_model_id) ?? [];
-    list.push({ freed: r.outcome === "freed", timeS: r.time_to_result_s!, inletKpa: r.inlet_kpa!, inletSource: r.inlet_source! });
-    byModel.set(r.tool_model_id, list);
-  }
-  return byModel;
+const OUTCOMES = ["freed", "freed_with_help", "not_freed"] as const;
+const SOURCES = ["measured_at_inlet", "read_at_regulator", "estimated"] as const;
+
+interface CellArrays {
+  m: number;
+  rep: number[];
+  out: number[];
+  t: number[];
+  p: number[];
+  src: number[];
+  above: boolean[];
 }
 
-function row(modelId: number, jobTypeId: number, f: CellFigures) {
+/** Every accepted report of a job (or of one model on it), one row of arrays per model. */
+async function reportArrays(db: Db, jobTypeId: number, modelId?: number) {
+  const r = await sql<CellArrays>`
+    select tool_model_id m, array_agg(reporter_id) rep,
+      array_agg(case outcome when 'freed' then 0 when 'freed_with_help' then 1 else 2 end) "out",
+      array_agg(time_to_result_s::float8) t, array_agg(inlet_kpa::float8) p,
+      array_agg(case inlet_source when 'measured_at_inlet' then 0 when 'read_at_regulator' then 1 else 2 end) src,
+      array_agg(flags @> array['above_rated_inlet']) above
+    from reports where job_type_id = ${jobTypeId} and status = 'accepted' ${modelId == null ? sql`` : sql`and tool_model_id = ${modelId}`}
+    group by tool_model_id`.execute(db);
+  return r.rows;
+}
+
+/** The job's reports that enter its pressure fit: measured at the inlet, not set aside. */
+async function fitArrays(db: Db, jobTypeId: number) {
+  const r = await sql<{ m: number; p: number[] | null; y: boolean[] | null; counted: number; set_aside: number }>`
+    select tool_model_id m,
+      array_agg(inlet_kpa::float8) filter (where fit) p, array_agg(outcome = 'freed') filter (where fit) y,
+      (count(*) filter (where not above))::int counted, (count(*) filter (where above))::int set_aside
+    from (select tool_model_id, inlet_kpa, outcome, flags @> array['above_rated_inlet'] above,
+            inlet_source = 'measured_at_inlet' and not flags @> array['above_rated_inlet'] fit
+          from reports where job_type_id = ${jobTypeId} and status = 'accepted') r
+    group by tool_model_id`.execute(db);
+  return r.rows;
+}
+
+function toReports(a: CellArrays): CellReport[] {
+  return a.rep.map((reporterId, i) => ({
+    reporterId, outcome: OUTCOMES[a.out[i]!]!, timeS: a.t[i]!, inletKpa: a.p[i]!, inletSource: SOURCES[a.src[i]!]!, aboveRated: a.above[i]!,
+  }));
+}
+
+function fitReportsOf(a: CellArrays): FitReport[] {
+  const out: FitReport[] = [];
+  for (let i = 0; i < a.rep.length; i++) if (a.src[i] === 0 && !a.above[i]) out.push({ model: a.m, inletKpa: a.p[i]!, freed: a.out[i] === 0 });
+  return out;
+}
+
+function cellRow(modelId: number, jobTypeId: number, f: CellFigures, now: Date) {
   return {
     tool_model_id: modelId, job_type_id: jobTypeId, n: f.n, successes: f.successes, estimate: f.estimate, lower: f.lower, upper: f.upper,
+    reporters: f.reporters, design_effect: f.designEffect, effective_n: f.effectiveN, set_aside: f.setAside,
     time_n: f.time?.n ?? 0, time_median_s: f.time?.median ?? null, time_lower_s: f.time?.lower ?? null, time_upper_s: f.time?.upper ?? null,
-    adj_estimate: f.adjusted?.estimate ?? null, adj_lower: f.adjusted?.lower ?? null, adj_upper: f.adjusted?.upper ?? null,
-    adj_reason: f.adjustedReason, fit: f.fit ? JSON.stringify(f.fit) : null,
-    measured_share: f.measuredShare, estimated_share: f.estimatedShare, computed_at: new Date(),
+    time_coverage: f.time?.coverage ?? null,
+    km_n: f.km?.n ?? 0, km_median_s: f.km?.median ?? null, km_lower_s: f.km?.lower ?? null, km_upper_s: f.km?.upper ?? null,
+    km_steps: f.km ? JSON.stringify(f.km.steps) : null,
+    measured_share: f.measuredShare, estimated_share: f.estimatedShare, computed_at: now,
   };
 }
 
-/** Empirical-Bayes shrinkage within one job type, over the stored counts of its cells. */
-async function reshrink(db: Db, jobTypeId: number) {
-  const cells = await db.selectFrom("stats_cells").select(["tool_model_id", "n", "successes"]).where("job_type_id", "=", jobTypeId).orderBy("tool_model_id").execute();
-  if (cells.length === 0) return;
-  const shrunk = shrinkProportions(cells.map((c) => ({ successes: c.successes, trials: c.n })));
-  const values = cells.map((c, i) => sql`(${c.tool_model_id}::int, ${shrunk.groups[i]!.estimate}::float8, ${shrunk.groups[i]!.lower}::float8, ${shrunk.groups[i]!.upper}::float8)`);
-  await sql`update stats_cells s set shrunk_estimate = v.e, shrunk_lower = v.l, shrunk_upper = v.u
-    from (values ${sql.join(values)}) as v(m, e, l, u) where s.job_type_id = ${jobTypeId} and s.tool_model_id = v.m`.execute(db);
+type Row = ReturnType<typeof cellRow>;
+
+function withPressure(row: Row, fit: JobFit) {
+  const m = fit.perModel.get(row.tool_model_id);
+  return {
+    ...row,
+    adj_estimate: m?.adjusted?.estimate ?? null, adj_lower: m?.adjusted?.lower ?? null, adj_upper: m?.adjusted?.upper ?? null,
+    adj_reason: m?.adjusted ? null : (m?.reason ?? fit.reason ?? "No pressure fit on this job."),
+    fit: m?.fit ? JSON.stringify(m.fit) : null,
+  };
 }
 
-async function store(db: Db, jobTypeId: number, byModel: Map<number, CellReport[]>) {
-  const rows = [...byModel].map(([modelId, reports]) => row(modelId, jobTypeId, cellFigures(reports, `${modelId}-${jobTypeId}`)));
+async function upsertCells(db: Db, rows: (Row & Record<string, unknown>)[]) {
+  if (rows.length === 0) return;
+  const columns = Object.keys(rows[0]!).filter((c) => c !== "tool_model_id" && c !== "job_type_id");
   for (let i = 0; i < rows.length; i += 500) {
-    await db.insertInto("stats_cells").values(rows.slice(i, i + 500))
-      .onConflict((oc) => oc.columns(["tool_model_id", "job_type_id"]).doUpdateSet((eb) => ({
-        n: eb.ref("excluded.n"), successes: eb.ref("excluded.successes"), estimate: eb.ref("excluded.estimate"), lower: eb.ref("excluded.lower"),
-        upper: eb.ref("excluded.upper"), time_n: eb.ref("excluded.time_n"), time_median_s: eb.ref("excluded.time_median_s"),
-        time_lower_s: eb.ref("excluded.time_lower_s"), time_upper_s: eb.ref("excluded.time_upper_s"), adj_estimate: eb.ref("excluded.adj_estimate"),
-        adj_lower: eb.ref("excluded.adj_lower"), adj_upper: eb.ref("excluded.adj_upper"), adj_reason: eb.ref("excluded.adj_reason"),
-        fit: eb.ref("excluded.fit"), measured_share: eb.ref("excluded.measured_share"), estimated_share: eb.ref("excluded.estimated_share"),
-        computed_at: eb.ref("excluded.computed_at"),
-      }))).execute();
+    await db.insertInto("stats_cells").values(rows.slice(i, i + 500) as never)
+      .onConflict((oc) => oc.columns(["tool_model_id", "job_type_id"])
+        .doUpdateSet(Object.fromEntries(columns.map((c) => [c, sql.ref(`excluded.${c}`)])) as never))
+      .execute();
   }
 }
 
-/** After an accept: that cell, then its job type's shrinkage. */
+async function storeJob(db: Db, jobTypeId: number, fit: JobFit, setAside: number, prior: { alpha: number; beta: number } | null, now: Date) {
+  const values = {
+    fit_n: fit.n, fit_models: fit.models, slope: fit.slope, slope_se: fit.slopeSE, converged: fit.converged, fit_reason: fit.reason,
+    set_aside: setAside, prior_alpha: prior?.alpha ?? null, prior_beta: prior?.beta ?? null, computed_at: now,
+  };
+  await db.insertInto("stats_jobs").values({ job_type_id: jobTypeId, ...values })
+    .onConflict((oc) => oc.column("job_type_id").doUpdateSet(values)).execute();
+}
+
+/** Every cell of one job from one read of its reports. */
+async function refreshJob(db: Db, jobTypeId: number) {
+  const now = new Date();
+  const arrays = await reportArrays(db, jobTypeId);
+  const figures = arrays.map((a) => ({ m: a.m, f: cellFigures(toReports(a)) }));
+  const setAside = figures.reduce((acc, { f }, i) => acc + (f ? f.setAside : arrays[i]!.rep.length), 0);
+  const kept = figures.filter((x): x is { m: number; f: CellFigures } => x.f != null);
+  const fit = jobPressureFit(arrays.flatMap(fitReportsOf), kept.map((x) => x.m));
+  let prior: { alpha: number; beta: number } | null = null;
+  const rows = kept.map(({ m, f }) => withPressure(cellRow(m, jobTypeId, f, now), fit));
+  let shrunk: { shrunk_estimate: number | null; shrunk_lower: number | null; shrunk_upper: number | null }[] = [];
+  if (kept.length > 0) {
+    const s = shrinkProportions(kept.map(({ f }) => ({ successes: f.successes, trials: f.n })));
+    prior = { alpha: s.prior.alpha, beta: s.prior.beta };
+    shrunk = s.groups.map((g) => ({ shrunk_estimate: g.estimate, shrunk_lower: g.lower, shrunk_upper: g.upper }));
+  }
+  await db.deleteFrom("stats_cells").where("job_type_id", "=", jobTypeId)
+    .where("tool_model_id", "not in", kept.length ? kept.map((x) => x.m) : [-1]).execute();
+  await upsertCells(db, rows.map((r, i) => ({ ...r, ...shrunk[i]! })));
+  await storeJob(db, jobTypeId, fit, setAside, prior, now);
+  return kept.length;
+}
+
+/** After an accept: that cell, its job's pressure fit over every cell of the job, its shrunk figure. */
 export async function refreshCell(db: Kysely<Database>, modelId: number, jobTypeId: number) {
   await db.transaction().execute(async (trx) => {
-    const byModel = await acceptedReports(trx, jobTypeId, modelId);
-    if (byModel.size === 0) await trx.deleteFrom("stats_cells").where("tool_model_id", "=", modelId).where("job_type_id", "=", jobTypeId).execute();
-    else await store(trx, jobTypeId, byModel);
-    await reshrink(trx, jobTypeId);
+    const now = new Date();
+    const [mine, fitRows, job] = await Promise.all([
+      reportArrays(trx, jobTypeId, modelId),
+      fitArrays(trx, jobTypeId),
+      trx.selectFrom("stats_jobs").select(["prior_alpha", "prior_beta"]).where("job_type_id", "=", jobTypeId).executeTakeFirst(),
+    ]);
+    const f = mine[0] ? cellFigures(toReports(mine[0])) : null;
+    const models = fitRows.filter((r) => r.counted > 0).map((r) => r.m);
+    const fit = jobPressureFit(
+      fitRows.flatMap((r) => (r.p ?? []).map((inletKpa, i) => ({ model: r.m, inletKpa, freed: r.y![i]! }))),
+      models,
+    );
+    const setAside = fitRows.reduce((acc, r) => acc + r.set_aside, 0);
+    if (!f) await trx.deleteFrom("stats_cells").where("tool_model_id", "=", modelId).where("job_type_id", "=", jobTypeId).execute();
+    else {
+      const prior = job?.prior_alpha != null && job.prior_beta != null ? { alpha: job.prior_alpha, beta: job.prior_beta } : null;
+      // Without a stored prior (a job's first cells), search for one over the job's cells.
+      const others = prior ? [] : await trx.selectFrom("stats_cells").select(["n", "successes"])
+        .where("job_type_id", "=", jobTypeId).where("tool_model_id", "<>", modelId).execute();
+      const s = shrinkProportions([{ successes: f.successes, trials: f.n }, ...others.map((o) => ({ successes: o.successes, trials: o.n }))], 0.95, prior ?? undefined);
+      await upsertCells(trx, [{
+        ...withPressure(cellRow(modelId, jobTypeId, f, now), fit),
+        shrunk_estimate: s.groups[0]!.estimate, shrunk_lower: s.groups[0]!.lower, shrunk_upper: s.groups[0]!.upper,
+      }]);
+      if (!prior) await storeJob(trx, jobTypeId, fit, setAside, { alpha: s.prior.alpha, beta: s.prior.beta }, now);
+    }
+    // The pooled fit moved for every model on the job: one statement updates their figures at 90 psi.
+    const others = models.filter((m) => m !== modelId);
+    if (others.length) {
+      const values = others.map((m) => {
+        const p = withPressure({ tool_model_id: m } as Row, fit);
+        return sql`(${m}::int, ${p.adj_estimate}::float8, ${p.adj_lower}::float8, ${p.adj_upper}::float8, ${p.adj_reason}::text, ${p.fit}::jsonb)`;
+      });
+      await sql`update stats_cells s set adj_estimate = v.e, adj_lower = v.l, adj_upper = v.u, adj_reason = v.reason, fit = v.fit
+        from (values ${sql.join(values)}) as v(m, e, l, u, reason, fit) where s.job_type_id = ${jobTypeId} and s.tool_model_id = v.m`.execute(trx);
+    }
+    const kept = await trx.selectFrom("stats_jobs").select(["prior_alpha", "prior_beta"]).where("job_type_id", "=", jobTypeId).executeTakeFirst();
+    await storeJob(trx, jobTypeId, fit, setAside, kept?.prior_alpha != null && kept.prior_beta != null ? { alpha: kept.prior_alpha, beta: kept.prior_beta } : null, now);
   });
 }
 
@@ -70,15 +177,6 @@ export async function refreshCell(db: Kysely<Database>, modelId: number, jobType
 export async function refreshAll(db: Kysely<Database>) {
   const jobs = await db.selectFrom("job_types").select("id").orderBy("id").execute();
   let cells = 0;
-  for (const job of jobs) {
-    await db.transaction().execute(async (trx) => {
-      const byModel = await acceptedReports(trx, job.id);
-      await trx.deleteFrom("stats_cells").where("job_type_id", "=", job.id)
-        .where("tool_model_id", "not in", byModel.size ? [...byModel.keys()] : [-1]).execute();
-      await store(trx, job.id, byModel);
-      await reshrink(trx, job.id);
-      cells += byModel.size;
-    });
-  }
+  for (const job of jobs) cells += await db.transaction().execute((trx) => refreshJob(trx, job.id));
   return cells;
 }

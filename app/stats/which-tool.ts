@@ -2,13 +2,13 @@
 // air use would get through the shopper's line, and the fitted success there. Pure.
 import { operatingInletPressure, type Line } from "~/air/supply";
 import { RATED_INLET_KPA } from "~/air/units";
-import { type CellFigures, predictAt } from "./cells";
+import { type PooledCellFit, predictAt } from "./pressure";
 
 export interface ToolAtSupply {
   slug: string;
   fitting: string;
   ratedLps: number;
-  fit: CellFigures["fit"];
+  fit: PooledCellFit | null;
 }
 
 export interface Supply {
