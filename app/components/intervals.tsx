@@ -2,7 +2,19 @@
 // also given as text beside or under the picture.
 import { scaleLinear } from "d3-scale";
 
-const pct = (x: number) => `${Math.round(x * 100)} %`;
+/**
+ * A share or chance as a whole percent. A chance is never printed as 100 % or 0 % when it is not
+ * exactly that: ">99 %" and "<1 %" (issue 16, item 8). Differences keep their sign.
+ */
+const pct = (x: number) => {
+  const a = Math.abs(x);
+  if (a > 0 && a < 0.005) return x < 0 ? "−<1 %" : "<1 %";
+  if (a >= 0.995 && a < 1) return x < 0 ? "−>99 %" : ">99 %";
+  return `${x < 0 ? "−" : ""}${Math.round(a * 100)} %`;
+};
+
+/** A modelled probability (a chance, a prediction): never 100 % or 0 %, even when it rounds there. */
+const prob = (x: number) => (x >= 0.995 ? ">99 %" : x < 0.005 ? "<1 %" : `${Math.round(x * 100)} %`);
 
 /** A small 0–100 % bar with the interval as a band and the estimate as a tick. */
 export function IntervalBar({ estimate, lower, upper, muted = false }: { estimate: number; lower: number; upper: number; muted?: boolean }) {
@@ -26,6 +38,8 @@ export interface ChartRow {
   n: number;
   tag?: string;
   muted?: boolean;
+  /** Drawn in the top tool's colour (the top tool, and those not told apart from it). */
+  highlight?: boolean;
 }
 
 /** One row per tool: point and whisker on a shared 0–100 % axis. */
@@ -44,7 +58,7 @@ export function IntervalChart({ rows, title }: { rows: ChartRow[]; title: string
       ))}
       {rows.map((r, i) => {
         const y = top + i * rowH + rowH / 2;
-        const colour = r.muted ? "#a8a29e" : r.tag === "not distinguishable from the first" || i === 0 ? "#2f6b5f" : "#44403c";
+        const colour = r.muted ? "#a8a29e" : r.highlight || i === 0 ? "#2f6b5f" : "#44403c";
         return (
           <g key={r.key}>
             <text x={left - 8} y={y - 2} textAnchor="end" fontSize="12" fill="#1c1917">{r.label}</text>
@@ -62,13 +76,14 @@ export function IntervalsExplained() {
   return (
     <p className="rounded-lg bg-white p-3 text-sm text-stone-700">
       Bayproof shows every success rate as a range, not as a single score or rank: a tool with 5 reports and a tool with 80 can
-      show the same rate, but only the second is known well. Where two ranges overlap, the reports so far cannot tell the tools
-      apart, however the points fall.
+      show the same rate, but only the second is known well. Two tools are told apart only when the range of the difference
+      between their rates leaves out zero; two ranges that overlap can still differ, so look at the mark beside each tool, not at
+      whether the bars touch.
     </p>
   );
 }
 
 export const plainLine = (successes: number, n: number, lower: number, upper: number, what = "freed it") =>
-  `${what[0]!.toUpperCase()}${what.slice(1)} in ${successes} of ${n} reports; between ${pct(lower)} and ${pct(upper)} with 95 % confidence (Wilson score interval).`;
+  `${what[0]!.toUpperCase()}${what.slice(1)} in ${successes} of ${n} reports; between ${pct(lower)} and ${pct(upper)}.`;
 
-export { pct };
+export { pct, prob };

@@ -7,7 +7,7 @@ import { REFERENCE_INLET_KPA } from "./pressure";
 import { kaplanMeier } from "./survival";
 
 export { predictAt, pressureX, REFERENCE_INLET_KPA, type PooledCellFit } from "./pressure";
-export const FEW_REPORTS = 10;
+export { FEW_REPORTS } from "./standings";
 
 export interface CellReport {
   outcome: "freed" | "freed_with_help" | "not_freed";

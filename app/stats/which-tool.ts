@@ -1,5 +1,6 @@
 // "Which tool for my job and my air?": for each tool with a pressure fit, the pressure its rated
 // air use would get through the shopper's line, and the fitted success there. Pure.
+import type { CouplerProfile } from "~/air/couplers";
 import { operatingInletPressure, type Line } from "~/air/supply";
 import { RATED_INLET_KPA } from "~/air/units";
 import { type PooledCellFit, predictAt } from "./pressure";
@@ -32,3 +33,34 @@ export function atSupply(tool: ToolAtSupply, supply: Supply) {
     needs,
   };
 }
+
+/** The coupler profile assumed when the shopper does not say (the common shop coupler, common practice). */
+export const DEFAULT_COUPLER_PROFILE: CouplerProfile = "industrial_m";
+
+export interface RankableCell {
+  model_slug: string;
+  maker_name: string;
+  model_code: string;
+  fitting: string;
+  rated_air_lps: number;
+  street_price_cents: number | null;
+  weight_kg: number;
+  adj_reason: string | null;
+  fit: PooledCellFit | null;
+}
+
+/**
+ * "Which tool, on your air?": every tool on the job at the pressure its rated air use gets through
+ * the shopper's line, ordered by the lower bound of its fitted chance there (tools without a fit
+ * last, each saying why).
+ */
+export function rankAtSupply(cells: readonly RankableCell[], supply: Supply) {
+  return cells.map((m) => {
+    const r = atSupply({ slug: m.model_slug, fitting: m.fitting, ratedLps: m.rated_air_lps, fit: m.fit }, supply);
+    return {
+      slug: m.model_slug, label: `${m.maker_name} ${m.model_code}`, price: m.street_price_cents, weightKg: m.weight_kg,
+      inletKpa: r.inletKpa, predicted: r.predicted, reason: m.adj_reason, needs: r.needs,
+    };
+  }).sort((a, b) => (b.predicted?.lower ?? -1) - (a.predicted?.lower ?? -1) || a.slug.localeCompare(b.slug));
+}
+export type SupplyRow = ReturnType<typeof rankAtSupply>[number];
