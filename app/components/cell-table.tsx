@@ -70,29 +70,13 @@ export function CellTable({ rows, firstColumn }: { rows: CellRow[]; firstColumn:
           <details className="mt-2 text-xs text-stone-700">
             <summary className="cursor-pointer text-bay-700">How this is worked out</summary>
             <ul className="mt-1 list-disc space-y-1 pl-5">
-              <li>
-                {plainLine(r.successes, r.n, r.lower, r.upper)} {level(r.confidence)} Wilson score interval at the effective sample size
-                {" "}{(r.effective_n ?? r.n).toFixed(1)} = n / design effect {r.design_effect.toFixed(2)} (reports clustered by reporter, {reporters(r.reporters)}).
-                {r.set_aside > 0 && ` ${r.set_aside} report${r.set_aside === 1 ? "" : "s"} run above the tool's rated inlet pressure ${r.set_aside === 1 ? "is" : "are"} listed but set aside from every figure.`}
-                {r.shrunk_estimate != null && ` Pooled with the other tools on this job (empirical-Bayes beta-binomial): ${pct(r.shrunk_estimate)}.`}
-              </li>
-              <li>
-                Time to free it: Kaplan–Meier median over {r.km_n} reports, counting the jobs not freed (or freed with help) as given up at the time
-                reported; {level(r.confidence)} Brookmeyer–Crowley interval (log-log){r.km_median_s == null ? "; the curve does not reach half, so no median" : ""}.
-                {r.time_median_s != null && (r.time_lower_s != null
-                  ? ` Jobs freed alone: median ${formatDuration(r.time_median_s)} of ${r.time_n} times, order-statistic interval ${formatDuration(r.time_lower_s)}–${formatDuration(r.time_upper_s)} (exact coverage ${((r.time_coverage ?? 0) * 100).toFixed(1)} %).`
-                  : ` Jobs freed alone: median ${formatDuration(r.time_median_s)} of ${r.time_n} times; too few times for a ${level(r.confidence)} interval.`)}
-              </li>
-              <li>
-                At 90 psi: {r.fitNote ?? "one logistic fit per job type over its inlet-measured reports (an intercept per tool, a common pressure slope, Firth-penalised)"};
-                {" "}{level(r.confidence)} Wald interval on the logit scale; shown only where 90 psi lies between the 10th and 90th percentile of the tool's own inlet-measured pressures.
-                {" "}{pct(r.measured_share)} of its reports measured the pressure at the inlet.
-              </li>
-              {r.orderedBy && <li>Ordered by {r.orderedBy}.</li>}
+              <li>{rateNote(r)}</li>
+              <li>{timeNote(r)}</li>
+              <li>{pressureNote(r)}</li>
+              {r.orderedBy && <li>{`Ordered by ${r.orderedBy}.`}</li>}
               {r.vsTop && (
                 <li>
-                  Difference from the top tool: {pct(r.vsTop.estimate)} ({pct(r.vsTop.lower)} to {pct(r.vsTop.upper)}), Newcombe's hybrid score
-                  interval at each tool's effective sample size; told apart only when it leaves out zero.
+                  {`Difference from the top tool: ${pct(r.vsTop.estimate)} (${pct(r.vsTop.lower)} to ${pct(r.vsTop.upper)}), Newcombe's hybrid score interval at each tool's effective sample size; told apart only when it leaves out zero.`}
                 </li>
               )}
             </ul>
@@ -101,4 +85,24 @@ export function CellTable({ rows, firstColumn }: { rows: CellRow[]; firstColumn:
       ))}
     </ul>
   );
+}
+
+const s = (k: number, one: string, many: string) => (k === 1 ? one : many);
+
+function rateNote(r: CellRow) {
+  return `${plainLine(r.successes, r.n, r.lower, r.upper)} ${level(r.confidence)} Wilson score interval at the effective sample size ${(r.effective_n ?? r.n).toFixed(1)} = n / design effect ${r.design_effect.toFixed(2)} (reports clustered by reporter, ${reporters(r.reporters)}).`
+    + (r.set_aside > 0 ? ` ${r.set_aside} ${s(r.set_aside, "report", "reports")} run above the tool's rated inlet pressure ${s(r.set_aside, "is", "are")} listed but set aside from every figure.` : "")
+    + (r.shrunk_estimate != null ? ` Pooled with the other tools on this job (empirical-Bayes beta-binomial): ${pct(r.shrunk_estimate)}.` : "");
+}
+
+function timeNote(r: CellRow) {
+  const km = `Time to free it: Kaplan–Meier median over ${r.km_n} reports, counting the jobs not freed (or freed with help) as given up at the time reported; ${level(r.confidence)} Brookmeyer–Crowley interval (log-log)${r.km_median_s == null ? "; the curve does not reach one half, so no median" : ""}.`;
+  if (r.time_median_s == null) return km;
+  return r.time_lower_s != null
+    ? `${km} Jobs freed: median ${formatDuration(r.time_median_s)} of ${r.time_n} times, order-statistic interval ${formatDuration(r.time_lower_s)}–${formatDuration(r.time_upper_s)} (exact coverage ${((r.time_coverage ?? 0) * 100).toFixed(1)} %).`
+    : `${km} Jobs freed: median ${formatDuration(r.time_median_s)} of ${r.time_n} ${s(r.time_n, "time", "times")}; too few for a ${level(r.confidence)} interval.`;
+}
+
+function pressureNote(r: CellRow) {
+  return `At 90 psi: ${r.fitNote ?? "one logistic fit per job type over its inlet-measured reports (an intercept per tool, a common pressure slope, Firth-penalised)"}; ${level(r.confidence)} Wald interval on the logit scale, shown only where 90 psi lies between the 10th and 90th percentile of the tool's own inlet-measured pressures. ${pct(r.measured_share)} of its reports measured the pressure at the inlet.`;
 }

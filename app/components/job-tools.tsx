@@ -45,8 +45,7 @@ export function JobTools({ job, basis, rows, fit, setAside }: {
       <IntervalsExplained />
       {setAside > 0 && (
         <p className="text-sm text-stone-700" data-testid="set-aside">
-          {setAside} accepted report{setAside === 1 ? "" : "s"} ran the tool above its rated inlet pressure: listed with the reports below, but set
-          aside from every figure here — running over the rating is a hazard, and those results do not compare with the others.
+          {`${setAside} accepted ${setAside === 1 ? "report" : "reports"} ran the tool above its rated inlet pressure: listed with the reports below, but set aside from every figure here — running over the rating is a hazard, and those results do not compare with the others.`}
         </p>
       )}
       {rows.length === 0 ? <p className="text-stone-600">No accepted reports yet.</p> : (
