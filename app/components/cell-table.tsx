@@ -104,5 +104,5 @@ function timeNote(r: CellRow) {
 }
 
 function pressureNote(r: CellRow) {
-  return `At 90 psi: ${r.fitNote ?? "one logistic fit per job type over its inlet-measured reports (an intercept per tool, a common pressure slope, Firth-penalised)"}; ${level(r.confidence)} Wald interval on the logit scale, shown only where 90 psi lies between the 10th and 90th percentile of the tool's own inlet-measured pressures. ${pct(r.measured_share)} of its reports measured the pressure at the inlet.`;
+  return `At 90 psi: ${r.fitNote ?? "one logistic fit per job type over its reports with a known inlet pressure (an intercept per tool, a common pressure slope, Firth-penalised)"}; ${level(r.confidence)} Wald interval on the logit scale, shown only where 90 psi lies between the 10th and 90th percentile of the tool's own known inlet pressures. ${pct(r.measured_share)} of its reports measured the pressure at the inlet.`;
 }

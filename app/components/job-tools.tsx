@@ -29,7 +29,7 @@ export function orderSentence(basis: OrderBasis) {
 
 export function fitNote(fit: JobFitSummary | null) {
   if (!fit || fit.slope == null) return fit?.fit_reason ?? "this job has no pressure fit";
-  return `one logistic fit over this job's ${fit.fit_n} inlet-measured reports of ${fit.fit_models} tools (an intercept per tool, a common slope of ${fit.slope.toFixed(2)} ± ${fit.slope_se!.toFixed(2)} on the logit per bar, Firth-penalised)`;
+  return `one logistic fit over this job's ${fit.fit_n} reports with a known inlet pressure (measured at the inlet, or read at the regulator less the line loss predicted for the reported hose and couplers) of ${fit.fit_models} tools (an intercept per tool, a common slope of ${fit.slope.toFixed(2)} ± ${fit.slope_se!.toFixed(2)} on the logit per bar, Firth-penalised)`;
 }
 
 export function JobTools({ job, basis, rows, fit, setAside }: {

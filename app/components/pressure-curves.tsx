@@ -1,6 +1,6 @@
 // Predicted share freed against inlet pressure, per tool, from the job's pooled fit: drawn in the
 // browser from the stored fit (no round trip as the pressure moves). Each curve spans only the
-// 10th–90th percentile of the tool's own inlet-measured pressures.
+// 10th–90th percentile of the tool's own known inlet pressures.
 import { scaleLinear } from "d3-scale";
 import { area, line } from "d3-shape";
 import { kpaToPsi, psiToKpa } from "~/air/units";
@@ -37,7 +37,7 @@ export function PressureCurves({ tools, psi }: { tools: { slug: string; fit: Poo
       </svg>
       <figcaption className="mt-1 text-xs text-stone-600">
         One logistic fit for the whole job (an intercept per tool, a common slope), Wald band on the logit scale; each curve spans the
-        10th–90th percentile of the tool's inlet-measured pressures. The red line is the pressure chosen above.
+        10th–90th percentile of the tool's known inlet pressures. The red line is the pressure chosen above.
       </figcaption>
     </figure>
   );

@@ -131,7 +131,7 @@ export const STAT_FIELDS: Field[] = [
   },
   {
     name: "pressure_adjusted", type: "object", nullable: true,
-    description: "Success predicted at the reference inlet pressure by the job's pooled logistic fit, where 620.5 kPa lies between the 10th and 90th percentile of the model's inlet-measured pressures on the job; null otherwise (see pressure_adjusted_reason).",
+    description: "Success predicted at the reference inlet pressure by the job's pooled logistic fit, where 620.5 kPa lies between the 10th and 90th percentile of the model's known inlet pressures on the job; null otherwise (see pressure_adjusted_reason).",
     fields: [
       { name: "inlet_kpa", type: "number", unit: "kPa", description: "The reference inlet pressure (620.5 kPa, 90 psi)." },
       { name: "estimate", ...proportion, description: "Predicted success at that pressure." },
@@ -143,14 +143,14 @@ export const STAT_FIELDS: Field[] = [
   { name: "pressure_adjusted_reason", type: "string", nullable: true, description: "Why there is no pressure-adjusted figure, when there is none." },
   {
     name: "pressure_fit", type: "object", nullable: true,
-    description: "The job's pooled pressure fit as it bears on this model; null where the job has no fit or the model no inlet-measured report.",
+    description: "The job's pooled pressure fit as it bears on this model; null where the job has no fit or the model no report with a known inlet pressure.",
     fields: [
       { name: "job_reports", type: "integer", minimum: 0, description: "Inlet-measured reports in the job's fit (all models)." },
       { name: "job_models", type: "integer", minimum: 0, description: "Models in the job's fit." },
       { name: "slope_per_bar", type: "number", description: "Common slope: change in the log-odds of freeing per bar of inlet pressure." },
       { name: "slope_se", type: "number", description: "Standard error of the slope." },
-      { name: "model_reports", type: "integer", minimum: 1, description: "This model's inlet-measured reports in the fit." },
-      { name: "p10_kpa", type: "number", unit: "kPa", description: "10th percentile of this model's inlet-measured pressures on the job." },
+      { name: "model_reports", type: "integer", minimum: 1, description: "This model's reports with a known inlet pressure in the fit." },
+      { name: "p10_kpa", type: "number", unit: "kPa", description: "10th percentile of this model's known inlet pressures on the job." },
       { name: "p90_kpa", type: "number", unit: "kPa", description: "90th percentile of the same." },
       { name: "min_kpa", type: "number", unit: "kPa", description: "Lowest of the same." },
       { name: "max_kpa", type: "number", unit: "kPa", description: "Highest of the same." },

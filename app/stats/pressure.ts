@@ -6,7 +6,7 @@ import { pooledLogisticFit } from "./pooled-logistic";
 import type { Interval } from "./proportions";
 
 export const REFERENCE_INLET_KPA = 620.5; // 90 psi, the trade's rating point (common practice)
-/** Fewest inlet-measured reports on a job for its pooled fit. */
+/** Fewest reports with a known inlet pressure on a job for its pooled fit. */
 export const MIN_FIT_REPORTS = 20;
 const KPA_PER_PSI = 6.894757; // 1 psi = 6.894757 kPa (from the exact pound and inch)
 
@@ -27,7 +27,7 @@ export interface PooledCellFit {
   d: number;
   r: number;
   sigma: number;
-  /** The model's inlet-measured reports in the fit, and their pressures (10th, 90th percentile, range). */
+  /** The model's reports with a known inlet pressure in the fit, and their pressures (10th, 90th percentile, range). */
   n: number;
   p10Kpa: number;
   p90Kpa: number;
@@ -58,9 +58,9 @@ function quantile(sorted: readonly number[], p: number) {
 const psi = (kpa: number) => Math.round(kpa / KPA_PER_PSI);
 
 /**
- * One job's pooled fit from its inlet-measured reports (already without the reports set aside),
+ * One job's pooled fit from its reports with a known inlet pressure (already without the reports set aside),
  * and each model's pressure-adjusted figure at 620.5 kPa. A model gets a figure only where 620.5 kPa
- * lies between the 10th and 90th percentile of its own inlet-measured pressures on the job; the
+ * lies between the 10th and 90th percentile of its own known inlet pressures on the job; the
  * `reason` says why not otherwise (or how the figure was got).
  * `models` lists every model with counted reports on the job, measured or not.
  */
@@ -77,10 +77,10 @@ export function jobPressureFit(reports: readonly FitReport[], models: readonly n
     return { n: reports.length, models: byModel.size, slope: null, slopeSE: null, converged: false, reason, perModel };
   };
   if (reports.length < MIN_FIT_REPORTS) {
-    return noFit(`Only ${reports.length} reports on this job measured the pressure at the tool inlet; the pressure fit needs ${MIN_FIT_REPORTS}.`);
+    return noFit(`Only ${reports.length} reports on this job have a known inlet pressure (measured at the inlet, or a regulator reading less the predicted line loss); the pressure fit needs ${MIN_FIT_REPORTS}.`);
   }
   const spread = [...byModel.values()].some((k) => Math.max(...k) - Math.min(...k) >= 1);
-  if (!spread) return noFit("No tool's inlet-measured reports on this job differ in pressure; there is no pressure effect to fit.");
+  if (!spread) return noFit("No tool's reports with a known inlet pressure on this job differ in pressure; there is no pressure effect to fit.");
   const fit = pooledLogisticFit(reports.map((r) => ({ group: r.model, x: pressureX(r.inletKpa), y: r.freed ? 1 : 0 })));
   if (!fit.converged || !Number.isFinite(fit.slopeSE)) return noFit("The job's pressure fit did not settle; no pressure-adjusted figures.");
   const z = zCritical(confidence);
@@ -98,12 +98,12 @@ export function jobPressureFit(reports: readonly FitReport[], models: readonly n
       reason: inside
         ? "From the job's pressure fit at 90 psi."
         : cell.p10Kpa === cell.p90Kpa
-          ? `Its inlet-measured reports on this job were all at ${psi(cell.p10Kpa)} psi; no figure at 90 psi.`
-          : `Its inlet-measured reports on this job ran at ${psi(cell.p10Kpa)}–${psi(cell.p90Kpa)} psi (10th–90th percentile); 90 psi is outside, so no figure there.`,
+          ? `Its reports with a known inlet pressure on this job were all at ${psi(cell.p10Kpa)} psi; no figure at 90 psi.`
+          : `Its reports with a known inlet pressure on this job ran at ${psi(cell.p10Kpa)}–${psi(cell.p90Kpa)} psi (10th–90th percentile); 90 psi is outside, so no figure there.`,
     });
   });
   for (const m of models) {
-    if (!perModel.has(m)) perModel.set(m, { fit: null, adjusted: null, reason: "None of its reports on this job measured the pressure at the tool inlet." });
+    if (!perModel.has(m)) perModel.set(m, { fit: null, adjusted: null, reason: "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers)." });
   }
   return { n: reports.length, models: byModel.size, slope: fit.slope, slopeSE: fit.slopeSE, converged: true, reason: null, perModel };
 }

@@ -5,6 +5,8 @@
 // row per cell, not per report), so a million reports cost little more than the rows themselves.
 import { type Kysely, sql, type Transaction } from "kysely";
 import type { Database } from "../../db/schema";
+import { operatingInletPressure } from "~/air/supply";
+import type { CouplerProfile } from "~/air/couplers";
 import { type CellFigures, type CellReport, cellFigures } from "./cells";
 import { type FitReport, type JobFit, jobPressureFit } from "./pressure";
 import { shrinkProportions } from "./proportions";
@@ -22,6 +24,12 @@ interface CellArrays {
   p: number[];
   src: number[];
   above: boolean[];
+  /** The line, for correcting regulator readings; the model's rated air use. */
+  hid: (number | null)[];
+  hlen: (number | null)[];
+  cp: (CouplerProfile | null)[];
+  cc: (number | null)[];
+  lps: number;
 }
 
 /** Every accepted report of a job (or of one model on it), one row of arrays per model. */
@@ -31,23 +39,38 @@ async function reportArrays(db: Db, jobTypeId: number, modelId?: number) {
       array_agg(case outcome when 'freed' then 0 when 'freed_with_help' then 1 else 2 end) "out",
       array_agg(time_to_result_s::float8) t, array_agg(inlet_kpa::float8) p,
       array_agg(case inlet_source when 'measured_at_inlet' then 0 when 'read_at_regulator' then 1 else 2 end) src,
-      array_agg(flags @> array['above_rated_inlet']) above
+      array_agg(flags @> array['above_rated_inlet']) above,
+      array_agg(hose_id_mm::float8) hid, array_agg(hose_length_m::float8) hlen, array_agg(coupler_profile) cp, array_agg(coupler_count) cc,
+      (select rated_air_lps::float8 from tool_models where id = tool_model_id) lps
     from reports where job_type_id = ${jobTypeId} and status = 'accepted' ${modelId == null ? sql`` : sql`and tool_model_id = ${modelId}`}
     group by tool_model_id`.execute(db);
-  return r.rows;
+  return r.rows.map((row) => ({ ...row, cp: parseTextArray(row.cp as unknown) as (CouplerProfile | null)[] }));
 }
 
-/** The job's reports that enter its pressure fit: measured at the inlet, not set aside. */
+/** node-pg leaves arrays of enum values as their text form ({a,NULL,b}). */
+function parseTextArray(v: unknown): (string | null)[] {
+  if (Array.isArray(v)) return v;
+  const body = String(v).slice(1, -1);
+  return body === "" ? [] : body.split(",").map((x) => (x === "NULL" ? null : x.replace(/^"|"$/g, "")));
+}
+
+/** The job's reports that may enter its pressure fit (inlet measured or read at the regulator), and the counts per model. */
 async function fitArrays(db: Db, jobTypeId: number) {
-  const r = await sql<{ m: number; p: number[] | null; y: boolean[] | null; counted: number; set_aside: number }>`
+  const r = await sql<Omit<CellArrays, "rep" | "t"> & { counted: number; set_aside: number }>`
     select tool_model_id m,
-      array_agg(inlet_kpa::float8) filter (where fit) p, array_agg(outcome = 'freed') filter (where fit) y,
+      coalesce(array_agg(inlet_kpa::float8) filter (where fit), '{}') p,
+      coalesce(array_agg(case outcome when 'freed' then 0 when 'freed_with_help' then 1 else 2 end) filter (where fit), '{}') "out",
+      coalesce(array_agg(case inlet_source when 'measured_at_inlet' then 0 else 1 end) filter (where fit), '{}') src,
+      coalesce(array_agg(false) filter (where fit), '{}') above,
+      coalesce(array_agg(hose_id_mm::float8) filter (where fit), '{}') hid, coalesce(array_agg(hose_length_m::float8) filter (where fit), '{}') hlen,
+      coalesce(array_agg(coupler_profile) filter (where fit), '{}') cp, coalesce(array_agg(coupler_count) filter (where fit), '{}') cc,
+      (select rated_air_lps::float8 from tool_models where id = tool_model_id) lps,
       (count(*) filter (where not above))::int counted, (count(*) filter (where above))::int set_aside
-    from (select tool_model_id, inlet_kpa, outcome, flags @> array['above_rated_inlet'] above,
-            inlet_source = 'measured_at_inlet' and not flags @> array['above_rated_inlet'] fit
+    from (select *, flags @> array['above_rated_inlet'] above,
+            inlet_source in ('measured_at_inlet', 'read_at_regulator') and not flags @> array['above_rated_inlet'] fit
           from reports where job_type_id = ${jobTypeId} and status = 'accepted') r
     group by tool_model_id`.execute(db);
-  return r.rows;
+  return r.rows.map((row) => ({ ...row, cp: parseTextArray(row.cp as unknown) as (CouplerProfile | null)[] }));
 }
 
 function toReports(a: CellArrays): CellReport[] {
@@ -56,9 +79,22 @@ function toReports(a: CellArrays): CellReport[] {
   }));
 }
 
-function fitReportsOf(a: CellArrays): FitReport[] {
+/**
+ * The reports of a cell that enter the job's pressure fit: measured at the inlet as given; read at
+ * the regulator, the pressure app/air predicts at the inlet for the reported hose and couplers at
+ * the tool's rated air use (docs/decisions/010: on the demo data this does better than leaving them
+ * out); estimated, set aside, or without the line: not at all.
+ */
+function fitReportsOf(a: Omit<CellArrays, "rep" | "t">): FitReport[] {
   const out: FitReport[] = [];
-  for (let i = 0; i < a.rep.length; i++) if (a.src[i] === 0 && !a.above[i]) out.push({ model: a.m, inletKpa: a.p[i]!, freed: a.out[i] === 0 });
+  for (let i = 0; i < a.p.length; i++) {
+    if (a.above[i]) continue;
+    if (a.src[i] === 0) out.push({ model: a.m, inletKpa: a.p[i]!, freed: a.out[i] === 0 });
+    else if (a.src[i] === 1 && a.hid[i] != null && a.hlen[i] != null && a.cp[i] != null && a.cc[i] != null && a.lps > 0) {
+      const at = operatingInletPressure(a.p[i]!, a.lps, { hoseIdMm: a.hid[i]!, hoseLengthM: a.hlen[i]!, couplerProfile: a.cp[i]!, couplerCount: a.cc[i]! });
+      if (!at.stalled) out.push({ model: a.m, inletKpa: at.inletKpa, freed: a.out[i] === 0 });
+    }
+  }
   return out;
 }
 
@@ -140,10 +176,7 @@ export async function refreshCell(db: Kysely<Database>, modelId: number, jobType
     ]);
     const f = mine[0] ? cellFigures(toReports(mine[0])) : null;
     const models = fitRows.filter((r) => r.counted > 0).map((r) => r.m);
-    const fit = jobPressureFit(
-      fitRows.flatMap((r) => (r.p ?? []).map((inletKpa, i) => ({ model: r.m, inletKpa, freed: r.y![i]! }))),
-      models,
-    );
+    const fit = jobPressureFit(fitRows.flatMap(fitReportsOf), models);
     const setAside = fitRows.reduce((acc, r) => acc + r.set_aside, 0);
     if (!f) await trx.deleteFrom("stats_cells").where("tool_model_id", "=", modelId).where("job_type_id", "=", jobTypeId).execute();
     else {
