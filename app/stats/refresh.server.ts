@@ -206,10 +206,20 @@ export async function refreshCell(db: Kysely<Database>, modelId: number, jobType
   });
 }
 
-/** Every cell, recomputed from the accepted reports. */
-export async function refreshAll(db: Kysely<Database>) {
+/**
+ * Every cell, recomputed from the accepted reports: one transaction per job type, up to
+ * `concurrency` at once so one job's reading and writing overlaps another's arithmetic.
+ */
+export async function refreshAll(db: Kysely<Database>, { concurrency = 4 } = {}) {
   const jobs = await db.selectFrom("job_types").select("id").orderBy("id").execute();
   let cells = 0;
-  for (const job of jobs) cells += await db.transaction().execute((trx) => refreshJob(trx, job.id));
+  let next = 0;
+  const worker = async () => {
+    while (next < jobs.length) {
+      const job = jobs[next++]!;
+      cells += await db.transaction().execute((trx) => refreshJob(trx, job.id));
+    }
+  };
+  await Promise.all(Array.from({ length: Math.min(concurrency, jobs.length) }, worker));
   return cells;
 }

@@ -84,7 +84,7 @@ describe("a job's pooled pressure fit", () => {
     expect(fit.perModel.get(2)!.adjusted).not.toBeNull();
     expect(fit.perModel.get(3)!.adjusted).toBeNull(); // 700–820 kPa: 620.5 is below its 10th percentile
     expect(fit.perModel.get(3)!.reason).toMatch(/90 psi is outside/);
-    expect(fit.perModel.get(4)!.reason).toMatch(/None of its reports on this job measured/);
+    expect(fit.perModel.get(4)!.reason).toMatch(/None of its reports on this job has a known inlet pressure/);
     const one = fit.perModel.get(1)!;
     const at = predictAt(one.fit!, REFERENCE_INLET_KPA);
     expect(at.estimate).toBeCloseTo(one.adjusted!.estimate, 10);
@@ -96,7 +96,7 @@ describe("a job's pooled pressure fit", () => {
   it("needs 20 inlet-measured reports, and says so", () => {
     const fit = jobPressureFit(jobReports().slice(0, 12), [1]);
     expect(fit.slope).toBeNull();
-    expect(fit.perModel.get(1)!.reason).toMatch(/Only 12 reports on this job measured/);
+    expect(fit.perModel.get(1)!.reason).toMatch(/Only 12 reports on this job have a known inlet pressure/);
   });
 });
 
