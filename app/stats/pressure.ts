@@ -86,26 +86,58 @@ export function jobPressureFit(reports: readonly FitReport[], models: readonly n
   const z = zCritical(confidence);
   const { d, r, sigma } = fit.inverse;
   fit.groups.forEach((g, k) => {
-    const kpas = byModel.get(g.group as number)!.sort((a, b) => a - b);
-    const cell: PooledCellFit = {
-      intercept: g.intercept, slope: fit.slope, d: d[k]!, r: r[k]!, sigma, n: kpas.length,
-      p10Kpa: quantile(kpas, 0.1), p90Kpa: quantile(kpas, 0.9), minKpa: kpas[0]!, maxKpa: kpas[kpas.length - 1]!,
-    };
-    const inside = cell.p10Kpa <= REFERENCE_INLET_KPA && REFERENCE_INLET_KPA <= cell.p90Kpa;
-    perModel.set(g.group as number, {
-      fit: cell,
-      adjusted: inside ? predictWith(cell, REFERENCE_INLET_KPA, z) : null,
-      reason: inside
-        ? "From the job's pressure fit at 90 psi."
-        : cell.p10Kpa === cell.p90Kpa
-          ? `Its reports with a known inlet pressure on this job were all at ${psi(cell.p10Kpa)} psi; no figure at 90 psi.`
-          : `Its reports with a known inlet pressure on this job ran at ${psi(cell.p10Kpa)}–${psi(cell.p90Kpa)} psi (10th–90th percentile); 90 psi is outside, so no figure there.`,
-    });
+    const kpas = byModel.get(g.group as number)!;
+    perModel.set(g.group as number, modelFigure(g.intercept, fit.slope, d[k]!, r[k]!, sigma, kpas, z));
   });
   for (const m of models) {
     if (!perModel.has(m)) perModel.set(m, { fit: null, adjusted: null, reason: "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers)." });
   }
   return { n: reports.length, models: byModel.size, slope: fit.slope, slopeSE: fit.slopeSE, converged: true, reason: null, perModel };
+}
+
+function modelFigure(intercept: number, slope: number, d: number, r: number, sigma: number, kpas: number[], z: number) {
+  kpas.sort((a, b) => a - b);
+  const cell: PooledCellFit = {
+    intercept, slope, d, r, sigma, n: kpas.length,
+    p10Kpa: quantile(kpas, 0.1), p90Kpa: quantile(kpas, 0.9), minKpa: kpas[0]!, maxKpa: kpas[kpas.length - 1]!,
+  };
+  const inside = cell.p10Kpa <= REFERENCE_INLET_KPA && REFERENCE_INLET_KPA <= cell.p90Kpa;
+  return {
+    fit: cell,
+    adjusted: inside ? predictWith(cell, REFERENCE_INLET_KPA, z) : null,
+    reason: inside
+      ? "From the job's pressure fit at 90 psi."
+      : cell.p10Kpa === cell.p90Kpa
+        ? `Its reports with a known inlet pressure on this job were all at ${psi(cell.p10Kpa)} psi; no figure at 90 psi.`
+        : `Its reports with a known inlet pressure on this job ran at ${psi(cell.p10Kpa)}–${psi(cell.p90Kpa)} psi (10th–90th percentile); 90 psi is outside, so no figure there.`,
+  };
+}
+
+/**
+ * After an accept, one model's share of its job's fit without refitting the job: its intercept by
+ * Firth-penalised Newton steps with the job's slope β and slope term σ held (the arrowhead form of
+ * pooledLogisticFit for one group: modified score Σ(y − p + h(½ − p)), hᵢ = wᵢ(1/d + (xᵢ − r)²/σ)),
+ * and its d, r there. The other models' figures and the slope wait for the job's next full refit.
+ */
+export function modelAtJobSlope(reports: readonly FitReport[], job: { slope: number; sigma: number }, confidence = 0.95) {
+  if (reports.length === 0) return { fit: null, adjusted: null, reason: "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers)." };
+  const x = reports.map((r) => pressureX(r.inletKpa));
+  const y = reports.map((r) => (r.freed ? 1 : 0));
+  const s = y.reduce((a: number, b) => a + b, 0);
+  let alpha = Math.log((s + 0.5) / (reports.length - s + 0.5));
+  let d = 0, r = 0;
+  for (let it = 0; it < 50; it++) {
+    d = 0; let c = 0;
+    const p = x.map((xi) => 1 / (1 + Math.exp(-(alpha + job.slope * xi))));
+    p.forEach((pi, i) => { const w = pi * (1 - pi); d += w; c += w * x[i]!; });
+    r = c / d;
+    let u = 0;
+    p.forEach((pi, i) => { const w = pi * (1 - pi); u += y[i]! - pi + w * (1 / d + (x[i]! - r) ** 2 / job.sigma) * (0.5 - pi); });
+    const step = Math.max(-5, Math.min(5, u / d));
+    alpha += step;
+    if (Math.abs(step) < 1e-8) break;
+  }
+  return modelFigure(alpha, job.slope, d, r, job.sigma, reports.map((q) => q.inletKpa), zFor(confidence));
 }
 
 function predictWith(fit: PooledCellFit, inletKpa: number, z: number): Interval {

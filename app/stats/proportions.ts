@@ -97,12 +97,22 @@ export function shrinkProportions(groups: Group[], confidence = 0.95, prior?: { 
   if (groups.length === 0) throw new RangeError("need at least one group");
   for (const g of groups) checkCounts(g.successes, g.trials);
   if (prior) return posteriors(groups, prior.alpha, prior.beta, confidence);
+  // Groups with the same counts add the same term: sum each distinct (s, n) once, times its count.
+  const distinct = new Map<string, { s: number; f: number; count: number }>();
+  for (const g of groups) {
+    const key = `${g.successes}/${g.trials}`;
+    const d = distinct.get(key);
+    if (d) d.count++;
+    else distinct.set(key, { s: g.successes, f: g.trials - g.successes, count: 1 });
+  }
+  const terms = [...distinct.values()];
   const loglik = (mu: number, logK: number) => {
     const k = Math.exp(logK);
     const a = mu * k;
     const b = (1 - mu) * k;
+    const prior = logBeta(a, b);
     let l = 0;
-    for (const g of groups) l += logBeta(a + g.successes, b + g.trials - g.successes) - logBeta(a, b);
+    for (const t of terms) l += t.count * (logBeta(a + t.s, b + t.f) - prior);
     return l;
   };
   const pooled = groups.reduce((s, g) => s + g.successes, 0) / groups.reduce((s, g) => s + g.trials, 0);

@@ -8,7 +8,7 @@ import type { Database } from "../../db/schema";
 import { operatingInletPressure } from "~/air/supply";
 import type { CouplerProfile } from "~/air/couplers";
 import { type CellFigures, type CellReport, cellFigures } from "./cells";
-import { type FitReport, type JobFit, jobPressureFit } from "./pressure";
+import { type FitReport, type JobFit, jobPressureFit, modelAtJobSlope } from "./pressure";
 import { shrinkProportions } from "./proportions";
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -52,25 +52,6 @@ function parseTextArray(v: unknown): (string | null)[] {
   if (Array.isArray(v)) return v;
   const body = String(v).slice(1, -1);
   return body === "" ? [] : body.split(",").map((x) => (x === "NULL" ? null : x.replace(/^"|"$/g, "")));
-}
-
-/** The job's reports that may enter its pressure fit (inlet measured or read at the regulator), and the counts per model. */
-async function fitArrays(db: Db, jobTypeId: number) {
-  const r = await sql<Omit<CellArrays, "rep" | "t"> & { counted: number; set_aside: number }>`
-    select tool_model_id m,
-      coalesce(array_agg(inlet_kpa::float8) filter (where fit), '{}') p,
-      coalesce(array_agg(case outcome when 'freed' then 0 when 'freed_with_help' then 1 else 2 end) filter (where fit), '{}') "out",
-      coalesce(array_agg(case inlet_source when 'measured_at_inlet' then 0 else 1 end) filter (where fit), '{}') src,
-      coalesce(array_agg(false) filter (where fit), '{}') above,
-      coalesce(array_agg(hose_id_mm::float8) filter (where fit), '{}') hid, coalesce(array_agg(hose_length_m::float8) filter (where fit), '{}') hlen,
-      coalesce(array_agg(coupler_profile) filter (where fit), '{}') cp, coalesce(array_agg(coupler_count) filter (where fit), '{}') cc,
-      (select rated_air_lps::float8 from tool_models where id = tool_model_id) lps,
-      (count(*) filter (where not above))::int counted, (count(*) filter (where above))::int set_aside
-    from (select *, flags @> array['above_rated_inlet'] above,
-            inlet_source in ('measured_at_inlet', 'read_at_regulator') and not flags @> array['above_rated_inlet'] fit
-          from reports where job_type_id = ${jobTypeId} and status = 'accepted') r
-    group by tool_model_id`.execute(db);
-  return r.rows.map((row) => ({ ...row, cp: parseTextArray(row.cp as unknown) as (CouplerProfile | null)[] }));
 }
 
 function toReports(a: CellArrays): CellReport[] {
@@ -165,44 +146,44 @@ async function refreshJob(db: Db, jobTypeId: number) {
   return kept.length;
 }
 
-/** After an accept: that cell, its job's pressure fit over every cell of the job, its shrunk figure. */
+/** A job whose pooled fit is older than this is refitted whole on its next accept. */
+export const JOB_REFIT_AFTER_MS = 60 * 60 * 1000;
+
+/**
+ * After an accept: that cell's figures, its shrunk rate from the job's stored prior, and its figure
+ * at 90 psi from its own reports at the job's stored slope (modelAtJobSlope). The job is refitted
+ * whole instead when it has no fit yet or its fit is over JOB_REFIT_AFTER_MS old — so the cost of an
+ * accept is one cell's reports, not the job's (docs/decisions/010).
+ */
 export async function refreshCell(db: Kysely<Database>, modelId: number, jobTypeId: number) {
   await db.transaction().execute(async (trx) => {
-    const now = new Date();
-    const [mine, fitRows, job] = await Promise.all([
+    const job = await trx.selectFrom("stats_jobs").select(["slope", "slope_se", "prior_alpha", "prior_beta", "computed_at"])
+      .where("job_type_id", "=", jobTypeId).forUpdate().executeTakeFirst();
+    const stale = !job || job.slope == null || job.slope_se == null || job.prior_alpha == null || job.prior_beta == null
+      || Date.now() - new Date(job.computed_at).getTime() > JOB_REFIT_AFTER_MS;
+    if (stale) {
+      await refreshJob(trx, jobTypeId);
+      return;
+    }
+    const [mine, old] = await Promise.all([
       reportArrays(trx, jobTypeId, modelId),
-      fitArrays(trx, jobTypeId),
-      trx.selectFrom("stats_jobs").select(["prior_alpha", "prior_beta"]).where("job_type_id", "=", jobTypeId).executeTakeFirst(),
+      trx.selectFrom("stats_cells").select("set_aside").where("tool_model_id", "=", modelId).where("job_type_id", "=", jobTypeId).executeTakeFirst(),
     ]);
     const f = mine[0] ? cellFigures(toReports(mine[0])) : null;
-    const models = fitRows.filter((r) => r.counted > 0).map((r) => r.m);
-    const fit = jobPressureFit(fitRows.flatMap(fitReportsOf), models);
-    const setAside = fitRows.reduce((acc, r) => acc + r.set_aside, 0);
+    const setAsideNow = f ? f.setAside : (mine[0]?.rep.length ?? 0);
     if (!f) await trx.deleteFrom("stats_cells").where("tool_model_id", "=", modelId).where("job_type_id", "=", jobTypeId).execute();
     else {
-      const prior = job?.prior_alpha != null && job.prior_beta != null ? { alpha: job.prior_alpha, beta: job.prior_beta } : null;
-      // Without a stored prior (a job's first cells), search for one over the job's cells.
-      const others = prior ? [] : await trx.selectFrom("stats_cells").select(["n", "successes"])
-        .where("job_type_id", "=", jobTypeId).where("tool_model_id", "<>", modelId).execute();
-      const s = shrinkProportions([{ successes: f.successes, trials: f.n }, ...others.map((o) => ({ successes: o.successes, trials: o.n }))], 0.95, prior ?? undefined);
+      const s = shrinkProportions([{ successes: f.successes, trials: f.n }], 0.95, { alpha: job.prior_alpha!, beta: job.prior_beta! });
+      const m = modelAtJobSlope(fitReportsOf(mine[0]!), { slope: job.slope!, sigma: 1 / job.slope_se! ** 2 });
       await upsertCells(trx, [{
-        ...withPressure(cellRow(modelId, jobTypeId, f, now), fit),
+        ...cellRow(modelId, jobTypeId, f, new Date()),
+        adj_estimate: m.adjusted?.estimate ?? null, adj_lower: m.adjusted?.lower ?? null, adj_upper: m.adjusted?.upper ?? null,
+        adj_reason: m.adjusted ? null : m.reason, fit: m.fit ? JSON.stringify(m.fit) : null,
         shrunk_estimate: s.groups[0]!.estimate, shrunk_lower: s.groups[0]!.lower, shrunk_upper: s.groups[0]!.upper,
       }]);
-      if (!prior) await storeJob(trx, jobTypeId, fit, setAside, { alpha: s.prior.alpha, beta: s.prior.beta }, now);
     }
-    // The pooled fit moved for every model on the job: one statement updates their figures at 90 psi.
-    const others = models.filter((m) => m !== modelId);
-    if (others.length) {
-      const values = others.map((m) => {
-        const p = withPressure({ tool_model_id: m } as Row, fit);
-        return sql`(${m}::int, ${p.adj_estimate}::float8, ${p.adj_lower}::float8, ${p.adj_upper}::float8, ${p.adj_reason}::text, ${p.fit}::jsonb)`;
-      });
-      await sql`update stats_cells s set adj_estimate = v.e, adj_lower = v.l, adj_upper = v.u, adj_reason = v.reason, fit = v.fit
-        from (values ${sql.join(values)}) as v(m, e, l, u, reason, fit) where s.job_type_id = ${jobTypeId} and s.tool_model_id = v.m`.execute(trx);
-    }
-    const kept = await trx.selectFrom("stats_jobs").select(["prior_alpha", "prior_beta"]).where("job_type_id", "=", jobTypeId).executeTakeFirst();
-    await storeJob(trx, jobTypeId, fit, setAside, kept?.prior_alpha != null && kept.prior_beta != null ? { alpha: kept.prior_alpha, beta: kept.prior_beta } : null, now);
+    const delta = setAsideNow - (old?.set_aside ?? 0);
+    if (delta !== 0) await trx.updateTable("stats_jobs").set((eb) => ({ set_aside: eb("set_aside", "+", delta) })).where("job_type_id", "=", jobTypeId).execute();
   });
 }
 
@@ -217,7 +198,8 @@ export async function refreshAll(db: Kysely<Database>, { concurrency = 4 } = {})
   const worker = async () => {
     while (next < jobs.length) {
       const job = jobs[next++]!;
-      cells += await db.transaction().execute((trx) => refreshJob(trx, job.id));
+      const stored = await db.transaction().execute((trx) => refreshJob(trx, job.id));
+      cells += stored;
     }
   };
   await Promise.all(Array.from({ length: Math.min(concurrency, jobs.length) }, worker));

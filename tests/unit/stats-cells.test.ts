@@ -93,6 +93,17 @@ describe("a job's pooled pressure fit", () => {
     expect(predictAt(one.fit!, 1000).extrapolating).toBe(true);
   });
 
+  it("refits one model at the job's slope to the joint fit's own figures (recomputed: same Firth score equations)", async () => {
+    const { modelAtJobSlope } = await import("~/stats/pressure");
+    const rows = jobReports();
+    const joint = jobPressureFit(rows, [1, 2, 3]);
+    const one = joint.perModel.get(1)!.fit!;
+    const alone = modelAtJobSlope(rows.filter((r) => r.model === 1), { slope: one.slope, sigma: one.sigma });
+    expect(alone.fit!.intercept).toBeCloseTo(one.intercept, 6);
+    expect(alone.fit!.d).toBeCloseTo(one.d, 6);
+    expect(alone.adjusted!.lower).toBeCloseTo(joint.perModel.get(1)!.adjusted!.lower, 6);
+  });
+
   it("needs 20 inlet-measured reports, and says so", () => {
     const fit = jobPressureFit(jobReports().slice(0, 12), [1]);
     expect(fit.slope).toBeNull();
