@@ -213,23 +213,47 @@ export interface StatsCells {
   adj_upper: number | null;
   computed_at: Generated<Timestamp>;
   confidence: Generated<number>;
+  design_effect: Generated<number>;
+  effective_n: number | null;
   estimate: number;
   estimated_share: number;
   fit: object | null;
   job_type_id: number;
+  km_lower_s: number | null;
+  km_median_s: number | null;
+  km_n: Generated<number>;
+  km_steps: object | null;
+  km_upper_s: number | null;
   lower: number;
   measured_share: number;
   n: number;
+  reporters: Generated<number>;
+  set_aside: Generated<number>;
   shrunk_estimate: number | null;
   shrunk_lower: number | null;
   shrunk_upper: number | null;
   successes: number;
+  time_coverage: number | null;
   time_lower_s: number | null;
   time_median_s: number | null;
   time_n: Generated<number>;
   time_upper_s: number | null;
   tool_model_id: number;
   upper: number;
+}
+
+export interface StatsJobs {
+  computed_at: Generated<Timestamp>;
+  converged: Generated<boolean>;
+  fit_models: Generated<number>;
+  fit_n: Generated<number>;
+  fit_reason: string | null;
+  job_type_id: number;
+  prior_alpha: number | null;
+  prior_beta: number | null;
+  set_aside: Generated<number>;
+  slope: number | null;
+  slope_se: number | null;
 }
 
 export interface ToolCategories {
@@ -307,6 +331,7 @@ export interface DB {
   shops: Shops;
   sign_in_links: SignInLinks;
   stats_cells: StatsCells;
+  stats_jobs: StatsJobs;
   tool_categories: ToolCategories;
   tool_models: ToolModels;
   user_roles: UserRoles;

@@ -211,6 +211,7 @@ export interface Database {
   report_claims: ReportClaimsTable;
   notices: NoticesTable;
   stats_cells: StatsCellsTable;
+  stats_jobs: StatsJobsTable;
   app_secrets: AppSecretsTable;
   feed_snapshots: FeedSnapshotsTable;
 }
@@ -331,14 +332,45 @@ export interface StatsCellsTable {
   estimated_share: number;
   confidence: ColumnType<number, number | undefined, number>;
   computed_at: Timestamp;
+  // Second edition (migration 2026-12-02T12.00).
+  reporters: ColumnType<number, number | undefined, number>;
+  design_effect: ColumnType<number, number | undefined, number>;
+  effective_n: number | null;
+  set_aside: ColumnType<number, number | undefined, number>;
+  time_coverage: number | null;
+  km_n: ColumnType<number, number | undefined, number>;
+  km_median_s: number | null;
+  km_lower_s: number | null;
+  km_upper_s: number | null;
+  km_steps: ColumnType<{ time: number; survival: number }[] | null, string | null, string | null>;
 }
 
+/** A model's share of its job's pooled pressure fit (app/stats/pressure.ts: `PooledCellFit`). */
 export interface PressureFit {
   intercept: number;
   slope: number;
-  covariance: [[number, number], [number, number]];
-  /** x = inlet bar gauge − 6.2; the reports' inlet range, kPa. */
+  d: number;
+  r: number;
+  sigma: number;
+  n: number;
+  p10Kpa: number;
+  p90Kpa: number;
   minKpa: number;
   maxKpa: number;
 }
 export type StatsCell = Selectable<StatsCellsTable>;
+
+/** One job type's pooled pressure fit and what its refresh set aside (migration 2026-12-02T12.00). */
+export interface StatsJobsTable {
+  job_type_id: number;
+  fit_n: number;
+  fit_models: number;
+  slope: number | null;
+  slope_se: number | null;
+  converged: boolean;
+  fit_reason: string | null;
+  set_aside: number;
+  prior_alpha: number | null;
+  prior_beta: number | null;
+  computed_at: Timestamp;
+}

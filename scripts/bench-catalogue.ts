@@ -1,24 +1,18 @@
 // `npm run bench:catalogue`: the /models table and search suggestions at catalogue scale. A
 // throwaway database with 400 models and 40 job types (50,000 reports), the local search fake
 // filled from it; prints the median time of the /models query over every combination of its
-// filters, and of search suggestions. Figures only.
-import { mkdtempSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
-import { createDb } from "../db/database";
-import { migrateToLatest } from "../db/migrate";
+// filters, and of search suggestions. Figures only. The PostgreSQL and search fake it starts are
+// stopped, and the cluster's folder deleted, however the run ends.
 import { startSearchService } from "../fakes/search";
 import { buildBenchData } from "./bench-data";
+import { benchCluster } from "./bench-cluster";
 import { freePort } from "./free-port";
-import { startPostgres } from "./postgres";
 
-const dataDir = mkdtempSync(path.join(tmpdir(), "bayproof-bench-"));
-const pg = await startPostgres({ dataDir, port: await freePort(), fast: true });
-const searchService = await startSearchService({ port: await freePort() });
-const db = createDb(pg.url, 4);
 const medianOf = (xs: number[]) => [...xs].sort((a, b) => a - b)[xs.length >> 1]!;
-try {
-  await migrateToLatest(db);
+let searchService: Awaited<ReturnType<typeof startSearchService>> | null = null;
+
+await benchCluster(async ({ db }) => {
+  searchService = await startSearchService({ port: await freePort() });
   await buildBenchData(db, 50_000);
   const { refreshAll } = await import("../app/stats/refresh.server");
   await refreshAll(db);
@@ -50,10 +44,4 @@ try {
   }
   console.log(`/models query, ${times.length} filter combinations   ${medianOf(times).toFixed(1)} ms median (goal < 50 ms)`);
   console.log(`search suggestions, ${docs.toLocaleString("en-US")} documents     ${medianOf(suggest).toFixed(1)} ms median (goal < 30 ms)`);
-  process.exit(0);
-} finally {
-  await db.destroy();
-  await searchService.stop();
-  pg.stop();
-  rmSync(dataDir, { recursive: true, force: true });
-}
+}, { onStop: () => searchService?.stop() });

@@ -2,7 +2,7 @@
 // checked against the same SI limits as every other form, and read out in SI for the ranking.
 import { z } from "zod";
 import {
-  DEFAULT_COUPLER_PROFILE, ftToM, inToMm, RANGES, parseMeasure, psiToKpa, rangeShort, SHANKS, inRange,
+  COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, ftToM, inToMm, RANGES, parseMeasure, psiToKpa, rangeShort, SHANKS, inRange,
 } from "~/domain";
 
 const { couplerCount } = RANGES;
@@ -17,10 +17,12 @@ export const supplySchema = z.object({
     .refine((ft) => inRange(RANGES.hoseLength, ftToM(ft)), `Hose length: ${rangeShort(RANGES.hoseLength, "ft")}`)),
   cc: z.preprocess((v) => (v === "" || v == null ? 2 : Number(v)),
     z.number({ error: couplers }).int(couplers).min(couplerCount.min, couplers).max(couplerCount.max, couplers)),
+  cp: z.preprocess((v) => (v === "" || v == null ? DEFAULT_COUPLER_PROFILE : v),
+    z.enum(COUPLER_PROFILES, { error: "Couplers: pick a coupler style" })),
   bits: z.enum(["", ...SHANKS], { error: "Bits: 0.401 or 0.498 in shank" }).default(""),
-}).transform(({ reg, hid, hlen, cc, bits }) => ({
+}).transform(({ reg, hid, hlen, cc, cp, bits }) => ({
   regulatorKpa: psiToKpa(reg),
-  line: { hoseIdMm: inToMm(hid), hoseLengthM: ftToM(hlen), couplerProfile: DEFAULT_COUPLER_PROFILE, couplerCount: cc },
+  line: { hoseIdMm: inToMm(hid), hoseLengthM: ftToM(hlen), couplerProfile: cp, couplerCount: cc },
   bits: bits || null,
 }));
 

@@ -11,7 +11,7 @@ export async function modelsTable(db: Db, f: ModelFilters) {
     .select([
       "m.slug", "m.model_code", "m.name", "m.fitting", "m.weight_kg", "m.length_mm", "m.street_price_cents",
       "mk.name as maker_name", "c.name as category_name", "c.slug as category_slug",
-      sql<number>`coalesce((select sum(s.n)::int from stats_cells s where s.tool_model_id = m.id), 0)`.as("reports"),
+      sql<number>`coalesce((select sum(s.n + s.set_aside)::int from stats_cells s where s.tool_model_id = m.id), 0)`.as("reports"),
       sql<number>`(select count(*)::int from stats_cells s where s.tool_model_id = m.id)`.as("jobs_with_reports"),
     ])
     // The chosen job's cell (none when no job is chosen: the join then matches nothing).
@@ -23,7 +23,7 @@ export async function modelsTable(db: Db, f: ModelFilters) {
   if (f.fitting) q = q.where("m.fitting", "=", f.fitting);
   if (f.maxPrice != null) q = q.where("m.street_price_cents", "<=", Math.round(f.maxPrice * 100));
   if (f.maxWeight != null) q = q.where("m.weight_kg", "<=", f.maxWeight);
-  if (f.minReports != null) q = q.where(sql<number>`coalesce((select sum(s.n) from stats_cells s where s.tool_model_id = m.id), 0)`, ">=", f.minReports);
+  if (f.minReports != null) q = q.where(sql<number>`coalesce((select sum(s.n + s.set_aside) from stats_cells s where s.tool_model_id = m.id), 0)`, ">=", f.minReports);
   const dir = f.dir === "desc" ? sql`desc` : sql`asc`;
   const order = {
     tool: sql`mk.name ${dir}, m.model_code ${dir}`,

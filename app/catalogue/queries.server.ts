@@ -18,7 +18,7 @@ export function modelsBase(db: Db) {
 export async function listModels(db: Db) {
   return modelsBase(db)
     // Counted from the stored stats cells, which the refresh job keeps in step with accepts.
-    .select(sql<number>`(select coalesce(sum(s.n), 0)::int from stats_cells s where s.tool_model_id = m.id)`.as("accepted_reports"))
+    .select(sql<number>`(select coalesce(sum(s.n + s.set_aside), 0)::int from stats_cells s where s.tool_model_id = m.id)`.as("accepted_reports"))
     .orderBy("c.name").orderBy("mk.name").orderBy("m.model_code")
     .execute();
 }
@@ -39,7 +39,7 @@ export async function listJobs(db: Db) {
     .selectFrom("job_types as j")
     .innerJoin("tool_categories as c", "c.id", "j.category_id")
     .select(["j.id", "j.slug", "j.name", "j.description", "c.name as category_name", "c.slug as category_slug", "c.action as category_action"])
-    .select(sql<number>`(select coalesce(sum(s.n), 0)::int from stats_cells s where s.job_type_id = j.id)`.as("accepted_reports"))
+    .select(sql<number>`(select coalesce(sum(s.n + s.set_aside), 0)::int from stats_cells s where s.job_type_id = j.id)`.as("accepted_reports"))
     .orderBy("c.name").orderBy("j.name")
     .execute();
 }
@@ -82,7 +82,7 @@ export async function acceptedReports(db: Db, { modelId, jobId, limit, offset = 
 
 /** Accepted reports, counted from the stored stats cells (kept in step by the refresh job). */
 export async function countAccepted(db: Db, { modelId, jobId }: { modelId?: number; jobId?: number } = {}) {
-  let q = db.selectFrom("stats_cells").select(sql<number>`coalesce(sum(n), 0)::int`.as("n"));
+  let q = db.selectFrom("stats_cells").select(sql<number>`coalesce(sum(n + set_aside), 0)::int`.as("n"));
   if (modelId != null) q = q.where("tool_model_id", "=", modelId);
   if (jobId != null) q = q.where("job_type_id", "=", jobId);
   return (await q.executeTakeFirstOrThrow()).n;

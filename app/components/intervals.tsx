@@ -1,8 +1,7 @@
 // Interval pictures, drawn as SVG on the server so they work without JavaScript. Every figure is
 // also given as text beside or under the picture.
 import { scaleLinear } from "d3-scale";
-
-const pct = (x: number) => `${Math.round(x * 100)} %`;
+import { formatChance as prob, formatShare as pct } from "~/domain";
 
 /** A small 0–100 % bar with the interval as a band and the estimate as a tick. */
 export function IntervalBar({ estimate, lower, upper, muted = false }: { estimate: number; lower: number; upper: number; muted?: boolean }) {
@@ -26,31 +25,35 @@ export interface ChartRow {
   n: number;
   tag?: string;
   muted?: boolean;
+  /** Drawn in the top tool's colour (the top tool, and those not told apart from it). */
+  highlight?: boolean;
 }
 
-/** One row per tool: point and whisker on a shared 0–100 % axis. */
+/** One row per tool: its name above, point and whisker below, on a shared 0–100 % axis (narrow, so it reads on a phone). */
 export function IntervalChart({ rows, title }: { rows: ChartRow[]; title: string }) {
-  const rowH = 34, left = 250, right = 16, top = 24, W = 680;
-  const H = top + rows.length * rowH + 10;
+  const rowH = 40, left = 10, right = 14, top = 22, W = 400;
+  const H = top + rows.length * rowH + 6;
   const x = scaleLinear().domain([0, 1]).range([left, W - right]);
   return (
     <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="interval-chart-title" className="h-auto w-full">
       <title id="interval-chart-title">{title}</title>
       {x.ticks(5).map((t) => (
         <g key={t}>
-          <line x1={x(t)} x2={x(t)} y1={top - 6} y2={H - 6} stroke="#e7e5e4" />
+          <line x1={x(t)} x2={x(t)} y1={top - 6} y2={H - 4} stroke="#e7e5e4" />
           <text x={x(t)} y={top - 10} textAnchor="middle" fontSize="11" fill="#57534e">{pct(t)}</text>
         </g>
       ))}
       {rows.map((r, i) => {
-        const y = top + i * rowH + rowH / 2;
-        const colour = r.muted ? "#a8a29e" : r.tag === "not distinguishable from the first" || i === 0 ? "#2f6b5f" : "#44403c";
+        const y = top + i * rowH;
+        const colour = r.muted ? "#a8a29e" : r.highlight || i === 0 ? "#2f6b5f" : "#44403c";
         return (
           <g key={r.key}>
-            <text x={left - 8} y={y - 2} textAnchor="end" fontSize="12" fill="#1c1917">{r.label}</text>
-            <text x={left - 8} y={y + 11} textAnchor="end" fontSize="10" fill="#78716c">n = {r.n}{r.tag ? ` · ${r.tag}` : ""}</text>
-            <line x1={x(r.lower)} x2={x(r.upper)} y1={y} y2={y} stroke={colour} strokeWidth={3} strokeLinecap="round" />
-            <circle cx={x(r.estimate)} cy={y} r={5} fill={r.muted ? "#fff" : colour} stroke={colour} strokeWidth={2} />
+            <text x={left} y={y + 12} fontSize="12" fill="#1c1917">
+              {r.label}
+              <tspan fontSize="10" fill="#78716c">{`  n = ${r.n}${r.tag ? ` · ${r.tag}` : ""}`}</tspan>
+            </text>
+            <line x1={x(r.lower)} x2={x(r.upper)} y1={y + 26} y2={y + 26} stroke={colour} strokeWidth={3} strokeLinecap="round" />
+            <circle cx={x(r.estimate)} cy={y + 26} r={5} fill={r.muted ? "#fff" : colour} stroke={colour} strokeWidth={2} />
           </g>
         );
       })}
@@ -62,13 +65,14 @@ export function IntervalsExplained() {
   return (
     <p className="rounded-lg bg-white p-3 text-sm text-stone-700">
       Bayproof shows every success rate as a range, not as a single score or rank: a tool with 5 reports and a tool with 80 can
-      show the same rate, but only the second is known well. Where two ranges overlap, the reports so far cannot tell the tools
-      apart, however the points fall.
+      show the same rate, but only the second is known well. Two tools are told apart only when the range of the difference
+      between their rates leaves out zero; two ranges that overlap can still differ, so look at the mark beside each tool, not at
+      whether the bars touch.
     </p>
   );
 }
 
 export const plainLine = (successes: number, n: number, lower: number, upper: number, what = "freed it") =>
-  `${what[0]!.toUpperCase()}${what.slice(1)} in ${successes} of ${n} reports; between ${pct(lower)} and ${pct(upper)} with 95 % confidence (Wilson score interval).`;
+  `${what[0]!.toUpperCase()}${what.slice(1)} in ${successes} of ${n} reports; between ${pct(lower)} and ${pct(upper)}.`;
 
-export { pct };
+export { pct, prob };

@@ -1,6 +1,6 @@
 import { Form, Link } from "react-router";
-import { FITTING_LABELS, formatPressure, formatPrice, type PressureUnit, SHANKS } from "~/domain";
-import { pct } from "./intervals";
+import { COUPLER_LABELS, COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, formatPressure, formatPrice } from "~/domain";
+import { prob } from "./intervals";
 
 export interface WhichToolRow {
   slug: string;
@@ -15,25 +15,30 @@ export interface WhichToolRow {
 
 /** The shopper's supply in, per tool: what reaches it, the fitted chance there, what else it needs. */
 export function WhichToolPanel({ jobSlug, percussive, values, note, rows, pu }: {
-  jobSlug: string; percussive: boolean; values: Record<string, string>; note: string | null; rows: WhichToolRow[] | null; pu: PressureUnit;
+  jobSlug: string; percussive: boolean; values: Record<string, string>; note: string | null; rows: WhichToolRow[] | null; pu: "psi" | "bar" | "kPa";
 }) {
   const input = "mt-1 block w-full rounded border border-stone-300 px-3 py-2";
   return (
     <section aria-labelledby="which-heading" className="space-y-3 rounded-lg border border-bay-600 bg-white p-4">
       <h2 id="which-heading" className="text-lg font-semibold">Which tool, on your air?</h2>
-      <Form method="get" action={`/jobs/${jobSlug}`} className="grid grid-cols-2 gap-3 sm:grid-cols-5" preventScrollReset>
+      <Form method="get" action={`/jobs/${jobSlug}`} className="grid grid-cols-2 gap-3 sm:grid-cols-6" preventScrollReset>
         <label className="text-sm"><span className="font-semibold">Regulator, psi</span><input name="reg" defaultValue={values.reg ?? ""} placeholder="100" inputMode="decimal" className={input} /></label>
         <label className="text-sm"><span className="font-semibold">Hose ID, in</span><input name="hid" defaultValue={values.hid ?? ""} placeholder="3/8" className={input} /></label>
         <label className="text-sm"><span className="font-semibold">Hose length, ft</span><input name="hlen" defaultValue={values.hlen ?? ""} placeholder="50" inputMode="decimal" className={input} /></label>
         <label className="text-sm"><span className="font-semibold">Couplers</span><input name="cc" defaultValue={values.cc ?? "2"} inputMode="numeric" className={input} /></label>
+        <label className="text-sm"><span className="font-semibold">Coupler style</span>
+          <select name="cp" defaultValue={values.cp ?? DEFAULT_COUPLER_PROFILE} className={input}>
+            {COUPLER_PROFILES.map((code) => <option key={code} value={code}>{COUPLER_LABELS[code]}</option>)}
+          </select>
+        </label>
         {percussive ? (
           <label className="text-sm"><span className="font-semibold">Bits you own</span>
             <select name="bits" defaultValue={values.bits ?? ""} className={input}>
-              <option value="">none yet</option>{SHANKS.map((s) => <option key={s} value={s}>{FITTING_LABELS[s]}</option>)}
+              <option value="">none yet</option><option value="shank-0.401">0.401 in shank</option><option value="shank-0.498">0.498 in shank</option>
             </select>
           </label>
         ) : <span />}
-        <button type="submit" className="col-span-2 rounded bg-bay-700 px-4 py-2 font-semibold text-white sm:col-span-5 sm:justify-self-start">Show tools at my air</button>
+        <button type="submit" className="col-span-2 rounded bg-bay-700 px-4 py-2 font-semibold text-white sm:col-span-6 sm:justify-self-start">Show tools at my air</button>
       </Form>
       {note && <p role="alert" className="text-sm text-amber-800">{note}</p>}
       {rows && (
@@ -50,7 +55,7 @@ export function WhichToolPanel({ jobSlug, percussive, values, note, rows, pu }: 
                   <td className="px-3 py-2">
                     {r.predicted ? (
                       <>
-                        {pct(r.predicted.estimate)} <span className="text-stone-500">({pct(r.predicted.lower)}–{pct(r.predicted.upper)})</span>
+                        {prob(r.predicted.estimate)} <span className="text-stone-500">({prob(r.predicted.lower)}–{prob(r.predicted.upper)})</span>
                         {r.predicted.extrapolating && <div className="text-xs text-amber-700">outside the pressures reported for it — an extrapolation</div>}
                       </>
                     ) : <span className="text-xs text-stone-500">{r.reason}</span>}
@@ -62,8 +67,8 @@ export function WhichToolPanel({ jobSlug, percussive, values, note, rows, pu }: 
             </tbody>
           </table>
           <p className="mt-1 text-xs text-stone-600">
-            Pressure at the tool from its rated air use through your hose and couplers (estimate); chance from each tool's logistic fit on
-            inlet pressure, with 95 % bands. Ordered by the lower end of that band. Tools without enough reports across pressures say so.
+            Pressure at the tool from its rated air use through your hose and couplers (estimate); chance from the job's pooled logistic fit on
+            inlet pressure (one slope for every tool on the job), with 95 % bands. Ordered by the lower end of that band. Tools without enough reports across pressures say so.
           </p>
         </div>
       )}

@@ -49,3 +49,17 @@ export function formatDate(value: Date | string | null | undefined): string {
   if (!value) return "—";
   return new Date(value).toISOString().slice(0, 10);
 }
+
+/**
+ * A share or chance as a whole percent. A chance is never printed as 100 % or 0 % when it is not
+ * exactly that: ">99 %" and "<1 %" (issue 16, item 8). Differences keep their sign.
+ */
+export const formatShare = (x: number) => {
+  const a = Math.abs(x);
+  if (a > 0 && a < 0.005) return x < 0 ? "−<1 %" : "<1 %";
+  if (a >= 0.995 && a < 1) return x < 0 ? "−>99 %" : ">99 %";
+  return `${x < 0 ? "−" : ""}${Math.round(a * 100)} %`;
+};
+
+/** A modelled probability (a chance, a prediction): never 100 % or 0 %, even when it rounds there. */
+export const formatChance = (x: number) => (x >= 0.995 ? ">99 %" : x < 0.005 ? "<1 %" : `${Math.round(x * 100)} %`);

@@ -94,28 +94,96 @@ export const JOB_TYPE_FIELDS: Field[] = [
 
 const proportion = { type: "number" as const, minimum: 0, maximum: 1 };
 
+const interval = (what: string, unit?: string): Field[] => [
+  { name: "lower", type: "number", nullable: true, unit, description: `Lower limit of ${what}; null where the data cannot reach the stated level.` },
+  { name: "upper", type: "number", nullable: true, unit, description: `Upper limit of ${what}; null where the data cannot reach the stated level.` },
+];
+
 export const STAT_FIELDS: Field[] = [
   slug("model", "Tool model slug."),
   slug("job", "Job type slug."),
-  { name: "n", type: "integer", minimum: 1, description: "Accepted reports in the cell." },
+  { name: "n", type: "integer", minimum: 1, description: "Accepted reports in the figures (reports set aside are not counted here)." },
   { name: "successes", type: "integer", minimum: 0, description: "Reports with outcome freed." },
   { name: "estimate", ...proportion, description: "Success rate, successes / n." },
   { name: "lower", ...proportion, description: "Lower limit of the interval." },
   { name: "upper", ...proportion, description: "Upper limit of the interval." },
-  { name: "method", type: "string", enum: ["wilson_score"], description: "Interval method." },
+  { name: "method", type: "string", enum: ["wilson_score"], description: "Interval method: the Wilson score interval worked at the effective sample size n / design_effect (Korn & Graubard 1998)." },
   { name: "confidence", ...proportion, description: "Confidence level of the intervals." },
+  { name: "reporters", type: "integer", minimum: 1, description: "Reporters behind the n reports (the clusters of the design effect)." },
+  { name: "design_effect", type: "number", minimum: 1, description: "Cluster-robust variance of the rate over the binomial variance, reports clustered by reporter, floored at 1." },
+  { name: "effective_n", type: "number", description: "n / design_effect: the sample size the interval is worked at." },
+  { name: "set_aside", type: "integer", minimum: 0, description: "Accepted reports flagged as run above the tool's rated inlet pressure: listed in the feed, kept out of every figure here." },
+  {
+    name: "time_freed", type: "object", nullable: true,
+    description: "Median time of the jobs freed (the tool alone), with the distribution-free order-statistic interval; null with no freed job.",
+    fields: [
+      { name: "n", type: "integer", minimum: 1, description: "Times in the median." },
+      { name: "median", type: "number", unit: "s", description: "Median time to result of the jobs freed." },
+      ...interval("the order-statistic interval (null with 5 times or fewer at 95 %)", "s"),
+      { name: "coverage", type: "number", nullable: true, minimum: 0, maximum: 1, description: "Exact achieved coverage of the interval under Binomial(n, 1/2), never below confidence." },
+      { name: "method", type: "string", enum: ["order_statistic"], description: "How the interval was computed." },
+    ],
+  },
+  {
+    name: "time_to_free", type: "object", nullable: true,
+    description: "Kaplan–Meier median time to free it, counting give-ups: jobs not freed and freed with help are censored at the time reported.",
+    fields: [
+      { name: "n", type: "integer", minimum: 1, description: "Reports in the curve." },
+      { name: "censored", type: "integer", minimum: 0, description: "Of them, jobs the tool gave up on (censored)." },
+      { name: "median", type: "number", nullable: true, unit: "s", description: "Median time to free it; null where the curve does not reach one half." },
+      ...interval("the Brookmeyer–Crowley interval (log-log)", "s"),
+      { name: "method", type: "string", enum: ["kaplan_meier_brookmeyer_crowley"], description: "How it was computed." },
+    ],
+  },
   {
     name: "pressure_adjusted", type: "object", nullable: true,
-    description: "Success predicted at the reference inlet pressure by a logistic fit on inlet pressure, where the data allow it; null otherwise (see pressure_adjusted_reason).",
+    description: "Success predicted at the reference inlet pressure by the job's pooled logistic fit, where 620.5 kPa lies between the 10th and 90th percentile of the model's known inlet pressures on the job; null otherwise (see pressure_adjusted_reason).",
     fields: [
       { name: "inlet_kpa", type: "number", unit: "kPa", description: "The reference inlet pressure (620.5 kPa, 90 psi)." },
       { name: "estimate", ...proportion, description: "Predicted success at that pressure." },
       { name: "lower", ...proportion, description: "Lower limit (Wald interval on the logit scale)." },
       { name: "upper", ...proportion, description: "Upper limit." },
-      { name: "method", type: "string", enum: ["logistic_regression_wald"], description: "How it was computed." },
+      { name: "method", type: "string", enum: ["pooled_logistic_firth_wald"], description: "How it was computed: one Firth-penalised logistic fit per job type, an intercept per model, a common slope on inlet pressure." },
     ],
   },
   { name: "pressure_adjusted_reason", type: "string", nullable: true, description: "Why there is no pressure-adjusted figure, when there is none." },
+  {
+    name: "pressure_fit", type: "object", nullable: true,
+    description: "The job's pooled pressure fit as it bears on this model; null where the job has no fit or the model no report with a known inlet pressure.",
+    fields: [
+      { name: "job_reports", type: "integer", minimum: 0, description: "Inlet-measured reports in the job's fit (all models)." },
+      { name: "job_models", type: "integer", minimum: 0, description: "Models in the job's fit." },
+      { name: "slope_per_bar", type: "number", description: "Common slope: change in the log-odds of freeing per bar of inlet pressure." },
+      { name: "slope_se", type: "number", description: "Standard error of the slope." },
+      { name: "model_reports", type: "integer", minimum: 1, description: "This model's reports with a known inlet pressure in the fit." },
+      { name: "p10_kpa", type: "number", unit: "kPa", description: "10th percentile of this model's known inlet pressures on the job." },
+      { name: "p90_kpa", type: "number", unit: "kPa", description: "90th percentile of the same." },
+      { name: "min_kpa", type: "number", unit: "kPa", description: "Lowest of the same." },
+      { name: "max_kpa", type: "number", unit: "kPa", description: "Highest of the same." },
+    ],
+  },
+  {
+    name: "order", type: "object",
+    description: "Where the model stands on the job's page and how it compares with the job's top tool: the same rule drives the job page and /compare.",
+    fields: [
+      { name: "position", type: "integer", minimum: 1, description: "Position on the job page (1 = first)." },
+      { name: "job_basis", type: "string", enum: ["pressure_adjusted", "rate"], description: "What the job's list is ordered by: the lower limit of pressure_adjusted where the job has a fit, else the lower limit of the rate." },
+      { name: "ordered_by", type: "string", enum: ["pressure_adjusted", "rate"], description: "What this model was ordered by (models without a pressure-adjusted figure follow by their rate)." },
+      { name: "mark", type: "string", enum: ["top", "not_told_apart", "behind", "ahead", "too_few"], description: "Against the job's top tool: the top tool itself; can't be told apart yet; behind it; ahead of it though ordered below; too few reports (under 10) to compare." },
+      { ...slug("top_model", "The job's top tool (the first with 10 reports or more); null where none has 10."), nullable: true },
+      { name: "told_apart_from_top", type: "boolean", nullable: true, description: "Whether the difference interval with the top tool excludes 0; null for the top tool and for too few reports." },
+    ],
+  },
+  {
+    name: "difference_from_top", type: "object", nullable: true,
+    description: "Top tool's rate minus this model's, with its interval; null where not compared.",
+    fields: [
+      { name: "estimate", type: "number", minimum: -1, maximum: 1, description: "Difference of rates." },
+      { name: "lower", type: "number", minimum: -1, maximum: 1, description: "Lower limit." },
+      { name: "upper", type: "number", minimum: -1, maximum: 1, description: "Upper limit." },
+      { name: "method", type: "string", enum: ["newcombe_hybrid_score_effective_n"], description: "Newcombe's hybrid score interval with each rate's Wilson limits at its effective sample size." },
+    ],
+  },
   { name: "computed_at", type: "datetime", description: "When the cell was last computed (UTC)." },
 ];
 

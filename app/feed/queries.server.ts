@@ -4,7 +4,7 @@
 // CSV takes them as text — see docs/decisions/005-open-feed.md.
 import { type RawBuilder, sql } from "kysely";
 import type { Db } from "../../db/database";
-import { adjustedAtReference } from "~/stats/cells";
+import { statRecords as statRecordsOfStats } from "~/stats/feed.server";
 import { REPORT_FIELDS } from "./fields";
 import { feedError } from "./http.server";
 
@@ -184,22 +184,5 @@ export async function jobTypeRecords(db: Db, categoryId?: number) {
 }
 
 export async function statRecords(db: Db, f: Pick<ReportFilters, "modelId" | "jobId" | "categoryId">) {
-  const rows = await db.selectFrom("stats_cells as s").innerJoin("tool_models as m", "m.id", "s.tool_model_id")
-    .innerJoin("job_types as j", "j.id", "s.job_type_id")
-    .select(["m.slug as model", "j.slug as job", "s.n", "s.successes", "s.estimate", "s.lower", "s.upper", "s.confidence",
-      "s.adj_estimate", "s.adj_lower", "s.adj_upper", "s.adj_reason", "s.computed_at"])
-    .$if(!!f.modelId, (q) => q.where("s.tool_model_id", "=", f.modelId!))
-    .$if(!!f.jobId, (q) => q.where("s.job_type_id", "=", f.jobId!))
-    .$if(!!f.categoryId, (q) => q.where("j.category_id", "=", f.categoryId!))
-    .orderBy("m.slug").orderBy("j.slug").execute();
-  return rows.map((s) => {
-    const adjusted = adjustedAtReference(s);
-    return {
-      model: s.model, job: s.job, n: s.n, successes: s.successes, estimate: s.estimate, lower: s.lower, upper: s.upper,
-      method: "wilson_score", confidence: s.confidence,
-      pressure_adjusted: adjusted && { ...adjusted, method: "logistic_regression_wald" },
-      pressure_adjusted_reason: adjusted ? null : (s.adj_reason ?? "not enough reports or pressure spread"),
-      computed_at: new Date(s.computed_at).toISOString(),
-    };
-  });
+  return statRecordsOfStats(db, f);
 }

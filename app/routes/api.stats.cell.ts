@@ -21,6 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   return Response.json({
     model: cell.model_slug, job: cell.job_slug, n: cell.n, successes: cell.successes,
     estimate: cell.estimate, lower: cell.lower, upper: cell.upper, method: "Wilson score", confidence: cell.confidence,
+    reporters: cell.reporters, design_effect: cell.design_effect, effective_n: cell.effective_n, set_aside: cell.set_aside,
     shrunk_estimate: cell.shrunk_estimate,
     pressure_adjusted: adjustedAtReference(cell),
     pressure_adjusted_reason: cell.adj_reason,

@@ -1,83 +1,83 @@
 // One (tool model, job type) cell's figures from its accepted reports. Pure; the refresh job
-// (refresh.server.ts) feeds it and stores the result.
-import type { InletSource } from "~/domain";
-import { bootstrapMedianInterval } from "./continuous";
-import { logisticFit, logisticPredict } from "./logistic";
-import { wilsonInterval } from "./proportions";
+// (refresh.server.ts) feeds it and stores the result. The pressure-adjusted figure comes from the
+// job's pooled fit (pressure.ts), not from the cell alone.
+import { clusteredWilson } from "./clustered";
+import { medianInterval } from "./median";
+import { REFERENCE_INLET_KPA } from "./pressure";
+import { kaplanMeier } from "./survival";
 
-export const REFERENCE_INLET_KPA = 620.5; // 90 psi, the trade's rating point (common practice)
-export const MIN_REPORTS_FOR_PRESSURE = 20;
-export const MIN_PRESSURE_SPAN_KPA = 100; // 1 bar
-export const FEW_REPORTS = 10;
+export { predictAt, pressureX, REFERENCE_INLET_KPA, type PooledCellFit } from "./pressure";
+export { FEW_REPORTS } from "./standings";
 
 export interface CellReport {
-  freed: boolean;
+  outcome: "freed" | "freed_with_help" | "not_freed";
   timeS: number;
   inletKpa: number;
-  inletSource: InletSource;
+  inletSource: "measured_at_inlet" | "read_at_regulator" | "estimated";
+  reporterId: number;
+  /** Accepted with the "above rated inlet pressure" flag: counted and listed, kept out of the figures. */
+  aboveRated: boolean;
 }
 
 export interface CellFigures {
+  /** Reports in the figures (set-aside reports are not among them). */
   n: number;
   successes: number;
+  setAside: number;
+  /** Clustered Wilson: the rate's interval at n / deff, clusters = reporters. */
   estimate: number;
   lower: number;
   upper: number;
-  time: { n: number; median: number; lower: number; upper: number } | null;
-  adjusted: { estimate: number; lower: number; upper: number } | null;
-  adjustedReason: string | null;
-  fit: { intercept: number; slope: number; covariance: [[number, number], [number, number]]; minKpa: number; maxKpa: number } | null;
+  reporters: number;
+  designEffect: number;
+  effectiveN: number;
+  /** Median time of the jobs freed, with the order-statistic interval (null bounds for ≤ 5 times). */
+  time: { n: number; median: number; lower: number | null; upper: number | null; coverage: number | null } | null;
+  /** Kaplan–Meier median time to free it, counting give-ups (censored). */
+  km: { n: number; median: number | null; lower: number | null; upper: number | null; steps: { time: number; survival: number }[] } | null;
   measuredShare: number;
   estimatedShare: number;
 }
 
-/** The logistic fit works on x = inlet bar − 6.2 so the intercept is the rating-point logit. */
-/** A stored cell's pressure-adjusted success at the reference inlet, or null where there is none. */
-export function adjustedAtReference(cell: { adj_estimate: number | null; adj_lower: number | null; adj_upper: number | null }) {
-  if (cell.adj_estimate == null || cell.adj_lower == null || cell.adj_upper == null) return null;
-  return { inlet_kpa: REFERENCE_INLET_KPA, estimate: cell.adj_estimate, lower: cell.adj_lower, upper: cell.adj_upper };
-}
-
-export const pressureX = (kpa: number) => kpa / 100 - REFERENCE_INLET_KPA / 100;
-
-export function cellFigures(reports: CellReport[], seed: string, resamples = 1000): CellFigures {
+/** The cell's figures, or null where every report was set aside. */
+export function cellFigures(all: readonly CellReport[], confidence = 0.95): CellFigures | null {
+  const reports = all.filter((r) => !r.aboveRated);
+  const setAside = all.length - reports.length;
   const n = reports.length;
-  const successes = reports.filter((r) => r.freed).length;
-  const w = wilsonInterval(successes, n);
-  const times = reports.filter((r) => r.freed).map((r) => r.timeS);
-  const time = times.length >= 3
-    ? (() => {
-        const b = bootstrapMedianInterval(times, { resamples, seed });
-        return { n: times.length, median: b.estimate, lower: b.lower, upper: b.upper };
-      })()
-    : null;
-
-  let adjusted: CellFigures["adjusted"] = null;
-  let adjustedReason: string | null = null;
-  let fit: CellFigures["fit"] = null;
-  const inlets = reports.map((r) => r.inletKpa);
-  const minKpa = Math.min(...inlets);
-  const maxKpa = Math.max(...inlets);
-  if (n < MIN_REPORTS_FOR_PRESSURE) adjustedReason = `Only ${n} reports; the pressure adjustment needs ${MIN_REPORTS_FOR_PRESSURE}.`;
-  else if (maxKpa - minKpa < MIN_PRESSURE_SPAN_KPA) adjustedReason = `Inlet pressures span only ${((maxKpa - minKpa) / 100).toFixed(2)} bar; the adjustment needs 1 bar.`;
-  else if (successes === 0 || successes === n) adjustedReason = "Every report had the same outcome; there is no pressure effect to fit.";
-  else {
-    const f = logisticFit(reports.map((r) => pressureX(r.inletKpa)), reports.map((r) => (r.freed ? 1 : 0)));
-    if (!f.converged || !Number.isFinite(f.interceptSE)) adjustedReason = "The outcomes split cleanly by pressure; no finite fit.";
-    else {
-      fit = { intercept: f.intercept, slope: f.slope, covariance: f.covariance, minKpa, maxKpa };
-      adjusted = logisticPredict(f, 0);
+  if (n === 0) return null;
+  const clusters = new Map<number, { successes: number; trials: number }>();
+  let successes = 0;
+  for (const r of reports) {
+    const c = clusters.get(r.reporterId) ?? { successes: 0, trials: 0 };
+    c.trials++;
+    if (r.outcome === "freed") {
+      c.successes++;
+      successes++;
     }
+    clusters.set(r.reporterId, c);
   }
+  const w = clusteredWilson([...clusters.values()], confidence);
+  const freedTimes = reports.filter((r) => r.outcome === "freed").map((r) => r.timeS);
+  let time: CellFigures["time"] = null;
+  if (freedTimes.length > 0) {
+    const m = medianInterval(freedTimes, confidence);
+    const sorted = [...freedTimes].sort((a, b) => a - b);
+    const mid = sorted.length >> 1;
+    const median = m?.estimate ?? (sorted.length % 2 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2);
+    time = { n: freedTimes.length, median, lower: m?.lower ?? null, upper: m?.upper ?? null, coverage: m?.coverage ?? null };
+  }
+  const k = kaplanMeier(reports.map((r) => r.timeS), reports.map((r) => r.outcome === "freed"), confidence);
+  const km = { n, median: k.median, lower: k.lower, upper: k.upper, steps: k.steps.map((s) => ({ time: s.time, survival: s.survival })) };
   return {
-    n, successes, estimate: w.estimate, lower: w.lower, upper: w.upper, time, adjusted, adjustedReason, fit,
+    n, successes, setAside, estimate: w.estimate, lower: w.lower, upper: w.upper,
+    reporters: w.clusters, designEffect: w.designEffect, effectiveN: w.effectiveN, time, km,
     measuredShare: reports.filter((r) => r.inletSource === "measured_at_inlet").length / n,
     estimatedShare: reports.filter((r) => r.inletSource === "estimated").length / n,
   };
 }
 
-/** Predicted success at an inlet pressure from a stored fit, and whether that is outside the reports' pressures. */
-export function predictAt(fit: NonNullable<CellFigures["fit"]>, inletKpa: number, confidence = 0.95) {
-  const p = logisticPredict({ intercept: fit.intercept, slope: fit.slope, covariance: fit.covariance, interceptSE: 0, slopeSE: 0, converged: true, iterations: 0 }, pressureX(inletKpa), confidence);
-  return { ...p, extrapolating: inletKpa < fit.minKpa || inletKpa > fit.maxKpa };
+/** A stored cell's pressure-adjusted success at the reference inlet, or null where there is none. */
+export function adjustedAtReference(cell: { adj_estimate: number | null; adj_lower: number | null; adj_upper: number | null }) {
+  if (cell.adj_estimate == null || cell.adj_lower == null || cell.adj_upper == null) return null;
+  return { inlet_kpa: REFERENCE_INLET_KPA, estimate: cell.adj_estimate, lower: cell.adj_lower, upper: cell.adj_upper };
 }

@@ -90,42 +90,65 @@ export interface ShrinkResult {
  * Empirical-Bayes beta-binomial shrinkage: the Beta(α, β) prior maximising the beta-binomial
  * marginal likelihood of all groups (searched over mean and log concentration), then each group's
  * posterior Beta(α + s, β + n − s): its mean and central 95 % interval.
+ * `prior` skips the search and uses the one given (a prior found earlier for the same job type:
+ * one more report moves it by next to nothing, and the search is the costly part).
  */
-export function shrinkProportions(groups: Group[], confidence = 0.95): ShrinkResult {
+export function shrinkProportions(groups: Group[], confidence = 0.95, prior?: { alpha: number; beta: number }): ShrinkResult {
   if (groups.length === 0) throw new RangeError("need at least one group");
   for (const g of groups) checkCounts(g.successes, g.trials);
+  if (prior) return posteriors(groups, prior.alpha, prior.beta, confidence);
+  // Groups with the same counts add the same term: sum each distinct (s, n) once, times its count.
+  const distinct = new Map<string, { s: number; f: number; count: number }>();
+  for (const g of groups) {
+    const key = `${g.successes}/${g.trials}`;
+    const d = distinct.get(key);
+    if (d) d.count++;
+    else distinct.set(key, { s: g.successes, f: g.trials - g.successes, count: 1 });
+  }
+  const terms = [...distinct.values()];
   const loglik = (mu: number, logK: number) => {
     const k = Math.exp(logK);
     const a = mu * k;
     const b = (1 - mu) * k;
+    const prior = logBeta(a, b);
     let l = 0;
-    for (const g of groups) l += logBeta(a + g.successes, b + g.trials - g.successes) - logBeta(a, b);
+    for (const t of terms) l += t.count * (logBeta(a + t.s, b + t.f) - prior);
     return l;
   };
   const pooled = groups.reduce((s, g) => s + g.successes, 0) / groups.reduce((s, g) => s + g.trials, 0);
   let mu = Math.min(0.99, Math.max(0.01, pooled));
   let logK = Math.log(10);
   // Alternate golden-section searches on each coordinate; the likelihood is smooth and unimodal
-  // enough in each for this to settle in a few rounds.
+  // enough in each for this to settle in a few rounds. One new evaluation per step (the other
+  // interior point is kept), stopping once the bracket is below 1e-7; rounds stop when both settle.
   const golden = (f: (x: number) => number, lo: number, hi: number) => {
     const g = (Math.sqrt(5) - 1) / 2;
     let a = lo, b = hi, c = b - g * (b - a), d = a + g * (b - a);
-    for (let i = 0; i < 60; i++) {
-      if (f(c) > f(d)) b = d;
-      else a = c;
-      c = b - g * (b - a);
-      d = a + g * (b - a);
+    let fc = f(c), fd = f(d);
+    while (b - a > 1e-7) {
+      if (fc > fd) {
+        b = d; d = c; fd = fc;
+        c = b - g * (b - a); fc = f(c);
+      } else {
+        a = c; c = d; fc = fd;
+        d = a + g * (b - a); fd = f(d);
+      }
     }
     return (a + b) / 2;
   };
   for (let round = 0; round < 8; round++) {
+    const [m0, k0] = [mu, logK];
     mu = golden((m) => loglik(m, logK), 1e-4, 1 - 1e-4);
     logK = golden((k) => loglik(mu, k), Math.log(0.5), Math.log(1e5));
+    if (Math.abs(mu - m0) < 1e-6 && Math.abs(logK - k0) < 1e-5) break;
   }
   const k = Math.exp(logK);
-  const alpha = mu * k;
-  const beta = (1 - mu) * k;
+  return posteriors(groups, mu * k, (1 - mu) * k, confidence);
+}
+
+function posteriors(groups: Group[], alpha: number, beta: number, confidence: number): ShrinkResult {
   const tail = (1 - confidence) / 2;
+  const mu = alpha / (alpha + beta);
   return {
     prior: { alpha, beta, mean: mu },
     groups: groups.map((g) => {

@@ -1,28 +1,28 @@
 // "Which tool for my job and my air?": for each tool with a pressure fit, the pressure its rated
 // air use would get through the shopper's line, and the fitted success there. Pure.
 import { operatingInletPressure, type Line } from "~/air/supply";
-import { FITTING_LABELS, RATED_INLET_KPA, type Shank } from "~/domain";
-import { type CellFigures, predictAt } from "./cells";
+import { RATED_INLET_KPA, toolName } from "~/domain";
+import { type PooledCellFit, predictAt } from "./pressure";
 
 export interface ToolAtSupply {
   slug: string;
   fitting: string;
   ratedLps: number;
-  fit: CellFigures["fit"];
+  fit: PooledCellFit | null;
 }
 
 export interface Supply {
   regulatorKpa: number;
   line: Line;
   /** The hammer bits the shopper already owns, if any. */
-  bits: Shank | null;
+  bits: "shank-0.401" | "shank-0.498" | null;
 }
 
 export function atSupply(tool: ToolAtSupply, supply: Supply) {
   const point = operatingInletPressure(supply.regulatorKpa, tool.ratedLps, supply.line);
   const needs: string[] = [];
   if (supply.bits && tool.fitting.startsWith("shank-") && tool.fitting !== supply.bits) {
-    needs.push(`${FITTING_LABELS[tool.fitting]} bits (yours will not fit; never use a shank adapter)`);
+    needs.push(`${tool.fitting === "shank-0.498" ? "0.498" : "0.401"} in shank bits (yours will not fit; never use a shank adapter)`);
   }
   if (point.inletKpa < RATED_INLET_KPA - 1) needs.push("a bigger air supply or hose: it would run below its 90 psi rating");
   return {
@@ -32,3 +32,33 @@ export function atSupply(tool: ToolAtSupply, supply: Supply) {
     needs,
   };
 }
+
+/** The coupler profile assumed when the shopper does not say (the common shop coupler, common practice). */
+
+export interface RankableCell {
+  model_slug: string;
+  maker_name: string;
+  model_code: string;
+  fitting: string;
+  rated_air_lps: number;
+  street_price_cents: number | null;
+  weight_kg: number;
+  adj_reason: string | null;
+  fit: PooledCellFit | null;
+}
+
+/**
+ * "Which tool, on your air?": every tool on the job at the pressure its rated air use gets through
+ * the shopper's line, ordered by the lower bound of its fitted chance there (tools without a fit
+ * last, each saying why).
+ */
+export function rankAtSupply(cells: readonly RankableCell[], supply: Supply) {
+  return cells.map((m) => {
+    const r = atSupply({ slug: m.model_slug, fitting: m.fitting, ratedLps: m.rated_air_lps, fit: m.fit }, supply);
+    return {
+      slug: m.model_slug, label: toolName(m.maker_name, m.model_code), price: m.street_price_cents, weightKg: m.weight_kg,
+      inletKpa: r.inletKpa, predicted: r.predicted, reason: m.adj_reason, needs: r.needs,
+    };
+  }).sort((a, b) => (b.predicted?.lower ?? -1) - (a.predicted?.lower ?? -1) || a.slug.localeCompare(b.slug));
+}
+export type SupplyRow = ReturnType<typeof rankAtSupply>[number];

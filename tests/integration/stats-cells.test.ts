@@ -8,10 +8,10 @@ const db = testDb();
 afterAll(() => db.destroy());
 
 describe("stats cells", () => {
-  it("hold the same counts as a GROUP BY over accepted reports", async () => {
+  it("hold the same counts as a GROUP BY over accepted reports, less those set aside (issue 16 item 7)", async () => {
     const raw = await sql<{ m: number; j: number; n: number; s: number }>`
       select tool_model_id m, job_type_id j, count(*)::int n, (count(*) filter (where outcome = 'freed'))::int s
-      from reports where status = 'accepted' group by 1, 2 order by 1, 2`.execute(db);
+      from reports where status = 'accepted' and not flags @> array['above_rated_inlet'] group by 1, 2 order by 1, 2`.execute(db);
     const cells = await db.selectFrom("stats_cells").select(["tool_model_id as m", "job_type_id as j", "n", "successes as s"]).orderBy("m").orderBy("j").execute();
     // Other test files accept reports while this runs; compare the demo's cells, which they rarely touch.
     const key = (r: { m: number; j: number }) => `${r.m}:${r.j}`;
@@ -24,8 +24,13 @@ describe("stats cells", () => {
 
   it("are shown with their intervals on the job and model pages", async () => {
     const job = await (await new Browserish().get("/jobs/ball-joint-separation")).text();
-    expect(job).toMatch(/Ordered by the lower end of each 95 % interval/);
-    expect(job).toMatch(/with 95 % confidence \(Wilson score interval\)/);
+    // Issue 16: the order says its basis, and the method sits in the "How this is worked out" fold.
+    expect(job).toMatch(/Ordered by the lower end of each tool&#x27;s 95 % (interval at 90 psi inlet|success-rate interval)/);
+    expect(job).toMatch(/<summary[^>]*>How this is worked out<\/summary>/);
+    expect(job).toMatch(/95 % Wilson score interval at the effective sample size/);
+    expect(job).not.toMatch(/Where two ranges overlap/);
+    expect(job).toMatch(/\d+ accepted reports ran the tool above its rated inlet pressure/); // item 7: counted and said
+    expect(job).toMatch(/can&#x27;t be told apart from the top tool yet|behind the top tool/);
     const model = await (await new Browserish().get("/models/brackwater-bh-260l")).text();
     expect(model).toMatch(/Freed it in \d+ of \d+ reports; between \d+ % and \d+ %/);
   });
@@ -36,9 +41,17 @@ describe("stats cells", () => {
     const body = await ok.json();
     expect(body.lower).toBeLessThanOrEqual(body.estimate);
     expect(body.method).toBe("Wilson score");
+    expect(body.design_effect).toBeGreaterThanOrEqual(1);
     expect((await new Browserish().get("/api/stats/cell?model=Bad!&job=x")).status).toBe(400);
     expect((await new Browserish().get("/api/stats/cell?model=brackwater-bh-260l&job=lug-nut-breakaway")).status).toBe(404);
     expect((await new Browserish().get("/compare?job=ball-joint-separation&models=brackwater-bh-260l")).status).toBe(400);
+    // Without parameters: a chooser, not a 400 (issue 16).
+    const chooser = await new Browserish().get("/compare");
+    expect(chooser.status).toBe(200);
+    expect(await chooser.text()).toContain("Pick the job first");
+    const tools = await new Browserish().get("/compare?job=ball-joint-separation");
+    expect(tools.status).toBe(200);
+    expect(await tools.text()).toContain("Tick two to four tools");
   });
 });
 

@@ -1,0 +1,162 @@
+// The pressure-adjusted figures of one job type: ONE pooled logistic fit (an intercept per tool
+// model, a common slope on inlet pressure, Firth-penalised; docs/decisions/010), and each model's
+// figure at the rating point where its own reports reach it. Pure.
+import { zCritical } from "./distributions";
+import { pooledLogisticFit } from "./pooled-logistic";
+import type { Interval } from "./proportions";
+
+export const REFERENCE_INLET_KPA = 620.5; // 90 psi, the trade's rating point (common practice)
+/** Fewest reports with a known inlet pressure on a job for its pooled fit. */
+export const MIN_FIT_REPORTS = 20;
+const KPA_PER_PSI = 6.894757; // 1 psi = 6.894757 kPa (from the exact pound and inch)
+
+/** x of the fit: inlet bar gauge − 6.205, so an intercept is the model's logit at 90 psi. */
+export const pressureX = (kpa: number) => (kpa - REFERENCE_INLET_KPA) / 100;
+
+export interface FitReport {
+  model: number;
+  inletKpa: number;
+  freed: boolean;
+}
+
+/** A model's share of its job's pooled fit: all the browser needs to predict at any pressure. */
+export interface PooledCellFit {
+  intercept: number;
+  slope: number;
+  /** Arrowhead inverse of the information (pooledLogisticFit().inverse): d of the model, its r, and σ. */
+  d: number;
+  r: number;
+  sigma: number;
+  /** The model's reports with a known inlet pressure in the fit, and their pressures (10th, 90th percentile, range). */
+  n: number;
+  p10Kpa: number;
+  p90Kpa: number;
+  minKpa: number;
+  maxKpa: number;
+}
+
+export interface JobFit {
+  /** Inlet-measured reports in the fit and the models they cover. */
+  n: number;
+  models: number;
+  slope: number | null;
+  slopeSE: number | null;
+  converged: boolean;
+  /** Why the job has no fit, when it has none. */
+  reason: string | null;
+  perModel: Map<number, { fit: PooledCellFit | null; adjusted: Interval | null; reason: string }>;
+}
+
+/** Linear-interpolation quantile (type 7) of sorted values. */
+function quantile(sorted: readonly number[], p: number) {
+  const h = (sorted.length - 1) * p;
+  const lo = Math.floor(h);
+  const hi = Math.min(lo + 1, sorted.length - 1);
+  return sorted[lo]! + (h - lo) * (sorted[hi]! - sorted[lo]!);
+}
+
+const psi = (kpa: number) => Math.round(kpa / KPA_PER_PSI);
+
+/**
+ * One job's pooled fit from its reports with a known inlet pressure (already without the reports set aside),
+ * and each model's pressure-adjusted figure at 620.5 kPa. A model gets a figure only where 620.5 kPa
+ * lies between the 10th and 90th percentile of its own known inlet pressures on the job; the
+ * `reason` says why not otherwise (or how the figure was got).
+ * `models` lists every model with counted reports on the job, measured or not.
+ */
+export function jobPressureFit(reports: readonly FitReport[], models: readonly number[], confidence = 0.95): JobFit {
+  const perModel: JobFit["perModel"] = new Map();
+  const byModel = new Map<number, number[]>();
+  for (const r of reports) {
+    const list = byModel.get(r.model) ?? [];
+    list.push(r.inletKpa);
+    byModel.set(r.model, list);
+  }
+  const noFit = (reason: string): JobFit => {
+    for (const m of models) perModel.set(m, { fit: null, adjusted: null, reason });
+    return { n: reports.length, models: byModel.size, slope: null, slopeSE: null, converged: false, reason, perModel };
+  };
+  if (reports.length < MIN_FIT_REPORTS) {
+    return noFit(`Only ${reports.length} reports on this job have a known inlet pressure (measured at the inlet, or a regulator reading less the predicted line loss); the pressure fit needs ${MIN_FIT_REPORTS}.`);
+  }
+  const spread = [...byModel.values()].some((k) => Math.max(...k) - Math.min(...k) >= 1);
+  if (!spread) return noFit("No tool's reports with a known inlet pressure on this job differ in pressure; there is no pressure effect to fit.");
+  const fit = pooledLogisticFit(reports.map((r) => ({ group: r.model, x: pressureX(r.inletKpa), y: r.freed ? 1 : 0 })));
+  if (!fit.converged || !Number.isFinite(fit.slopeSE)) return noFit("The job's pressure fit did not settle; no pressure-adjusted figures.");
+  const z = zCritical(confidence);
+  const { d, r, sigma } = fit.inverse;
+  fit.groups.forEach((g, k) => {
+    const kpas = byModel.get(g.group as number)!;
+    perModel.set(g.group as number, modelFigure(g.intercept, fit.slope, d[k]!, r[k]!, sigma, kpas, z));
+  });
+  for (const m of models) {
+    if (!perModel.has(m)) perModel.set(m, { fit: null, adjusted: null, reason: "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers)." });
+  }
+  return { n: reports.length, models: byModel.size, slope: fit.slope, slopeSE: fit.slopeSE, converged: true, reason: null, perModel };
+}
+
+function modelFigure(intercept: number, slope: number, d: number, r: number, sigma: number, kpas: number[], z: number) {
+  kpas.sort((a, b) => a - b);
+  const cell: PooledCellFit = {
+    intercept, slope, d, r, sigma, n: kpas.length,
+    p10Kpa: quantile(kpas, 0.1), p90Kpa: quantile(kpas, 0.9), minKpa: kpas[0]!, maxKpa: kpas[kpas.length - 1]!,
+  };
+  const inside = cell.p10Kpa <= REFERENCE_INLET_KPA && REFERENCE_INLET_KPA <= cell.p90Kpa;
+  return {
+    fit: cell,
+    adjusted: inside ? predictWith(cell, REFERENCE_INLET_KPA, z) : null,
+    reason: inside
+      ? "From the job's pressure fit at 90 psi."
+      : cell.p10Kpa === cell.p90Kpa
+        ? `Its reports with a known inlet pressure on this job were all at ${psi(cell.p10Kpa)} psi; no figure at 90 psi.`
+        : `Its reports with a known inlet pressure on this job ran at ${psi(cell.p10Kpa)}–${psi(cell.p90Kpa)} psi (10th–90th percentile); 90 psi is outside, so no figure there.`,
+  };
+}
+
+/**
+ * After an accept, one model's share of its job's fit without refitting the job: its intercept by
+ * Firth-penalised Newton steps with the job's slope β and slope term σ held (the arrowhead form of
+ * pooledLogisticFit for one group: modified score Σ(y − p + h(½ − p)), hᵢ = wᵢ(1/d + (xᵢ − r)²/σ)),
+ * and its d, r there. The other models' figures and the slope wait for the job's next full refit.
+ */
+export function modelAtJobSlope(reports: readonly FitReport[], job: { slope: number; sigma: number }, confidence = 0.95) {
+  if (reports.length === 0) return { fit: null, adjusted: null, reason: "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers)." };
+  const x = reports.map((r) => pressureX(r.inletKpa));
+  const y = reports.map((r) => (r.freed ? 1 : 0));
+  const s = y.reduce((a: number, b) => a + b, 0);
+  let alpha = Math.log((s + 0.5) / (reports.length - s + 0.5));
+  let d = 0, r = 0;
+  for (let it = 0; it < 50; it++) {
+    d = 0; let c = 0;
+    const p = x.map((xi) => 1 / (1 + Math.exp(-(alpha + job.slope * xi))));
+    p.forEach((pi, i) => { const w = pi * (1 - pi); d += w; c += w * x[i]!; });
+    r = c / d;
+    let u = 0;
+    p.forEach((pi, i) => { const w = pi * (1 - pi); u += y[i]! - pi + w * (1 / d + (x[i]! - r) ** 2 / job.sigma) * (0.5 - pi); });
+    const step = Math.max(-5, Math.min(5, u / d));
+    alpha += step;
+    if (Math.abs(step) < 1e-8) break;
+  }
+  return modelFigure(alpha, job.slope, d, r, job.sigma, reports.map((q) => q.inletKpa), zFor(confidence));
+}
+
+function predictWith(fit: PooledCellFit, inletKpa: number, z: number): Interval {
+  const x = pressureX(inletKpa);
+  const eta = fit.intercept + fit.slope * x;
+  // Var(α + βx) in the arrowhead form: 1/d + (x − r)²/σ (pooled-logistic.ts).
+  const se = Math.sqrt(1 / fit.d + (x - fit.r) ** 2 / fit.sigma);
+  const expit = (e: number) => 1 / (1 + Math.exp(-e));
+  return { estimate: expit(eta), lower: expit(eta - z * se), upper: expit(eta + z * se) };
+}
+
+/**
+ * A model's predicted success at an inlet pressure from its stored share of the pooled fit (Wald on
+ * the logit scale), and whether that pressure is outside the 10th–90th percentile of its reports.
+ * Pure and small: the compare page runs it in the browser as the shopper moves the pressure.
+ */
+export function predictAt(fit: PooledCellFit, inletKpa: number, confidence = 0.95) {
+  return { ...predictWith(fit, inletKpa, zFor(confidence)), extrapolating: inletKpa < fit.p10Kpa || inletKpa > fit.p90Kpa };
+}
+
+// 1.959964 for 95 % (published normal quantile); other levels from the library.
+const zFor = (confidence: number) => (confidence === 0.95 ? 1.959963984540054 : zCritical(confidence));
