@@ -28,7 +28,8 @@ const house = {
 
 // What each layer may import (anything not listed is refused). Packages from node_modules are not checked.
 const LAYERS = {
-  // root.tsx, routes.ts, entry.server.tsx, security.server.ts: the shell React Router starts from.
+  // root.tsx, routes.ts, entry.server.tsx, security.server.ts: the shell React Router starts from;
+  // worker.server.ts: the worker's shell (scripts/worker.ts), which joins each queue to its feature's handler.
   entry: ["entry", "route", "component", "feature", "domain", "utils", "platform", "db"],
   route: ["component", "feature", "domain", "utils", "platform", "db"],
   // Components run in the browser too: no `db/`, no `*.server` module (checked below), no platform.
@@ -163,7 +164,7 @@ export default defineConfig(
       ],
       // Single files of app/ that form a layer of their own, and the server-only modules.
       "boundaries/files": [
-        { category: "entry", pattern: "app/{root.tsx,routes.ts,entry.server.tsx,security.server.ts}" },
+        { category: "entry", pattern: "app/{root.tsx,routes.ts,entry.server.tsx,security.server.ts,worker.server.ts}" },
         { category: "platform", pattern: "app/{config,db}.server.ts" },
         { category: "server", pattern: "**/*.server.{ts,tsx}" },
       ],

@@ -12,13 +12,13 @@ const provider: MigrationProvider = {
     const files = (await readdir(MIGRATIONS_DIR)).filter((f) => f.endsWith(".ts")).sort();
     const migrations: Record<string, Migration> = {};
     for (const file of files) {
-      migrations[file.replace(/\.ts$/, "")] = await import(pathToFileURL(path.join(MIGRATIONS_DIR, file)).href);
+      migrations[file.replace(/\.ts$/, "")] = (await import(pathToFileURL(path.join(MIGRATIONS_DIR, file)).href)) as Migration;
     }
     return migrations;
   },
 };
 
-export async function migrateToLatest(db: Kysely<any>): Promise<string[]> {
+export async function migrateToLatest<DB>(db: Kysely<DB>): Promise<string[]> {
   const { error, results = [] } = await new Migrator({ db, provider }).migrateToLatest();
   const failed = results.find((r) => r.status === "Error");
   if (error || failed) {

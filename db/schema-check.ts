@@ -12,7 +12,7 @@ import type { Database } from "./schema";
 type NotModelled = "feed_rate_limits";
 
 type NullableKeys<T> = { [K in keyof T]-?: null extends T[K] ? K : never }[keyof T];
-type OptionalKeys<T> = { [K in keyof T]-?: {} extends Pick<T, K> ? K : never }[keyof T];
+type OptionalKeys<T> = { [K in keyof T]-?: Record<never, never> extends Pick<T, K> ? K : never }[keyof T];
 
 /** `true`, or what differs for one table. */
 type Agrees<Hand, Made> = [

@@ -29,7 +29,7 @@ export function parseModelFilters(params: URLSearchParams): { filters: ModelFilt
     if (parsed.success) filters[key] = parsed.data;
     else ignored.push(key);
   }
-  return { filters: filters as ModelFilters, ignored };
+  return { filters, ignored };
 }
 
 export function filtersToSearch(f: ModelFilters): string {

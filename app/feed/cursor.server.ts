@@ -49,7 +49,7 @@ export async function decodeCursor(db: Db, cursor: string, filters: string): Pro
   } catch {
     throw invalid("cannot be read");
   }
-  const [v, afterMicros, afterId, asOfMicros, digest] = Array.isArray(parts) ? parts : [];
+  const [v, afterMicros, afterId, asOfMicros, digest] = Array.isArray(parts) ? (parts as unknown[]) : [];
   const micros = (x: unknown): x is string => typeof x === "string" && /^\d{1,18}$/.test(x);
   if (v !== 1 || !micros(afterMicros) || !Number.isSafeInteger(afterId) || !micros(asOfMicros) || typeof digest !== "string") throw invalid("cannot be read");
   if (digest !== filters) throw feedError(400, "cursor_mismatch", `"cursor" belongs to a walk with other filters; keep the filters of its first page.`, "cursor");

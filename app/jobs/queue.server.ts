@@ -77,7 +77,7 @@ export function queue(): Promise<PgBoss> {
 /** A pg-boss `db` option that runs its SQL through a Kysely transaction. */
 export function inTransaction(trx: Trx) {
   return {
-    executeSql: async (text: string, values: unknown[]) => ({ rows: (await trx.executeQuery(CompiledQuery.raw(text, values))).rows as unknown[] }),
+    executeSql: async (text: string, values: unknown[]) => ({ rows: (await trx.executeQuery(CompiledQuery.raw(text, values))).rows }),
   };
 }
 

@@ -62,7 +62,7 @@ const VERB: Record<string, string> = { accept: "accepted", return: "returned", r
 
 /** What each job was for, in the words of the people who would miss it. */
 async function describe(db: Db, jobs: JobRow[]): Promise<string[]> {
-  const num = (j: JobRow, key: string) => (typeof j.data?.[key] === "number" ? (j.data[key] as number) : null);
+  const num = (j: JobRow, key: string) => (typeof j.data?.[key] === "number" ? j.data[key] : null);
   const decisionIds = jobs.filter((j) => j.name === QUEUES.decisionMail).map((j) => num(j, "decisionId")).filter((n): n is number => n != null);
   const decisions = decisionIds.length
     ? await db.selectFrom("decisions as d").innerJoin("reports as r", "r.id", "d.report_id").innerJoin("users as u", "u.id", "r.reporter_id")

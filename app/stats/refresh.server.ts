@@ -4,7 +4,7 @@
 // recomputes everything, one job type at a time. Each read brings a cell's reports as arrays (one
 // row per cell, not per report), so a million reports cost little more than the rows themselves.
 import { type RawBuilder, sql } from "kysely";
-import type { Db, Trx } from "../../db/database";
+import type { Db } from "../../db/database";
 import { operatingInletPressure } from "~/air/supply";
 import type { CouplerProfile } from "~/domain";
 import { type CellFigures, type CellReport, cellFigures } from "./cells";
@@ -108,9 +108,9 @@ async function upsertCells(db: Db, rows: (Row & Record<string, unknown>)[]) {
   if (rows.length === 0) return;
   const columns = Object.keys(rows[0]!).filter((c) => c !== "tool_model_id" && c !== "job_type_id");
   for (let i = 0; i < rows.length; i += 500) {
-    await db.insertInto("stats_cells").values(rows.slice(i, i + 500) as never)
+    await db.insertInto("stats_cells").values(rows.slice(i, i + 500))
       .onConflict((oc) => oc.columns(["tool_model_id", "job_type_id"])
-        .doUpdateSet(Object.fromEntries(columns.map((c) => [c, sql.ref(`excluded.${c}`)])) as never))
+        .doUpdateSet(Object.fromEntries(columns.map((c) => [c, sql.ref(`excluded.${c}`)]))))
       .execute();
   }
 }

@@ -1,8 +1,7 @@
 // The one rule that orders a job's tools and says which can be told apart from the first. The job
 // page, the compare page and the feed all call it, so they can never disagree. Pure.
-import { probabilityGreater } from "./proportions";
+import { type Interval, probabilityGreater } from "./proportions";
 import { distinguishable } from "./clustered";
-import type { Interval } from "./proportions";
 
 export const FEW_REPORTS = 10;
 

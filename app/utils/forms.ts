@@ -58,7 +58,7 @@ export async function readJson(request: Request): Promise<unknown> {
 export function parseForm<S extends z.ZodType>(schema: S, formData: FormData) {
   const values = formValues(formData);
   const parsed = schema.safeParse(values);
-  if (parsed.success) return { ok: true as const, data: parsed.data as z.output<S>, values };
+  if (parsed.success) return { ok: true as const, data: parsed.data, values };
   return { ok: false as const, errors: z.flattenError(parsed.error).fieldErrors as FieldErrors, values };
 }
 

@@ -15,7 +15,7 @@ const DEMO = sql<boolean>`r.created_at < '2026-11-21' and r.submitted_at > '2025
 async function rolledBack(work: (trx: typeof db) => Promise<unknown>): Promise<Error | null> {
   try {
     await db.transaction().execute(async (trx) => {
-      await work(trx as unknown as typeof db);
+      await work(trx);
       throw new Error("rollback");
     });
   } catch (error) {

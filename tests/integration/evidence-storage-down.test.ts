@@ -13,12 +13,13 @@ import { signedInAs, type Browserish } from "../support/http";
 import { complete, newDraft, presign } from "../support/evidence";
 import { freePort } from "../support/system";
 import type * as CompleteRoute from "../../app/routes/api.evidence.$id.complete";
+import type * as SessionModule from "../../app/auth/session.server";
 
 const db = testDb();
 const dir = mkdtempSync(path.join(tmpdir(), "bayproof-stopped-store-"));
 let owner: Browserish;
 let route: typeof CompleteRoute;
-let withSessions: typeof import("../../app/auth/session.server").withSessions;
+let withSessions: typeof SessionModule.withSessions;
 let appPool: { end(): Promise<void> };
 
 beforeAll(async () => {
