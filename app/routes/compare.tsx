@@ -10,6 +10,7 @@ import { getJobBySlug, listJobs } from "~/catalogue/queries.server";
 import { compareOnJob } from "~/stats/cells.server";
 import { readCompareQuery } from "~/stats/compare-query";
 import { invariantResponse } from "~/utils/http";
+import { buttonClass } from "~/components/ui";
 import type { Route } from "./+types/compare";
 
 // No job: a chooser of jobs. A job and fewer than two usable tools: a chooser of its tools (400 when
@@ -77,7 +78,7 @@ function Comparison({ job, tools, pairs, topLabel, psi: initialPsi }: Comparison
               {[...new Set([70, 80, 90, 100, 110, initialPsi])].sort((a, b) => a - b).map((v) => <option key={v} value={v}>{v}</option>)}
             </select>
           </label>
-          <noscript><button type="submit" className="rounded bg-bay-700 px-3 py-2 text-white">Show</button></noscript>
+          <noscript><button type="submit" className={buttonClass("primary", "sm")}>Show</button></noscript>
         </Form>
         <AtPressureTable tools={tools} psi={psi} />
         <PressureCurves tools={tools} psi={psi} />

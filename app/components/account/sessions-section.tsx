@@ -1,12 +1,13 @@
 import { Form } from "react-router";
 import { formatDate } from "~/domain";
+import { buttonClass, Card } from "~/components/ui";
 
 interface Session { ref: string; current: boolean; createdAt: Date | string; lastSeenAt: Date | string; userAgent: string | null; method: string }
 
 /** Where the user is signed in, with a sign-out for each other device and for all of them. */
 export function SessionsSection({ sessions }: { sessions: Session[] }) {
   return (
-    <section className="rounded-lg border border-stone-200 bg-white p-4" aria-labelledby="sessions-heading">
+    <Card as="section" aria-labelledby="sessions-heading">
       <h2 id="sessions-heading" className="mb-2 text-lg font-semibold">Where you are signed in</h2>
       <p className="mb-3 text-sm text-stone-600">A session ends after 14 days without use, and after 60 days in any case.</p>
       <ul className="divide-y divide-stone-100">
@@ -20,7 +21,7 @@ export function SessionsSection({ sessions }: { sessions: Session[] }) {
               <Form method="post">
                 <input type="hidden" name="intent" value="end-session" />
                 <input type="hidden" name="ref" value={s.ref} />
-                <button type="submit" className="rounded border border-stone-300 px-3 py-2">Sign out</button>
+                <button type="submit" className={buttonClass("plain", "sm")}>Sign out</button>
               </Form>
             )}
           </li>
@@ -29,10 +30,10 @@ export function SessionsSection({ sessions }: { sessions: Session[] }) {
       {sessions.length > 1 && (
         <Form method="post" className="mt-3">
           <input type="hidden" name="intent" value="end-other-sessions" />
-          <button type="submit" className="rounded border border-stone-300 px-3 py-2 text-sm">Sign out everywhere else</button>
+          <button type="submit" className={buttonClass("plain", "sm")}>Sign out everywhere else</button>
         </Form>
       )}
-    </section>
+    </Card>
   );
 }
 

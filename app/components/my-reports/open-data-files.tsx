@@ -1,4 +1,5 @@
 import { Form } from "react-router";
+import { buttonClass } from "~/components/ui";
 
 /** Publishing a report's files with the open data after it left the form (a plain form each). */
 export function OpenDataFiles({ files }: { files: { id: number; kind: string; is_public: boolean }[] }) {
@@ -13,7 +14,7 @@ export function OpenDataFiles({ files }: { files: { id: number; kind: string; is
             <Form method="post">
               <input type="hidden" name="evidenceId" value={f.id} />
               <input type="hidden" name="publish" value={f.is_public ? "no" : "yes"} />
-              <button type="submit" name="intent" value="publish-evidence" className="rounded border border-stone-400 px-2 py-1">
+              <button type="submit" name="intent" value="publish-evidence" className={buttonClass("plain", "sm")}>
                 {f.is_public ? "Take it out of the open data" : "Publish with the open data"}
               </button>
             </Form>
