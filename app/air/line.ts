@@ -34,7 +34,7 @@ export type Segment =
   | { kind: "regulator"; setKpa: number }
   | { kind: "hose"; idMm: number; lengthM: number; label?: string }
   /** `count` pairs in a row, each solved at its own inlet; throat and length override the profile's. */
-  | { kind: "coupler"; profile: CouplerProfile; count?: number; throatMm?: number; equivalentLengthM?: number };
+  | { kind: "coupler"; profile: CouplerProfile; count?: number; throatMm?: number; equivalentLengthM?: number; label?: string };
 
 export interface SegmentPressure {
   kind: Segment["kind"];
@@ -67,7 +67,7 @@ export function boreOutletAbsBar(inletAbsBar: number, flowLps: number, lengthM: 
 
 function label(s: Segment, i: number, all: Segment[]): string {
   if (s.kind === "regulator") return "Regulator";
-  if (s.kind === "coupler") return (s.count ?? 1) > 1 ? `${s.count} couplers` : "Coupler and plug";
+  if (s.kind === "coupler") return s.label ?? ((s.count ?? 1) > 1 ? `${s.count} couplers` : "Coupler and plug");
   if (s.label) return s.label;
   const lastHose = all.findLastIndex((x) => x.kind === "hose");
   const hoses = all.filter((x) => x.kind === "hose").length;
