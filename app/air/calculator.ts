@@ -57,7 +57,7 @@ export function editedValues(previous: TypedValues, next: TypedValues): TypedVal
 /** Parse the typed values, then analyse the air. */
 export function evaluateCalculator(values: TypedValues, tools: CalculatorTool[]): CalculatorOutcome {
   const parsed = calculatorSchema.safeParse(values);
-  if (!parsed.success) return { ok: false, errors: z.flattenError(parsed.error).fieldErrors as FieldErrors };
+  if (!parsed.success) return { ok: false, errors: z.flattenError(parsed.error).fieldErrors };
   const tool = parsed.data.tool ? tools.find((t) => t.slug === parsed.data.tool) : null;
   if (parsed.data.tool && !tool) return { ok: false, errors: { tool: ["No such tool in the catalogue"] } };
   const input = toAirInput(parsed.data, tool ? toolAir(tool) : null);

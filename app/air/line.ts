@@ -7,8 +7,7 @@
 // integrated along the hose with q the free-air flow (the same all along: mass is conserved):
 //   p₂² = p₁² − 2 · K · q^1.85 · l / d⁵   (absolute pressure; isothermal).
 // For a small drop it reduces to the linear form Δp = K · q^1.85 · l / (d⁵ · p₁) of app/air/hose.ts.
-import type { CouplerProfile } from "~/domain";
-import { ATMOSPHERE_KPA, RATED_INLET_KPA } from "~/domain";
+import { ATMOSPHERE_KPA, type CouplerProfile, RATED_INLET_KPA } from "~/domain";
 
 /** The pipe formula's constant, as in app/air/hose.ts (Atlas Copco Compressed Air Manual, from memory). */
 export const LINE_LOSS_K = 450;
