@@ -45,10 +45,18 @@ export function supplyForInlet(targetKpa: number, line: ShopLine, tool: ToolAir)
   return hi;
 }
 
-export function analyseAir({ supplyKpa, tool, line, tank, compressorLps, ratingKpa = RATED_INLET_KPA }: AirInput): AirAnalysis {
+export function analyseAir({
+  supplyKpa,
+  tool,
+  line,
+  tank,
+  compressorLps,
+  ratingKpa = RATED_INLET_KPA,
+}: AirInput): AirAnalysis {
   const segments = shopLineSegments(supplyKpa, line);
   const point = operatingPoint(supplyKpa, segments, tool);
-  const sum = (kind: SegmentPressure["kind"]) => point.line.segments.filter((s) => s.kind === kind).reduce((a, s) => a + s.dropKpa, 0);
+  const sum = (kind: SegmentPressure["kind"]) =>
+    point.line.segments.filter((s) => s.kind === kind).reduce((a, s) => a + s.dropKpa, 0);
   const hose = sum("hose");
   const couplers = sum("coupler");
   const belowRating = point.inletKpa < ratingKpa - 1e-6;
@@ -65,7 +73,12 @@ export function analyseAir({ supplyKpa, tool, line, tank, compressorLps, ratingK
 }
 
 /** Inlet pressure against hose length for one bore, at the tool's running air use: the points of the bore chart. */
-export function inletAlongLengths(supplyKpa: number, tool: ToolAir, line: Omit<ShopLine, "hoseLengthM">, lengthsM: number[]) {
+export function inletAlongLengths(
+  supplyKpa: number,
+  tool: ToolAir,
+  line: Omit<ShopLine, "hoseLengthM">,
+  lengthsM: number[],
+) {
   return lengthsM.map((hoseLengthM) => ({
     hoseLengthM,
     inletKpa: operatingPoint(supplyKpa, shopLineSegments(supplyKpa, { ...line, hoseLengthM }), tool).inletKpa,

@@ -18,7 +18,11 @@ export interface ShopLine {
  * is its own segment, so each is solved at the pressure where it sits.
  */
 export function shopLineSegments(regulatorKpa: number, line: ShopLine): Segment[] {
-  const coupler = (n: number, where: string): Segment => ({ kind: "coupler", profile: line.couplerProfile, label: `Coupler ${n} (${where})` });
+  const coupler = (n: number, where: string): Segment => ({
+    kind: "coupler",
+    profile: line.couplerProfile,
+    label: `Coupler ${n} (${where})`,
+  });
   const out: Segment[] = [{ kind: "regulator", setKpa: regulatorKpa }];
   let n = 0;
   if (line.couplerCount > 1) out.push(coupler(++n, "at the regulator"));

@@ -8,8 +8,11 @@ import { formatPressure, kpaTo, type PressureUnit } from "~/domain";
 const W = 330;
 const ROW = 46;
 const TOP = 8;
-const AXIS = 30;
+const AXIS = 42;
 const FILL = { entered: "#57534e", hose: "#d97706", coupler: "#dc2626", inlet: "#2f6b5f" } as const;
+
+/** A white outline under row text, so the rating line behind it never cuts a figure. */
+const HALO = { stroke: "white", strokeWidth: 4, paintOrder: "stroke", strokeLinejoin: "round" } as const;
 
 interface Row {
   label: string;
@@ -20,8 +23,18 @@ interface Row {
   estimate: boolean;
 }
 
-export function LineWaterfall({ supplyKpa, segments, inletKpa, ratingKpa, pressureUnit }: {
-  supplyKpa: number; segments: SegmentPressure[]; inletKpa: number; ratingKpa: number; pressureUnit: PressureUnit;
+export function LineWaterfall({
+  supplyKpa,
+  segments,
+  inletKpa,
+  ratingKpa,
+  pressureUnit,
+}: {
+  supplyKpa: number;
+  segments: SegmentPressure[];
+  inletKpa: number;
+  ratingKpa: number;
+  pressureUnit: PressureUnit;
 }) {
   const p = (kpa: number) => formatPressure(kpa, pressureUnit);
   const rows: Row[] = [
@@ -29,17 +42,24 @@ export function LineWaterfall({ supplyKpa, segments, inletKpa, ratingKpa, pressu
     ...segments
       .filter((s) => s.kind !== "regulator")
       .map((s) => ({
-        label: s.label, from: s.outletKpa, to: s.inletKpa, text: `−${p(s.dropKpa)} → ${p(s.outletKpa)}`,
-        fill: s.kind === "coupler" ? FILL.coupler : FILL.hose, estimate: true,
+        label: s.label,
+        from: s.outletKpa,
+        to: s.inletKpa,
+        text: `−${p(s.dropKpa)} → ${p(s.outletKpa)}`,
+        fill: s.kind === "coupler" ? FILL.coupler : FILL.hose,
+        estimate: true,
       })),
     { label: "At the tool inlet", from: 0, to: inletKpa, text: p(inletKpa), fill: FILL.inlet, estimate: true },
   ];
   // Zoomed on the band where the pressure goes; the axis says where it starts.
   const low = Math.min(inletKpa, ratingKpa);
   const x = scaleLinear()
-    .domain([kpaTo(Math.max(0, low - 0.25 * Math.max(supplyKpa - low, 0.1 * supplyKpa)), pressureUnit), kpaTo(Math.max(supplyKpa, ratingKpa), pressureUnit)])
+    .domain([
+      kpaTo(Math.max(0, low - 0.25 * Math.max(supplyKpa - low, 0.1 * supplyKpa)), pressureUnit),
+      kpaTo(Math.max(supplyKpa, ratingKpa), pressureUnit),
+    ])
     .nice()
-    .range([4, W - 4]);
+    .range([14, W - 14]);
   const [d0] = x.domain();
   const toX = (kpa: number) => x(Math.max(d0!, kpaTo(kpa, pressureUnit)));
   const H = TOP + rows.length * ROW + AXIS;
@@ -48,7 +68,13 @@ export function LineWaterfall({ supplyKpa, segments, inletKpa, ratingKpa, pressu
   return (
     <figure className="rounded-lg border border-stone-200 bg-white p-3">
       <p className="mb-1 text-sm font-semibold text-stone-800">Pressure along your line while the tool runs</p>
-      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="waterfall-title waterfall-desc" className="h-auto w-full max-w-md" data-testid="line-waterfall">
+      <svg
+        viewBox={`0 0 ${W} ${H}`}
+        role="img"
+        aria-labelledby="waterfall-title waterfall-desc"
+        className="h-auto w-full max-w-md"
+        data-testid="line-waterfall"
+      >
         <title id="waterfall-title">Pressure from the regulator to the tool inlet, segment by segment</title>
         <desc id="waterfall-desc">{summary}</desc>
         <defs>
@@ -60,18 +86,43 @@ export function LineWaterfall({ supplyKpa, segments, inletKpa, ratingKpa, pressu
         {x.ticks(4).map((t) => (
           <g key={t}>
             <line x1={x(t)} x2={x(t)} y1={TOP} y2={H - AXIS + 4} stroke="#e7e5e4" />
-            <text x={x(t)} y={H - AXIS + 18} textAnchor="middle" fontSize="12" fill="#57534e">{t}</text>
+            <text x={x(t)} y={H - AXIS + 20} textAnchor="middle" fontSize="12" fill="#57534e">
+              {t}
+            </text>
           </g>
         ))}
-        <text x={W / 2} y={H - 2} textAnchor="middle" fontSize="12" fill="#44403c">{pressureUnit}, gauge (scale starts at {d0})</text>
+        <text x={W / 2} y={H - 4} textAnchor="middle" fontSize="12" fill="#44403c">
+          {pressureUnit}, gauge (scale starts at {d0})
+        </text>
+        <line
+          x1={toX(ratingKpa)}
+          x2={toX(ratingKpa)}
+          y1={TOP}
+          y2={H - AXIS + 4}
+          stroke="#b91c1c"
+          strokeWidth={1.5}
+          strokeDasharray="5 3"
+        />
         {rows.map((r, i) => {
           const y = TOP + i * ROW;
           const left = toX(r.from);
           const width = Math.max(1.5, toX(r.to) - left);
           return (
             <g key={`${r.label}-${i}`}>
-              <text x={4} y={y + 13} fontSize="13" fill="#1c1917">{r.label}</text>
-              <text x={W - 4} y={y + 13} fontSize="13" textAnchor="end" fill="#1c1917" fontWeight={i === rows.length - 1 ? 700 : 400}>{r.text}</text>
+              <text x={4} y={y + 13} fontSize="13" fill="#1c1917" {...HALO}>
+                {r.label}
+              </text>
+              <text
+                x={W - 4}
+                y={y + 13}
+                fontSize="13"
+                textAnchor="end"
+                fill="#1c1917"
+                {...HALO}
+                fontWeight={i === rows.length - 1 ? 700 : 400}
+              >
+                {r.text}
+              </text>
               <rect x={left} y={y + 19} width={width} height={16} fill={r.fill} rx={2} />
               {r.estimate && <rect x={left} y={y + 19} width={width} height={16} fill="url(#estimate-hatch)" rx={2} />}
               {i > 0 && i < rows.length - 1 && (
@@ -80,19 +131,27 @@ export function LineWaterfall({ supplyKpa, segments, inletKpa, ratingKpa, pressu
             </g>
           );
         })}
-        <line x1={toX(ratingKpa)} x2={toX(ratingKpa)} y1={TOP} y2={H - AXIS + 4} stroke="#b91c1c" strokeWidth={1.5} strokeDasharray="5 3" />
       </svg>
       <figcaption className="mt-2 space-y-1 text-xs text-stone-700">
         <span className="flex flex-wrap gap-x-4 gap-y-1">
           <Swatch fill={FILL.entered}>as you entered it</Swatch>
-          <Swatch fill={FILL.hose} hatched>hose loss (estimate)</Swatch>
-          <Swatch fill={FILL.coupler} hatched>coupler loss (estimate)</Swatch>
-          <Swatch fill={FILL.inlet} hatched>left at the inlet (estimate)</Swatch>
-          <span className="flex items-center gap-1"><span aria-hidden className="inline-block h-3 w-0 border-l-2 border-dashed border-red-700" /> tool rating, {p(ratingKpa)}</span>
+          <Swatch fill={FILL.hose} hatched>
+            hose loss (estimate)
+          </Swatch>
+          <Swatch fill={FILL.coupler} hatched>
+            coupler loss (estimate)
+          </Swatch>
+          <Swatch fill={FILL.inlet} hatched>
+            left at the inlet (estimate)
+          </Swatch>
+          <span className="flex items-center gap-1">
+            <span aria-hidden className="inline-block h-3 w-0 border-l-2 border-dashed border-red-700" /> tool rating,{" "}
+            {p(ratingKpa)}
+          </span>
         </span>
         <span className="block">
-          Striped bars are estimates from the line model, not readings: each segment is worked out at the pressure where it sits, at the air
-          the tool draws while running.
+          Striped bars are estimates from the line model, not readings: each segment is worked out at the pressure where
+          it sits, at the air the tool draws while running.
         </span>
       </figcaption>
     </figure>
@@ -103,7 +162,11 @@ function Swatch({ fill, hatched = false, children }: { fill: string; hatched?: b
   const stripes = "repeating-linear-gradient(45deg, rgba(255,255,255,0.55) 0 2px, transparent 2px 6px)";
   return (
     <span className="flex items-center gap-1">
-      <span aria-hidden className="inline-block h-3 w-4 rounded-sm" style={{ background: hatched ? `${stripes}, ${fill}` : fill }} />
+      <span
+        aria-hidden
+        className="inline-block h-3 w-4 rounded-sm"
+        style={{ background: hatched ? `${stripes}, ${fill}` : fill }}
+      />
       {children}
     </span>
   );
