@@ -61,7 +61,9 @@ export function CalculatorResults({ input, result, toolFrom, pressureUnit, metri
           note={
             tank.ending === "inlet_below_minimum"
               ? `From a full tank at cut-out; tank at ${p(tank.floorTankKpa)} when it sags. Assumes the ${TANK_NOTE}.`
-              : `Assumes the ${TANK_NOTE}.`
+              : tank.ending === "compressor_keeps_up" && result.compressorShort
+                ? `The compressor falls a little short at full pressure, so the tank drains until the inlet nears the rating; there the tool draws less and the compressor keeps up. Assumes the ${TANK_NOTE}.`
+                : `Assumes the ${TANK_NOTE}.`
           }
         />
       </dl>
