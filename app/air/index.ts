@@ -5,3 +5,5 @@ export {
   type LineResult, type OperatingPoint, type RunningAir, type RunningAirSource, type Segment, type SegmentPressure, type ToolAir,
 } from "./line";
 export { TANK_RUN_ASSUMPTIONS, tankRunTime, type CompressorSpec, type TankRunOptions, type TankRunResult, type TankSpec } from "./tank";
+export { type ShopLine, shopLineSegments } from "./shop-line";
+export { type AirAnalysis, type AirInput, analyseAir, supplyForInlet } from "./analysis";

@@ -7,8 +7,7 @@
 // integrated along the hose with q the free-air flow (the same all along: mass is conserved):
 //   p₂² = p₁² − 2 · K · q^1.85 · l / d⁵   (absolute pressure; isothermal).
 // For a small drop it reduces to the linear form Δp = K · q^1.85 · l / (d⁵ · p₁) of app/air/hose.ts.
-import type { CouplerProfile } from "~/domain";
-import { ATMOSPHERE_KPA, RATED_INLET_KPA } from "~/domain";
+import { ATMOSPHERE_KPA, type CouplerProfile, RATED_INLET_KPA } from "~/domain";
 
 /** The pipe formula's constant, as in app/air/hose.ts (Atlas Copco Compressed Air Manual, from memory). */
 export const LINE_LOSS_K = 450;
@@ -34,7 +33,7 @@ export type Segment =
   | { kind: "regulator"; setKpa: number }
   | { kind: "hose"; idMm: number; lengthM: number; label?: string }
   /** `count` pairs in a row, each solved at its own inlet; throat and length override the profile's. */
-  | { kind: "coupler"; profile: CouplerProfile; count?: number; throatMm?: number; equivalentLengthM?: number };
+  | { kind: "coupler"; profile: CouplerProfile; count?: number; throatMm?: number; equivalentLengthM?: number; label?: string };
 
 export interface SegmentPressure {
   kind: Segment["kind"];
@@ -67,7 +66,7 @@ export function boreOutletAbsBar(inletAbsBar: number, flowLps: number, lengthM: 
 
 function label(s: Segment, i: number, all: Segment[]): string {
   if (s.kind === "regulator") return "Regulator";
-  if (s.kind === "coupler") return (s.count ?? 1) > 1 ? `${s.count} couplers` : "Coupler and plug";
+  if (s.kind === "coupler") return s.label ?? ((s.count ?? 1) > 1 ? `${s.count} couplers` : "Coupler and plug");
   if (s.label) return s.label;
   const lastHose = all.findLastIndex((x) => x.kind === "hose");
   const hoses = all.filter((x) => x.kind === "hose").length;

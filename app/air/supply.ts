@@ -1,7 +1,8 @@
-// What reaches the tool: the operating inlet pressure where supply minus line loss balances the
-// tool's demand, and how long a receiver tank holds the tool at its rating. Pure functions; all
-// pressures in kPa gauge unless named abs, flows in l/s of free air, volumes in litres.
-import { ATMOSPHERE_KPA, type CouplerProfile, RANGES, RATED_INLET_KPA, inRange } from "~/domain";
+// The first-edition line model, kept for one user: the stats refresh corrects regulator readings
+// with it (app/stats/refresh.server.ts, docs/decisions/010), at the tool's rated air use, the line
+// linearised at the supply pressure. The pages use the second edition (line.ts, tank.ts). Pure;
+// pressures in kPa gauge unless named abs, flows in l/s of free air.
+import { ATMOSPHERE_KPA, type CouplerProfile, RANGES, inRange } from "~/domain";
 import { couplerPressureDropBar } from "./couplers";
 import { airDemandLps } from "./demand";
 import { hosePressureDropBar } from "./hose";
@@ -61,83 +62,4 @@ export function operatingInletPressure(supplyKpa: number, ratedLps: number, line
   const inletKpa = (lo + hi) / 2;
   const demandLps = airDemandLps(ratedLps, inletKpa);
   return { inletKpa, demandLps, loss: lineLossKpa(supplyKpa, demandLps, line), stalled: false, converged: hi - lo <= 1e-6, iterations };
-}
-
-/** The supply pressure that puts `targetInletKpa` at the tool: target + loss at the demand there. */
-export function supplyNeededKpa(targetInletKpa: number, ratedLps: number, line: Line): number {
-  const demand = airDemandLps(ratedLps, targetInletKpa);
-  // The loss depends on the supply pressure itself; a few fixed-point steps settle it.
-  let supply = targetInletKpa;
-  for (let i = 0; i < 50; i++) supply = targetInletKpa + lineLossKpa(supply, demand, line).total;
-  return supply;
-}
-
-export interface Tank {
-  volumeL: number;
-  cutOutKpa: number;
-  cutInKpa: number;
-  compressorLps: number;
-}
-
-/**
- * Seconds a receiver feeds a demand before its pressure falls to `floorKpa`, isothermal:
- * free air released = V·Δp / p_atm (common practice receiver formula). From cut-out the
- * compressor is off and the tank drains at the full demand; below cut-in it runs and the tank
- * drains at demand − delivery. Infinity when the compressor keeps up below cut-in.
- */
-export function tankRunTimeS(tank: Tank, demandLps: number, floorKpa: number): number {
-  if (!(tank.volumeL > 0)) throw new RangeError("tank volume must be more than 0 l");
-  if (!(tank.cutOutKpa > tank.cutInKpa) || tank.cutInKpa < 0) throw new RangeError("cut-out pressure must be above cut-in, both zero or more");
-  if (!(tank.compressorLps >= 0)) throw new RangeError("compressor delivery must be zero or more l/s");
-  if (!(demandLps > 0)) throw new RangeError("demand must be more than 0 l/s");
-  if (floorKpa >= tank.cutOutKpa) return 0;
-  const freeAir = (fromKpa: number, toKpa: number) => (tank.volumeL * Math.max(0, fromKpa - toKpa)) / ATMOSPHERE_KPA;
-  const first = freeAir(tank.cutOutKpa, Math.max(tank.cutInKpa, floorKpa)) / demandLps;
-  if (floorKpa >= tank.cutInKpa) return first;
-  const net = demandLps - tank.compressorLps;
-  if (net <= 0) return Infinity;
-  return first + freeAir(tank.cutInKpa, floorKpa) / net;
-}
-
-export interface SupplyInput {
-  supplyKpa: number;
-  ratedLps: number;
-  line: Line;
-  tank: Tank;
-  ratingKpa?: number;
-}
-
-export interface SupplyAnalysis extends OperatingPoint {
-  ratingKpa: number;
-  belowRating: boolean;
-  compressorShort: boolean;
-  supplyNeededKpa: number;
-  /** Seconds at or above the rating, from a full tank; 0 when below rating from the start. */
-  runTimeS: number;
-}
-
-/** The whole picture the /air page shows, from one set of SI inputs. */
-export function analyseSupply({ supplyKpa, ratedLps, line, tank, ratingKpa = RATED_INLET_KPA }: SupplyInput): SupplyAnalysis {
-  const point = operatingInletPressure(supplyKpa, ratedLps, line);
-  const needed = supplyNeededKpa(ratingKpa, ratedLps, line);
-  const belowRating = point.inletKpa < ratingKpa - 1e-6;
-  // While the tank is above the regulator setting the regulator holds it; the inlet falls below the
-  // rating once the tank drops under what the line needs for the rating.
-  const runTimeS = belowRating ? 0 : tankRunTimeS(tank, airDemandLps(ratedLps, ratingKpa), needed);
-  return {
-    ...point,
-    ratingKpa,
-    belowRating,
-    compressorShort: tank.compressorLps < point.demandLps,
-    supplyNeededKpa: needed,
-    runTimeS,
-  };
-}
-
-/** Inlet pressure against hose length for one bore: the points of the page's chart. */
-export function inletAlongLengths(supplyKpa: number, ratedLps: number, line: Omit<Line, "hoseLengthM">, lengthsM: number[]) {
-  return lengthsM.map((hoseLengthM) => ({
-    hoseLengthM,
-    inletKpa: operatingInletPressure(supplyKpa, ratedLps, { ...line, hoseLengthM }).inletKpa,
-  }));
 }

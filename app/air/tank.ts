@@ -54,7 +54,12 @@ export function tankRunTime(tank: TankSpec, compressor: CompressorSpec, line: Se
   if (!(tank.cutOutKpa > tank.cutInKpa) || tank.cutInKpa < 0 || tank.cutOutKpa > 2000) throw new RangeError("cut-out must be above cut-in, both 0–2,000 kPa");
   if (!(compressor.deliveryLps >= 0)) throw new RangeError("compressor delivery must be zero or more l/s");
   const minInletKpa = options.minInletKpa ?? RATED_INLET_KPA;
-  const point = (tankKpa: number) => operatingPoint(tankKpa, line, tool);
+  // While the tank is above a leading regulator's setting the regulator holds its outlet, so the
+  // operating point is the same one: solve it once (most of a run from cut-out is spent there).
+  const first = line[0];
+  const heldKpa = first?.kind === "regulator" ? first.setKpa : Infinity;
+  let held: ReturnType<typeof operatingPoint> | null = null;
+  const point = (tankKpa: number) => (tankKpa >= heldKpa ? (held ??= operatingPoint(heldKpa, line, tool)) : operatingPoint(tankKpa, line, tool));
   const start = point(tank.cutOutKpa);
   const base = { minInletKpa, startInletKpa: start.inletKpa, assumptions: TANK_RUN_ASSUMPTIONS };
   if (start.inletKpa < minInletKpa - SOLVER_SLACK_KPA) {

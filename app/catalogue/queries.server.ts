@@ -10,7 +10,8 @@ export function modelsBase(db: Db) {
     .innerJoin("tool_categories as c", "c.id", "m.category_id")
     .select([
       "m.id", "m.slug", "m.model_code", "m.name", "m.fitting", "m.weight_kg", "m.length_mm",
-      "m.street_price_cents", "m.rated_air_lps", "mk.name as maker_name", "mk.slug as maker_slug",
+      "m.street_price_cents", "m.rated_air_lps", "m.running_air_lps", "m.running_air_source", "m.running_air_factor",
+      "mk.name as maker_name", "mk.slug as maker_slug",
       "c.name as category_name", "c.slug as category_slug",
     ]);
 }

@@ -1,29 +1,30 @@
 import { scaleLinear } from "d3-scale";
 import { line } from "d3-shape";
-import { inletAlongLengths } from "~/air/supply";
-import { type CouplerProfile, ftToM, HOSE_BORES, inToMm, kpaTo, mToFt, type PressureUnit } from "~/domain";
+import { inletAlongLengths } from "~/air/analysis";
+import type { ToolAir } from "~/air/line";
+import type { ShopLine } from "~/air/shop-line";
+import { ftToM, HOSE_BORES, inToMm, kpaTo, mToFt, type PressureUnit } from "~/domain";
 
 const COLOURS = ["#b45309", "#2f6b5f", "#1d4ed8", "#7c3aed"];
 const LABELS = HOSE_BORES.map((b) => `${b.inText} in`);
 
 interface Props {
   supplyKpa: number;
-  ratedLps: number;
-  couplerProfile: CouplerProfile;
-  couplerCount: number;
+  tool: ToolAir;
+  line: ShopLine;
   ratingKpa: number;
   current: { hoseLengthM: number; inletKpa: number };
   pressureUnit: PressureUnit;
   metric: boolean;
 }
 
-/** Inlet pressure against hose length for the four common hose bores, with the rating line. */
-export function InletChart({ supplyKpa, ratedLps, couplerProfile, couplerCount, ratingKpa, current, pressureUnit, metric }: Props) {
+/** Inlet pressure against hose length for the four common hose bores, with the rating line, at the tool's running air use. */
+export function InletChart({ supplyKpa, tool, line: shopLine, ratingKpa, current, pressureUnit, metric }: Props) {
   const W = 560, H = 300, m = { l: 48, r: 16, t: 12, b: 40 };
   const maxLength = Math.max(metric ? 30 : ftToM(100), current.hoseLengthM);
   const lengths = Array.from({ length: 41 }, (_, i) => (maxLength * i) / 40);
   const series = HOSE_BORES.map((b) =>
-    inletAlongLengths(supplyKpa, ratedLps, { hoseIdMm: inToMm(b.in), couplerProfile, couplerCount }, lengths),
+    inletAlongLengths(supplyKpa, tool, { ...shopLine, hoseIdMm: inToMm(b.in) }, lengths),
   );
   const x = scaleLinear().domain([0, metric ? maxLength : mToFt(maxLength)]).range([m.l, W - m.r]);
   // Zoom on the band that matters: from a little under the lowest curve (or the rating) to the supply.

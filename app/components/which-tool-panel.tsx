@@ -1,5 +1,5 @@
 import { Form, Link } from "react-router";
-import { COUPLER_LABELS, COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, formatPressure, formatPrice } from "~/domain";
+import { COUPLER_LABELS, COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, formatFlow, formatPressure, formatPrice } from "~/domain";
 import { prob } from "./intervals";
 
 export interface WhichToolRow {
@@ -8,6 +8,8 @@ export interface WhichToolRow {
   price: number | null;
   weightKg: number;
   inletKpa: number;
+  /** The air it draws while running: the catalogue's figure, or its average times a stated factor. */
+  running: { lps: number; source: "maker_sheet" | "measured" | "estimated"; factor: number | null };
   predicted: { estimate: number; lower: number; upper: number; extrapolating: boolean } | null;
   reason: string | null;
   needs: string[];
@@ -51,7 +53,10 @@ export function WhichToolPanel({ jobSlug, percussive, values, note, rows, pu }: 
               {rows.map((r) => (
                 <tr key={r.slug}>
                   <td className="px-3 py-2"><Link to={`/models/${r.slug}`} className="font-semibold text-bay-700 hover:underline">{r.label}</Link></td>
-                  <td className="px-3 py-2">{formatPressure(r.inletKpa, pu)}</td>
+                  <td className="px-3 py-2">
+                    {formatPressure(r.inletKpa, pu)}
+                    <div className="text-xs text-stone-600">{runningNote(r.running)}</div>
+                  </td>
                   <td className="px-3 py-2">
                     {r.predicted ? (
                       <>
@@ -67,11 +72,21 @@ export function WhichToolPanel({ jobSlug, percussive, values, note, rows, pu }: 
             </tbody>
           </table>
           <p className="mt-1 text-xs text-stone-600">
-            Pressure at the tool from its rated air use through your hose and couplers (estimate); chance from the job's pooled logistic fit on
+            Pressure at the tool while it runs, from the air it draws hammering or impacting (the catalogue's figure where it has one,
+            otherwise an estimate: its rated average times the factor shown) through your regulator, couplers and hose, each solved at its
+            own pressure (estimate); chance from the job's pooled logistic fit on
             inlet pressure (one slope for every tool on the job), with 95 % bands. Ordered by the lower end of that band. Tools without enough reports across pressures say so.
           </p>
         </div>
       )}
     </section>
   );
+}
+
+const RUNNING_FROM = { maker_sheet: "maker's sheet", measured: "measured", estimated: "estimate" } as const;
+
+/** "draws 10.0 SCFM running (estimate: 2.5× rated)" */
+function runningNote(r: WhichToolRow["running"]) {
+  const from = r.source === "estimated" && r.factor != null ? `estimate: ${r.factor.toFixed(1)}× rated` : RUNNING_FROM[r.source];
+  return `draws ${formatFlow(r.lps)} running (${from})`;
 }

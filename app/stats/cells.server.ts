@@ -21,7 +21,8 @@ export async function cellsForModel(db: Db, modelId: number) {
 /** A job's cells in one query (the order is `orderCells`'s business). */
 export async function cellsForJob(db: Db, jobTypeId: number, { steps = false } = {}) {
   return db.selectFrom("stats_cells as s").innerJoin("tool_models as m", "m.id", "s.tool_model_id").innerJoin("makers as mk", "mk.id", "m.maker_id")
-    .select([...cellColumns, "m.slug as model_slug", "m.model_code", "m.fitting", "m.weight_kg", "m.street_price_cents", "m.rated_air_lps", "mk.name as maker_name"])
+    .select([...cellColumns, "m.slug as model_slug", "m.model_code", "m.fitting", "m.weight_kg", "m.street_price_cents", "m.rated_air_lps",
+      "m.running_air_lps", "m.running_air_source", "m.running_air_factor", "mk.name as maker_name"])
     .$if(steps, (q) => q.select("s.km_steps"))
     .where("s.job_type_id", "=", jobTypeId).execute();
 }

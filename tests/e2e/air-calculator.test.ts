@@ -15,6 +15,11 @@ describe("the air calculator", () => {
     const figure = page.getByTestId("inlet-pressure");
     const before = psi(await figure.textContent());
     expect(before).toBeGreaterThan(0);
+    // The pressure along the line, segment by segment, and where the tool's running air use came from.
+    const waterfall = page.getByTestId("line-waterfall");
+    await waterfall.getByText("Coupler 2 (at the tool)", { exact: true }).waitFor();
+    expect(await waterfall.getByText("At the tool inlet", { exact: true }).count()).toBe(1);
+    await page.getByText(/an estimate, 2\.5× its rated average/).waitFor();
     await page.getByLabel("Hose inside diameter, in").fill("1/4");
     await page.getByLabel("Hose length, ft").fill("150");
     await page.waitForFunction((b) => {

@@ -1,52 +1,119 @@
-// What the calculator works out: the pressure at the tool inlet, where the rest goes, the
-// compressor and the tank, the chart by hose bore, and how it is all estimated.
+// What the calculator works out: the pressure at the tool inlet while it runs, where the rest goes
+// (segment by segment), the air the tool draws and where that figure came from, the compressor and
+// the tank, the chart by hose bore, and how it is all estimated.
 import type { CalculatorOutcome } from "~/air/calculator";
+import { RUNNING_AIR_FACTOR, type RunningAir } from "~/air/line";
 import { formatFlow, formatPressure, formatRunTime } from "~/domain";
 import { InletChart } from "~/components/inlet-chart";
+import { LineWaterfall } from "./line-waterfall";
 
-export function CalculatorResults({ input, result, pressureUnit, metric }: Extract<CalculatorOutcome, { ok: true }>) {
+type Outcome = Extract<CalculatorOutcome, { ok: true }>;
+
+export function CalculatorResults({ input, result, toolFrom, pressureUnit, metric }: Outcome) {
   const p = (kpa: number) => formatPressure(kpa, pressureUnit);
   const flow = (lps: number) => formatFlow(lps, metric ? "mm" : "in");
   const share = (x: number) => `${Math.round((100 * x) / Math.max(input.supplyKpa, 1e-9))} %`;
+  const { point, tank } = result;
   return (
     <>
-      <div className={`rounded-lg border p-4 ${result.belowRating ? "border-amber-400 bg-amber-50" : "border-bay-600 bg-bay-100"}`}>
+      <div
+        className={`rounded-lg border p-4 ${result.belowRating ? "border-amber-400 bg-amber-50" : "border-bay-600 bg-bay-100"}`}
+      >
         <p className="text-sm text-stone-700">Estimated pressure at the tool inlet while it runs</p>
-        <p className="text-4xl font-bold" data-testid="inlet-pressure">{p(result.inletKpa)}</p>
+        <p className="text-4xl font-bold" data-testid="inlet-pressure">
+          {p(point.inletKpa)}
+        </p>
         <p className="mt-1 text-sm">
-          {result.stalled ? "This line cannot pass what the tool needs: it will barely run."
-            : result.belowRating ? `Below the tool's ${p(result.ratingKpa)} rating. To get it, the line needs about ${p(result.supplyNeededKpa)} at the regulator — or a bigger hose.`
-              : `At or above the tool's ${p(result.ratingKpa)} rating.`}
+          {point.stalled
+            ? "This line cannot pass what the tool needs: it will barely run."
+            : !result.belowRating
+              ? `At or above the tool's ${p(result.ratingKpa)} rating.`
+              : result.supplyNeededKpa != null
+                ? `Below the tool's ${p(result.ratingKpa)} rating. To get it, the line needs about ${p(result.supplyNeededKpa)} at the regulator — if the tool is rated for that, otherwise a bigger hose or fewer couplers.`
+                : `Below the tool's ${p(result.ratingKpa)} rating, and no regulator setting gets it there through this line: a bigger hose or fewer couplers.`}
         </p>
       </div>
       <dl className="grid gap-3 sm:grid-cols-3">
         <Figure label="Lost in the hose" value={`${p(result.loss.hose)} (${share(result.loss.hose)})`} />
         <Figure label="Lost in the couplers" value={`${p(result.loss.couplers)} (${share(result.loss.couplers)})`} />
-        <Figure label="Tool's air use at that pressure" value={flow(result.demandLps)} />
+        <Figure
+          label="Air the tool draws while running, at that pressure"
+          value={flow(point.demandLps)}
+          note={runningNote(point.running, toolFrom, flow, input.tool.ratedLps)}
+        />
         <Figure
           label="Compressor"
-          value={result.compressorShort ? `Short by ${flow(result.demandLps - input.tank.compressorLps)}` : "Keeps up"}
+          value={result.compressorShort ? `Short by ${flow(point.demandLps - input.compressorLps)}` : "Keeps up"}
           warn={result.compressorShort}
         />
         <Figure
           label="Run time before it sags below the rating"
-          value={result.belowRating ? "Below rating from the start" : Number.isFinite(result.runTimeS) ? formatRunTime(result.runTimeS) : "Indefinitely (the compressor keeps up)"}
-          warn={result.belowRating || (Number.isFinite(result.runTimeS) && result.runTimeS < 60)}
+          value={
+            tank.ending === "below_minimum_from_start"
+              ? "Below rating from the start"
+              : tank.ending === "compressor_keeps_up"
+                ? "Indefinitely (the compressor keeps up)"
+                : formatRunTime(tank.seconds)
+          }
+          warn={
+            tank.ending === "below_minimum_from_start" || (tank.ending === "inlet_below_minimum" && tank.seconds < 60)
+          }
+          note={
+            tank.ending === "inlet_below_minimum"
+              ? `From a full tank at cut-out; tank at ${p(tank.floorTankKpa)} when it sags. Assumes the ${TANK_NOTE}.`
+              : tank.ending === "compressor_keeps_up" && result.compressorShort
+                ? `The compressor falls a little short at full pressure, so the tank drains until the inlet nears the rating; there the tool draws less and the compressor keeps up. Assumes the ${TANK_NOTE}.`
+                : `Assumes the ${TANK_NOTE}.`
+          }
         />
       </dl>
-      <LossBar hose={result.loss.hose} couplers={result.loss.couplers} supply={input.supplyKpa} />
+      <LineWaterfall
+        supplyKpa={input.supplyKpa}
+        segments={result.segments}
+        inletKpa={point.inletKpa}
+        ratingKpa={result.ratingKpa}
+        pressureUnit={pressureUnit}
+      />
       <InletChart
-        supplyKpa={input.supplyKpa} ratedLps={input.ratedLps} couplerProfile={input.line.couplerProfile} couplerCount={input.line.couplerCount}
-        ratingKpa={result.ratingKpa} current={{ hoseLengthM: input.line.hoseLengthM, inletKpa: result.inletKpa }} pressureUnit={pressureUnit} metric={metric}
+        supplyKpa={input.supplyKpa}
+        tool={input.tool}
+        line={input.line}
+        ratingKpa={result.ratingKpa}
+        current={{ hoseLengthM: input.line.hoseLengthM, inletKpa: point.inletKpa }}
+        pressureUnit={pressureUnit}
+        metric={metric}
       />
       <details className="rounded-lg border border-stone-200 bg-white p-4 text-sm text-stone-700">
         <summary className="cursor-pointer font-semibold">How this is worked out</summary>
         <ul className="mt-2 list-disc space-y-1 pl-5">
-          <li>Hose loss: Δp = 450 · q<sup>1.85</sup> · l / (d<sup>5</sup> · p) (bar, l/s free air, m, mm, bar absolute at the regulator), the empirical line-loss formula of a compressed-air handbook. It was fitted to steel pipe; hose charts differ from it by up to about 2×.</li>
-          <li>Couplers: each plug-and-socket pair counted as a few metres of pipe at the coupler's throat bore (our rough figures per profile, not a published table).</li>
-          <li>Air use: the tool's rating at 90 psi scaled with absolute inlet pressure (common practice).</li>
-          <li>Operating pressure: the inlet pressure at which regulator pressure minus line loss at the tool's demand balances, solved by bisection.</li>
-          <li>Run time: free air stored in the tank between cut-out and the pressure the line needs for the rating, V·Δp/p<sub>atm</sub>, drained by the tool; below cut-in the compressor's delivery is netted off.</li>
+          <li>
+            The line is taken in the order the air meets it: regulator, couplers, hose, whip. Each piece is worked out
+            at the pressure where it sits, so couplers near the tool cost more than the same couplers at the regulator.
+          </li>
+          <li>
+            Hose: the empirical line-loss formula of a compressed-air handbook, dp/dx = −450 · q<sup>1.85</sup> / (d
+            <sup>5</sup> · p) (bar, l/s free air, m, mm, bar absolute), integrated along the hose: p<sub>2</sub>² = p
+            <sub>1</sub>² − 2 · 450 · q<sup>1.85</sup> · l / d<sup>5</sup>. It was fitted to steel pipe; hose charts
+            differ from it by up to about 2×.
+          </li>
+          <li>
+            Couplers: each plug-and-socket pair as a short length at its throat bore (throat sizes from memory, length
+            our own estimate — not a published table).
+          </li>
+          <li>
+            Air use: what the tool draws while hammering or impacting, not the catalogue average. Where the catalogue
+            has no running figure we take {RUNNING_AIR_FACTOR}× the average (from memory: running use is about 2–3× the
+            stated average) and say so. It scales with absolute inlet pressure (common practice).
+          </li>
+          <li>
+            Operating pressure: the inlet pressure at which the line, passing what the tool draws at that pressure,
+            delivers exactly that pressure — solved by bisection.
+          </li>
+          <li>
+            Run time: the tank's pressure stepped through time, from cut-out with the compressor off, the tool drawing
+            its running use at whatever the line leaves it, the compressor's delivery netted off once it cuts in; it
+            ends when the inlet falls below the rating.
+          </li>
           <li>These are estimates. A gauge at the tool inlet, read while the tool runs, beats every formula here.</li>
         </ul>
       </details>
@@ -54,29 +121,22 @@ export function CalculatorResults({ input, result, pressureUnit, metric }: Extra
   );
 }
 
-function LossBar({ hose, couplers, supply }: { hose: number; couplers: number; supply: number }) {
-  const pct = (x: number) => `${Math.min(100, (100 * x) / Math.max(supply, 1e-9))}%`;
-  return (
-    <div aria-hidden className="rounded-lg border border-stone-200 bg-white p-3">
-      <p className="mb-1 text-xs text-stone-600">Where the regulator's pressure goes</p>
-      <div className="flex h-4 w-full overflow-hidden rounded bg-bay-600">
-        <div className="ml-auto bg-amber-500" style={{ width: pct(hose) }} />
-        <div className="bg-red-600" style={{ width: pct(couplers) }} />
-      </div>
-      <p className="mt-1 flex gap-4 text-xs text-stone-700">
-        <span><span className="inline-block h-2 w-3 bg-bay-600" /> reaches the tool</span>
-        <span><span className="inline-block h-2 w-3 bg-amber-500" /> hose</span>
-        <span><span className="inline-block h-2 w-3 bg-red-600" /> couplers</span>
-      </p>
-    </div>
-  );
+const TANK_NOTE = "air in the tank stays at room temperature and the regulator holds its setting without droop";
+
+function runningNote(r: RunningAir, toolFrom: Outcome["toolFrom"], flow: (lps: number) => string, ratedLps: number) {
+  const at90 = `${flow(r.lps)} at 90 psi`;
+  if (toolFrom === "typed" && r.source !== "estimated") return `${at90}, your figure.`;
+  if (r.source === "estimated")
+    return `${at90}: an estimate, ${(r.factor ?? r.lps / ratedLps).toFixed(1)}× its rated average of ${flow(ratedLps)}.`;
+  return `${at90}, from the catalogue (${r.source === "maker_sheet" ? "maker's sheet" : "measured"}).`;
 }
 
-function Figure({ label, value, warn = false }: { label: string; value: string; warn?: boolean }) {
+function Figure({ label, value, warn = false, note }: { label: string; value: string; warn?: boolean; note?: string }) {
   return (
     <div className={`rounded-lg border bg-white p-3 ${warn ? "border-amber-400" : "border-stone-200"}`}>
       <dt className="text-xs text-stone-600">{label}</dt>
       <dd className="font-semibold">{value}</dd>
+      {note && <dd className="mt-1 text-xs text-stone-600">{note}</dd>}
     </div>
   );
 }
@@ -84,13 +144,29 @@ function Figure({ label, value, warn = false }: { label: string; value: string; 
 /** The cautions that go with any advice about an air line. */
 export function AirSafetyNotes() {
   return (
-    <aside aria-labelledby="air-safety" className="rounded-lg border-l-4 border-signal-500 bg-signal-100 p-4 text-sm text-stone-800">
-      <h2 id="air-safety" className="mb-2 font-semibold">Compressed air can hurt you</h2>
+    <aside
+      aria-labelledby="air-safety"
+      className="rounded-lg border-l-4 border-signal-500 bg-signal-100 p-4 text-sm text-stone-800"
+    >
+      <h2 id="air-safety" className="mb-2 font-semibold">
+        Compressed air can hurt you
+      </h2>
       <ul className="list-disc space-y-1 pl-5">
-        <li>Use hose, couplers and fittings rated for at least the highest pressure the system can reach (the compressor's cut-out or its safety valve).</li>
-        <li>A hose that parts or a coupler that lets go under pressure whips hard: secure long runs, check for wear, and use whip checks on larger lines.</li>
-        <li>Never blow air at skin or clothing: air can enter the body through the skin. Air for cleaning must be reduced below 30 psi, with chip guarding and eye protection (OSHA 29 CFR 1910.242(b)).</li>
-        <li>Do not raise the regulator past the tool's rated inlet pressure to make up for a poor line — fix the line.</li>
+        <li>
+          Use hose, couplers and fittings rated for at least the highest pressure the system can reach (the compressor's
+          cut-out or its safety valve).
+        </li>
+        <li>
+          A hose that parts or a coupler that lets go under pressure whips hard: secure long runs, check for wear, and
+          use whip checks on larger lines.
+        </li>
+        <li>
+          Never blow air at skin or clothing: air can enter the body through the skin. Air for cleaning must be reduced
+          below 30 psi, with chip guarding and eye protection (OSHA 29 CFR 1910.242(b)).
+        </li>
+        <li>
+          Do not raise the regulator past the tool's rated inlet pressure to make up for a poor line — fix the line.
+        </li>
       </ul>
       <p className="mt-2 text-stone-700">The maker's instructions, local codes and licensed practice come first.</p>
     </aside>
