@@ -44,7 +44,13 @@ export function shouldRevalidate({ formData, defaultShouldRevalidate }: ShouldRe
   return formData?.get("intent") === "autosave" ? false : defaultShouldRevalidate;
 }
 
-export default function ReportEditor({ loaderData, actionData }: Route.ComponentProps) {
+// One editor per report: going from /reports/new to a draft (or back) starts afresh, not with the
+// other report's state.
+export default function ReportEditorPage(props: Route.ComponentProps) {
+  return <ReportEditor key={props.loaderData.reportId ?? "new"} {...props} />;
+}
+
+function ReportEditor({ loaderData, actionData }: Route.ComponentProps) {
   const { jobs, pu, lu, supplies, status, evidence, values, drafts } = loaderData;
   const metric = lu === "mm";
   const formRef = useRef<HTMLFormElement>(null);
@@ -86,7 +92,7 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
 
       <Form method="post" {...getFormProps(form)} ref={formRef} onChange={onChange} {...checkEdited}
         // A field check is a submit event of conform's own; only sending the form stops the autosave.
-        onSubmitCapture={(e) => { if (!isConformIntent(e)) autosave.cancel(); }} className="space-y-4">
+        onSubmitCapture={(e) => { if (!isConformIntent(e)) autosave.cancel(); }} className={FORM_CLASS}>
         <input type="hidden" name="reportId" value={reportId ?? ""} />
         <input type="hidden" name="pu" value={pu} />
         <input type="hidden" name="lu" value={lu} />
@@ -115,6 +121,9 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
     </div>
   );
 }
+
+// A field reached with Tab scrolls clear of the sticky buttons below it, never under them.
+const FORM_CLASS = "space-y-4 [&_:is(input,select,textarea,summary)]:scroll-mb-40 sm:[&_:is(input,select,textarea,summary)]:scroll-mb-28";
 
 /** A refusal the page shows as an error page. */
 function refused(error: unknown): never {

@@ -30,7 +30,10 @@ export function ContinueDrafts({ drafts }: { drafts: OpenDraft[] }) {
       <ul className="mt-2 space-y-3">
         {drafts.map((d) => (
           <li key={d.id} className="flex flex-wrap items-center gap-x-3 gap-y-2">
-            <Link to={`/reports/${d.id}/edit`} className={buttonClass("primary", "md", "inline-flex min-h-12 items-center")}>
+            <Link
+              to={`/reports/${d.id}/edit`}
+              className={buttonClass("primary", "md", "inline-flex min-h-12 items-center")}
+            >
               {d.status === "returned" ? `Fix and resubmit #${d.id}` : `Continue draft #${d.id}`}
             </Link>
             <span className="text-sm">
@@ -47,7 +50,15 @@ export function ContinueDrafts({ drafts }: { drafts: OpenDraft[] }) {
   );
 }
 
-export function KeptFormOffer({ offer, onRestore, onDiscard }: { offer: OfflineDraft; onRestore: () => void; onDiscard: () => void }) {
+export function KeptFormOffer({
+  offer,
+  onRestore,
+  onDiscard,
+}: {
+  offer: OfflineDraft;
+  onRestore: () => void;
+  onDiscard: () => void;
+}) {
   return (
     <div role="alert" className="rounded-lg border border-signal-500 bg-signal-100 p-4 text-sm">
       <p>This device kept a form you had not sent ({dateTime(offer.at)}).</p>

@@ -81,7 +81,9 @@ export function ToolPicker({ initial, error, onPick }: ToolPickerProps) {
           return;
         }
         const step = event.key === "ArrowDown" ? 1 : -1;
-        setActive((i) => (i < 0 ? (step > 0 ? 0 : suggestions.length - 1) : (i + step + suggestions.length) % suggestions.length));
+        setActive((i) =>
+          i < 0 ? (step > 0 ? 0 : suggestions.length - 1) : (i + step + suggestions.length) % suggestions.length,
+        );
         return;
       }
       case "Home":
@@ -149,7 +151,15 @@ export function ToolPicker({ initial, error, onPick }: ToolPickerProps) {
       />
       {/* The picked model's slug. Not type=hidden, so that focusing the first field with an error
           (conform does, after a failed submit) can land here and pass focus on to the box. */}
-      <input name="toolModel" value={picked?.slug ?? ""} readOnly tabIndex={-1} aria-hidden className="sr-only" onFocus={() => inputRef.current?.focus()} />
+      <input
+        name="toolModel"
+        value={picked?.slug ?? ""}
+        readOnly
+        tabIndex={-1}
+        aria-hidden
+        className="sr-only"
+        onFocus={() => inputRef.current?.focus()}
+      />
       <ul
         id={listId}
         role="listbox"
@@ -167,7 +177,10 @@ export function ToolPicker({ initial, error, onPick }: ToolPickerProps) {
             onMouseDown={(e) => e.preventDefault()}
             onClick={() => choose(s)}
             onMouseMove={() => setActive(i)}
-            className={cx("block min-h-12 cursor-pointer px-3 py-2", i === current && "bg-bay-100 outline-2 -outline-offset-2 outline-bay-700")}
+            className={cx(
+              "block min-h-12 cursor-pointer px-3 py-2",
+              i === current && "bg-bay-100 outline-2 -outline-offset-2 outline-bay-700",
+            )}
           >
             <span className="font-semibold">{s.label}</span>
             <span className="block text-sm text-stone-600">{s.detail}</span>

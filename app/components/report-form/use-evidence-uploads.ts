@@ -35,30 +35,49 @@ export interface Upload {
 const EXTRA_EXTENSIONS: Record<string, EvidenceKind> = { mov: "video", heic: "photo", heif: "photo", m4v: "video" };
 
 /** What kind of evidence a picked file would be, or why it cannot be. */
-export function screenFile(file: { name: string; type: string; size: number }): { kind: EvidenceKind } | { problem: string } {
+export function screenFile(file: {
+  name: string;
+  type: string;
+  size: number;
+}): { kind: EvidenceKind } | { problem: string } {
   const ext = file.name.split(".").pop()?.toLowerCase() ?? "";
   const kind = isEvidenceType(file.type) ? EVIDENCE_TYPES[file.type].kind : EXTRA_EXTENSIONS[ext];
-  if (!kind) return { problem: `${file.name}: only video (mp4, mov, webm) and photos (jpeg, png, heic) can be attached.` };
+  if (!kind)
+    return { problem: `${file.name}: only video (mp4, mov, webm) and photos (jpeg, png, heic) can be attached.` };
   if (file.size > MAX_BYTES[kind]) {
-    return { problem: `${file.name}: ${kind === "video" ? "a video may be up to 500 MB" : "a photo may be up to 25 MB"}. Trim it, or film a shorter clip.` };
+    return {
+      problem: `${file.name}: ${kind === "video" ? "a video may be up to 500 MB" : "a photo may be up to 25 MB"}. Trim it, or film a shorter clip.`,
+    };
   }
   return { kind };
 }
 
 type Meta = { evidenceId?: number };
 
-async function complete(evidenceId: number): Promise<{ ok: true; item: EvidenceItem } | { ok: false; problem: string }> {
+async function complete(
+  evidenceId: number,
+): Promise<{ ok: true; item: EvidenceItem } | { ok: false; problem: string }> {
   const res = await fetch(`/api/evidence/${evidenceId}/complete`, { method: "POST" }).catch(() => null);
   const body = (res ? await res.json().catch(() => ({})) : {}) as Record<string, unknown>;
   if (!res?.ok) {
     // The server's own message (e.g. storage out of reach: 503, the draft kept); a network
     // failure or an answer that is not JSON gets a plain one.
-    const problem = typeof body.error === "string" ? body.error : "The file could not be checked. It is kept on your device: try again in a few minutes.";
+    const problem =
+      typeof body.error === "string"
+        ? body.error
+        : "The file could not be checked. It is kept on your device: try again in a few minutes.";
     return { ok: false, problem };
   }
   return {
     ok: true,
-    item: { id: Number(body.id), kind: body.kind as EvidenceKind, contentType: typeof body.contentType === "string" ? body.contentType : null, size: Number(body.size) || null, status: "uploaded", isPublic: false },
+    item: {
+      id: Number(body.id),
+      kind: body.kind as EvidenceKind,
+      contentType: typeof body.contentType === "string" ? body.contentType : null,
+      size: Number(body.size) || null,
+      status: "uploaded",
+      isPublic: false,
+    },
   };
 }
 
@@ -72,7 +91,11 @@ export function useEvidenceUploads(reportId: number | null, onDone: (item: Evide
     done.current = onDone;
   });
 
-  const update = useCallback((id: string, change: Partial<Upload>) => setUploads((list) => list.map((u) => (u.id === id ? { ...u, ...change } : u))), []);
+  const update = useCallback(
+    (id: string, change: Partial<Upload>) =>
+      setUploads((list) => list.map((u) => (u.id === id ? { ...u, ...change } : u))),
+    [],
+  );
 
   const check = useCallback(
     async (id: string, evidenceId: number) => {
@@ -91,9 +114,16 @@ export function useEvidenceUploads(reportId: number | null, onDone: (item: Evide
     let cancelled = false;
     let instance: Uppy<Meta, Record<string, never>> | null = null;
     void (async () => {
-      const [{ default: UppyCore }, { default: AwsS3 }] = await Promise.all([import("@uppy/core"), import("@uppy/aws-s3")]);
+      const [{ default: UppyCore }, { default: AwsS3 }] = await Promise.all([
+        import("@uppy/core"),
+        import("@uppy/aws-s3"),
+      ]);
       if (cancelled) return;
-      const u = new UppyCore<Meta, Record<string, never>>({ id: `evidence-${reportId}`, autoProceed: true, restrictions: { maxNumberOfFiles: 12 } });
+      const u = new UppyCore<Meta, Record<string, never>>({
+        id: `evidence-${reportId}`,
+        autoProceed: true,
+        restrictions: { maxNumberOfFiles: 12 },
+      });
       u.use(AwsS3, {
         shouldUseMultipart: false,
         generateObjectKey: (file) => file.id,
@@ -113,7 +143,8 @@ export function useEvidenceUploads(reportId: number | null, onDone: (item: Evide
         },
       });
       u.on("upload-progress", (file, progress) => {
-        if (file && progress.bytesTotal) update(file.id, { stage: "sending", sent: progress.bytesUploaded / progress.bytesTotal });
+        if (file && progress.bytesTotal)
+          update(file.id, { stage: "sending", sent: progress.bytesUploaded / progress.bytesTotal });
       });
       u.on("upload-success", (file) => {
         const evidenceId = file && u.getFile(file.id).meta.evidenceId;
@@ -135,27 +166,27 @@ export function useEvidenceUploads(reportId: number | null, onDone: (item: Evide
   }, [reportId, update, check]);
 
   /** Starts sending the picked files; refused ones get a message instead. */
-  const add = useCallback(
-    (files: FileList | File[]) => {
-      const u = uppyRef.current;
-      if (!u) return;
-      for (const file of Array.from(files)) {
-        const screened = screenFile(file);
-        if ("problem" in screened) {
-          setProblems((p) => [...p, screened.problem]);
-          continue;
-        }
-        try {
-          const id = u.addFile({ name: file.name, type: file.type, data: file, source: "bayproof" });
-          setUploads((list) => [...list, { id, name: file.name, sent: 0, stage: "sending" }]);
-        } catch (error) {
-          const message = error instanceof Error && /already added|duplicate/i.test(error.message) ? "that file is already on its way" : "at most 12 files per report";
-          setProblems((p) => [...p, `${file.name}: ${message}.`]);
-        }
+  const add = useCallback((files: FileList | File[]) => {
+    const u = uppyRef.current;
+    if (!u) return;
+    for (const file of Array.from(files)) {
+      const screened = screenFile(file);
+      if ("problem" in screened) {
+        setProblems((p) => [...p, screened.problem]);
+        continue;
       }
-    },
-    [],
-  );
+      try {
+        const id = u.addFile({ name: file.name, type: file.type, data: file, source: "bayproof" });
+        setUploads((list) => [...list, { id, name: file.name, sent: 0, stage: "sending" }]);
+      } catch (error) {
+        const message =
+          error instanceof Error && /already added|duplicate/i.test(error.message)
+            ? "that file is already on its way"
+            : "at most 12 files per report";
+        setProblems((p) => [...p, `${file.name}: ${message}.`]);
+      }
+    }
+  }, []);
 
   /** Tries a failed file again: the whole upload, or only the server's check when storage has it. */
   const retry = useCallback(
