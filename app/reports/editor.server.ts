@@ -10,7 +10,7 @@ import { hasControlCharacters } from "~/utils/text";
 import { idField } from "~/utils/params";
 import { listReportEvidence } from "./evidence.server";
 import { parseDraft, reportSchema, toFormValues } from "./form-schema";
-import { findModel, getOwnReport, jobTypesByCategory, recentSupplies, ReportError, saveDraft, submitReport, suggestModels, withdrawReport } from "./reports.server";
+import { findModel, getOwnReport, jobTypesByCategory, listOpenDrafts, recentSupplies, ReportError, saveDraft, submitReport, suggestModels, withdrawReport } from "./reports.server";
 import { EDITABLE } from "./status";
 
 interface Reporter {
@@ -39,14 +39,17 @@ const SUPPLY_FIELDS = ["regulator", "hoseId", "hoseLength", "couplerProfile", "c
 /** What the editor opens with: a new form, or the reporter's draft or returned report (refused otherwise). */
 export async function loadEditor(db: Db, reporter: Reporter, reportId: number | null) {
   const { pressureUnit: pu, lengthUnit: lu } = reporter;
-  const [report, jobs, supplies] = await Promise.all([
+  const [report, jobs, supplies, drafts] = await Promise.all([
     reportId === null ? null : editableReport(db, reporter, reportId),
     jobTypesByCategory(db),
     recentSupplies(db, reporter.id),
+    // A new form first offers to continue what the reporter already started.
+    reportId === null ? listOpenDrafts(db, reporter.id) : [],
   ]);
+  const newForm: Record<string, string> = { pu, lu };
   return {
-    ...(report ?? { reportId: null, status: "new", tool: null, values: { pu, lu } as Record<string, string>, evidence: [] }),
-    jobs, pu, lu,
+    ...(report ?? { reportId: null, status: "new", tool: null, values: newForm, evidence: [] }),
+    jobs, pu, lu, drafts,
     supplies: supplies.map((s) => {
       const v = toFormValues({ ...s }, pu, lu);
       return Object.fromEntries(SUPPLY_FIELDS.map((k) => [k, v[k] ?? ""])) as Record<(typeof SUPPLY_FIELDS)[number], string>;

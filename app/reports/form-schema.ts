@@ -11,10 +11,16 @@ import { GAUGE_ERROR_KPA } from "~/moderation/flags";
 import { plainText } from "~/utils/text";
 import type { Report } from "../../db/schema";
 
-const measure = (required: string) => z.preprocess((v) => (v === undefined || v === "" ? undefined : parseMeasure(v)), z.number({ error: required }).finite(required));
-const optionalMeasure = (message: string) => measure(message).optional();
-const int = (message: string, { min, max }: Range) =>
-  z.preprocess((v) => (v === undefined || v === "" ? undefined : Number(v)), z.number({ error: message }).int(message).min(min, `At least ${min}`).max(max, `At most ${max}`));
+// An empty field says what is needed; a field typed wrong says how to type it.
+const blank = (v: unknown) => v === undefined || (typeof v === "string" && v.trim() === "");
+const needed = (required: string, wrong: string) => ({ error: (issue: { input?: unknown }) => (issue.input === undefined ? required : wrong) });
+const measure = (required: string, wrong = required) =>
+  z.preprocess((v) => (blank(v) ? undefined : parseMeasure(v)), z.number(needed(required, wrong)).finite(wrong));
+const optionalMeasure = (wrong: string) => measure(wrong).optional();
+const int = (wrong: string, { min, max }: Range, required = wrong) =>
+  z.preprocess((v) => (blank(v) ? undefined : Number(v)), z.number(needed(required, wrong)).int(wrong).min(min, `At least ${min}`).max(max, `At most ${max}`));
+
+const TIME_HINT = "Enter the time, e.g. 45 s, 3 min or 1:30";
 
 /** Each field alone, so a draft can keep whatever is valid so far. */
 export const reportFields = {
@@ -27,20 +33,20 @@ export const reportFields = {
   corrosion: z.enum(CORROSION_LEVELS, { error: "Pick how corroded it was" }),
   attachment: plainText().trim().max(120, "At most 120 characters").optional(),
   attachmentLength: optionalMeasure("Enter the bit or socket length as a number"),
-  regulator: measure("Enter the regulator reading"),
-  inlet: measure("Enter the pressure at the tool inlet"),
+  regulator: measure("Enter the regulator reading", "Enter the regulator reading as a number, e.g. 90"),
+  inlet: measure("Enter the pressure at the tool inlet", "Enter the pressure at the tool inlet as a number, e.g. 85"),
   inletSource: z.enum(INLET_SOURCES, { error: "Say how you got the inlet pressure" }),
-  hoseId: measure("Enter the hose inside diameter, e.g. 3/8"),
-  hoseLength: measure("Enter the hose length"),
+  hoseId: measure("Enter the hose inside diameter", "Enter the hose inside diameter as a number or fraction, e.g. 3/8"),
+  hoseLength: measure("Enter the hose length", "Enter the hose length as a number"),
   couplerProfile: z.enum(COUPLER_PROFILES).optional(),
-  couplerCount: int("Couplers come in whole numbers", RANGES.couplerCount),
+  couplerCount: int("Couplers come in whole numbers", RANGES.couplerCount, "Enter how many couplers, 0 if none"),
   compressor: optionalMeasure("Enter the compressor's delivery as a number"),
   tank: optionalMeasure("Enter the tank size as a number"),
   outcome: z.enum(OUTCOMES, { error: "Say how it ended" }),
-  time: z.preprocess((v) => (v === undefined || v === "" ? undefined : parseDuration(v)),
-    z.number({ error: "Enter the time, e.g. 45 s, 3 min or 1:30" }).finite("Enter the time, e.g. 45 s, 3 min or 1:30")
+  time: z.preprocess((v) => (blank(v) ? undefined : parseDuration(v)),
+    z.number(needed("Enter the time to result", TIME_HINT)).finite(TIME_HINT)
       .min(RANGES.timeToResult.min, "At least 1 second").max(RANGES.timeToResult.max, "At most 8 hours")),
-  attempts: int("Attempts in whole numbers", RANGES.attempts),
+  attempts: int("Attempts in whole numbers", RANGES.attempts, "Enter how many attempts it took"),
   triggerControl: int("Rate 1 to 5", RANGES.triggerControl).optional(),
   notes: plainText().max(4000, "At most 4,000 characters")
     .refine((t) => !/<\s*[a-z!/]/i.test(t), "Notes are plain text: leave out <tags>")
@@ -144,6 +150,21 @@ export function toFormValues(r: Partial<ReportColumns>, pu: PressureUnit, lu: Le
     hoseId: l(r.hose_id_mm, "hoseId", metric ? 1 : 4), hoseLength: l(r.hose_length_m, "hoseLength", metric ? 1 : 0),
     couplerProfile: s(r.coupler_profile), couplerCount: s(r.coupler_count),
     compressor: l(r.compressor_lps, "compressor", 1), tank: l(r.tank_l, "tank", 0),
-    outcome: s(r.outcome), time: s(r.time_to_result_s), attempts: s(r.attempts), triggerControl: s(r.trigger_control), notes: s(r.notes),
+    outcome: s(r.outcome), time: r.time_to_result_s == null ? "" : durationForForm(r.time_to_result_s), attempts: s(r.attempts), triggerControl: s(r.trigger_control), notes: s(r.notes),
   };
+}
+
+/**
+ * A stored time as the reporter would type it, exactly (it parses back to the same seconds):
+ * "40 s", "3 min", "1:10", "1:02:05".
+ */
+export function durationForForm(seconds: number): string {
+  const s = Math.round(seconds);
+  if (s < 90) return `${s} s`;
+  if (s % 3600 === 0) return `${s / 3600} h`;
+  if (s % 60 === 0) return `${s / 60} min`;
+  const two = (n: number) => String(n).padStart(2, "0");
+  const h = Math.floor(s / 3600);
+  const m = Math.floor((s % 3600) / 60);
+  return h > 0 ? `${h}:${two(m)}:${two(s % 60)}` : `${m}:${two(s % 60)}`;
 }

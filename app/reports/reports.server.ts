@@ -147,6 +147,17 @@ export async function listOwnReports(db: Db, userId: number) {
   return reports.map((r) => ({ ...r, decisions: decisions.filter((d) => d.report_id === r.id) }));
 }
 
+/** The reporter's reports still open to change (drafts, returned), newest first, to continue from /reports/new. */
+export async function listOpenDrafts(db: Db, userId: number, limit = 3) {
+  const rows = await db.selectFrom("reports as r")
+    .innerJoin("tool_models as m", "m.id", "r.tool_model_id").innerJoin("makers as mk", "mk.id", "m.maker_id")
+    .innerJoin("job_types as j", "j.id", "r.job_type_id")
+    .select(["r.id", "r.status", "r.updated_at", "m.model_code", "mk.name as maker_name", "j.name as job_name"])
+    .where("r.reporter_id", "=", userId).where("r.status", "in", EDITABLE)
+    .orderBy("r.updated_at", "desc").orderBy("r.id", "desc").limit(limit).execute();
+  return rows.map((r) => ({ id: r.id, status: r.status, updatedAt: r.updated_at.toISOString(), tool: toolName(r.maker_name, r.model_code), job: r.job_name }));
+}
+
 /** The reporter's last few distinct air supplies, newest first, for one-tap reuse. */
 export async function recentSupplies(db: Db, userId: number, limit = 3) {
   return db.selectFrom("reports")

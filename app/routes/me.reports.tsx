@@ -4,6 +4,7 @@ import { z } from "zod";
 import { requireUser } from "~/auth/session.server";
 import { formatDate, toolName } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
+import { cx } from "~/components/ui";
 import { OpenDataFiles } from "~/components/my-reports/open-data-files";
 import { OutcomeBadge } from "~/components/report-table";
 import { db } from "~/db.server";
@@ -64,6 +65,9 @@ const STATUS_LABELS: Record<string, string> = {
   rejected: "Rejected",
   withdrawn: "Withdrawn",
 };
+// At least 44 px tall: these are hit with a thumb between jobs.
+const ROW_ACTION_BASE = "inline-flex min-h-11 items-center rounded border px-4 py-2 text-sm font-semibold";
+const ROW_ACTION = cx(ROW_ACTION_BASE, "border-stone-300");
 const ACTION_LABELS: Record<string, string> = { accept: "Accepted", return: "Returned", reject: "Rejected" };
 
 export default function MyReports({ loaderData }: Route.ComponentProps) {
@@ -123,12 +127,12 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
                 )}
                 {!EDITABLE.includes(r.status) && filesByReport.has(r.id) && <OpenDataFiles files={filesByReport.get(r.id)!} />}
                 <div className="mt-2 flex flex-wrap gap-2">
-                  {r.status !== "draft" && <Link to={`/reports/${r.id}/history`} className="rounded border border-stone-300 px-3 py-2 text-sm">History</Link>}
-                  {EDITABLE.includes(r.status) && <Link to={`/reports/${r.id}/edit`} className="rounded border border-bay-700 px-3 py-2 text-sm text-bay-700">{r.status === "returned" ? "Fix and resubmit" : "Continue"}</Link>}
+                  {r.status !== "draft" && <Link to={`/reports/${r.id}/history`} className={ROW_ACTION}>History</Link>}
+                  {EDITABLE.includes(r.status) && <Link to={`/reports/${r.id}/edit`} className={cx(ROW_ACTION_BASE, "border-bay-700 text-bay-700")}>{r.status === "returned" ? "Fix and resubmit" : "Continue"}</Link>}
                   {WITHDRAWABLE.includes(r.status) && (
                     <Form method="post" action={`/reports/${r.id}/edit`}>
                       <input type="hidden" name="reportId" value={r.id} />
-                      <button type="submit" name="intent" value="withdraw" className="rounded border border-stone-300 px-3 py-2 text-sm">Withdraw</button>
+                      <button type="submit" name="intent" value="withdraw" className={ROW_ACTION}>Withdraw</button>
                     </Form>
                   )}
                 </div>

@@ -5,7 +5,8 @@ import { requireUser } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
 import { EvidenceUploader } from "~/components/report-form/evidence-uploader";
 import { AirSupply, Notes, Result, Section, ToolAndJob } from "~/components/report-form/fieldsets";
-import { fillForm, formEntries, useAutosave, useOfflineDraft, useReportConform } from "~/components/report-form/hooks";
+import { ContinueDrafts, dateTime, KeptFormOffer } from "~/components/report-form/continue-draft";
+import { fillForm, formEntries, isConformIntent, useAutosave, useEditedFieldCheck, useOfflineDraft, useReportConform } from "~/components/report-form/hooks";
 import type { ToolChoice } from "~/components/report-form/tool-picker";
 import { db } from "~/db.server";
 import { editReport, loadEditor } from "~/reports/editor.server";
@@ -43,8 +44,14 @@ export function shouldRevalidate({ formData, defaultShouldRevalidate }: ShouldRe
   return formData?.get("intent") === "autosave" ? false : defaultShouldRevalidate;
 }
 
-export default function ReportEditor({ loaderData, actionData }: Route.ComponentProps) {
-  const { jobs, pu, lu, supplies, status, evidence, values } = loaderData;
+// One editor per report: going from /reports/new to a draft (or back) starts afresh, not with the
+// other report's state.
+export default function ReportEditorPage(props: Route.ComponentProps) {
+  return <ReportEditor key={props.loaderData.reportId ?? "new"} {...props} />;
+}
+
+function ReportEditor({ loaderData, actionData }: Route.ComponentProps) {
+  const { jobs, pu, lu, supplies, status, evidence, values, drafts } = loaderData;
   const metric = lu === "mm";
   const formRef = useRef<HTMLFormElement>(null);
   const [tool, setTool] = useState<ToolChoice | null>(loaderData.tool);
@@ -52,6 +59,7 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
   const autosave = useAutosave(loaderData.reportId, formRef);
   const kept = useOfflineDraft(loaderData.reportId, values);
   const [form, fields] = useReportConform(loaderData.reportId, values, actionData && "result" in actionData ? actionData.result : undefined);
+  const checkEdited = useEditedFieldCheck((name) => form.validate({ name }));
   const submitting = useNavigation().state === "submitting";
   const reportId = autosave.reportId;
 
@@ -73,21 +81,18 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
         <h1 className="text-2xl font-bold">{status === "returned" ? "Fix and resubmit your report" : "File a report from the bay"}</h1>
         <p className="text-sm text-stone-600">
           One job with one tool. Units follow your account ({pu}, {metric ? "mm and m" : "in and ft"}).{" "}
-          {autosave.savedAt ? <span role="status">Draft saved {new Date(autosave.savedAt).toLocaleTimeString()}.</span> : reportId ? "Saved as a draft." : "Saved as a draft as soon as the tool and the job are picked."}
+          {autosave.savedAt ? <span role="status">Draft saved {dateTime(autosave.savedAt)}.</span> : reportId ? "Saved as a draft." : "Saved as a draft as soon as the tool and the job are picked."}
         </p>
       </header>
 
+      {!reportId && <ContinueDrafts drafts={drafts} />}
       {kept.offer && (
-        <div role="alert" className="rounded border border-signal-500 bg-signal-100 p-3 text-sm">
-          <p>This device kept a form you had not sent ({new Date(kept.offer.at).toLocaleString()}).</p>
-          <div className="mt-2 flex gap-2">
-            <button type="button" className="rounded bg-bay-700 px-3 py-2 font-semibold text-white" onClick={() => { fill(kept.offer!.values); kept.dismiss(); }}>Restore it</button>
-            <button type="button" className="rounded border border-stone-300 px-3 py-2" onClick={kept.discard}>Discard</button>
-          </div>
-        </div>
+        <KeptFormOffer offer={kept.offer} onRestore={() => { fill(kept.offer!.values); kept.dismiss(); }} onDiscard={kept.discard} />
       )}
 
-      <Form method="post" {...getFormProps(form)} ref={formRef} onChange={onChange} onSubmitCapture={autosave.cancel} className="space-y-4">
+      <Form method="post" {...getFormProps(form)} ref={formRef} onChange={onChange} {...checkEdited}
+        // A field check is a submit event of conform's own; only sending the form stops the autosave.
+        onSubmitCapture={(e) => { if (!isConformIntent(e)) autosave.cancel(); }} className={FORM_CLASS}>
         <input type="hidden" name="reportId" value={reportId ?? ""} />
         <input type="hidden" name="pu" value={pu} />
         <input type="hidden" name="lu" value={lu} />
@@ -101,19 +106,24 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
         </Section>
         <Notes fields={fields} />
 
-        <div className="sticky bottom-0 flex flex-col gap-2 bg-bay-50 py-3 sm:flex-row">
-          <button type="submit" name="intent" value="submit" disabled={submitting} className="flex-1 rounded bg-bay-700 px-4 py-4 text-lg font-semibold text-white disabled:opacity-60">
+        <div className="sticky bottom-0 z-10 flex flex-col gap-2 border-t border-stone-200 bg-bay-50 py-3 sm:flex-row">
+          <button type="submit" name="intent" value="submit" disabled={submitting} className="min-h-12 flex-1 rounded bg-bay-700 px-4 py-3 text-lg font-semibold text-white disabled:opacity-60">
             {submitting ? "Sending…" : status === "returned" ? "Resubmit" : "Submit report"}
           </button>
-          <button type="submit" name="intent" value="save-draft" formNoValidate className="rounded border border-stone-400 px-4 py-4">Save draft</button>
-          {reportId && (
-            <button type="submit" name="intent" value="withdraw" formNoValidate className="rounded border border-stone-400 px-4 py-4">Withdraw</button>
-          )}
+          <div className="flex gap-2">
+            <button type="submit" name="intent" value="save-draft" formNoValidate className="min-h-12 flex-1 rounded border border-stone-400 bg-white px-4 py-3 font-semibold">Save draft</button>
+            {reportId && (
+              <button type="submit" name="intent" value="withdraw" formNoValidate className="min-h-12 flex-1 rounded border border-stone-400 bg-white px-4 py-3 font-semibold">Withdraw</button>
+            )}
+          </div>
         </div>
       </Form>
     </div>
   );
 }
+
+// A field reached with Tab scrolls clear of the sticky buttons below it, never under them.
+const FORM_CLASS = "space-y-4 [&_:is(input,select,textarea,summary)]:scroll-mb-40 sm:[&_:is(input,select,textarea,summary)]:scroll-mb-28";
 
 /** A refusal the page shows as an error page. */
 function refused(error: unknown): never {

@@ -1,5 +1,5 @@
 // A technician at the bay: on a phone-sized screen, fill the report, upload a small video through
-// the Uppy dashboard into the fake object store, submit, and find it under "Your reports".
+// the form's evidence uploader into the fake object store, submit, and find it under "Your reports".
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -25,7 +25,7 @@ describe("filing a report from the bay", () => {
     await hydrated(page);
 
     await page.getByRole("combobox", { name: "Tool" }).fill("BH-150");
-    await page.locator("#tool-suggestions button").first().click();
+    await page.getByRole("option", { name: /Brackwater Pneumatics BH-150/ }).click();
     await page.locator("select[name=jobType]").selectOption("ball-joint-separation");
     await page.locator("select[name=vehicleClass]").selectOption("light_truck");
     await page.locator("select[name=corrosion]").selectOption("severe");
@@ -42,8 +42,8 @@ describe("filing a report from the bay", () => {
     await page.getByLabel("Time to result").fill("1:10");
     await page.getByLabel("Attempts").fill("2");
 
-    await page.locator(".uppy-Dashboard-input").first().setInputFiles(video);
-    await page.getByText(/Video \(video\/mp4.*checked/).waitFor({ timeout: 90_000 });
+    await page.getByLabel("Choose a file").setInputFiles(video);
+    await page.getByRole("list", { name: "Attached evidence" }).getByText(/Video · MP4 .*received/).waitFor({ timeout: 90_000 });
     // Published with the open data only when the reporter says so.
     const publish = page.getByRole("checkbox", { name: "Publish with the open data" });
     expect(await publish.isChecked()).toBe(false);
