@@ -3,6 +3,7 @@ import { useRef, useState } from "react";
 import { data, Form, redirect, type ShouldRevalidateFunctionArgs, useNavigation } from "react-router";
 import { requireUser } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { formatDateTime, formatTime } from "~/domain";
 import { EvidenceUploader } from "~/components/report-form/evidence-uploader";
 import { AirSupply, Notes, Result, Section, ToolAndJob } from "~/components/report-form/fieldsets";
 import { fillForm, formEntries, useAutosave, useOfflineDraft, useReportConform } from "~/components/report-form/hooks";
@@ -73,13 +74,13 @@ export default function ReportEditor({ loaderData, actionData }: Route.Component
         <h1 className="text-2xl font-bold">{status === "returned" ? "Fix and resubmit your report" : "File a report from the bay"}</h1>
         <p className="text-sm text-stone-600">
           One job with one tool. Units follow your account ({pu}, {metric ? "mm and m" : "in and ft"}).{" "}
-          {autosave.savedAt ? <span role="status">Draft saved {new Date(autosave.savedAt).toLocaleTimeString()}.</span> : reportId ? "Saved as a draft." : "Saved as a draft as soon as the tool and the job are picked."}
+          {autosave.savedAt ? <span role="status">Draft saved {formatTime(autosave.savedAt)}.</span> : reportId ? "Saved as a draft." : "Saved as a draft as soon as the tool and the job are picked."}
         </p>
       </header>
 
       {kept.offer && (
         <div role="alert" className="rounded border border-signal-500 bg-signal-100 p-3 text-sm">
-          <p>This device kept a form you had not sent ({new Date(kept.offer.at).toLocaleString()}).</p>
+          <p>This device kept a form you had not sent ({formatDateTime(kept.offer.at)}).</p>
           <div className="mt-2 flex gap-2">
             <button type="button" className="rounded bg-bay-700 px-3 py-2 font-semibold text-white" onClick={() => { fill(kept.offer!.values); kept.dismiss(); }}>Restore it</button>
             <button type="button" className="rounded border border-stone-300 px-3 py-2" onClick={kept.discard}>Discard</button>
