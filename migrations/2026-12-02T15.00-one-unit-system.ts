@@ -8,7 +8,9 @@ import { type Kysely, sql } from "kysely";
 // this take their reporter's units of today (the form has always used them).
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`update users set force_unit = case when length_unit = 'in' then 'lbf' else 'N' end,
-    pressure_unit = case when length_unit = 'in' then 'psi' when pressure_unit = 'psi' then 'kPa' else pressure_unit end`.execute(db);
+    pressure_unit = case when length_unit = 'in' then 'psi' when pressure_unit = 'psi' then 'kPa' else pressure_unit end`.execute(
+    db,
+  );
   await sql`alter table users add constraint users_one_unit_system check (
     (length_unit = 'in' and pressure_unit = 'psi' and force_unit = 'lbf')
     or (length_unit = 'mm' and pressure_unit in ('kPa', 'bar') and force_unit = 'N'))`.execute(db);

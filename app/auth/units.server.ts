@@ -3,7 +3,15 @@
 // system their browser's language suggests.
 import { createCookie } from "react-router";
 import { isHttps } from "~/config.server";
-import { type PressureUnit, systemForLocale, systemOfLength, type Units, unitsOf, type UnitSystem, UNIT_SYSTEMS } from "~/domain";
+import {
+  type PressureUnit,
+  systemForLocale,
+  systemOfLength,
+  type Units,
+  unitsOf,
+  type UnitSystem,
+  UNIT_SYSTEMS,
+} from "~/domain";
 import type { Db } from "../../db/database";
 import { getUser } from "./session.server";
 
@@ -15,7 +23,8 @@ export const unitsCookie = createCookie(isHttps ? "__Host-bayproof_units" : "bay
   maxAge: 365 * 24 * 3600,
 });
 
-const isSystem = (x: unknown): x is UnitSystem => typeof x === "string" && (UNIT_SYSTEMS as readonly string[]).includes(x);
+const isSystem = (x: unknown): x is UnitSystem =>
+  typeof x === "string" && (UNIT_SYSTEMS as readonly string[]).includes(x);
 
 /** The visitor's remembered choice, or null. */
 async function cookieSystem(request: Request): Promise<UnitSystem | null> {
@@ -33,7 +42,11 @@ export async function unitsFor(request: Request): Promise<Units> {
 /** A signed-in user's system; `pressure` picks bar or kPa for metric readers (kPa unless asked). */
 export async function saveUserUnits(db: Db, userId: number, system: UnitSystem, pressure?: PressureUnit) {
   const u = unitsOf(system, pressure);
-  await db.updateTable("users").set({ pressure_unit: u.pressure, length_unit: u.length, force_unit: u.force }).where("id", "=", userId).execute();
+  await db
+    .updateTable("users")
+    .set({ pressure_unit: u.pressure, length_unit: u.length, force_unit: u.force })
+    .where("id", "=", userId)
+    .execute();
 }
 
 /** Remembers a visitor's choice: the Set-Cookie header value. */

@@ -7,14 +7,16 @@ import { parseForm, readForm } from "~/utils/forms";
 import { postOnly, refuse } from "~/utils/http";
 import type { Route } from "./+types/units";
 
-export const loader = postOnly("POST system=us|metric (and back=/a/path) here to choose the units figures are shown in");
+export const loader = postOnly(
+  "POST system=us|metric (and back=/a/path) here to choose the units figures are shown in",
+);
 
 /** The footer's switch: remembered on the account when signed in, in a cookie otherwise; back to the same page. */
 export async function action({ request }: Route.ActionArgs) {
   const form = parseForm(unitsSchema, await readForm(request));
   if (!form.ok) refuse(Object.values(form.errors).flat()[0] ?? "Choose a unit system");
   const { system, back } = form.data;
-  const to = safeRedirectPath(back ?? "/");
+  const to = safeRedirectPath(back, "/");
   const user = await getUser(request);
   if (user) {
     await saveUserUnits(db, user.id, system, user.pressureUnit);

@@ -1,7 +1,22 @@
 import { describe, expect, it } from "vitest";
 import {
-  formatDate, formatDateTime, formatFlow, formatForce, formatHoseId, formatHoseLength, formatInchFraction, formatLength, formatPressure,
-  formatTime, formatTorque, formatVolume, formatWeight, METRIC_UNITS, systemForLocale, unitsOf, US_UNITS,
+  formatDate,
+  formatDateTime,
+  formatFlow,
+  formatForce,
+  formatHoseId,
+  formatHoseLength,
+  formatInchFraction,
+  formatLength,
+  formatPressure,
+  formatTime,
+  formatTorque,
+  formatVolume,
+  formatWeight,
+  METRIC_UNITS,
+  systemForLocale,
+  unitsOf,
+  US_UNITS,
 } from "~/domain";
 
 // One unit system per viewer (issue 18). Conversion factors are NIST SP 811 (2008), Appendix B

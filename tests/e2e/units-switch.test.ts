@@ -1,0 +1,61 @@
+// One unit system per viewer (issue 18): a German browser reads metric, an American one US units,
+// and the footer's switch changes every figure of a row at once and comes back to the same page —
+// with JavaScript and without. UNITS_SCREENSHOTS=<folder> keeps a picture of each state.
+import type { Browser, BrowserContextOptions, Page } from "playwright-core";
+import { describe, expect, inject, it } from "vitest";
+import { sharedBrowser } from "../support/browser";
+
+const baseUrl = inject("baseUrl");
+const browser = sharedBrowser();
+const PHONE = { width: 390, height: 844 };
+const DESKTOP = { width: 1280, height: 900 };
+
+async function open(b: Browser, options: BrowserContextOptions) {
+  const context = await b.newContext(options);
+  context.setDefaultTimeout(120_000);
+  context.setDefaultNavigationTimeout(120_000);
+  const page = await context.newPage();
+  const problems: string[] = [];
+  page.on("console", (m) => void (m.type() === "error" && problems.push(m.text())));
+  page.on("pageerror", (e) => problems.push(e.message));
+  return { page, problems, close: () => context.close() };
+}
+
+const hoseCells = (page: Page) => page.locator("dt:text-is('Hose') + dd").allTextContents();
+const chosen = (page: Page) => page.locator("footer form[action='/units'] button[aria-pressed='true']").textContent();
+const snap = async (page: Page, name: string) => {
+  const dir = process.env.UNITS_SCREENSHOTS;
+  if (dir) await page.screenshot({ path: `${dir}/${name}.png`, fullPage: true });
+};
+
+describe("the viewer's unit system", () => {
+  for (const javaScriptEnabled of [true, false]) {
+    it(`follows the browser's language and switches from the footer (JavaScript ${javaScriptEnabled ? "on" : "off"})`, async () => {
+      const { page, problems, close } = await open(browser(), { viewport: PHONE, locale: "de-DE", javaScriptEnabled });
+      await page.goto(`${baseUrl}/models/brackwater-bh-150`);
+      await expect(chosen(page)).resolves.toBe("Metric");
+      const metric = await hoseCells(page);
+      expect(metric.length).toBeGreaterThan(0);
+      for (const cell of metric) expect(cell).toMatch(/^\d+\.\d mm × \d+(\.\d)? m$/);
+      if (javaScriptEnabled) await snap(page, "model-390-metric");
+
+      await page.getByRole("button", { name: "US customary" }).click();
+      await page.locator("footer button[aria-pressed='true']", { hasText: "US customary" }).waitFor();
+      expect(page.url()).toBe(`${baseUrl}/models/brackwater-bh-150`);
+      for (const cell of await hoseCells(page)) expect(cell).toMatch(/^\d+(\/\d+)? in × \d+ ft$/);
+      if (javaScriptEnabled) await snap(page, "model-390-us");
+      expect(problems).toEqual([]);
+      await close();
+    });
+  }
+
+  it("reads US units for an American browser on a desktop", async () => {
+    const { page, problems, close } = await open(browser(), { viewport: DESKTOP, locale: "en-US" });
+    await page.goto(`${baseUrl}/jobs/ball-joint-separation`);
+    await expect(chosen(page)).resolves.toBe("US customary");
+    for (const cell of await hoseCells(page)) expect(cell).toMatch(/^\d+(\/\d+)? in × \d+ ft$/);
+    await snap(page, "job-1280-us");
+    expect(problems).toEqual([]);
+    await close();
+  });
+});
