@@ -20,7 +20,7 @@ export async function action({ request }: Route.ActionArgs) {
   const user = await getUser(request);
   if (user) {
     await saveUserUnits(db, user.id, system, user.pressureUnit);
-    return redirect(to);
+    return redirect(to, 303);
   }
-  return redirect(to, { headers: { "Set-Cookie": await rememberVisitorUnits(system) } });
+  return redirect(to, { status: 303, headers: { "Set-Cookie": await rememberVisitorUnits(system) } });
 }

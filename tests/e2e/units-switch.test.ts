@@ -3,7 +3,7 @@
 // with JavaScript and without. UNITS_SCREENSHOTS=<folder> keeps a picture of each state.
 import type { Browser, BrowserContextOptions, Page } from "playwright-core";
 import { describe, expect, inject, it } from "vitest";
-import { sharedBrowser } from "../support/browser";
+import { hydrated, sharedBrowser } from "../support/browser";
 
 const baseUrl = inject("baseUrl");
 const browser = sharedBrowser();
@@ -25,7 +25,12 @@ const hoseCells = (page: Page) => page.locator("dt:text-is('Hose') + dd").allTex
 const chosen = (page: Page) => page.locator("footer form[action='/units'] button[aria-pressed='true']").textContent();
 const snap = async (page: Page, name: string) => {
   const dir = process.env.UNITS_SCREENSHOTS;
-  if (dir) await page.screenshot({ path: `${dir}/${name}.png`, fullPage: true });
+  if (!dir) return;
+  await hydrated(page); // the screenshot hides the caret with a style; after hydration it cannot upset React
+  await page.locator("dt:text-is('Hose')").first().scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `${dir}/${name}-rows.png` });
+  await page.locator("footer").scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `${dir}/${name}-footer.png` });
 };
 
 describe("the viewer's unit system", () => {

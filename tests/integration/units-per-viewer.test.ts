@@ -51,7 +51,7 @@ describe("a visitor's units", () => {
   it("remembers a switch in a cookie, over the browser's language, and returns to the same page", async () => {
     const visitor = new Browserish();
     const res = await visitor.post("/units", { system: "us", back: modelPage }, { origin: visitor.origin, ...GERMAN });
-    expect(res.status).toBe(302);
+    expect(res.status).toBe(303);
     expect(res.headers.get("location")).toBe(modelPage);
     const page = await (await visitor.get(modelPage, GERMAN)).text();
     expect(chosen(page)).toBe("us");
@@ -64,7 +64,7 @@ describe("a visitor's units", () => {
     expect(bad.status).toBe(400);
     expect(await bad.text()).toMatch(/US customary|metric/);
     const away = await visitor.post("/units", { system: "metric", back: "https://elsewhere.example/" });
-    expect(away.status).toBe(302);
+    expect(away.status).toBe(303);
     expect(away.headers.get("location")).toBe("/");
   });
 });
@@ -80,7 +80,7 @@ describe("a signed-in user's units", () => {
     const user = await signedInAs(db, email);
     expect(chosen(await (await user.get(modelPage, GERMAN)).text())).toBe("us"); // the account's default
 
-    expect((await user.post("/units", { system: "metric", back: modelPage })).status).toBe(302);
+    expect((await user.post("/units", { system: "metric", back: modelPage })).status).toBe(303);
     const row = await db
       .selectFrom("users")
       .select(["pressure_unit", "length_unit", "force_unit"])
