@@ -48,7 +48,7 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
 
       <WhichToolPanel jobSlug={job.slug} percussive={job.category_action === "percussive"} values={loaderData.search} note={loaderData.note} rows={loaderData.which} pu={loaderData.pu} />
 
-      <JobTools job={job} basis={standings.basis} rows={standings.rows} fit={standings.fit} setAside={standings.setAside} />
+      <JobTools job={job} basis={standings.basis} rows={standings.rows} fit={standings.fit} setAside={standings.setAside} units={loaderData.units} />
 
       <section aria-labelledby="reports-heading">
         <h2 id="reports-heading" className="mb-2 text-lg font-semibold">Accepted reports</h2>

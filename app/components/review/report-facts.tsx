@@ -1,4 +1,4 @@
-import { COUPLER_LABELS, FITTING_LABELS, formatDuration, formatFlow, formatHoseId, formatHoseLength, formatLength, formatPressure, formatVolume, INLET_SOURCE_LABELS, OUTCOME_LABELS, toolName, type Units, VEHICLE_LABELS } from "~/domain";
+import { COUPLER_LABELS, FITTING_LABELS, formatDuration, formatFlow, formatHoseId, formatHoseLength, formatLength, formatPressure, formatTorque, formatVolume, formatWeight, INLET_SOURCE_LABELS, OUTCOME_LABELS, toolName, type Units, VEHICLE_LABELS } from "~/domain";
 import type { ReviewData } from "~/moderation/review.server";
 
 /** What was reported, the tool's specifications, the usual figures for the job and what changed since the last version. */
@@ -26,8 +26,8 @@ export function ReportFacts({ review, units }: { review: Pick<ReviewData, "repor
       {r.notes && <p className="mt-2 whitespace-pre-wrap rounded bg-white p-3 text-sm">{r.notes}</p>}
       <h3 className="mt-4 font-semibold">The tool's specifications</h3>
       <p className="text-sm text-stone-700">
-        {FITTING_LABELS[r.fitting]} · {r.weight_kg} kg · rated air {formatFlow(r.rated_air_lps, units)} · max inlet {p(r.max_inlet_kpa)}
-        {r.blows_per_minute ? ` · ${r.blows_per_minute} bpm` : ""}{r.max_torque_nm ? ` · ${r.max_torque_nm} N·m` : ""}
+        {FITTING_LABELS[r.fitting]} · {formatWeight(r.weight_kg, units)} · rated air {formatFlow(r.rated_air_lps, units)} · max inlet {p(r.max_inlet_kpa)}
+        {r.blows_per_minute ? ` · ${r.blows_per_minute} bpm` : ""}{r.max_torque_nm ? ` · ${formatTorque(r.max_torque_nm, units)}` : ""}
       </p>
       <h3 className="mt-3 font-semibold">Usual for this job ({usual.n} accepted reports)</h3>
       <p className="text-sm text-stone-700">
