@@ -2,11 +2,16 @@
 // and the footer's switch changes every figure of a row at once and comes back to the same page —
 // with JavaScript and without. UNITS_SCREENSHOTS=<folder> keeps a picture of each state.
 import type { Browser, BrowserContextOptions, Page } from "playwright-core";
-import { describe, expect, inject, it } from "vitest";
+import { afterAll, describe, expect, inject, it } from "vitest";
 import { hydrated, sharedBrowser } from "../support/browser";
+import { testDb } from "../support/db";
+import { signedInAs } from "../support/http";
+import { validReport } from "../support/reports";
 
 const baseUrl = inject("baseUrl");
 const browser = sharedBrowser();
+const db = testDb();
+afterAll(() => db.destroy());
 const PHONE = { width: 390, height: 844 };
 const DESKTOP = { width: 1280, height: 900 };
 
@@ -60,6 +65,33 @@ describe("the viewer's unit system", () => {
     await expect(chosen(page)).resolves.toBe("US customary");
     for (const cell of await hoseCells(page)) expect(cell).toMatch(/^\d+(\/\d+)? in × \d+ ft$/);
     await snap(page, "job-1280-us");
+    expect(problems).toEqual([]);
+    await close();
+  });
+
+  it("shows a metric moderator a report's figures as the reporter typed them, 3/8 in and psi", async () => {
+    const stamp = String(Date.now());
+    const email = `e2e-units-${stamp}@demo.bayproof.test`;
+    await db
+      .insertInto("users")
+      .values({ email, handle: `units-${stamp.slice(-8)}` })
+      .execute();
+    const reporter = await signedInAs(db, email);
+    const filed = await reporter.post("/reports/new", validReport()); // typed in psi, inches, feet, SCFM, gallons
+    expect(filed.status).toBe(302);
+    const id = Number(/submitted=(\d+)/.exec(filed.headers.get("location")!)![1]);
+
+    const moderator = await signedInAs(db, "moderator2@demo.bayproof.test"); // reads metric with bar
+    const { page, problems, close } = await open(browser(), { viewport: PHONE, locale: "de-DE" });
+    await page
+      .context()
+      .addCookies([{ name: "bayproof_session", value: moderator.cookies.get("bayproof_session")!, url: baseUrl }]);
+    await page.goto(`${baseUrl}/review/${id}`);
+    const fact = (name: string) => page.locator(`dt:text-is('${name}') + dd`).textContent();
+    await expect(fact("Hose")).resolves.toBe("3/8 in × 50 ft");
+    await expect(fact("Regulator")).resolves.toBe("100 psi");
+    await expect(fact("Tank")).resolves.toBe("60 gal");
+    await snap(page, "review-390-as-entered");
     expect(problems).toEqual([]);
     await close();
   });
