@@ -1,6 +1,8 @@
 import { useEffect } from "react";
 import { Form, Link, Links, Meta, NavLink, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import { getUser, hasRole, withSessions } from "~/auth/session.server";
+import { unitsFor } from "~/auth/units.server";
+import { UnitsSwitch } from "~/components/units-switch";
 import { ErrorPage } from "~/components/error-page";
 import { db, RETRY_AFTER_SECONDS, servingRequest } from "~/db.server";
 import { SearchBox } from "~/components/search-box";
@@ -22,8 +24,9 @@ export const middleware: Route.MiddlewareFunction[] = [
 ];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await getUser(request);
+  const [user, units] = await Promise.all([getUser(request), unitsFor(request)]);
   return {
+    units,
     user: user && { handle: user.handle, isModerator: hasRole(user, "moderator"), isAdmin: hasRole(user, "admin") },
   };
 }
@@ -96,11 +99,13 @@ function SiteHeader() {
 }
 
 function SiteFooter() {
+  const units = useRouteLoaderData<typeof loader>("root")?.units;
   return (
     <footer className="mx-auto max-w-5xl px-4 pb-8 pt-4 text-xs text-stone-600">
       Bayproof records what technicians report from real jobs. Follow the tool maker's instructions, local codes and
       licensed practice; wear eye and hearing protection around air tools.{" "}
       <Link to="/data" className="underline">Open data (CC BY 4.0)</Link>
+      {units && <UnitsSwitch system={units.system} />}
     </footer>
   );
 }

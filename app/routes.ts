@@ -17,6 +17,7 @@ export default [
   route("auth/:provider", "routes/auth.$provider.tsx"),
   route("auth/:provider/callback", "routes/auth.$provider.callback.tsx"),
   route("account", "routes/account.tsx"),
+  route("units", "routes/units.tsx"),
   route("admin/users", "routes/admin.users.tsx"),
   route("admin/jobs", "routes/admin.jobs.tsx"),
   route("admin/users/:id", "routes/admin.users.$id.tsx"),

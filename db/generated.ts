@@ -136,6 +136,8 @@ export interface Reports {
   coupler_profile: string | null;
   created_at: Generated<Timestamp>;
   decided_at: Timestamp | null;
+  entered_length_unit: string | null;
+  entered_pressure_unit: string | null;
   flags: Generated<string[]>;
   hose_id_mm: number | null;
   hose_length_m: number | null;

@@ -34,6 +34,7 @@ export interface UsersTable {
   email: string;
   handle: string;
   shop_id: number | null;
+  /** One system per user (CHECK users_one_unit_system): in · psi · lbf, or mm · kPa|bar · N. */
   pressure_unit: ColumnType<PressureUnit, PressureUnit | undefined, PressureUnit>;
   length_unit: ColumnType<"in" | "mm", "in" | "mm" | undefined, "in" | "mm">;
   force_unit: ColumnType<"lbf" | "N", "lbf" | "N" | undefined, "lbf" | "N">;
@@ -138,6 +139,9 @@ export interface ReportsTable {
   attempts: number | null;
   trigger_control: number | null;
   notes: string | null;
+  /** The units the reporter typed in (migration 2026-12-02T15.00); values are stored in SI. */
+  entered_pressure_unit: PressureUnit | null;
+  entered_length_unit: "in" | "mm" | null;
   flags: TextArray;
   created_at: Timestamp;
   updated_at: Timestamp;

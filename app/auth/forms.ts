@@ -1,6 +1,6 @@
 // The sign-in, account and admin forms' schemas (server and hostile-input tests share them).
 import { z } from "zod";
-import { FORCE_UNITS, LENGTH_UNITS, PRESSURE_UNITS } from "~/domain";
+import { UNIT_SYSTEMS } from "~/domain";
 import { idField } from "~/utils/params";
 import { plainText } from "~/utils/text";
 
@@ -12,9 +12,14 @@ export const emailSchema = z.object({
 export const profileSchema = z.object({
   intent: z.literal("profile"),
   handle: plainText().trim().toLowerCase().regex(/^[a-z0-9][a-z0-9_-]{2,29}$/, "3–30 characters: letters, digits, - and _, starting with a letter or digit"),
-  pressureUnit: z.enum(PRESSURE_UNITS),
-  lengthUnit: z.enum(LENGTH_UNITS),
-  forceUnit: z.enum(FORCE_UNITS),
+  /** One system for every figure; metric readers may keep bar for pressure. */
+  units: z.enum(["us", "metric", "metric-bar"], { error: "Choose US customary or metric units" }),
+});
+
+/** The footer's unit switch (`/units`): the system, and the page to return to. */
+export const unitsSchema = z.object({
+  system: z.enum(UNIT_SYSTEMS, { error: "Choose US customary (us) or metric (metric)" }),
+  back: plainText().max(2000).optional(),
 });
 export const endSessionSchema = z.object({ intent: z.literal("end-session"), ref: z.string().regex(/^[0-9a-f]{16}$/) });
 export const endOthersSchema = z.object({ intent: z.literal("end-other-sessions") });

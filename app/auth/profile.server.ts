@@ -1,6 +1,7 @@
-// The user's own profile: the public handle and the units they enter and read figures in.
+// The user's own profile: the public handle and the one unit system they enter and read figures in.
 import type { z } from "zod";
 import type { Db } from "../../db/database";
+import { unitsOf } from "~/domain";
 import type { profileSchema } from "./forms";
 
 export type Profile = Omit<z.output<typeof profileSchema>, "intent">;
@@ -15,7 +16,8 @@ export async function handleTaken(db: Db, handle: string, userId: number) {
 export async function saveProfile(db: Db, userId: number, p: Profile): Promise<"saved" | "handle-taken"> {
   if (await handleTaken(db, p.handle, userId)) return "handle-taken";
   try {
-    await db.updateTable("users").set({ handle: p.handle, pressure_unit: p.pressureUnit, length_unit: p.lengthUnit, force_unit: p.forceUnit })
+    const u = unitsOf(p.units === "us" ? "us" : "metric", p.units === "metric-bar" ? "bar" : "kPa");
+    await db.updateTable("users").set({ handle: p.handle, pressure_unit: u.pressure, length_unit: u.length, force_unit: u.force })
       .where("id", "=", userId).execute();
     return "saved";
   } catch (error) {

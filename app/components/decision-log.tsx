@@ -1,3 +1,4 @@
+import { formatDateTime } from "~/domain";
 import { reasonLabel } from "~/moderation/reasons";
 
 /** A report's moderation log, oldest first: decisions, claims and evidence verdicts. */
@@ -7,7 +8,7 @@ export function LogList({ log }: { log: { id: number; action: string; reason_cod
     <ol className="mt-1 space-y-1 text-sm">
       {log.map((d) => (
         <li key={d.id} className="rounded bg-white px-3 py-1.5">
-          {new Date(d.created_at).toISOString().slice(0, 16).replace("T", " ")} · v{d.report_version} · <span className="font-semibold">{d.moderator}</span>{" "}
+          {formatDateTime(d.created_at)} · v{d.report_version} · <span className="font-semibold">{d.moderator}</span>{" "}
           {d.action.replaceAll("_", " ")} — {reasonLabel(d.reason_code)}{d.note ? `: ${d.note}` : ""}
         </li>
       ))}

@@ -1,7 +1,7 @@
 // The job page's "Tools used on this job": the one order (stats/standings.ts), the mark against the
 // top tool, the interval chart and the cards with their "How this is worked out" folds.
 import { Link } from "react-router";
-import { FITTING_LABELS, formatPrice, toolName } from "~/domain";
+import { FITTING_LABELS, formatPrice, formatWeight, toolName, type Units } from "~/domain";
 import { FEW_REPORTS } from "~/stats/cells";
 import { MARK_LABELS, type OrderBasis, type Standing } from "~/stats/standings";
 import type { JobCell } from "~/stats/cells.server";
@@ -32,8 +32,9 @@ export function fitNote(fit: JobFitSummary | null) {
   return `one logistic fit over this job's ${fit.fit_n} reports with a known inlet pressure (measured at the inlet, or read at the regulator less the line loss predicted for the reported hose and couplers) of ${fit.fit_models} tools (an intercept per tool, a common slope of ${fit.slope.toFixed(2)} ± ${fit.slope_se!.toFixed(2)} on the logit per bar, Firth-penalised)`;
 }
 
-export function JobTools({ job, basis, rows, fit, setAside }: {
+export function JobTools({ job, basis, rows, fit, setAside, units }: {
   job: { slug: string; name: string };
+  units: Units;
   basis: OrderBasis;
   rows: Standing<JobCell>[];
   fit: JobFitSummary | null;
@@ -73,7 +74,7 @@ export function JobTools({ job, basis, rows, fit, setAside }: {
             firstColumn="Tool"
             rows={rows.map(({ cell: m, mark, orderedBy, vsTop }) => ({
               ...m, key: m.model_slug, href: `/models/${m.model_slug}`, label: toolName(m.maker_name, m.model_code),
-              sub: `${FITTING_LABELS[m.fitting]} · ${m.weight_kg} kg · ${formatPrice(m.street_price_cents)}`,
+              sub: `${FITTING_LABELS[m.fitting]} · ${formatWeight(m.weight_kg, units)} · ${formatPrice(m.street_price_cents)}`,
               tag: MARK_LABELS[mark], orderedBy: ORDER_BASIS_LABELS[orderedBy], vsTop, fitNote: fitNote(fit),
             }))}
           />

@@ -1,6 +1,7 @@
 import { Link } from "react-router";
 import {
-  formatDate, formatDuration, formatHoseId, formatPressure, type Labels, type Outcome, OUTCOME_LABELS, toolName, VEHICLE_LABELS,
+  formatDate, formatDuration, formatHoseId, formatHoseLength, formatPressure, type Labels, type Outcome, OUTCOME_LABELS, toolName,
+  type Units, VEHICLE_LABELS,
 } from "~/domain";
 import type { AcceptedReportRow } from "~/catalogue/queries.server";
 import { Card } from "./ui";
@@ -21,7 +22,7 @@ export function OutcomeBadge({ outcome }: { outcome: string | null }) {
 }
 
 /** Accepted reports as cards on a phone and a table on wider screens. */
-export function ReportList({ reports, show = ["tool", "job"] }: { reports: AcceptedReportRow[]; show?: ("tool" | "job")[] }) {
+export function ReportList({ reports, units, show = ["tool", "job"] }: { reports: AcceptedReportRow[]; units: Units; show?: ("tool" | "job")[] }) {
   if (reports.length === 0) return <p className="text-stone-600">No accepted reports yet.</p>;
   return (
     <Card as="ul" padding="none" className="divide-y divide-stone-200">
@@ -46,8 +47,8 @@ export function ReportList({ reports, show = ["tool", "job"] }: { reports: Accep
             </p>
           </div>
           <dl className="grid grid-cols-3 gap-3 text-sm sm:w-80">
-            <div><dt className="text-xs text-stone-500">Inlet</dt><dd>{formatPressure(r.inlet_kpa)}</dd></div>
-            <div><dt className="text-xs text-stone-500">Hose</dt><dd>{formatHoseId(r.hose_id_mm)} × {r.hose_length_m?.toFixed(0)} m</dd></div>
+            <div><dt className="text-xs text-stone-500">Inlet</dt><dd>{formatPressure(r.inlet_kpa, units)}</dd></div>
+            <div><dt className="text-xs text-stone-500">Hose</dt><dd>{formatHoseId(r.hose_id_mm, units)} × {formatHoseLength(r.hose_length_m, units)}</dd></div>
             <div><dt className="text-xs text-stone-500">Time</dt><dd>{formatDuration(r.time_to_result_s)}</dd></div>
           </dl>
         </li>

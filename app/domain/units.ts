@@ -5,6 +5,8 @@
 //   1 ft = 0.3048 m exactly     → 1 ft³/min = 0.3048³ m³ / 60 s = 0.4719474 l/s
 //   1 lbf = 4.448222 N          (NIST SP 811, Appendix B)
 //   1 US gallon = 231 in³ = 3.785411784 l exactly
+//   1 lb = 0.45359237 kg exactly (international pound, 1959)
+//   1 ft·lbf = 1.355818 N·m      (NIST SP 811, Appendix B)
 //   standard atmosphere for gauge ↔ absolute: 101.325 kPa; ISO 8778's reference
 //   atmosphere for free air is 100 kPa (from memory), used where free-air volumes are scaled.
 
@@ -15,6 +17,8 @@ export const M_PER_FT = 0.3048;
 export const LPS_PER_SCFM = (M_PER_FT ** 3 * 1000) / 60;
 export const N_PER_LBF = 4.448222;
 export const L_PER_US_GAL = 3.785411784;
+export const KG_PER_LB = 0.45359237;
+export const NM_PER_FT_LBF = 1.355818;
 export const ATMOSPHERE_KPA = 101.325;
 
 /** The pressure units a user may pick (the users table's CHECK holds the same three). */
@@ -74,3 +78,45 @@ export function fromSi(quantity: keyof (typeof SYSTEM_UNITS)["in"], value: numbe
 
 /** The trade's rating point: 90 psi (6.2 bar) gauge at the tool inlet while running (common practice). */
 export const RATED_INLET_KPA = psiToKpa(90);
+
+/**
+ * A viewer reads every figure in one system (issue 18): US customary (psi · in · ft · SCFM · gal ·
+ * lbf) or metric (kPa · mm · m · l/s · l · N). Metric readers may keep bar for pressure.
+ */
+export const UNIT_SYSTEMS = ["us", "metric"] as const;
+export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
+export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = { us: "US customary", metric: "Metric" };
+
+/** The units one viewer reads and types figures in; every loader reaches it through `unitsFor(request)`. */
+export interface Units {
+  system: UnitSystem;
+  pressure: PressureUnit;
+  length: LengthUnit;
+  force: ForceUnit;
+}
+
+/** A system's units; `pressure` keeps a metric reader's bar, and is psi in US units whatever is asked. */
+export function unitsOf(system: UnitSystem, pressure?: PressureUnit): Units {
+  if (system === "us") return { system, pressure: "psi", length: "in", force: "lbf" };
+  return { system, pressure: pressure === "bar" ? "bar" : "kPa", length: "mm", force: "N" };
+}
+
+export const systemOfLength = (length: LengthUnit): UnitSystem => (length === "in" ? "us" : "metric");
+
+/**
+ * The system a visitor's browser suggests: the first language tag of Accept-Language (the order the
+ * browser sends, weights ignored except q=0) whose region reads US customary — the United States and
+ * its territories, Liberia and Myanmar (common practice) — else metric. A bare "en" reads US units,
+ * as the trade's catalogues it is written against do; no header at all reads US units too.
+ */
+export function systemForLocale(acceptLanguage: string | null | undefined): UnitSystem {
+  const first = (acceptLanguage ?? "")
+    .split(",")
+    .map((part) => part.trim().split(";"))
+    .find(([tag, ...params]) => tag && tag !== "*" && !params.some((p) => /^\s*q\s*=\s*0(\.0*)?\s*$/.test(p)))?.[0];
+  if (!first) return "us";
+  const [language, ...rest] = first.toLowerCase().split(/[-_]/);
+  const region = rest.find((s) => /^[a-z]{2}$|^\d{3}$/.test(s));
+  if (!region) return language === "en" ? "us" : "metric";
+  return ["us", "pr", "gu", "vi", "as", "mp", "um", "lr", "mm"].includes(region) ? "us" : "metric";
+}

@@ -2,7 +2,7 @@
 // Every function takes `db` first and checks ownership itself.
 import { sql } from "kysely";
 import type { Db } from "../../db/database";
-import { toolName } from "~/domain";
+import { type LengthUnit, type PressureUnit, toolName } from "~/domain";
 import { submitFlags } from "~/moderation/submit-flags.server";
 import { type ReportForm, toColumns, type parseDraft } from "./form-schema";
 import { EDITABLE, WITHDRAWABLE } from "./status";
@@ -66,11 +66,14 @@ export async function getOwnReport(db: Db, userId: number, reportId: number) {
   return { report: r, modelSlug: model.slug, modelLabel: toolName(model.maker_name, model.model_code), jobSlug: job.slug };
 }
 
+/** The units the reporter typed in, kept beside the SI values (a moderator reads "3/8 in" as entered). */
+const enteredUnits = (v: { pu?: PressureUnit; lu?: LengthUnit }) => ({ entered_pressure_unit: v.pu ?? "psi", entered_length_unit: v.lu ?? "in" });
+
 /** Creates or updates a draft from whatever is valid so far; needs a tool and a job. */
 export async function saveDraft(db: Db, userId: number, reportId: number | undefined, draft: ReturnType<typeof parseDraft>) {
   if (!draft.toolModel || !draft.jobType) throw new ReportError("A draft needs the tool and the job first", 400, draft.toolModel ? "jobType" : "toolModel");
   const { model, job } = await resolveToolAndJob(db, draft.toolModel, draft.jobType);
-  const columns = toColumns(draft);
+  const columns = { ...toColumns(draft), ...enteredUnits(draft) };
   return db.transaction().execute(async (trx) => {
     if (reportId) {
       const r = await ownReport(trx, userId, reportId, true); // a submit in flight waits, or finishes first and wins
@@ -92,7 +95,7 @@ export async function saveDraft(db: Db, userId: number, reportId: number | undef
 /** Validated report → submitted, with flags and a version snapshot, all in one transaction. */
 export async function submitReport(db: Db, userId: number, reportId: number | undefined, form: ReportForm) {
   const { model, job } = await resolveToolAndJob(db, form.toolModel, form.jobType);
-  const columns = toColumns(form);
+  const columns = { ...toColumns(form), ...enteredUnits(form) };
   return db.transaction().execute(async (trx) => {
     let id = reportId;
     let version = 1;

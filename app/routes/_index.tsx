@@ -1,18 +1,20 @@
 import { Link } from "react-router";
 import { groupBy } from "~/utils/group";
+import { unitsFor } from "~/auth/units.server";
 import { db } from "~/db.server";
 import { ReportList } from "~/components/report-table";
 import { Card } from "~/components/ui";
 import { acceptedReports, countAccepted, listJobs } from "~/catalogue/queries.server";
 import type { Route } from "./+types/_index";
 
-export async function loader() {
-  const [recent, jobs, accepted] = await Promise.all([
+export async function loader({ request }: Route.LoaderArgs) {
+  const [recent, jobs, accepted, units] = await Promise.all([
     acceptedReports(db, { limit: 8 }),
     listJobs(db),
     countAccepted(db),
+    unitsFor(request),
   ]);
-  return { recent, jobs, accepted };
+  return { recent, jobs, accepted, units };
 }
 
 export default function Home({ loaderData }: Route.ComponentProps) {
@@ -56,7 +58,7 @@ export default function Home({ loaderData }: Route.ComponentProps) {
 
       <section aria-labelledby="recent-heading">
         <h2 id="recent-heading" className="mb-3 text-xl font-bold">Recently accepted reports</h2>
-        <ReportList reports={recent} />
+        <ReportList reports={recent} units={loaderData.units} />
       </section>
     </div>
   );

@@ -4,7 +4,7 @@ import { countActiveKeys, createApiKey, listApiKeys, MAX_KEYS_PER_USER, revokeAp
 import { accountSchema } from "~/auth/forms";
 import { saveProfile } from "~/auth/profile.server";
 import { requireUser } from "~/auth/session.server";
-import { FORCE_UNITS, formatDate, LENGTH_UNITS, PRESSURE_UNITS } from "~/domain";
+import { formatDate } from "~/domain";
 import { SessionsSection } from "~/components/account/sessions-section";
 import { ErrorPage } from "~/components/error-page";
 import { Field, inputClass, Select } from "~/components/field";
@@ -18,7 +18,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const [sessions, keys] = await Promise.all([listSessions(db, user.id), listApiKeys(db, user.id)]);
   return {
-    user: { handle: user.handle, email: user.email, pressureUnit: user.pressureUnit, lengthUnit: user.lengthUnit, forceUnit: user.forceUnit, roles: user.roles },
+    user: { handle: user.handle, email: user.email, units: user.lengthUnit === "in" ? "us" : user.pressureUnit === "bar" ? "metric-bar" : "metric", roles: user.roles },
     sessions: sessions.map((s) => ({
       ref: s.id_hash.slice(0, 16), current: s.id_hash === user.sessionHash, createdAt: s.created_at,
       lastSeenAt: s.last_seen_at, userAgent: s.user_agent, method: s.sign_in_method,
@@ -78,9 +78,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           <Field id="handle" label="Public handle" error={errors.handle?.[0]} className="sm:col-span-2">
             {(control) => <input name="handle" defaultValue={typed("handle", user.handle)} {...control} className={inputClass} />}
           </Field>
-          <Select id="pressureUnit" name="pressureUnit" label="Pressure" options={unitOptions(PRESSURE_UNITS)} defaultValue={typed("pressureUnit", user.pressureUnit)} />
-          <Select id="lengthUnit" name="lengthUnit" label="Hose and bit sizes" options={unitOptions(LENGTH_UNITS)} defaultValue={typed("lengthUnit", user.lengthUnit)} />
-          <Select id="forceUnit" name="forceUnit" label="Force" options={unitOptions(FORCE_UNITS)} defaultValue={typed("forceUnit", user.forceUnit)} />
+          <Select id="units" name="units" label="Units for every figure" options={UNIT_CHOICES} defaultValue={typed("units", user.units)} className="sm:col-span-2" />
           <div className="sm:col-span-2">
             <button type="submit" disabled={busy} className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Save profile</button>
           </div>
@@ -132,7 +130,12 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
   );
 }
 
-const unitOptions = (units: readonly string[]) => units.map((u) => [u, u] as const);
+/** One system for every figure you read and type; metric readers may keep bar for pressure. */
+const UNIT_CHOICES = [
+  ["us", "US customary: psi, 3/8 in, ft, SCFM, gal, lbf"],
+  ["metric", "Metric: kPa, mm, m, l/s, l, N"],
+  ["metric-bar", "Metric with bar: bar, mm, m, l/s, l, N"],
+] as const;
 
 export function meta() {
   return [{ title: "Your account — Bayproof" }];

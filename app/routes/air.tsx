@@ -1,6 +1,6 @@
 import { data, Form } from "react-router";
 import { calculatorTools, evaluateCalculator, startingValues } from "~/air/calculator";
-import { getUser } from "~/auth/session.server";
+import { unitsFor } from "~/auth/units.server";
 import { listModels } from "~/catalogue/queries.server";
 import { CalculatorFields } from "~/components/air/calculator-fields";
 import { AirSafetyNotes, CalculatorResults } from "~/components/air/calculator-results";
@@ -10,10 +10,10 @@ import { db } from "~/db.server";
 import type { Route } from "./+types/air";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const [user, models] = await Promise.all([getUser(request), listModels(db)]);
+  const [units, models] = await Promise.all([unitsFor(request), listModels(db)]);
   const tools = calculatorTools(models);
   const params = Object.fromEntries(new URL(request.url).searchParams);
-  const values = startingValues(params, user);
+  const values = startingValues(params, { pressureUnit: units.pressure, lengthUnit: units.length });
   const outcome = evaluateCalculator(values, tools);
   // A plain GET with values that make no sense answers 400 with the field messages.
   return data({ tools, values, serverErrors: outcome.ok ? {} : outcome.errors }, { status: outcome.ok || Object.keys(params).length === 0 ? 200 : 400 });

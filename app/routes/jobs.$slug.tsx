@@ -1,5 +1,5 @@
 import { db } from "~/db.server";
-import { getUser } from "~/auth/session.server";
+import { unitsFor } from "~/auth/units.server";
 import { WhichToolPanel } from "~/components/which-tool-panel";
 import { JobTools } from "~/components/job-tools";
 import { ErrorPage } from "~/components/error-page";
@@ -22,16 +22,16 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const search = Object.fromEntries(new URL(request.url).searchParams);
   const job = await getJobBySlug(db, slug);
   invariantResponse(job, "No such job type", 404);
-  const [standings, reports, total, user] = await Promise.all([
+  const [standings, reports, total, units] = await Promise.all([
     jobStandings(db, job.id),
     acceptedReports(db, { jobId: job.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { jobId: job.id }),
-    getUser(request),
+    unitsFor(request),
   ]);
   // The shopper's supply: read what parses, and say what did not rather than fail the page.
   const asked = readSupply(search);
   const which = asked?.supply ? rankAtSupply(standings.rows.map((r) => r.cell), asked.supply) : null;
-  return { job, standings, reports, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), which, note: asked?.note ?? null, search, pu: user?.pressureUnit ?? "psi" };
+  return { job, standings, reports, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), which, note: asked?.note ?? null, search, units, pu: units.pressure };
 }
 
 export default function JobPage({ loaderData }: Route.ComponentProps) {
@@ -48,11 +48,11 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
 
       <WhichToolPanel jobSlug={job.slug} percussive={job.category_action === "percussive"} values={loaderData.search} note={loaderData.note} rows={loaderData.which} pu={loaderData.pu} />
 
-      <JobTools job={job} basis={standings.basis} rows={standings.rows} fit={standings.fit} setAside={standings.setAside} />
+      <JobTools job={job} basis={standings.basis} rows={standings.rows} fit={standings.fit} setAside={standings.setAside} units={loaderData.units} />
 
       <section aria-labelledby="reports-heading">
         <h2 id="reports-heading" className="mb-2 text-lg font-semibold">Accepted reports</h2>
-        <ReportList reports={reports} show={["tool"]} />
+        <ReportList reports={reports} units={loaderData.units} show={["tool"]} />
         <Pager page={page} pages={pages} basePath={`/jobs/${job.slug}`} />
       </section>
     </div>

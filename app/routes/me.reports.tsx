@@ -2,7 +2,7 @@ import { useEffect } from "react";
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import { requireUser } from "~/auth/session.server";
-import { formatDate, toolName } from "~/domain";
+import { formatDate, formatDateTime, toolName } from "~/domain";
 import { ErrorPage } from "~/components/error-page";
 import { cx } from "~/components/ui";
 import { OpenDataFiles } from "~/components/my-reports/open-data-files";
@@ -91,7 +91,7 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
       {unread.length > 0 && (
         <section aria-labelledby="notices-heading" className="rounded-lg border border-signal-500 bg-signal-100 p-3">
           <h2 id="notices-heading" className="font-semibold">News on your reports</h2>
-          <ul className="mt-1 space-y-1 text-sm">{unread.map((n) => <li key={n.id}>{formatDate(n.created_at)}: {n.message}</li>)}</ul>
+          <ul className="mt-1 space-y-1 text-sm">{unread.map((n) => <li key={n.id}>{formatDateTime(n.created_at)}: {n.message}</li>)}</ul>
           <Form method="post" className="mt-2">
             <button type="submit" name="intent" value="read-notices" className="rounded border border-stone-400 px-3 py-1 text-sm">Mark as read</button>
           </Form>
@@ -121,7 +121,7 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
                 {r.decisions.length > 0 && (
                   <ul className="mt-2 space-y-1 text-sm">
                     {r.decisions.map((d, i) => (
-                      <li key={i}>{formatDate(d.created_at)}: <span className="font-semibold">{ACTION_LABELS[d.action]}</span> ({d.reason_code.replaceAll("_", " ")}){d.note ? ` — ${d.note}` : ""}</li>
+                      <li key={i}>{formatDateTime(d.created_at)}: <span className="font-semibold">{ACTION_LABELS[d.action]}</span> ({d.reason_code.replaceAll("_", " ")}){d.note ? ` — ${d.note}` : ""}</li>
                     ))}
                   </ul>
                 )}

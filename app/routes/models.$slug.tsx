@@ -7,7 +7,10 @@ import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { buttonClass, Card } from "~/components/ui";
-import { FITTING_LABELS, formatFlow, formatPressure, formatPrice, toolName } from "~/domain";
+import { unitsFor } from "~/auth/units.server";
+import {
+  FITTING_LABELS, formatFlow, formatLength, formatPressure, formatPrice, formatTorque, formatWeight, RATED_INLET_KPA, toolName,
+} from "~/domain";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
 import { invariantResponse } from "~/utils/http";
@@ -21,31 +24,32 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const page = parsePage(request);
   const model = await getModelBySlug(db, slug);
   invariantResponse(model, "No such tool model", 404);
-  const [jobs, reports, total] = await Promise.all([
+  const [jobs, reports, total, units] = await Promise.all([
     cellsForModel(db, model.id),
     acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { modelId: model.id }),
+    unitsFor(request),
   ]);
-  return { model, jobs, reports, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
+  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
-  const { model, jobs, reports, page, pages } = loaderData;
+  const { model, jobs, reports, units, page, pages } = loaderData;
   const measured = new Set(model.measured_specs);
   const spec = (label: string, field: string, value: string | null) =>
     value == null ? null : { label, value, source: measured.has(field) ? "measured" : "maker sheet" };
   const specs = [
     { label: "Fitting", value: FITTING_LABELS[model.fitting] ?? model.fitting, source: "maker sheet" },
-    spec("Bore", "bore_mm", model.bore_mm == null ? null : `${model.bore_mm} mm`),
-    spec("Stroke", "stroke_mm", model.stroke_mm == null ? null : `${model.stroke_mm} mm`),
+    spec("Bore", "bore_mm", model.bore_mm == null ? null : formatLength(model.bore_mm, units)),
+    spec("Stroke", "stroke_mm", model.stroke_mm == null ? null : formatLength(model.stroke_mm, units)),
     spec("Blows per minute", "blows_per_minute", model.blows_per_minute?.toLocaleString("en-US") ?? null),
     spec("Free speed", "free_speed_rpm", model.free_speed_rpm == null ? null : `${model.free_speed_rpm.toLocaleString("en-US")} rpm`),
-    spec("Maker's max torque", "max_torque_nm", model.max_torque_nm == null ? null : `${model.max_torque_nm} N·m`),
-    spec("Weight", "weight_kg", `${model.weight_kg} kg`),
-    spec("Length", "length_mm", `${model.length_mm} mm`),
-    spec("Rated air use", "rated_air_lps", `${model.rated_air_lps} l/s (${formatFlow(model.rated_air_lps)}) at 90 psi`),
+    spec("Maker's max torque", "max_torque_nm", model.max_torque_nm == null ? null : formatTorque(model.max_torque_nm, units)),
+    spec("Weight", "weight_kg", formatWeight(model.weight_kg, units)),
+    spec("Length", "length_mm", formatLength(model.length_mm, units)),
+    spec("Rated air use", "rated_air_lps", `${formatFlow(model.rated_air_lps, units)} at ${formatPressure(RATED_INLET_KPA, units)}`),
     { label: "Air inlet", value: model.air_inlet, source: "maker sheet" },
-    { label: "Maximum inlet pressure", value: formatPressure(model.max_inlet_kpa), source: "maker sheet" },
+    { label: "Maximum inlet pressure", value: formatPressure(model.max_inlet_kpa, units), source: "maker sheet" },
     { label: "Street price", value: formatPrice(model.street_price_cents), source: "typical" },
   ].filter((s) => s != null);
 
@@ -89,7 +93,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
 
       <section aria-labelledby="reports-heading">
         <h2 id="reports-heading" className="mb-2 text-lg font-semibold">Accepted reports</h2>
-        <ReportList reports={reports} show={["job"]} />
+        <ReportList reports={reports} units={units} show={["job"]} />
         <Pager page={page} pages={pages} basePath={`/models/${model.slug}`} />
       </section>
     </div>

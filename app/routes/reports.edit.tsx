@@ -3,9 +3,10 @@ import { useRef, useState } from "react";
 import { data, Form, redirect, type ShouldRevalidateFunctionArgs, useNavigation } from "react-router";
 import { requireUser } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { formatTime } from "~/domain";
 import { EvidenceUploader } from "~/components/report-form/evidence-uploader";
 import { AirSupply, Notes, Result, Section, ToolAndJob } from "~/components/report-form/fieldsets";
-import { ContinueDrafts, dateTime, KeptFormOffer } from "~/components/report-form/continue-draft";
+import { ContinueDrafts, KeptFormOffer } from "~/components/report-form/continue-draft";
 import { fillForm, formEntries, isConformIntent, useAutosave, useEditedFieldCheck, useOfflineDraft, useReportConform } from "~/components/report-form/hooks";
 import type { ToolChoice } from "~/components/report-form/tool-picker";
 import { db } from "~/db.server";
@@ -81,7 +82,7 @@ function ReportEditor({ loaderData, actionData }: Route.ComponentProps) {
         <h1 className="text-2xl font-bold">{status === "returned" ? "Fix and resubmit your report" : "File a report from the bay"}</h1>
         <p className="text-sm text-stone-600">
           One job with one tool. Units follow your account ({pu}, {metric ? "mm and m" : "in and ft"}).{" "}
-          {autosave.savedAt ? <span role="status">Draft saved {dateTime(autosave.savedAt)}.</span> : reportId ? "Saved as a draft." : "Saved as a draft as soon as the tool and the job are picked."}
+          {autosave.savedAt ? <span role="status">Draft saved {formatTime(autosave.savedAt)}.</span> : reportId ? "Saved as a draft." : "Saved as a draft as soon as the tool and the job are picked."}
         </p>
       </header>
 

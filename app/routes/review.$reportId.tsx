@@ -1,6 +1,7 @@
 import { data, Form, Link, useNavigation } from "react-router";
 import { requireRole } from "~/auth/session.server";
-import { formatDate, toolName } from "~/domain";
+import { formatDate, formatTime, systemOfLength, toolName, unitsOf } from "~/domain";
+import { unitsFor } from "~/auth/units.server";
 import { LogList } from "~/components/decision-log";
 import { ErrorPage } from "~/components/error-page";
 import { DecisionForm } from "~/components/review/decision-form";
@@ -23,7 +24,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = parseIdParam(params.reportId, "No such report");
   const review = await openReview(db, moderator.id, id);
   invariantResponse(review, "No such report", 404);
-  return { ...review, units: { pu: moderator.pressureUnit, lu: moderator.lengthUnit } };
+  // Figures read as the reporter typed them ("3/8 in" for a bore entered in inches), else in the moderator's units.
+  const r = review.report;
+  const units = r.entered_length_unit ? unitsOf(systemOfLength(r.entered_length_unit), r.entered_pressure_unit ?? undefined) : await unitsFor(request);
+  return { ...review, units };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -52,7 +56,7 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
   // A free report can be decided at once: the decision takes the claim in its own transaction.
   const canDecide = waiting && !own && (claim?.mine || free);
   const accepts = log.filter((d) => d.action === "accept" && d.report_version === r.version).length;
-  const until = (at: Date | string | null) => (at ? new Date(at).toLocaleTimeString() : "");
+  const until = (at: Date | string | null) => (at ? formatTime(at) : "");
   return (
     <div className="space-y-5">
       <header>

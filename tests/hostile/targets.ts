@@ -4,7 +4,7 @@
 // request that happens to be valid changes nothing but the suite's own data.
 import fc from "fast-check";
 import type { z } from "zod";
-import { accountSchema, emailSchema, roleSchema, userSearchSchema } from "../../app/auth/forms";
+import { accountSchema, emailSchema, roleSchema, unitsSchema, userSearchSchema } from "../../app/auth/forms";
 import { claimSchema, decisionFields } from "../../app/moderation/decision-form";
 import { reportFields } from "../../app/reports/form-schema";
 import { validReport } from "../support/reports";
@@ -68,12 +68,13 @@ export const FORM_TARGETS: FormTarget[] = [
     kind: "form", path: () => "/account", fields: fieldsOf(accountSchema), who: ALL,
     base: (_, n) => ({
       intent,
-      ...(intent === "profile" ? { handle: `hostile-${process.pid % 1e5}-${n}`, pressureUnit: "psi", lengthUnit: "in", forceUnit: "lbf" } : {}),
+      ...(intent === "profile" ? { handle: `hostile-${process.pid % 1e5}-${n}`, units: "us" } : {}),
       ...(intent === "create-key" ? { name: `hostile key ${n}` } : {}),
       ...(intent === "revoke-key" ? { keyId: "1" } : {}),
       ...(intent === "end-session" ? { ref: "0123456789abcdef" } : {}),
     }),
   })),
+  { kind: "form", path: () => "/units", fields: fieldsOf(unitsSchema), who: ALL, base: () => ({ system: "us", back: "/models" }) },
   { kind: "form", path: () => "/admin/users", fields: fieldsOf(roleSchema), who: ALL,
     base: (own, n) => ({ intent: n % 2 ? "grant" : "revoke", userId: String(own.targetUser), role: "moderator" }) },
   ...(["submit", "save-draft", "autosave"] as const).map((intent): FormTarget => ({

@@ -49,6 +49,7 @@ const matrix: [string, string, (() => Record<string, string>) | null, Record<Who
   ["POST", "/review/999999", () => ({ action: "reject", reasonCode: "duplicate", version: "1", seenDecisions: "0" }), { visitor: SIGN_IN, reporter: 403, moderator: 404, admin: 404 }],
   ["POST", "/review/999999", () => ({ intent: "claim" }), { visitor: SIGN_IN, reporter: 403, moderator: 404, admin: 404 }],
   ["GET", "/reports/999999/history", null, { visitor: SIGN_IN, reporter: 404, moderator: 404, admin: 404 }],
+  ["POST", "/units", () => ({ system: "us", back: "/models" }), { visitor: 303, reporter: 303, moderator: 303, admin: 303 }],
   ["GET", "/air", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/models", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],

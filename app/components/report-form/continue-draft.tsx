@@ -1,7 +1,7 @@
 // Picking up where the reporter left off: drafts saved on the server (shown on /reports/new) and a
 // form this device kept but never sent (shown on the page it belongs to).
 import { Link } from "react-router";
-import { formatDate } from "~/domain";
+import { formatDate, formatDateTime } from "~/domain";
 import { buttonClass } from "~/components/ui";
 import type { OfflineDraft } from "~/reports/offline-draft";
 
@@ -11,13 +11,6 @@ export interface OpenDraft {
   updatedAt: string;
   tool: string;
   job: string;
-}
-
-/** "2026-12-02 14:50": the site's ISO date with a 24-hour time, in the reader's time zone. */
-export function dateTime(value: string | Date): string {
-  const d = new Date(value);
-  const two = (n: number) => String(n).padStart(2, "0");
-  return `${d.getFullYear()}-${two(d.getMonth() + 1)}-${two(d.getDate())} ${two(d.getHours())}:${two(d.getMinutes())}`;
 }
 
 export function ContinueDrafts({ drafts }: { drafts: OpenDraft[] }) {
@@ -61,7 +54,7 @@ export function KeptFormOffer({
 }) {
   return (
     <div role="alert" className="rounded-lg border border-signal-500 bg-signal-100 p-4 text-sm">
-      <p>This device kept a form you had not sent ({dateTime(offer.at)}).</p>
+      <p>This device kept a form you had not sent ({formatDateTime(offer.at)}).</p>
       <div className="mt-2 flex flex-wrap gap-2">
         <button type="button" className={buttonClass("primary", "md", "min-h-12")} onClick={onRestore}>
           Restore it

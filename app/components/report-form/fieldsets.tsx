@@ -2,8 +2,8 @@
 import { getTextareaProps } from "@conform-to/react";
 import { type ReactNode, useEffect, useRef, useState } from "react";
 import {
-  CORROSION_LEVELS, COUPLER_LABELS, COUPLER_PROFILES, INLET_SOURCE_CHOICES, type LengthUnit, OUTCOME_CHOICES, pressureToKpa,
-  type PressureUnit, VEHICLE_CLASSES, VEHICLE_LABELS,
+  CORROSION_LEVELS, COUPLER_LABELS, COUPLER_PROFILES, formatHoseId, formatHoseLength, formatPressure, INLET_SOURCE_CHOICES,
+  type LengthUnit, OUTCOME_CHOICES, parseMeasure, pressureToKpa, type PressureUnit, toSi, VEHICLE_CLASSES, VEHICLE_LABELS,
 } from "~/domain";
 import { Field, inputClass } from "~/components/field";
 import { cx } from "~/components/ui";
@@ -70,7 +70,7 @@ export function AirSupply({ fields, pu, lu, supplies, inletTyped, tool, onReuse 
           <div className="mt-1 flex flex-wrap gap-2">
             {supplies.map((s, i) => (
               <button key={i} type="button" onClick={() => onReuse(s)} className="min-h-11 rounded-full border border-bay-700 px-4 py-2 text-sm text-bay-700">
-                {s.regulator} {pu} · {s.hoseId} {metric ? "mm" : "in"} × {s.hoseLength} {metric ? "m" : "ft"}{s.couplerCount ? ` · ${s.couplerCount} couplers` : ""}
+                {formatPressure(pressureToKpa(parseMeasure(s.regulator), pu), pu)} · {formatHoseId(toSi("bore", parseMeasure(s.hoseId), lu), lu)} × {formatHoseLength(toSi("hose", parseMeasure(s.hoseLength), lu), lu)}{s.couplerCount ? ` · ${s.couplerCount} couplers` : ""}
               </button>
             ))}
           </div>

@@ -1,21 +1,19 @@
-import { COUPLER_LABELS, FITTING_LABELS, formatDuration, formatHoseId, formatPressure, INLET_SOURCE_LABELS, lpsToScfm, OUTCOME_LABELS, toolName, VEHICLE_LABELS } from "~/domain";
+import { COUPLER_LABELS, FITTING_LABELS, formatDuration, formatFlow, formatHoseId, formatHoseLength, formatLength, formatPressure, formatTorque, formatVolume, formatWeight, INLET_SOURCE_LABELS, OUTCOME_LABELS, toolName, type Units, VEHICLE_LABELS } from "~/domain";
 import type { ReviewData } from "~/moderation/review.server";
-
-type Units = { pu: "psi" | "bar" | "kPa"; lu: "in" | "mm" };
 
 /** What was reported, the tool's specifications, the usual figures for the job and what changed since the last version. */
 export function ReportFacts({ review, units }: { review: Pick<ReviewData, "report" | "usual" | "changes">; units: Units }) {
   const { report: r, usual, changes } = review;
-  const p = (kpa: number | null) => formatPressure(kpa, units.pu);
+  const p = (kpa: number | null) => formatPressure(kpa, units);
   const rows: [string, string][] = [
     ["Tool", `${toolName(r.maker, r.model_code)} (${r.category})`], ["Job", r.job],
     ["Vehicle", VEHICLE_LABELS[r.vehicle_class ?? ""] ?? "—"], ["Part age", r.component_age_years == null ? "—" : `${r.component_age_years} years`],
-    ["Corrosion", r.corrosion_level ?? "—"], ["Bit or socket", `${r.attachment ?? "—"}${r.attachment_length_mm ? `, ${Math.round(r.attachment_length_mm)} mm` : ""}`],
+    ["Corrosion", r.corrosion_level ?? "—"], ["Bit or socket", `${r.attachment ?? "—"}${r.attachment_length_mm ? `, ${formatLength(r.attachment_length_mm, units)}` : ""}`],
     ["Regulator", p(r.regulator_kpa)], ["At the tool inlet", `${p(r.inlet_kpa)} (${INLET_SOURCE_LABELS[r.inlet_source ?? ""] ?? "—"})`],
-    ["Hose", `${formatHoseId(r.hose_id_mm, units.lu)} × ${r.hose_length_m?.toFixed(1) ?? "—"} m`],
+    ["Hose", `${formatHoseId(r.hose_id_mm, units)} × ${formatHoseLength(r.hose_length_m, units)}`],
     ["Couplers", `${r.coupler_count ?? "—"} × ${(r.coupler_profile ? COUPLER_LABELS[r.coupler_profile] : "unknown")}`],
-    ["Compressor", r.compressor_lps == null ? "—" : `${r.compressor_lps.toFixed(1)} l/s (${lpsToScfm(r.compressor_lps).toFixed(1)} SCFM)`],
-    ["Tank", r.tank_l == null ? "—" : `${Math.round(r.tank_l)} l`],
+    ["Compressor", formatFlow(r.compressor_lps, units)],
+    ["Tank", formatVolume(r.tank_l, units)],
     ["Outcome", OUTCOME_LABELS[r.outcome ?? ""] ?? "—"], ["Time to result", formatDuration(r.time_to_result_s)],
     ["Attempts", String(r.attempts ?? "—")], ["Trigger control", r.trigger_control ? `${r.trigger_control} of 5` : "—"],
   ];
@@ -28,8 +26,8 @@ export function ReportFacts({ review, units }: { review: Pick<ReviewData, "repor
       {r.notes && <p className="mt-2 whitespace-pre-wrap rounded bg-white p-3 text-sm">{r.notes}</p>}
       <h3 className="mt-4 font-semibold">The tool's specifications</h3>
       <p className="text-sm text-stone-700">
-        {FITTING_LABELS[r.fitting]} · {r.weight_kg} kg · rated air {r.rated_air_lps} l/s · max inlet {p(r.max_inlet_kpa)}
-        {r.blows_per_minute ? ` · ${r.blows_per_minute} bpm` : ""}{r.max_torque_nm ? ` · ${r.max_torque_nm} N·m` : ""}
+        {FITTING_LABELS[r.fitting]} · {formatWeight(r.weight_kg, units)} · rated air {formatFlow(r.rated_air_lps, units)} · max inlet {p(r.max_inlet_kpa)}
+        {r.blows_per_minute ? ` · ${r.blows_per_minute} bpm` : ""}{r.max_torque_nm ? ` · ${formatTorque(r.max_torque_nm, units)}` : ""}
       </p>
       <h3 className="mt-3 font-semibold">Usual for this job ({usual.n} accepted reports)</h3>
       <p className="text-sm text-stone-700">
