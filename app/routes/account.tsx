@@ -6,6 +6,7 @@ import { saveProfile } from "~/auth/profile.server";
 import { requireUser } from "~/auth/session.server";
 import { formatDate } from "~/domain";
 import { SessionsSection } from "~/components/account/sessions-section";
+import { buttonClass, cardClass } from "~/components/ui";
 import { ErrorPage } from "~/components/error-page";
 import { Field, inputClass, Select } from "~/components/field";
 import { db } from "~/db.server";
@@ -57,20 +58,20 @@ export async function action({ request }: Route.ActionArgs) {
   }
 }
 
-const card = "rounded-lg border border-stone-200 bg-white p-4";
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
   const { user, sessions, keys } = loaderData;
   const busy = useNavigation().state !== "idle";
   const errors: FieldErrors = actionData && !actionData.ok ? actionData.errors : {};
   const values: Record<string, unknown> = actionData && !actionData.ok ? actionData.values : {};
-  const typed = (k: string, fallback: string) => String(values.intent === "profile" && values[k] != null ? values[k] : fallback);
+  const text = (v: unknown) => (typeof v === "string" ? v : "");
+  const typed = (k: string, fallback: string) => (values.intent === "profile" && typeof values[k] === "string" ? values[k] : fallback);
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-bold">Your account</h1>
       {actionData?.ok && <p role="status" className="rounded bg-bay-100 px-3 py-2">{actionData.message}</p>}
 
-      <section className={card} aria-labelledby="profile-heading">
+      <section className={cardClass()} aria-labelledby="profile-heading">
         <h2 id="profile-heading" className="mb-2 text-lg font-semibold">Profile</h2>
         <p className="mb-3 text-sm text-stone-600">Your handle is the only name shown publicly. Your e-mail ({user.email}) is never shown or shared.</p>
         <Form method="post" className="grid gap-3 sm:grid-cols-2">
@@ -80,14 +81,14 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           </Field>
           <Select id="units" name="units" label="Units for every figure" options={UNIT_CHOICES} defaultValue={typed("units", user.units)} className="sm:col-span-2" />
           <div className="sm:col-span-2">
-            <button type="submit" disabled={busy} className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Save profile</button>
+            <button type="submit" disabled={busy} className={buttonClass("primary")}>Save profile</button>
           </div>
         </Form>
       </section>
 
       <SessionsSection sessions={sessions} />
 
-      <section className={card} aria-labelledby="keys-heading">
+      <section className={cardClass()} aria-labelledby="keys-heading">
         <h2 id="keys-heading" className="mb-2 text-lg font-semibold">API keys for the open data feed</h2>
         <p className="mb-3 text-sm text-stone-600">
           A key raises your feed limit from {LIMITS.anonymous.points} to {LIMITS.key.points} requests a minute and opens the bulk files; send it as{" "}
@@ -102,9 +103,9 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         <Form method="post" className="flex flex-wrap items-end gap-2">
           <input type="hidden" name="intent" value="create-key" />
           <Field id="key-name" label="Key name" labelClassName="text-sm font-semibold" error={errors.name?.[0]} className="flex-1">
-            {(control) => <input name="name" defaultValue={values.intent === "create-key" ? String(values.name ?? "") : ""} {...control} className={inputClass} />}
+            {(control) => <input name="name" defaultValue={values.intent === "create-key" ? text(values.name) : ""} {...control} className={inputClass} />}
           </Field>
-          <button type="submit" disabled={busy} className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">Create key</button>
+          <button type="submit" disabled={busy} className={buttonClass("primary")}>Create key</button>
         </Form>
         {keys.length > 0 && (
           <ul className="mt-3 divide-y divide-stone-100 text-sm">
