@@ -40,45 +40,52 @@ function Choice({
 
 export function QueueFilters({ filter, jobs }: { filter: QueueFilter; jobs: Job[] }) {
   const categories = [...new Map(jobs.map((j) => [j.category_slug, j.category_name])).entries()];
-  const filtered = queueQuery(filter, { page: undefined, sort: undefined }) !== "";
-  // The key resets the uncontrolled fields when the address changes (back button, "Clear").
+  const set = (["flag", "category", "job", "reporter", "age", "second"] as const).filter(
+    (k) => filter[k] !== undefined,
+  ).length;
+  const summary = `Filter and sort · ${QUEUE_SORTS[filter.sort ?? "oldest"].toLowerCase()}${set ? ` · ${set} ${set === 1 ? "filter" : "filters"} on` : ""}`;
+  // Folded while nothing is filtered, so on a phone the queue itself comes first. The key resets
+  // the uncontrolled fields (and the fold) when the address changes: back button, "Clear".
   return (
-    <Form method="get" key={queueQuery(filter)} className={cardClass("sm", "space-y-3")} aria-label="Filter the queue">
-      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
-        <Choice name="sort" label="Order" value={filter.sort} options={Object.entries(QUEUE_SORTS)} />
-        <Choice
-          name="flag"
-          label="Flag"
-          value={filter.flag}
-          any="Any flags"
-          options={Object.keys(FLAG_EXPLANATIONS).map((f) => [f, f.replaceAll("_", " ")])}
-        />
-        <Choice name="category" label="Category" value={filter.category} any="Any category" options={categories} />
-        <Choice name="job" label="Job" value={filter.job} any="Any job" options={jobs.map((j) => [j.slug, j.name])} />
-        <Choice
-          name="reporter"
-          label="Reporter's record"
-          value={filter.reporter}
-          any="Any reporter"
-          options={Object.entries(TRUST_LABELS)}
-        />
-        <Choice name="age" label="Waiting" value={filter.age} any="Any time" options={Object.entries(QUEUE_AGES)} />
-      </div>
-      <div className="flex flex-wrap items-center gap-3">
-        <label className="flex min-h-11 items-center gap-3 rounded border border-stone-300 px-3">
-          <input type="checkbox" name="second" value="1" defaultChecked={filter.second === "1"} className="h-5 w-5" />
-          Needs a second look (accepted once)
-        </label>
-        <button type="submit" className={buttonClass("primary", "md", "min-h-11")}>
-          Show
-        </button>
-        {filtered && (
-          <Link to={`/review${queueQuery({ sort: filter.sort })}`} className={buttonClass("plain", "md", "min-h-11")}>
-            Clear filters
-          </Link>
-        )}
-      </div>
-    </Form>
+    <details key={queueQuery(filter)} open={set > 0} className={cardClass("none", "group")}>
+      <summary className="flex min-h-11 cursor-pointer items-center px-3 font-semibold text-bay-700">{summary}</summary>
+      <Form method="get" className="space-y-3 border-t border-stone-100 p-3" aria-label="Filter the queue">
+        <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+          <Choice name="sort" label="Order" value={filter.sort} options={Object.entries(QUEUE_SORTS)} />
+          <Choice
+            name="flag"
+            label="Flag"
+            value={filter.flag}
+            any="Any flags"
+            options={Object.keys(FLAG_EXPLANATIONS).map((f) => [f, f.replaceAll("_", " ")])}
+          />
+          <Choice name="category" label="Category" value={filter.category} any="Any category" options={categories} />
+          <Choice name="job" label="Job" value={filter.job} any="Any job" options={jobs.map((j) => [j.slug, j.name])} />
+          <Choice
+            name="reporter"
+            label="Reporter's record"
+            value={filter.reporter}
+            any="Any reporter"
+            options={Object.entries(TRUST_LABELS)}
+          />
+          <Choice name="age" label="Waiting" value={filter.age} any="Any time" options={Object.entries(QUEUE_AGES)} />
+        </div>
+        <div className="flex flex-wrap items-center gap-3">
+          <label className="flex min-h-11 items-center gap-3 rounded border border-stone-300 px-3">
+            <input type="checkbox" name="second" value="1" defaultChecked={filter.second === "1"} className="h-5 w-5" />
+            Needs a second look (accepted once)
+          </label>
+          <button type="submit" className={buttonClass("primary", "md", "min-h-11")}>
+            Show
+          </button>
+          {set > 0 && (
+            <Link to={`/review${queueQuery({ sort: filter.sort })}`} className={buttonClass("plain", "md", "min-h-11")}>
+              Clear filters
+            </Link>
+          )}
+        </div>
+      </Form>
+    </details>
   );
 }
 
