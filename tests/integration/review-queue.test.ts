@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "kysely";
 import { testDb } from "../support/db";
-import { Browserish, signedInAs } from "../support/http";
+import { type Browserish, signedInAs } from "../support/http";
 import { validReport } from "../support/reports";
 
 const db = testDb();
