@@ -2,7 +2,7 @@
 // changes a report happens in one transaction with the report row locked, and every step writes
 // a row to the append-only decisions log.
 import { sql } from "kysely";
-import type { Db, Trx } from "../../db/database";
+import type { Db } from "../../db/database";
 import { enqueue, MAIL_RETRY, QUEUES } from "~/jobs/queue.server";
 import { holdClaimToDecide } from "./claims.server";
 import { DecisionError } from "./decision-error";

@@ -28,10 +28,14 @@ export const decisionFields = z.looseObject({
   version: idField("Reload the report: the version sent is not one it has had"),
   seenDecisions: z.string().regex(/^(0|[1-9][0-9]{0,9})$/, "Reload the report and decide again").transform(Number)
     .refine((n) => n <= MAX_ID, "Reload the report and decide again"),
+  /** Ticked ("on") when the moderator has compared a duplicate-evidence file with the other report. */
+  ack_duplicate: z.string().optional(),
   ...CHECK_FIELDS,
 });
 
-export const decisionSchema = decisionFields.transform((v, ctx) => {
+export const DUPLICATE_ACK_MESSAGE = "Tick that you compared the duplicate file with the other report before accepting";
+
+function toDecision(v: z.output<typeof decisionFields>, ctx: z.RefinementCtx) {
   const files = evidenceVerdicts.safeParse(v);
   const evidence: Record<number, "verified" | "failed"> = {};
   for (const [key, verdict] of Object.entries(files.success ? files.data : {})) {
@@ -45,8 +49,26 @@ export const decisionSchema = decisionFields.transform((v, ctx) => {
     (Object.keys(CHECKLIST) as ChecklistKey[]).map((k) => [k, v[`check_${k}`] === "on"]),
   ) as Record<ChecklistKey, boolean>;
   return { intent: "decide" as const, action: v.action, reasonCode: v.reasonCode, note: v.note ?? null, version: v.version, seenDecisions: v.seenDecisions, checklist, evidence };
-});
+}
+
+export const decisionSchema = decisionFields.transform(toDecision);
 
 /** What the review page's form posts: a claim, or a decision. */
 export const reviewActionSchema = z.discriminatedUnion("intent", [claimSchema, decisionSchema]);
+
+/**
+ * The same, for one report: accepting a report flagged for duplicate evidence needs the moderator's
+ * acknowledgement that they compared the file with the other report's.
+ */
+export function reviewActionSchemaFor(report: { flags: readonly string[] }) {
+  if (!report.flags.includes("duplicate_evidence")) return reviewActionSchema;
+  return z.discriminatedUnion("intent", [
+    claimSchema,
+    decisionFields
+      .superRefine((v, ctx) => {
+        if (v.action === "accept" && v.ack_duplicate !== "on") ctx.addIssue({ code: "custom", path: ["ack_duplicate"], message: DUPLICATE_ACK_MESSAGE });
+      })
+      .transform(toDecision),
+  ]);
+}
 export type ReviewAction = z.output<typeof reviewActionSchema>;

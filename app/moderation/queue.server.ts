@@ -4,39 +4,93 @@ import type { Db } from "../../db/database";
 import { presignGet } from "~/storage/s3.server";
 import { histories } from "./decide.server";
 import { HIDDEN_FROM_MODERATORS } from "./visibility";
-import { trustLevel, type TrustLevel } from "./trust";
+import { QUEUE_PAGE_SIZE, type QueueCriteria } from "./queue-filter";
+import { trustLevel } from "./trust";
 
+/** Accepted once on its current version: waiting for a second moderator's look. */
+const acceptedOnce = sql<boolean>`exists (select 1 from decisions d where d.report_id = r.id and d.action = 'accept' and d.report_version = r.version)`;
 
-export interface QueueFilter {
-  flag?: string;
-  category?: string;
-  job?: string;
-  trust?: TrustLevel;
-  olderThanDays?: number;
+/** The waiting reports a moderator may decide on, with the filters that SQL can apply. */
+function waiting(db: Db, moderatorId: number, c: QueueCriteria) {
+  let q = db.selectFrom("reports as r")
+    .innerJoin("job_types as j", "j.id", "r.job_type_id").innerJoin("tool_categories as c", "c.id", "r.category_id")
+    .where("r.status", "=", "submitted")
+    .where("r.reporter_id", "!=", moderatorId);
+  if (c.flag) q = q.where(sql<boolean>`${c.flag} = any(r.flags)`);
+  if (c.category) q = q.where("c.slug", "=", c.category);
+  if (c.job) q = q.where("j.slug", "=", c.job);
+  if (c.olderThanDays) q = q.where("r.submitted_at", "<", sql<Date>`now() - ${`${c.olderThanDays} days`}::interval`);
+  if (c.secondLookOnly) q = q.where(acceptedOnce);
+  return q;
 }
 
-export async function reviewQueue(db: Db, moderatorId: number, f: QueueFilter, limit = 100) {
-  let q = db.selectFrom("reports as r")
+/**
+ * The whole filtered queue in its order, as ids: what the pager counts and "next report" walks.
+ * The reporter's record is worked out by trust.ts (one rule for the queue and the decision), so
+ * that filter applies here rather than in SQL; a queue holds hundreds of reports, not millions.
+ */
+export async function queueOrder(db: Db, moderatorId: number, c: QueueCriteria) {
+  const dir = c.sort === "newest" ? "desc" : "asc";
+  const rows = await waiting(db, moderatorId, c)
+    .select([
+      "r.id", "r.reporter_id", "r.submitted_at",
+      sql<boolean>`exists (select 1 from decisions d where d.report_id = r.id and d.action = 'accept' and d.report_version = r.version and d.moderator_id = ${moderatorId})`.as("mine"),
+    ])
+    .orderBy("r.submitted_at", dir).orderBy("r.id", dir).execute();
+  if (!c.reporter) return rows;
+  const hist = await histories(db, [...new Set(rows.map((r) => r.reporter_id))]);
+  return rows.filter((r) => trustLevel(hist.get(r.reporter_id)!) === c.reporter);
+}
+
+/** One page of the filtered queue, with the total it is a page of; a page past the end shows the last. */
+export async function reviewQueue(db: Db, moderatorId: number, c: QueueCriteria, page = 1, pageSize = QUEUE_PAGE_SIZE) {
+  const order = await queueOrder(db, moderatorId, c);
+  const total = order.length;
+  const pages = Math.max(1, Math.ceil(total / pageSize));
+  const current = Math.min(page, pages);
+  const ids = order.slice((current - 1) * pageSize, current * pageSize).map((r) => r.id);
+  if (ids.length === 0) return { rows: [], total, page: current, pages, from: 0, to: 0 };
+  const found = await db.selectFrom("reports as r")
     .innerJoin("tool_models as m", "m.id", "r.tool_model_id").innerJoin("makers as mk", "mk.id", "m.maker_id")
-    .innerJoin("job_types as j", "j.id", "r.job_type_id").innerJoin("tool_categories as c", "c.id", "r.category_id")
+    .innerJoin("job_types as j", "j.id", "r.job_type_id")
     .innerJoin("users as u", "u.id", "r.reporter_id")
     .leftJoin("report_claims as cl", (join) => join.onRef("cl.report_id", "=", "r.id").on("cl.expires_at", ">", sql<Date>`now()`))
     .leftJoin("users as holder", "holder.id", "cl.moderator_id")
     .select([
-      "r.id", "r.submitted_at", "r.flags", "r.version", "r.reporter_id", "u.handle as reporter", "m.model_code", "mk.name as maker",
-      "j.name as job", "c.name as category", "holder.handle as claimed_by",
+      "r.id", "r.submitted_at", "r.flags", "r.reporter_id", "u.handle as reporter", "m.model_code", "mk.name as maker",
+      "j.name as job", "holder.handle as claimed_by",
       sql<number>`(select count(*)::int from decisions d where d.report_id = r.id and d.action = 'accept' and d.report_version = r.version)`.as("accepts"),
     ])
-    .where("r.status", "=", "submitted")
-    .where("r.reporter_id", "!=", moderatorId);
-  if (f.flag) q = q.where(sql<boolean>`${f.flag} = any(r.flags)`);
-  if (f.category) q = q.where("c.slug", "=", f.category);
-  if (f.job) q = q.where("j.slug", "=", f.job);
-  if (f.olderThanDays) q = q.where("r.submitted_at", "<", sql<Date>`now() - ${`${f.olderThanDays} days`}::interval`);
-  const rows = await q.orderBy("r.submitted_at").orderBy("r.id").limit(f.trust ? 1000 : limit).execute();
-  const hist = await histories(db, [...new Set(rows.map((r) => r.reporter_id))]);
-  const withTrust = rows.map((r) => ({ ...r, trust: trustLevel(hist.get(r.reporter_id)!) }));
-  return (f.trust ? withTrust.filter((r) => r.trust === f.trust) : withTrust).slice(0, limit);
+    .where("r.id", "in", ids).execute();
+  const hist = await histories(db, [...new Set(found.map((r) => r.reporter_id))]);
+  const byId = new Map(found.map((r) => [r.id, r]));
+  const mine = new Set(order.filter((r) => r.mine).map((r) => r.id));
+  const rows = ids.flatMap((id) => {
+    const r = byId.get(id);
+    if (!r) return []; // decided between the two reads
+    const h = hist.get(r.reporter_id)!;
+    return [{ ...r, history: h, trust: trustLevel(h), acceptedByMe: mine.has(id) }];
+  });
+  const from = (current - 1) * pageSize + 1;
+  return { rows, total, page: current, pages, from, to: from + ids.length - 1 };
+}
+
+/**
+ * Where a report stands in the filtered queue and the next one this moderator can act on: the
+ * first after it in the queue's order that they have not already accepted. Works for a report that
+ * has just left the queue too (it was decided), by its place in the order.
+ */
+export async function queueNeighbours(db: Db, moderatorId: number, c: QueueCriteria, report: { id: number; submitted_at: Date | string | null }) {
+  const order = await queueOrder(db, moderatorId, c);
+  const sign = c.sort === "newest" ? -1 : 1;
+  const at = (t: Date | string | null) => (t ? new Date(t).getTime() : 0);
+  const after = (r: { id: number; submitted_at: Date | string | null }) => {
+    const dt = at(r.submitted_at) - at(report.submitted_at);
+    return sign * (dt !== 0 ? dt : r.id - report.id) > 0;
+  };
+  const index = order.findIndex((r) => r.id === report.id);
+  const next = order.find((r) => r.id !== report.id && !r.mine && after(r));
+  return { total: order.length, position: index >= 0 ? index + 1 : null, next: next?.id ?? null };
 }
 
 export async function queueCounts(db: Db) {
@@ -81,7 +135,19 @@ export async function reviewDetail(db: Db, reportId: number) {
     // Short-lived, signed: the objects themselves are never public.
     url: await presignGet(e.object_key, 600),
   })));
-  return { report, media, usual, versions, trust: trustLevel(hist.get(report.reporter_id)!) };
+  const history = hist.get(report.reporter_id)!;
+  return { report, media, usual, versions, history, trust: trustLevel(history), duplicateOf: await sameFileElsewhere(db, reportId) };
+}
+
+/** Other reports (that moderators may see) holding a file byte-for-byte the same as one of this report's. */
+async function sameFileElsewhere(db: Db, reportId: number): Promise<number[]> {
+  const rows = await db.selectFrom("evidence as e")
+    .innerJoin("evidence as other", (join) => join.onRef("other.sha256", "=", "e.sha256").onRef("other.report_id", "!=", "e.report_id"))
+    .innerJoin("reports as r", "r.id", "other.report_id")
+    .select("other.report_id").distinct()
+    .where("e.report_id", "=", reportId).where("e.sha256", "is not", null).where("r.status", "not in", HIDDEN_FROM_MODERATORS)
+    .orderBy("other.report_id").limit(10).execute();
+  return rows.map((r) => r.report_id);
 }
 
 const COMPARED = [
@@ -119,7 +185,7 @@ export async function reviewStats(db: Db) {
   const waitingNow = (await queueCounts(db)).waiting;
   // Backlog at the end of each week, walking back from today's queue size.
   const rows = weekly.rows;
-  const backlog: number[] = new Array(rows.length);
+  const backlog = new Array<number>(rows.length);
   let level = waitingNow;
   for (let i = rows.length - 1; i >= 0; i--) {
     backlog[i] = level;

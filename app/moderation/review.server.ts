@@ -3,7 +3,7 @@
 import type { Db } from "../../db/database";
 import { claim, claimState } from "./claims.server";
 import { decide, reportLog } from "./decide.server";
-import type { ReviewAction } from "./decision-form";
+import { reviewActionSchemaFor, type ReviewAction } from "./decision-form";
 import { changesSinceLastVersion, reviewDetail } from "./queue.server";
 
 const DECISIONS = new Set(["accept", "return", "reject"]);
@@ -36,6 +36,12 @@ export async function reviewAction(db: Db, moderatorId: number, reportId: number
   return result.outcome === "awaiting_second_look"
     ? "Accepted; it now needs a second look from another moderator."
     : `Decision recorded: ${result.outcome}. The reporter is told by mail.`;
+}
+
+/** The review form's schema for this report (its flags decide what an accept must acknowledge). */
+export async function reviewFormSchema(db: Db, reportId: number) {
+  const row = await db.selectFrom("reports").select("flags").where("id", "=", reportId).executeTakeFirst();
+  return reviewActionSchemaFor({ flags: row?.flags ?? [] });
 }
 
 export type ReviewData = NonNullable<Awaited<ReturnType<typeof openReview>>>;

@@ -22,12 +22,21 @@ export function trustLevel(h: History): TrustLevel {
   return h.accepted >= 10 && badShare < 0.2 ? "trusted" : "building";
 }
 
+// Said plainly, as what the reporter's past reports came to: no badges, ranks or numbered levels.
 export const TRUST_LABELS: Record<TrustLevel, string> = {
-  new: "New reporter (no accepted report yet)",
-  building: "Building a record",
-  trusted: "Long good record",
-  held: "Held: several rejections in a row",
+  new: "No report accepted yet",
+  building: "Some reports accepted",
+  trusted: "10 or more accepted, few sent back",
+  held: `Last ${HOLD_AFTER_REJECTIONS} or more reports rejected`,
 };
+
+/** A reporter's past in one line for the moderator: "12 of 14 earlier reports accepted". */
+export function reporterRecord(h: History): string {
+  const decided = h.accepted + h.returned + h.rejected;
+  if (decided === 0) return "no earlier report decided";
+  const base = `${h.accepted} of ${decided} earlier ${decided === 1 ? "report" : "reports"} accepted`;
+  return h.rejectStreak >= HOLD_AFTER_REJECTIONS ? `${base}; the last ${h.rejectStreak} rejected` : base;
+}
 
 /** A report needs two accepting moderators when flagged, or when its reporter is new or held. */
 export const needsSecondLook = (flags: string[], level: TrustLevel) => flags.length > 0 || level === "new" || level === "held";

@@ -10,10 +10,12 @@ import { ReportFacts } from "~/components/review/report-facts";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { db } from "~/db.server";
 import { DecisionError } from "~/moderation/decision-error";
-import { reviewActionSchema } from "~/moderation/decision-form";
 import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
-import { openReview, reviewAction } from "~/moderation/review.server";
-import { TRUST_LABELS } from "~/moderation/trust";
+import { readQueueFilter } from "~/moderation/queue-filter";
+import { placeInQueue } from "~/moderation/queue-page.server";
+import { openReview, reviewAction, reviewFormSchema } from "~/moderation/review.server";
+import { reporterRecord } from "~/moderation/trust";
+import { buttonClass } from "~/components/ui";
 import { formValues, readForm } from "~/utils/forms";
 import { invariantResponse } from "~/utils/http";
 import { parseIdParam } from "~/utils/params";
@@ -27,14 +29,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Figures read as the reporter typed them ("3/8 in" for a bore entered in inches), else in the moderator's units.
   const r = review.report;
   const units = r.entered_length_unit ? unitsOf(systemOfLength(r.entered_length_unit), r.entered_pressure_unit ?? undefined) : await unitsFor(request);
-  return { ...review, units };
+  // The queue this report was opened from (its filters ride in the address); a stale or mangled one
+  // falls back to the whole queue rather than hiding the report.
+  const read = readQueueFilter(new URL(request.url).searchParams);
+  const queue = await placeInQueue(db, moderator.id, read.ok ? read.filter : {}, review.report);
+  return { ...review, queue, units };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   const moderator = await requireRole(request, "moderator");
   const id = parseIdParam(params.reportId, "No such report");
   const values = formValues(await readForm(request));
-  const parsed = reviewActionSchema.safeParse(values);
+  const parsed = (await reviewFormSchema(db, id)).safeParse(values);
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;
     return data({ ok: false as const, message: issue.message, field: String(issue.path[0] ?? ""), note: typeof values.note === "string" ? values.note : "" }, { status: 400 });
@@ -48,9 +54,9 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function ReviewReport({ loaderData, actionData }: Route.ComponentProps) {
-  const { report: r, media, trust, own, claim, log, seenDecisions, units } = loaderData;
+  const { report: r, media, history, own, claim, log, seenDecisions, units, queue, duplicateOf } = loaderData;
   const busy = useNavigation().state !== "idle";
-  const noteError = actionData && !actionData.ok && "field" in actionData && actionData.field === "note" ? actionData.message : undefined;
+  const fieldError = (name: string) => (actionData && !actionData.ok && "field" in actionData && actionData.field === name ? actionData.message : undefined);
   const waiting = r.status === "submitted";
   const free = claim != null && !claim.mine && !claim.holder && !claim.alreadyAccepted;
   // A free report can be decided at once: the decision takes the claim in its own transaction.
@@ -60,10 +66,10 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
   return (
     <div className="space-y-5">
       <header>
-        <p className="text-sm"><Link to="/review" className="text-bay-700 underline">← Queue</Link></p>
-        <h1 className="text-2xl font-bold">Report #{r.id} · {toolName(r.maker, r.model_code)} · {r.job}</h1>
+        <QueueNav queue={queue} />
+        <h1 className="break-words text-2xl font-bold">Report #{r.id} · {toolName(r.maker, r.model_code)} · {r.job}</h1>
         <p className="text-sm text-stone-600">
-          By {r.reporter} ({TRUST_LABELS[trust]}) · submitted {formatDate(r.submitted_at)} · version {r.version} · status {r.status}
+          By {r.reporter} ({reporterRecord(history)}) · submitted {formatDate(r.submitted_at)} · version {r.version} · status {r.status}
           {accepts > 0 && waiting ? ` · accepted once, waiting for a second look` : ""}
         </p>
         {own && <p role="alert" className="mt-2 rounded bg-amber-100 px-3 py-2">This is your own report: you cannot decide on it.</p>}
@@ -72,16 +78,20 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
         )}
         {claim?.mine && <p className="mt-2 text-sm text-stone-600">Held for you until {until(claim.expiresAt)}.</p>}
         {claim?.alreadyAccepted && waiting && <p className="mt-2 text-sm text-stone-600">You accepted this version; the second look is another moderator's.</p>}
+        {canDecide && <a href="#decide" className="mt-2 inline-flex min-h-11 items-center text-sm text-bay-700 underline lg:hidden">Go to the decision ↓</a>}
         {waiting && free && (
           <Form method="post" className="mt-2 flex flex-wrap items-center gap-3">
-            <button type="submit" name="intent" value="claim" disabled={busy} className="rounded border border-bay-700 px-4 py-2 font-semibold text-bay-700">Start this review</button>
+            <button type="submit" name="intent" value="claim" disabled={busy} className={buttonClass("secondary", "md", "min-h-11")}>Start this review</button>
             <span className="text-sm text-stone-600">Holds the report for you for 15 minutes, so nobody else checks it at the same time.</span>
           </Form>
         )}
       </header>
 
       {actionData && (
-        <p role={actionData.ok ? "status" : "alert"} className={`rounded px-3 py-2 ${actionData.ok ? "bg-bay-100" : "bg-red-100 text-red-900"}`}>{actionData.message}</p>
+        <div role={actionData.ok ? "status" : "alert"} className={`flex flex-wrap items-center justify-between gap-3 rounded px-3 py-2 ${actionData.ok ? "bg-bay-100" : "bg-red-100 text-red-900"}`}>
+          <p>{actionData.message}</p>
+          {actionData.ok && !canDecide && <NextReport queue={queue} />}
+        </div>
       )}
 
       {r.flags.length > 0 && (
@@ -100,8 +110,9 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
       </div>
 
       {canDecide && (
-        <DecisionForm version={r.version} seenDecisions={seenDecisions} media={media} busy={busy} noteError={noteError}
-          note={actionData && "note" in actionData ? String(actionData.note) : undefined} />
+        <DecisionForm version={r.version} seenDecisions={seenDecisions} media={media} busy={busy} noteError={fieldError("note")}
+          note={actionData && "note" in actionData ? String(actionData.note) : undefined}
+          duplicate={r.flags.includes("duplicate_evidence") ? { reports: duplicateOf, error: fieldError("ack_duplicate") } : undefined} />
       )}
 
       <section aria-labelledby="log-heading">
@@ -110,6 +121,24 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
       </section>
     </div>
   );
+}
+
+type Queue = Route.ComponentProps["loaderData"]["queue"];
+
+/** Back to the queue it came from, where it stands there, and the next report. */
+function QueueNav({ queue }: { queue: Queue }) {
+  return (
+    <nav aria-label="Queue" className="flex flex-wrap items-center gap-x-4 text-sm">
+      <Link to={queue.back} className="inline-flex min-h-11 items-center text-bay-700 underline">← Queue</Link>
+      {queue.position && <span className="text-stone-600">{queue.position} of {queue.total} in this queue</span>}
+      {queue.next && <Link to={queue.next} className="inline-flex min-h-11 items-center text-bay-700 underline sm:ml-auto">Skip to the next report →</Link>}
+    </nav>
+  );
+}
+
+function NextReport({ queue }: { queue: Queue }) {
+  if (!queue.next) return <Link to={queue.back} className={buttonClass("primary", "md", "min-h-11")}>Nothing further in this queue: back to it</Link>;
+  return <Link to={queue.next} className={buttonClass("primary", "md", "min-h-11")}>Next report →</Link>;
 }
 
 export function meta({ data }: Route.MetaArgs) {

@@ -1,5 +1,6 @@
 import { requireRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
+import { WorkloadWeeks } from "~/components/review/workload-weeks";
 import { DataTable } from "~/components/ui";
 import { db } from "~/db.server";
 import { reviewStats } from "~/moderation/queue.server";
@@ -12,7 +13,6 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export default function ReviewStats({ loaderData }: Route.ComponentProps) {
   const { weeks, medianHours, perModerator } = loaderData;
-  const max = Math.max(1, ...weeks.map((w) => Math.max(w.backlog, w.submitted, w.decided)));
   const moderators = [...new Set(perModerator.map((r) => r.moderator))];
   const modWeeks = [...new Set(perModerator.map((r) => r.week))];
   return (
@@ -21,23 +21,7 @@ export default function ReviewStats({ loaderData }: Route.ComponentProps) {
       <p>Median time from submission to decision, last 90 days: <strong>{medianHours.hours == null ? "—" : `${medianHours.hours.toFixed(1)} hours`}</strong> ({medianHours.n} decisions).</p>
       <section aria-labelledby="weeks-heading">
         <h2 id="weeks-heading" className="mb-2 text-lg font-semibold">Queue by week (last 12 weeks)</h2>
-        <DataTable label="Queue by week" head={
-          <tr><th className="px-3 py-2 text-left">Week of</th><th className="px-3 py-2 text-left">Waiting at week's end</th><th className="px-3 py-2 text-right">Submitted</th><th className="px-3 py-2 text-right">Decided</th></tr>
-        }>
-            {weeks.map((w) => (
-              <tr key={w.week}>
-                <td className="px-3 py-1.5">{w.week}</td>
-                <td className="px-3 py-1.5">
-                  <div className="flex items-center gap-2">
-                    <div className="h-2 rounded bg-bay-600" style={{ width: `${(100 * w.backlog) / max}%`, minWidth: 2 }} aria-hidden />
-                    {w.backlog}
-                  </div>
-                </td>
-                <td className="px-3 py-1.5 text-right">{w.submitted}</td>
-                <td className="px-3 py-1.5 text-right">{w.decided}</td>
-              </tr>
-            ))}
-        </DataTable>
+        <WorkloadWeeks weeks={weeks} />
       </section>
       <section aria-labelledby="mods-heading">
         <h2 id="mods-heading" className="mb-2 text-lg font-semibold">Decisions per moderator per week</h2>

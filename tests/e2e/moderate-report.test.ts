@@ -1,6 +1,7 @@
 // Two moderators and a reporter: the oldest flagged report is opened, its video played, the
 // checklist ticked and the report accepted; a second moderator gives the second look; the report
-// is then public on its model page and the reporter's mail is in the mail catcher.
+// is then public on its model page and the reporter's mail is in the mail catcher. After the first
+// accept, "Next report" opens the next report of the same filtered queue.
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import type { Page } from "playwright-core";
@@ -16,6 +17,7 @@ const baseUrl = inject("baseUrl");
 const db = testDb();
 const browser = sharedBrowser();
 let reportId: number;
+let nextId: number;
 let reporterEmail: string;
 const clip = readFileSync(path.resolve(import.meta.dirname, "../../seeds/media/demo-clip.webm"));
 
@@ -31,6 +33,13 @@ beforeAll(async () => {
   const res = await reporter.post(`/reports/${reportId}/edit`, { ...validReport(), reportId: String(reportId) });
   expect(res.status).toBe(302);
   await db.updateTable("reports").set({ submitted_at: new Date("2024-06-01T08:00:00Z") }).where("id", "=", reportId).execute();
+
+  // Another new reporter's first report, a second after it: next in the same flagged queue.
+  const nextEmail = `e2e-next-${stamp}@demo.bayproof.test`;
+  await db.insertInto("users").values({ email: nextEmail, handle: `e2n-${stamp.slice(-8)}` }).execute();
+  const next = await (await signedInAs(db, nextEmail)).post("/reports/new", validReport());
+  nextId = Number(next.headers.get("location")!.match(/submitted=(\d+)/)![1]);
+  await db.updateTable("reports").set({ submitted_at: new Date("2024-06-01T08:00:01Z") }).where("id", "=", nextId).execute();
 });
 afterAll(() => db.destroy());
 
@@ -52,6 +61,9 @@ async function acceptOldest(page: Page, reason: string) {
   for (const box of await page.locator("input[type=checkbox][name^=check_]").all()) await box.check();
   await page.locator("input[name^=evidence_][value=verified]").first().check();
   await page.locator("input[name=action][value=accept]").check();
+  // The demo clip is on other reports too: the duplicate-evidence flag asks to be acknowledged.
+  const duplicate = page.locator("input[name=ack_duplicate]");
+  if (await duplicate.count()) await duplicate.check();
   await page.locator("select[name=reasonCode]").selectOption(reason);
   await page.getByRole("button", { name: "Record the decision" }).click();
 }
@@ -63,6 +75,9 @@ describe("moderating a report", () => {
     await signIn(first.page, /mod-harriet/);
     await acceptOldest(first.page, "evidence_clear");
     await first.page.getByText(/needs a second look from another moderator/).waitFor();
+    await first.page.getByRole("link", { name: "Next report →" }).click();
+    await first.page.getByRole("heading", { name: new RegExp(`Report #${nextId}`) }).waitFor();
+    expect(new URL(first.page.url()).search).toBe("?flag=first_report"); // still the same filtered queue
     first.assertClean();
     await first.close();
 

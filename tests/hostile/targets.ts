@@ -6,6 +6,7 @@ import fc from "fast-check";
 import type { z } from "zod";
 import { accountSchema, emailSchema, roleSchema, unitsSchema, userSearchSchema } from "../../app/auth/forms";
 import { claimSchema, decisionFields } from "../../app/moderation/decision-form";
+import { queueFilterSchema } from "../../app/moderation/queue-filter";
 import { reportFields } from "../../app/reports/form-schema";
 import { validReport } from "../support/reports";
 
@@ -108,6 +109,8 @@ export const QUERY_TARGETS: QueryTarget[] = [
   { kind: "query", path: () => "/jobs/ball-joint-separation", fields: ["reg", "hid", "hlen", "cc", "cp", "bits", "page"], who: ["anonymous"] },
   { kind: "query", path: () => "/admin/users", fields: fieldsOf(userSearchSchema), who: ["admin", "moderator"] },
   { kind: "query", path: () => "/me/reports", fields: ["submitted", "withdrawn"], who: SIGNED_IN },
+  { kind: "query", path: () => "/review", fields: [...fieldsOf(queueFilterSchema), "report"], who: ["moderator", "admin"] },
+  { kind: "query", path: (own) => `/review/${own.submittedReport}`, fields: fieldsOf(queueFilterSchema), who: ["moderator"] },
   { kind: "query", path: () => "/models", fields: ["category", "shank", "page", "sort"], who: ["anonymous"] },
   { kind: "query", path: () => "/sign-in", fields: ["redirectTo"], who: ["anonymous"] },
   { kind: "query", path: () => "/sign-in/link", fields: ["token", "redirectTo"], who: ["anonymous"] },

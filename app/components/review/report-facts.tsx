@@ -38,10 +38,13 @@ export function ReportFacts({ review, units }: { review: Pick<ReviewData, "repor
         <>
           <h3 className="mt-3 font-semibold">Changed since the previous version</h3>
           <ul className="text-sm">
-            {changes.map((c) => <li key={c.field}><span className="font-semibold">{c.field.replaceAll("_", " ")}</span>: {String(c.before ?? "—")} → {String(c.after ?? "—")}</li>)}
+            {changes.map((c) => <li key={c.field}><span className="font-semibold">{c.field.replaceAll("_", " ")}</span>: {shown(c.before)} → {shown(c.after)}</li>)}
           </ul>
         </>
       )}
     </section>
   );
 }
+
+/** A stored value as the moderator reads it. */
+const shown = (v: unknown) => (v == null || v === "" ? "—" : typeof v === "string" ? v : JSON.stringify(v));
