@@ -57,3 +57,19 @@ export function rangeShort(range: Range, unit: string): string {
 
 /** Pressures are checked in kPa whatever the unit typed, and say so: "Between 0 and 2,000 kPa (290 psi)". */
 export const PRESSURE_RANGE_MESSAGE = `${rangeMessage(RANGES.gaugePressure, "kPa")} (${RANGES.gaugePressure.stated.psi[1]} psi)`;
+
+/**
+ * Decimal places a report's SI value is stored with: the precision it is entered at, so the open feed
+ * publishes 661.9, not 661.9000000000001. Bores keep 0.001 mm so a trade fraction stays exact
+ * (3/8 in = 9.525 mm); times are whole seconds.
+ */
+export const STORED_DECIMALS = {
+  regulator_kpa: 1, inlet_kpa: 1, hose_id_mm: 3, attachment_length_mm: 1,
+  hose_length_m: 2, compressor_lps: 2, tank_l: 1, time_to_result_s: 0,
+} as const;
+
+/** Rounds half away from zero at `decimals` places on the decimal digits (9.525 → 9.53), not on the binary value. */
+export function roundDecimals(value: number, decimals: number): number {
+  const sign = value < 0 ? -1 : 1;
+  return sign * Number(`${Math.round(Number(`${Math.abs(value)}e${decimals}`))}e-${decimals}`);
+}

@@ -5,7 +5,7 @@ import { z } from "zod";
 import {
   CORROSION_LEVELS, COUPLER_PROFILES, INLET_SOURCES, LENGTH_UNITS, type Range, RANGES, OUTCOMES, parseDuration, parseMeasure,
   PRESSURE_RANGE_MESSAGE, PRESSURE_UNITS, pressureToKpa, kpaTo, type LengthUnit, type PressureUnit, rangeMessage, slugField,
-  SYSTEM_UNITS, fromSi, toSi, VEHICLE_CLASSES, inRange,
+  SYSTEM_UNITS, fromSi, toSi, VEHICLE_CLASSES, inRange, roundDecimals, STORED_DECIMALS,
 } from "~/domain";
 import { GAUGE_ERROR_KPA } from "~/moderation/flags";
 import { plainText } from "~/utils/text";
@@ -109,6 +109,7 @@ export type ReportColumns = Pick<Report,
 export function toColumns(v: Partial<Fields>): ReportColumns {
   const lu = v.lu ?? "in";
   const pu = v.pu ?? "psi";
+  const stored = (column: keyof typeof STORED_DECIMALS, x: number | null) => (x == null ? null : roundDecimals(x, STORED_DECIMALS[column]));
   const kpa = (x: number | undefined) => (x == null ? null : pressureToKpa(x, pu));
   const si = (key: keyof typeof MEASURED) => { const x = v[key]; return x == null ? null : toSi(MEASURED[key].quantity, x, lu); };
   return {
@@ -116,16 +117,16 @@ export function toColumns(v: Partial<Fields>): ReportColumns {
     component_age_years: v.componentAge ?? null,
     corrosion_level: v.corrosion ?? null,
     attachment: v.attachment || null,
-    attachment_length_mm: si("attachmentLength"),
-    regulator_kpa: kpa(v.regulator),
-    inlet_kpa: kpa(v.inlet),
+    attachment_length_mm: stored("attachment_length_mm", si("attachmentLength")),
+    regulator_kpa: stored("regulator_kpa", kpa(v.regulator)),
+    inlet_kpa: stored("inlet_kpa", kpa(v.inlet)),
     inlet_source: v.inletSource ?? null,
-    hose_id_mm: si("hoseId"),
-    hose_length_m: si("hoseLength"),
+    hose_id_mm: stored("hose_id_mm", si("hoseId")),
+    hose_length_m: stored("hose_length_m", si("hoseLength")),
     coupler_profile: v.couplerProfile ?? null,
     coupler_count: v.couplerCount ?? null,
-    compressor_lps: si("compressor"),
-    tank_l: si("tank"),
+    compressor_lps: stored("compressor_lps", si("compressor")),
+    tank_l: stored("tank_l", si("tank")),
     outcome: v.outcome ?? null,
     time_to_result_s: v.time == null ? null : Math.round(v.time),
     attempts: v.attempts ?? null,

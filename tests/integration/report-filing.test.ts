@@ -93,16 +93,17 @@ describe("drafts and submission", () => {
     const id = Number(res.headers.get("location")!.match(/submitted=(\d+)/)![1]);
     const row = await db.selectFrom("reports").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
     expect(row.status).toBe("submitted");
-    // 92 psi × 6.894757 kPa/psi (NIST SP 811); 3/8 in × 25.4 mm; 50 ft × 0.3048 m; 60 US gal × 3.785411784 l
-    expect(row.inlet_kpa).toBeCloseTo(634.3176, 3);
+    // 92 psi × 6.894757 kPa/psi (NIST SP 811); 3/8 in × 25.4 mm; 50 ft × 0.3048 m; 60 US gal × 3.785411784 l,
+    // stored at the precision they are entered at (0.1 kPa, 0.001 mm, 0.01 m, 0.1 l): 634.3176 → 634.3, 227.1247 → 227.1
+    expect(row.inlet_kpa).toBe(634.3);
     expect(row.hose_id_mm).toBeCloseTo(9.525, 6);
     expect(row.hose_length_m).toBeCloseTo(15.24, 6);
-    expect(row.tank_l).toBeCloseTo(227.1247, 3);
+    expect(row.tank_l).toBe(227.1);
     expect(row.time_to_result_s).toBe(45);
     expect(row.flags).toEqual(expect.arrayContaining(["no_evidence"]));
     const snapshot = await db.selectFrom("report_versions").select(["version", "snapshot"]).where("report_id", "=", id).executeTakeFirstOrThrow();
     expect(snapshot.version).toBe(1);
-    expect((snapshot.snapshot as { inlet_kpa: number }).inlet_kpa).toBeCloseTo(634.3176, 3);
+    expect((snapshot.snapshot as { inlet_kpa: number }).inlet_kpa).toBe(634.3);
     const mine = await (await reporter.get("/me/reports")).text();
     expect(mine).toMatch(new RegExp(`#(<!-- -->)?${id}<`));
     expect(mine).toContain("Waiting for a moderator");

@@ -10,7 +10,8 @@ import {
 } from "~/domain";
 import { REPORT_FIELDS } from "~/feed/fields";
 import { jsonSchema } from "~/feed/schemas";
-import { reportFields, reportSchema } from "~/reports/form-schema";
+import { reportFields, reportSchema, toColumns } from "~/reports/form-schema";
+import { roundDecimals, STORED_DECIMALS } from "~/domain";
 
 type Json = { minimum?: number; exclusiveMinimum?: number; maximum?: number; enum?: unknown[]; pattern?: string; type: unknown };
 const published = (jsonSchema("report", "https://bayproof.test").properties as Record<string, Json>);
@@ -127,5 +128,25 @@ describe("one way to name and show things", () => {
     expect(formatPressure(620.5, "psi")).toBe("90 psi");
     expect(formatPressure(620.5, "kPa")).toBe("621 kPa");
     expect(formatPressure(620.5, "bar")).toBe("6.2 bar");
+  });
+});
+
+describe("stored precision", () => {
+  it("rounds on the decimal digits, half away from zero, and keeps trade fractions exact", () => {
+    // 9.525 is 3/8 in in mm (1 in = 25.4 mm, NIST SP 811, exact); its binary value is 9.52499…, which toFixed(2) would round down.
+    expect(roundDecimals(9.525, 2)).toBe(9.53);
+    expect(roundDecimals(9.525, STORED_DECIMALS.hose_id_mm)).toBe(9.525);
+    expect(roundDecimals(661.9000000000001, STORED_DECIMALS.regulator_kpa)).toBe(661.9);
+    expect(roundDecimals(7.6000000000000005, STORED_DECIMALS.hose_length_m)).toBe(7.6);
+    expect(roundDecimals(-1.25, 1)).toBe(-1.3);
+  });
+
+  it("a report form's SI columns carry no float noise", () => {
+    const columns = toColumns({ pu: "psi", lu: "in", regulator: 96, inlet: 92, hoseId: 0.375, hoseLength: 25, tank: 60 });
+    expect(columns.regulator_kpa).toBe(661.9);
+    expect(columns.inlet_kpa).toBe(634.3);
+    expect(columns.hose_id_mm).toBe(9.525);
+    expect(columns.hose_length_m).toBe(7.62);
+    expect(columns.tank_l).toBe(227.1);
   });
 });
