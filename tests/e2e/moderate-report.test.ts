@@ -63,7 +63,7 @@ describe("moderating a report", () => {
     await signIn(first.page, /mod-harriet/);
     await acceptOldest(first.page, "evidence_clear");
     await first.page.getByText(/needs a second look from another moderator/).waitFor();
-    first.assertClean();
+    await first.assertClean();
     await first.close();
 
     const second = await newCheckedPage(browser());
@@ -74,7 +74,7 @@ describe("moderating a report", () => {
     await second.page.goto(`${baseUrl}/models/brackwater-bh-150`);
     const newest = second.page.locator("section[aria-labelledby=reports-heading] li").first();
     expect(await newest.innerText()).toMatch(/by e2e-\d{8}/);
-    second.assertClean();
+    await second.assertClean();
     await second.close();
 
     const mail = await latestMailTo(reporterEmail, since, 30_000);

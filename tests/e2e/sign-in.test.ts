@@ -18,7 +18,7 @@ describe("signing in", () => {
 
     await page.getByRole("button", { name: "Sign out" }).first().click();
     await page.getByRole("link", { name: "Sign in" }).waitFor();
-    assertClean();
+    await assertClean();
     await close();
   });
 
@@ -38,7 +38,7 @@ describe("signing in", () => {
 
     await page.goto(`${baseUrl}/admin/users`);
     await page.getByRole("heading", { name: "Users and roles" }).waitFor();
-    assertClean();
+    await assertClean();
     await close();
   });
 });
