@@ -25,8 +25,12 @@ export const middleware: Route.MiddlewareFunction[] = [
   async ({ request, context }, next) => {
     const nonce = newNonce();
     context.set(nonceContext, nonce);
-    const response = crossSiteRefusal(request) ?? refuseUnreadableRequest(request) ?? (await servingRequest(request, () => withSessions(db, next)));
-    if (response.status === 503 && !response.headers.has("Retry-After")) response.headers.set("Retry-After", RETRY_AFTER_SECONDS);
+    const response =
+      crossSiteRefusal(request) ??
+      refuseUnreadableRequest(request) ??
+      (await servingRequest(request, () => withSessions(db, next)));
+    if (response.status === 503 && !response.headers.has("Retry-After"))
+      response.headers.set("Retry-After", RETRY_AFTER_SECONDS);
     applySecurityHeaders(response.headers, nonce, import.meta.env.DEV);
     return response;
   },
@@ -115,24 +119,51 @@ function SiteHeader() {
           }}
           className={`${open ? "flex" : "hidden"} w-full flex-col gap-1 pb-2 text-sm font-semibold md:ml-auto md:flex md:w-auto md:flex-row md:flex-wrap md:pb-0`}
         >
-          <NavLink to="/models" className={link}>Tools</NavLink>
-          <NavLink to="/jobs" className={link}>Jobs</NavLink>
-          <NavLink to="/air" className={link}>Air</NavLink>
-          {user?.isModerator && <NavLink to="/review" className={link}>Review</NavLink>}
-          {user?.isAdmin && <NavLink to="/admin/users" className={link}>Users</NavLink>}
-          {user?.isAdmin && <NavLink to="/admin/jobs" className={link}>Stuck work</NavLink>}
+          <NavLink to="/models" className={link}>
+            Tools
+          </NavLink>
+          <NavLink to="/jobs" className={link}>
+            Jobs
+          </NavLink>
+          <NavLink to="/air" className={link}>
+            Air
+          </NavLink>
+          {user?.isModerator && (
+            <NavLink to="/review" className={link}>
+              Review
+            </NavLink>
+          )}
+          {user?.isAdmin && (
+            <NavLink to="/admin/users" className={link}>
+              Users
+            </NavLink>
+          )}
+          {user?.isAdmin && (
+            <NavLink to="/admin/jobs" className={link}>
+              Stuck work
+            </NavLink>
+          )}
           {user ? (
             <>
-              <NavLink to="/me/reports" className={link}>My reports</NavLink>
-              <NavLink to="/account" className={link}>{user.handle}</NavLink>
+              <NavLink to="/me/reports" className={link}>
+                My reports
+              </NavLink>
+              <NavLink to="/account" className={link}>
+                {user.handle}
+              </NavLink>
               <Form method="post" action="/sign-out">
-                <button type="submit" className="flex min-h-11 w-full items-center rounded px-3 text-bay-50 hover:bg-bay-700">
+                <button
+                  type="submit"
+                  className="flex min-h-11 w-full items-center rounded px-3 text-bay-50 hover:bg-bay-700"
+                >
                   Sign out
                 </button>
               </Form>
             </>
           ) : (
-            <NavLink to="/sign-in" className={link}>Sign in</NavLink>
+            <NavLink to="/sign-in" className={link}>
+              Sign in
+            </NavLink>
           )}
         </nav>
       </div>
@@ -145,7 +176,9 @@ function SiteFooter() {
     <footer className="mx-auto max-w-5xl px-4 pb-8 pt-4 text-sm text-stone-700">
       Bayproof records what technicians report from real jobs. Follow the tool maker's instructions, local codes and
       licensed practice; wear eye and hearing protection around air tools.{" "}
-      <Link to="/data" className="underline">Open data (CC BY 4.0)</Link>
+      <Link to="/data" className="underline">
+        Open data (CC BY 4.0)
+      </Link>
     </footer>
   );
 }

@@ -13,7 +13,12 @@ export async function landingPath(db: Db, userId: number, redirectTo: unknown): 
     .where("role", "in", ["moderator", "admin"])
     .executeTakeFirst();
   if (moderator) return "/review";
-  const filed = await db.selectFrom("reports").select("id").where("reporter_id", "=", userId).limit(1).executeTakeFirst();
+  const filed = await db
+    .selectFrom("reports")
+    .select("id")
+    .where("reporter_id", "=", userId)
+    .limit(1)
+    .executeTakeFirst();
   return filed ? "/me/reports" : "/reports/new";
 }
 

@@ -46,7 +46,10 @@ async function tour(page: Page, paths: string[]) {
 }
 
 describe("every page passes axe at WCAG 2.2 AA", () => {
-  for (const [name, viewport] of [["phone", PHONE], ["desktop", DESKTOP]] as const) {
+  for (const [name, viewport] of [
+    ["phone", PHONE],
+    ["desktop", DESKTOP],
+  ] as const) {
     it(`public pages on a ${name}`, async () => {
       const { page, assertClean, close } = await newCheckedPage(browser(), viewport);
       const untitled = await tour(page, publicPages);
@@ -65,7 +68,12 @@ describe("every page passes axe at WCAG 2.2 AA", () => {
 
     const moderator = await newCheckedPage(browser(), PHONE);
     await signInPage(moderator.page, "moderator@demo.bayproof.test");
-    const firstReport = await db.selectFrom("reports").select("id").where("status", "=", "accepted").orderBy("id").executeTakeFirstOrThrow();
+    const firstReport = await db
+      .selectFrom("reports")
+      .select("id")
+      .where("status", "=", "accepted")
+      .orderBy("id")
+      .executeTakeFirstOrThrow();
     untitled.push(...(await tour(moderator.page, ["/review", "/review/stats", `/reports/${firstReport.id}/history`])));
     await moderator.assertClean();
     await moderator.close();

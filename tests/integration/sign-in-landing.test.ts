@@ -17,7 +17,11 @@ describe("landing after sign-in", () => {
   it("sends a technician who has filed to their reports, and a new one to a first report", async () => {
     expect(await landingPath(db, await idOf("reporter@demo.bayproof.test"), "")).toBe("/me/reports");
     const email = `landing-${Date.now()}@demo.bayproof.test`;
-    const [user] = await db.insertInto("users").values({ email, handle: `land-${String(Date.now()).slice(-8)}` }).returning("id").execute();
+    const [user] = await db
+      .insertInto("users")
+      .values({ email, handle: `land-${String(Date.now()).slice(-8)}` })
+      .returning("id")
+      .execute();
     expect(await landingPath(db, user!.id, null)).toBe("/reports/new");
   });
 

@@ -6,8 +6,13 @@ import { afterAll, beforeAll } from "vitest";
 import { CHROMIUM } from "./system";
 
 export const CHROMIUM_FLAGS = [
-  "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking",
-  "--disable-component-update", "--disable-sync", "--no-first-run",
+  "--headless",
+  "--no-sandbox",
+  "--disable-gpu",
+  "--disable-background-networking",
+  "--disable-component-update",
+  "--disable-sync",
+  "--no-first-run",
 ];
 
 export async function launchBrowser(): Promise<Browser> {
@@ -39,14 +44,19 @@ export async function accessibilityProblems(page: Page): Promise<string[]> {
   return results.violations
     .filter((v) => FAILING_IMPACTS.has(v.impact ?? ""))
     .map((v) => {
-      const where = v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(" | ");
+      const where = v.nodes
+        .slice(0, 3)
+        .map((n) => n.target.join(" "))
+        .join(" | ");
       return `axe ${v.impact} ${v.id} on ${page.url()} (${v.nodes.length}): ${v.help} — ${where}`;
     });
 }
 
 /** A page moved on or closed while axe ran (axe's script then vanishes with the old document). */
 const pageMovedOn = (err: unknown) =>
-  /Execution context was destroyed|closed|frame was detached|navigat|reading 'run'|axe is not defined/i.test(String(err));
+  /Execution context was destroyed|closed|frame was detached|navigat|reading 'run'|axe is not defined/i.test(
+    String(err),
+  );
 
 export async function newCheckedPage(browser: Browser, viewport = { width: 1280, height: 900 }) {
   const context = await browser.newContext({ viewport });
