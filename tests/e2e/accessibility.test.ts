@@ -2,7 +2,7 @@
 // newCheckedPage() runs axe (WCAG 2.2 AA) on every page state; a serious or critical finding fails.
 import type { Page } from "playwright-core";
 import { afterAll, describe, expect, inject, it } from "vitest";
-import { newCheckedPage, sharedBrowser } from "../support/browser";
+import { accessibilityProblems, newCheckedPage, sharedBrowser } from "../support/browser";
 import { testDb } from "../support/db";
 import { signedInAs } from "../support/http";
 
@@ -26,7 +26,6 @@ const publicPages = [
   "/search?q=zzzz-nothing-matches",
   "/sign-in",
   "/data",
-  "/no-such-page",
 ];
 
 async function signInPage(page: Page, email: string) {
@@ -58,6 +57,16 @@ describe("every page passes axe at WCAG 2.2 AA", () => {
       await close();
     });
   }
+
+  it("the not-found page", async () => {
+    // Not a checked page: Chromium logs the 404 document itself as a console error.
+    const { page, close } = await newCheckedPage(browser(), PHONE);
+    const response = await page.goto(`${baseUrl}/no-such-page`);
+    expect(response?.status()).toBe(404);
+    expect(await page.title()).toMatch(/Not found/);
+    expect(await accessibilityProblems(page)).toEqual([]);
+    await close();
+  });
 
   it("a reporter's and a moderator's pages on a phone", async () => {
     const reporter = await newCheckedPage(browser(), PHONE);

@@ -72,30 +72,33 @@ export async function newCheckedPage(browser: Browser, viewport = { width: 1280,
   page.on("pageerror", (err) => problems.push(`page error: ${err.message}`));
 
   // Every page state the test reaches is checked: each navigation of the main frame (full loads and
-  // client-side ones) queues an axe run once the page has loaded, and assertClean() checks the last one.
+  // client-side ones) queues an axe run once the page has loaded, and page.goto() waits for the
+  // queued runs first, so a tour of addresses checks each one before leaving it.
   const seen = new Set<string>();
   let checks: Promise<void> = Promise.resolve();
   const check = async () => {
-    // A state that moves on while axe runs is tried again as the page now stands.
-    for (let attempt = 1; attempt <= 3 && !page.isClosed(); attempt++) {
-      try {
-        await page.waitForLoadState("load");
-        // One frame after load, so React has painted the route the address now names.
-        await page.evaluate(() => new Promise((done) => requestAnimationFrame(() => done(null))));
-        for (const line of await accessibilityProblems(page)) {
-          if (!seen.has(line)) problems.push(line);
-          seen.add(line);
-        }
-        return;
-      } catch (err) {
-        if (page.isClosed()) return;
-        if (!pageMovedOn(err) || attempt === 3) problems.push(`axe could not run on ${page.url()}: ${String(err)}`);
+    if (page.isClosed()) return;
+    try {
+      await page.waitForLoadState("load");
+      // One frame after load, so React has painted the route the address now names.
+      await page.evaluate(() => new Promise((done) => requestAnimationFrame(() => done(null))));
+      for (const line of await accessibilityProblems(page)) {
+        if (!seen.has(line)) problems.push(line);
+        seen.add(line);
       }
+    } catch (err) {
+      // A state the test left while axe ran is gone; the state it moved to has a run of its own.
+      if (!page.isClosed() && !pageMovedOn(err)) problems.push(`axe could not run on ${page.url()}: ${String(err)}`);
     }
   };
   page.on("framenavigated", (frame) => {
     if (frame === page.mainFrame() && frame.url() !== "about:blank") checks = checks.then(check);
   });
+  const goto = page.goto.bind(page);
+  page.goto = async (...args) => {
+    await checks;
+    return goto(...args);
+  };
 
   return {
     page,
