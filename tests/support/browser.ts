@@ -104,8 +104,9 @@ export async function newCheckedPage(browser: Browser, viewport = { width: 1280,
     page,
     /** Throws if the page logged an error or failed an accessibility check; await at the end of each test. */
     assertClean: async () => {
+      // Queued behind any run still going: axe runs one at a time in a page.
+      checks = checks.then(check);
       await checks;
-      await check();
       if (problems.length) throw new Error(problems.join("\n"));
     },
     close: async () => {
