@@ -92,7 +92,9 @@ const s = (k: number, one: string, many: string) => (k === 1 ? one : many);
 function rateNote(r: CellRow) {
   return `${plainLine(r.successes, r.n, r.lower, r.upper)} ${level(r.confidence)} Wilson score interval at the effective sample size ${(r.effective_n ?? r.n).toFixed(1)} = n / design effect ${r.design_effect.toFixed(2)} (reports clustered by reporter, ${reporters(r.reporters)}).`
     + (r.set_aside > 0 ? ` ${r.set_aside} ${s(r.set_aside, "report", "reports")} run above the tool's rated inlet pressure ${s(r.set_aside, "is", "are")} listed but set aside from every figure.` : "")
-    + (r.shrunk_estimate != null ? ` Pooled with the other tools on this job (empirical-Bayes beta-binomial): ${pct(r.shrunk_estimate)}.` : "");
+    + (r.shrunk_estimate != null
+      ? ` Pooled with the other tools on this job: ${pct(r.shrunk_estimate)} — the rate pulled toward what all tools do on this job, more so the fewer reports a tool has, so a lucky or unlucky handful of jobs does not read as the whole story (empirical-Bayes beta-binomial).`
+      : "");
 }
 
 function timeNote(r: CellRow) {

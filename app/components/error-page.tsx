@@ -31,6 +31,8 @@ export function ErrorPage({ error }: { error: unknown }) {
   }
   return (
     <Card as="section" padding="lg">
+      {/* React places this in the head: an error page is never an untitled page. */}
+      <title>{`${title} — Bayproof`}</title>
       <h1 className="text-2xl font-bold">{title}</h1>
       <p className="mt-2 text-stone-700">{body}</p>
       {detail && <p className="mt-2 text-stone-700">{detail}</p>}

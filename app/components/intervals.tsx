@@ -29,34 +29,57 @@ export interface ChartRow {
   highlight?: boolean;
 }
 
-/** One row per tool: its name above, point and whisker below, on a shared 0–100 % axis (narrow, so it reads on a phone). */
+const TOP = "#2f6b5f", OTHER = "#44403c", FEW = "#78716c";
+
+/**
+ * One row per tool: its name and count above, point and whisker below, on a shared 0–100 % axis.
+ * Drawn 320 units wide so a phone shows it at full size or larger (text stays at least 12 px);
+ * capped in width on wide screens so it does not grow into a poster.
+ */
 export function IntervalChart({ rows, title }: { rows: ChartRow[]; title: string }) {
-  const rowH = 40, left = 10, right = 14, top = 22, W = 400;
+  const rowH = 50, left = 8, right = 12, top = 24, W = 320;
   const H = top + rows.length * rowH + 6;
   const x = scaleLinear().domain([0, 1]).range([left, W - right]);
   return (
-    <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="interval-chart-title" className="h-auto w-full">
-      <title id="interval-chart-title">{title}</title>
-      {x.ticks(5).map((t) => (
-        <g key={t}>
-          <line x1={x(t)} x2={x(t)} y1={top - 6} y2={H - 4} stroke="#e7e5e4" />
-          <text x={x(t)} y={top - 10} textAnchor="middle" fontSize="11" fill="#57534e">{pct(t)}</text>
-        </g>
-      ))}
-      {rows.map((r, i) => {
-        const y = top + i * rowH;
-        const colour = r.muted ? "#a8a29e" : r.highlight || i === 0 ? "#2f6b5f" : "#44403c";
-        return (
-          <g key={r.key}>
-            <text x={left} y={y + 12} fontSize="12" fill="#1c1917">
-              {r.label}
-              <tspan fontSize="10" fill="#78716c">{`  n = ${r.n}${r.tag ? ` · ${r.tag}` : ""}`}</tspan>
-            </text>
-            <line x1={x(r.lower)} x2={x(r.upper)} y1={y + 26} y2={y + 26} stroke={colour} strokeWidth={3} strokeLinecap="round" />
-            <circle cx={x(r.estimate)} cy={y + 26} r={5} fill={r.muted ? "#fff" : colour} stroke={colour} strokeWidth={2} />
-          </g>
-        );
-      })}
+    <figure className="max-w-xl">
+      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="interval-chart-title" className="h-auto w-full">
+        <title id="interval-chart-title">{title}</title>
+        {[0, 0.25, 0.5, 0.75, 1].map((t) => (
+          <line key={t} x1={x(t)} x2={x(t)} y1={top - 6} y2={H - 4} stroke="#e7e5e4" />
+        ))}
+        {/* Three labels, not five smaller ones. */}
+        {[0, 0.5, 1].map((t) => (
+          <text key={t} x={x(t)} y={top - 10} textAnchor={t === 0 ? "start" : t === 1 ? "end" : "middle"} fontSize="13" fill="#57534e">{pct(t)}</text>
+        ))}
+        {rows.map((r, i) => {
+          const y = top + i * rowH;
+          const colour = r.muted ? FEW : r.highlight || i === 0 ? TOP : OTHER;
+          return (
+            <g key={r.key}>
+              <text x={left} y={y + 13} fontSize="14" fill="#1c1917">{r.label}</text>
+              <text x={W - right} y={y + 13} textAnchor="end" fontSize="13" fill="#57534e">{`${r.n} reports`}</text>
+              <line x1={x(r.lower)} x2={x(r.upper)} y1={y + 32} y2={y + 32} stroke={colour} strokeWidth={3} strokeLinecap="round" />
+              <circle cx={x(r.estimate)} cy={y + 32} r={6} fill={r.muted ? "#fff" : colour} stroke={colour} strokeWidth={2} />
+            </g>
+          );
+        })}
+      </svg>
+      <figcaption className="mt-2">
+        <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-stone-700" aria-label="Key">
+          <li className="flex items-center gap-1"><Swatch colour={TOP} />the top tool, and those not told apart from it</li>
+          <li className="flex items-center gap-1"><Swatch colour={OTHER} />frees it less often than the top tool</li>
+          <li className="flex items-center gap-1"><Swatch colour={FEW} hollow />too few reports to compare</li>
+          <li>Dot: share freed; line: the range it likely lies in.</li>
+        </ul>
+      </figcaption>
+    </figure>
+  );
+}
+
+function Swatch({ colour, hollow = false }: { colour: string; hollow?: boolean }) {
+  return (
+    <svg width="14" height="14" viewBox="0 0 14 14" aria-hidden className="shrink-0">
+      <circle cx="7" cy="7" r="5" fill={hollow ? "#fff" : colour} stroke={colour} strokeWidth="2" />
     </svg>
   );
 }

@@ -30,7 +30,7 @@ export function SnapshotSection({ snapshot, origin }: { snapshot: SnapshotInfo |
               </tr>
             ))}
           </DataTable>
-          <pre className="overflow-x-auto rounded bg-stone-900 p-3 text-xs text-stone-100">{[
+          <pre tabIndex={0} aria-label="Checking a snapshot" className="overflow-x-auto rounded bg-stone-900 p-3 text-xs text-stone-100">{[
             `curl -s -O '${origin}${snapshot.files[0]!.path}'`,
             `echo '${snapshot.files[0]!.sha256}  reports.${snapshot.files[0]!.format}.gz' | sha256sum -c`,
           ].join("\n")}</pre>

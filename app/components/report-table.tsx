@@ -27,7 +27,7 @@ export function ReportList({ reports, units, show = ["tool", "job"] }: { reports
   return (
     <Card as="ul" padding="none" className="divide-y divide-stone-200">
       {reports.map((r) => (
-        <li key={r.id} className="flex flex-col gap-1 p-3 sm:flex-row sm:items-center sm:gap-4">
+        <li key={r.id} id={`report-${r.id}`} className="flex flex-col gap-1 p-3 sm:flex-row sm:items-center sm:gap-4">
           <div className="flex min-w-0 flex-1 flex-col">
             <div className="flex flex-wrap items-center gap-2">
               <OutcomeBadge outcome={r.outcome} />

@@ -15,10 +15,10 @@ export function SearchBox() {
   }, [q, load]);
   const hits = open && q.trim().length >= 2 ? fetcher.data?.hits ?? [] : [];
   return (
-    <Form method="get" action="/search" role="search" className="relative w-full sm:w-64" onSubmit={() => setOpen(false)}>
+    <Form method="get" action="/search" role="search" aria-label="Site search" className="relative w-full" onSubmit={() => setOpen(false)}>
       <input name="q" value={q} onChange={(e) => { setQ(e.target.value); setOpen(true); }} onBlur={(e) => { if (!e.currentTarget.form?.contains(e.relatedTarget)) setOpen(false); }}
         aria-label="Search tools and reports" placeholder="Search tools and reports" autoComplete="off"
-        className="w-full rounded bg-bay-700 px-3 py-2 text-sm text-white placeholder:text-bay-100" />
+        className="min-h-11 w-full rounded bg-bay-700 px-3 py-2 text-sm text-white placeholder:text-bay-100" />
       {hits.length > 0 && (
         <ul className="absolute right-0 z-20 mt-1 w-full min-w-72 rounded border border-stone-300 bg-white text-stone-900 shadow-lg" data-testid="suggestions"
           // Keeps the focus in the box while a suggestion is pressed, so the list stays until the click lands.

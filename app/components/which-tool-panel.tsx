@@ -44,8 +44,8 @@ export function WhichToolPanel({ jobSlug, percussive, values, note, rows, pu }: 
       </Form>
       {note && <p role="alert" className="text-sm text-amber-800">{note}</p>}
       {rows && (
-        <div className="overflow-x-auto">
-          <table className="w-full min-w-[40rem] text-left text-sm">
+        <div className="which-tool-stack sm:overflow-x-auto">
+          <table className="w-full text-left text-sm sm:min-w-[40rem]">
             <thead className="bg-stone-100 text-xs uppercase text-stone-600">
               <tr><th className="px-3 py-2">Tool</th><th className="px-3 py-2">Reaches the tool</th><th className="px-3 py-2">Chance it frees the job there</th><th className="px-3 py-2">Price · weight</th><th className="px-3 py-2">Would also need</th></tr>
             </thead>

@@ -10,6 +10,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const r = await search(db, q, filters, 20, undefined, { facets: false });
   // Many reports of one tool on one job read alike: suggest each destination once.
   const seen = new Set<string>();
-  const hits = r.hits.filter((h) => !seen.has(h.title + h.url) && seen.add(h.title + h.url)).slice(0, 8);
+  const place = (h: { title: string; url: string }) => h.title + h.url.split("#")[0];
+  const hits = r.hits.filter((h) => !seen.has(place(h)) && seen.add(place(h))).slice(0, 8);
   return Response.json({ source: r.source, hits: hits.map((h) => ({ id: h.id, title: h.title, url: h.url, kind: h.kind, detail: h.kind === "report" ? h.job_name : h.category_name })) });
 }

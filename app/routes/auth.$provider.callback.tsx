@@ -1,7 +1,8 @@
 import { redirect } from "react-router";
 import { finishSignIn, getProvider } from "~/auth/oidc.server";
 import { db } from "~/db.server";
-import { createSession, safeRedirectPath } from "~/auth/session.server";
+import { landingPath } from "~/auth/landing.server";
+import { createSession } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
 import { failureAnswer } from "~/utils/errors";
 import { refuse } from "~/utils/http";
@@ -15,7 +16,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     const headers = new Headers();
     headers.append("Set-Cookie", clearCookie);
     headers.append("Set-Cookie", await createSession(db, userId, "oidc", request));
-    return redirect(safeRedirectPath(redirectTo), { headers });
+    return redirect(await landingPath(db, userId, redirectTo), { headers });
   } catch (error) {
     throw failureAnswer(error, "page");
   }

@@ -1,6 +1,6 @@
 import { redirect } from "react-router";
 import { getProvider, startSignIn } from "~/auth/oidc.server";
-import { safeRedirectPath } from "~/auth/session.server";
+import { carriedRedirect } from "~/auth/landing.server";
 import type { Route } from "./+types/auth.$provider";
 import { refuse } from "~/utils/http";
 
@@ -8,7 +8,7 @@ import { refuse } from "~/utils/http";
 export async function loader({ params, request }: Route.LoaderArgs) {
   const provider = getProvider(params.provider);
   if (!provider) refuse(`Unknown sign-in provider "${params.provider.slice(0, 40)}".`);
-  const redirectTo = safeRedirectPath(new URL(request.url).searchParams.get("redirectTo"));
+  const redirectTo = carriedRedirect(new URL(request.url).searchParams.get("redirectTo"));
   const { url, cookie } = await startSignIn(provider, redirectTo);
   return redirect(url, { headers: { "Set-Cookie": cookie } });
 }

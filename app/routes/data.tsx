@@ -77,7 +77,7 @@ export default function Data({ loaderData }: Route.ComponentProps) {
           <li>JSON answers carry an <code>ETag</code>; send it back in <code>If-None-Match</code> and an unchanged answer is a bodiless <code>304</code>. CORS is open for GET.</li>
           <li>A parameter the feed cannot read is a <code>400</code> with <code>{"{ error: { code, message, parameter } }"}</code> — nothing is silently ignored.</li>
         </ul>
-        <pre className="overflow-x-auto rounded bg-stone-900 p-3 text-xs text-stone-100">{[
+        <pre tabIndex={0} aria-label="Example requests" className="overflow-x-auto rounded bg-stone-900 p-3 text-xs text-stone-100">{[
           `# The first page of ball joint reports, then the next one`,
           `curl -s '${origin}/api/v1/reports?job=ball-joint-separation&limit=50'`,
           `curl -s '${origin}/api/v1/reports?job=ball-joint-separation&limit=50&cursor=<next_cursor>'`,

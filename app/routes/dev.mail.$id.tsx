@@ -27,3 +27,7 @@ export default function DevMailMessage({ loaderData }: Route.ComponentProps) {
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
   return <ErrorPage error={error} />;
 }
+
+export function meta() {
+  return [{ title: "A sent message — Bayproof (development)" }];
+}

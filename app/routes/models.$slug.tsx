@@ -67,7 +67,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
           {specs.map((s) => (
             <div key={s.label} className="flex justify-between gap-3 border-b border-stone-100 py-1 text-sm">
               <dt className="text-stone-600">{s.label}</dt>
-              <dd className="text-right">{s.value} <span className="text-xs text-stone-400">({s.source})</span></dd>
+              <dd className="text-right">{s.value} <span className="text-xs text-stone-600">({s.source})</span></dd>
             </div>
           ))}
         </dl>

@@ -113,7 +113,7 @@ export default function Models({ loaderData }: Route.ComponentProps) {
                 {g.headers.map((h) => (
                   <th key={h.id} className="px-3 py-2" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "desc" ? "descending" : "ascending") : undefined}>
                     {h.column.getCanSort() ? (
-                      <button type="button" onClick={h.column.getToggleSortingHandler()} className="uppercase hover:underline">
+                      <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex min-h-11 items-center text-left uppercase hover:underline">
                         {flexRender(h.column.columnDef.header, h.getContext())}{{ asc: " ▲", desc: " ▼" }[h.column.getIsSorted() as string] ?? ""}
                       </button>
                     ) : flexRender(h.column.columnDef.header, h.getContext())}

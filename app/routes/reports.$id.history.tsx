@@ -28,6 +28,10 @@ export default function ReportHistory({ loaderData }: Route.ComponentProps) {
   );
 }
 
+export function meta({ data }: Route.MetaArgs) {
+  return [{ title: data ? `History of report #${data.report.id} — Bayproof` : "Report history — Bayproof" }];
+}
+
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
   return <ErrorPage error={error} />;
 }

@@ -2,7 +2,8 @@ import { Form, redirect } from "react-router";
 import { z } from "zod";
 import { consumeSignInLink } from "~/auth/email-link.server";
 import { db } from "~/db.server";
-import { createSession, safeRedirectPath } from "~/auth/session.server";
+import { carriedRedirect, landingPath } from "~/auth/landing.server";
+import { createSession } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
 import { buttonClass, Card } from "~/components/ui";
 import { readForm } from "~/utils/forms";
@@ -16,7 +17,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const token = tokenSchema.safeParse(url.searchParams.get("token"));
   if (!token.success) refuse("This sign-in link is incomplete. Copy the whole link from the message.");
-  return { token: token.data, redirectTo: safeRedirectPath(url.searchParams.get("redirectTo")) };
+  return { token: token.data, redirectTo: carriedRedirect(url.searchParams.get("redirectTo")) };
 }
 
 const REASONS = {
@@ -33,7 +34,7 @@ export async function action({ request }: Route.ActionArgs) {
   const result = await consumeSignInLink(db, token.data);
   if (!result.ok) refuse(REASONS[result.reason], result.reason === "banned" ? 403 : 400);
   const cookie = await createSession(db, result.userId, "email_link", request);
-  return redirect(safeRedirectPath(form.get("redirectTo")), { headers: { "Set-Cookie": cookie } });
+  return redirect(await landingPath(db, result.userId, form.get("redirectTo")), { headers: { "Set-Cookie": cookie } });
 }
 
 export default function SignInLink({ loaderData }: Route.ComponentProps) {

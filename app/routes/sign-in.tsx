@@ -3,22 +3,24 @@ import { requestSignInLink } from "~/auth/email-link.server";
 import { db } from "~/db.server";
 import { emailSchema } from "~/auth/forms";
 import { providers } from "~/auth/oidc.server";
-import { getUser, safeRedirectPath } from "~/auth/session.server";
+import { carriedRedirect, landingPath } from "~/auth/landing.server";
+import { getUser } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
 import { buttonClass, Card } from "~/components/ui";
 import { type FieldErrors, invalid, parseForm, readForm } from "~/utils/forms";
 import type { Route } from "./+types/sign-in";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const redirectTo = safeRedirectPath(new URL(request.url).searchParams.get("redirectTo"));
-  if (await getUser(request)) throw redirect(redirectTo);
+  const redirectTo = carriedRedirect(new URL(request.url).searchParams.get("redirectTo"));
+  const user = await getUser(request);
+  if (user) throw redirect(await landingPath(db, user.id, redirectTo));
   return { redirectTo, providers: Object.values(providers).map((p) => ({ id: p.id, name: p.name })) };
 }
 
 export async function action({ request }: Route.ActionArgs) {
   const form = parseForm(emailSchema, await readForm(request));
   if (!form.ok) return invalid(form.errors, form.values);
-  const redirectTo = safeRedirectPath(form.data.redirectTo);
+  const redirectTo = carriedRedirect(form.data.redirectTo);
   const result = await requestSignInLink(db, form.data.email, request, redirectTo);
   if (!result.ok && result.reason === "mail_failed") {
     return data(

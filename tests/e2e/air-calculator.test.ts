@@ -31,7 +31,7 @@ describe("the air calculator", () => {
 
     await page.getByLabel("Hose length, ft").fill("-3");
     await page.getByText("More than 0, at most 330 ft").waitFor();
-    assertClean();
+    await assertClean();
     await close();
   });
 

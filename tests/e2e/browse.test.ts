@@ -20,7 +20,7 @@ describe("browsing as a visitor", () => {
     await page.getByRole("heading", { level: 1, name: toolName, exact: true }).waitFor();
     await page.getByRole("heading", { name: "Specifications" }).waitFor();
     await expect(page.getByText("Before you pull the trigger").isVisible()).resolves.toBe(true);
-    assertClean();
+    await assertClean();
     await close();
   });
 
@@ -33,7 +33,7 @@ describe("browsing as a visitor", () => {
     await page.getByRole("link", { name: "Older →" }).click();
     await page.waitForURL(/page=2/);
     await page.getByText(/^Page 2 of \d+$/).waitFor();
-    assertClean();
+    await assertClean();
     await close();
   });
 
@@ -50,7 +50,7 @@ describe("browsing as a visitor", () => {
     expect(rows).toBeGreaterThan(3);
     await page.goBack();
     await page.waitForURL((u) => !u.search.includes("sort="));
-    assertClean();
+    await assertClean();
     await close();
   });
 
@@ -61,7 +61,7 @@ describe("browsing as a visitor", () => {
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
       expect(overflow, path).toBeLessThanOrEqual(0);
     }
-    assertClean();
+    await assertClean();
     await close();
   });
 

@@ -31,7 +31,7 @@ describe("comparing tools", () => {
     await page.getByText(/Newcombe's hybrid score method/).waitFor();
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
-    assertClean();
+    await assertClean();
     await close();
   });
 
@@ -44,7 +44,7 @@ describe("comparing tools", () => {
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     if (process.env.STATS_SCREENSHOT) await page.screenshot({ path: process.env.STATS_SCREENSHOT, fullPage: false });
-    assertClean();
+    await assertClean();
     await close();
   });
 });

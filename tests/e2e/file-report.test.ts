@@ -65,7 +65,7 @@ describe("filing a report from the bay", () => {
     const db = testDb();
     const files = await db.selectFrom("evidence").select("is_public").where("report_id", "=", Number(id)).execute().finally(() => db.destroy());
     expect(files).toEqual([{ is_public: true }]);
-    assertClean();
+    await assertClean();
     await close();
   });
 });

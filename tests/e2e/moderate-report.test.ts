@@ -78,7 +78,7 @@ describe("moderating a report", () => {
     await first.page.getByRole("link", { name: "Next report →" }).click();
     await first.page.getByRole("heading", { name: new RegExp(`Report #${nextId}`) }).waitFor();
     expect(new URL(first.page.url()).search).toBe("?flag=first_report"); // still the same filtered queue
-    first.assertClean();
+    await first.assertClean();
     await first.close();
 
     const second = await newCheckedPage(browser());
@@ -89,7 +89,7 @@ describe("moderating a report", () => {
     await second.page.goto(`${baseUrl}/models/brackwater-bh-150`);
     const newest = second.page.locator("section[aria-labelledby=reports-heading] li").first();
     expect(await newest.innerText()).toMatch(/by e2e-\d{8}/);
-    second.assertClean();
+    await second.assertClean();
     await second.close();
 
     const mail = await latestMailTo(reporterEmail, since, 30_000);

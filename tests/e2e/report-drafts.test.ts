@@ -61,7 +61,7 @@ describe("the report form's checks", () => {
       true,
     );
     expect(page.url()).toBe(`${baseUrl}/reports/new`);
-    assertClean();
+    await assertClean();
     await close();
   });
 });
@@ -124,7 +124,7 @@ describe("drafts", () => {
     await hydrated(page);
     expect(await page.getByText("Continue where you left off").count()).toBe(0);
     expect(errors).toEqual([]);
-    assertClean();
+    await assertClean();
     await close();
   });
 });

@@ -141,7 +141,7 @@ describe("filing a report with the keyboard at phone width", () => {
     const text = await card.innerText();
     expect(text).toContain("Brackwater Pneumatics BH-150");
     expect(text).toContain("1 files");
-    assertClean();
+    await assertClean();
     await close();
   });
 });

@@ -18,7 +18,7 @@ describe("signing in", () => {
 
     await page.getByRole("button", { name: "Sign out" }).first().click();
     await page.getByRole("link", { name: "Sign in" }).waitFor();
-    assertClean();
+    await assertClean();
     await close();
   });
 
@@ -33,12 +33,15 @@ describe("signing in", () => {
     await page.getByRole("link", { name: /Your Bayproof sign-in link.*admin@demo\.bayproof\.test/ }).first().click();
     await page.getByRole("link", { name: /\/sign-in\/link\?token=/ }).click();
     await page.getByRole("button", { name: "Sign in" }).click();
+    // Issue 18: with no page asked for, a moderator lands on the review queue.
+    await page.getByRole("heading", { name: "Review queue" }).waitFor();
+    await page.goto(`${baseUrl}/account`);
     await page.getByRole("heading", { name: "Your account" }).waitFor();
     expect(await page.locator("input[name=handle]").inputValue()).toBe("admin-bertil");
 
     await page.goto(`${baseUrl}/admin/users`);
     await page.getByRole("heading", { name: "Users and roles" }).waitFor();
-    assertClean();
+    await assertClean();
     await close();
   });
 });

@@ -90,10 +90,11 @@ describe("sign-in by e-mail link", () => {
     const since = Date.now();
     expect((await client.post("/sign-in", { email: address, redirectTo: "/\t/evil.example/" })).status).toBe(200);
     const link = new URL(linkIn((await latestMailTo(address, since)).text ?? "")!);
-    expect(link.searchParams.get("redirectTo")).toBe("/account");
+    // The hostile path is dropped: the link carries none, and the new technician lands on a new report.
+    expect(link.searchParams.get("redirectTo")).toBe("");
     // A forged confirmation form carrying the hostile path itself is refused the same way.
     const done = await client.post("/sign-in/link", { token: link.searchParams.get("token")!, redirectTo: "/\t/evil.example/" });
     expect(done.status).toBe(302);
-    expect(done.headers.get("location")).toBe("/account");
+    expect(done.headers.get("location")).toBe("/reports/new");
   });
 });
