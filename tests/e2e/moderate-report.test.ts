@@ -75,7 +75,7 @@ describe("moderating a report", () => {
     await signIn(first.page, /mod-harriet/);
     await acceptOldest(first.page, "evidence_clear");
     await first.page.getByText(/needs a second look from another moderator/).waitFor();
-    await first.page.getByRole("link", { name: "Next report →" }).click();
+    await first.page.getByRole("link", { name: "Next report →", exact: true }).click();
     await first.page.getByRole("heading", { name: new RegExp(`Report #${nextId}`) }).waitFor();
     expect(new URL(first.page.url()).search).toBe("?flag=first_report"); // still the same filtered queue
     await first.assertClean();
