@@ -1,7 +1,6 @@
 import { Link } from "react-router";
-import type { StatsCell } from "../../db/schema";
 import { formatDuration } from "~/domain";
-import { FEW_REPORTS } from "~/stats/cells";
+import { FEW_REPORTS, type StatsCell } from "~/stats/cells";
 import { IntervalBar, pct, plainLine } from "./intervals";
 
 export type CellRow = Pick<StatsCell,

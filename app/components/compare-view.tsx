@@ -1,8 +1,7 @@
 // The compare page's parts: the chooser, the pairs (the same rule as the job page), the tools
 // against the top tool of the job, and the figures at a chosen inlet pressure worked out in the browser.
 import { Form, Link } from "react-router";
-import { psiToKpa } from "~/domain";
-import { formatDuration } from "~/domain";
+import { formatDuration, psiToKpa } from "~/domain";
 import { predictAt, type PooledCellFit } from "~/stats/pressure";
 import { MARK_LABELS, type Mark } from "~/stats/standings";
 import { pct, prob } from "./intervals";

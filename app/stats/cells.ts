@@ -6,6 +6,9 @@ import { medianInterval } from "./median";
 import { REFERENCE_INLET_KPA } from "./pressure";
 import { kaplanMeier } from "./survival";
 
+/** A stored cell as the pages read it (the `stats_cells` row). */
+export type { StatsCell } from "../../db/schema";
+
 export { predictAt, pressureX, REFERENCE_INLET_KPA, type PooledCellFit } from "./pressure";
 export { FEW_REPORTS } from "./standings";
 
