@@ -38,7 +38,8 @@ if (!config?.listen) throw new Error("app/entry.server.tsx must export config");
 const handle = createRequestHandler(build, config.mode);
 
 const STATIC_HEADERS = {
-  "Content-Security-Policy": "default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'",
+  "Content-Security-Policy":
+    "default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'",
   "X-Content-Type-Options": "nosniff",
   ...(config.appOrigin.startsWith("https://") ? { "Strict-Transport-Security": HSTS } : {}),
 };
@@ -46,8 +47,13 @@ const STATIC_HEADERS = {
 /** A 400 with a reason: the feed's JSON error under /api/v1, JSON under /api/, plain text elsewhere. */
 function badPath(req, res) {
   const message = "The address is not valid: it has a broken %-escape.";
-  res.status(400).set({ "Cache-Control": "no-store", "Content-Security-Policy": "default-src 'none'", "X-Content-Type-Options": "nosniff" });
-  if (/^\/api\/v1(\/|$)/.test(req.path)) return res.set("Access-Control-Allow-Origin", "*").json({ error: { code: "invalid_path", message } });
+  res.status(400).set({
+    "Cache-Control": "no-store",
+    "Content-Security-Policy": "default-src 'none'",
+    "X-Content-Type-Options": "nosniff",
+  });
+  if (/^\/api\/v1(\/|$)/.test(req.path))
+    return res.set("Access-Control-Allow-Origin", "*").json({ error: { code: "invalid_path", message } });
   if (req.path.startsWith("/api/")) return res.json({ error: message });
   return res.type("text/plain").send(message);
 }
@@ -140,7 +146,10 @@ app.use((req, res, next) => {
   next();
 });
 const setHeaders = (res) => res.set(STATIC_HEADERS);
-app.use("/assets", express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y", setHeaders }));
+app.use(
+  "/assets",
+  express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y", setHeaders }),
+);
 app.use(express.static(path.join(root, "build/client"), { maxAge: "1h", setHeaders }));
 app.all("*", async (req, res, next) => {
   let body;
@@ -173,7 +182,8 @@ app.all("*", async (req, res, next) => {
     await pipeline(Readable.fromWeb(response.body), res);
   } catch (error) {
     // A client that leaves mid-stream is normal; anything else is worth a line in the log.
-    if (error?.code !== "ERR_STREAM_PREMATURE_CLOSE" && !res.destroyed) console.error("[server] response stream failed:", error);
+    if (error?.code !== "ERR_STREAM_PREMATURE_CLOSE" && !res.destroyed)
+      console.error("[server] response stream failed:", error);
   }
 });
 
@@ -184,10 +194,14 @@ const server = app.listen(port, host, () => console.log(`[server] http://${host}
 server.on("clientError", (error, socket) => {
   if (error.code === "ECONNRESET" || !socket.writable) return socket.destroy();
   const tooLarge = error.code === "HPE_HEADER_OVERFLOW";
-  const body = JSON.stringify({ error: tooLarge
-    ? { code: "request_too_large", message: "The address and headers together are larger than 16 KiB." }
-    : { code: "bad_request", message: "The request could not be read." } });
-  socket.end(`HTTP/1.1 ${tooLarge ? "431 Request Header Fields Too Large" : "400 Bad Request"}\r\nContent-Type: application/json; charset=utf-8\r\n` +
-    `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`);
+  const body = JSON.stringify({
+    error: tooLarge
+      ? { code: "request_too_large", message: "The address and headers together are larger than 16 KiB." }
+      : { code: "bad_request", message: "The request could not be read." },
+  });
+  socket.end(
+    `HTTP/1.1 ${tooLarge ? "431 Request Header Fields Too Large" : "400 Bad Request"}\r\nContent-Type: application/json; charset=utf-8\r\n` +
+      `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`,
+  );
 });
 for (const signal of ["SIGTERM", "SIGINT"]) process.once(signal, () => server.close(() => process.exit(0)));

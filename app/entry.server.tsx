@@ -47,7 +47,12 @@ export default function handleRequest(
           });
           responseHeaders.set("Content-Type", "text/html");
           pipe(body);
-          resolve(new Response(createReadableStreamFromReadable(body), { headers: responseHeaders, status: responseStatusCode }));
+          resolve(
+            new Response(createReadableStreamFromReadable(body), {
+              headers: responseHeaders,
+              status: responseStatusCode,
+            }),
+          );
         },
         onShellError(error: unknown) {
           reject(error instanceof Error ? error : new Error(String(error)));

@@ -27,7 +27,11 @@ export function crossSiteRefusal(request: Request): Response | null {
   if (!isCrossSiteWrite(request)) return null;
   return new Response("Cross-site request refused: this form must be sent from Bayproof's own pages.", {
     status: 403,
-    headers: { "Content-Type": "text/plain; charset=utf-8", "Content-Security-Policy": "default-src 'none'", "X-Content-Type-Options": "nosniff" },
+    headers: {
+      "Content-Type": "text/plain; charset=utf-8",
+      "Content-Security-Policy": "default-src 'none'",
+      "X-Content-Type-Options": "nosniff",
+    },
   });
 }
 
@@ -54,7 +58,9 @@ export function contentSecurityPolicy(nonce: string, dev: boolean): string {
     "base-uri": ["'self'"],
     "object-src": ["'none'"],
   };
-  return Object.entries(directives).map(([k, v]) => `${k} ${v.join(" ")}`).join("; ");
+  return Object.entries(directives)
+    .map(([k, v]) => `${k} ${v.join(" ")}`)
+    .join("; ");
 }
 
 export function applySecurityHeaders(headers: Headers, nonce: string, dev: boolean, appOrigin = config.appOrigin) {

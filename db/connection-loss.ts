@@ -9,19 +9,38 @@
 //     `unavailable`, which the app turns into a 503 with Retry-After.
 // Plain Kysely and pg: no framework here.
 import {
-  type CompiledQuery, type DatabaseConnection, type Driver, PostgresDialect, type PostgresDialectConfig, type PostgresPool,
-  type QueryCompiler, type QueryResult, type TransactionSettings,
+  type CompiledQuery,
+  type DatabaseConnection,
+  type Driver,
+  PostgresDialect,
+  type PostgresDialectConfig,
+  type PostgresPool,
+  type QueryCompiler,
+  type QueryResult,
+  type TransactionSettings,
 } from "kysely";
 import type pg from "pg";
 
 const CONNECTION_CODES = new Set([
-  "ECONNRESET", "ECONNREFUSED", "EPIPE", "ETIMEDOUT", "EHOSTUNREACH", "ENETUNREACH", "EAI_AGAIN",
+  "ECONNRESET",
+  "ECONNREFUSED",
+  "EPIPE",
+  "ETIMEDOUT",
+  "EHOSTUNREACH",
+  "ENETUNREACH",
+  "EAI_AGAIN",
   "57P01", // admin_shutdown (a restart, pg_terminate_backend)
   "57P02", // crash_shutdown
   "57P03", // cannot_connect_now (starting up, shutting down)
-  "08000", "08001", "08003", "08004", "08006", "08007", // connection_exception and its kinds
+  "08000",
+  "08001",
+  "08003",
+  "08004",
+  "08006",
+  "08007", // connection_exception and its kinds
 ]);
-const CONNECTION_MESSAGES = /Connection terminated|Client has encountered a connection error|not queryable|timeout exceeded when trying to connect|Client was closed and is not queryable/i;
+const CONNECTION_MESSAGES =
+  /Connection terminated|Client has encountered a connection error|not queryable|timeout exceeded when trying to connect|Client was closed and is not queryable/i;
 
 /** Whether an error means the connection to PostgreSQL was lost or could not be made. */
 export function isConnectionError(error: unknown): boolean {
@@ -35,7 +54,9 @@ export function isConnectionError(error: unknown): boolean {
 /** A query that only reads: safe to run again when its answer never arrived. */
 export function isReadQuery(query: CompiledQuery): boolean {
   if (query.query.kind === "SelectQueryNode") return true;
-  return query.query.kind === "RawNode" && /^\s*select\b/i.test(query.sql) && !/\b(insert|update|delete)\b/i.test(query.sql);
+  return (
+    query.query.kind === "RawNode" && /^\s*select\b/i.test(query.sql) && !/\b(insert|update|delete)\b/i.test(query.sql)
+  );
 }
 
 export interface ConnectionLossPolicy {
@@ -54,7 +75,10 @@ const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
 class Connection implements DatabaseConnection {
   inTransaction = false;
-  constructor(private readonly driver: ConnectionLossDriver, public inner: DatabaseConnection) {}
+  constructor(
+    private readonly driver: ConnectionLossDriver,
+    public inner: DatabaseConnection,
+  ) {}
 
   async executeQuery<R>(query: CompiledQuery): Promise<QueryResult<R>> {
     for (let attempt = 0; ; attempt++) {
@@ -62,7 +86,11 @@ class Connection implements DatabaseConnection {
         return await this.inner.executeQuery<R>(query);
       } catch (error) {
         if (!isConnectionError(error)) throw error;
-        const retry = !this.inTransaction && isReadQuery(query) && this.driver.policy.mayRetryRead() && attempt < READ_RETRY_DELAYS_MS.length;
+        const retry =
+          !this.inTransaction &&
+          isReadQuery(query) &&
+          this.driver.policy.mayRetryRead() &&
+          attempt < READ_RETRY_DELAYS_MS.length;
         if (!retry) throw this.driver.policy.unavailable(error);
         // A restart cuts every pooled connection at once: give the pool a moment to hear of the
         // others' end, so the read runs again on a live one rather than on the next dead one.
@@ -84,7 +112,10 @@ class Connection implements DatabaseConnection {
 }
 
 export class ConnectionLossDriver implements Driver {
-  constructor(readonly inner: Driver, readonly policy: ConnectionLossPolicy) {}
+  constructor(
+    readonly inner: Driver,
+    readonly policy: ConnectionLossPolicy,
+  ) {}
 
   init() {
     return this.inner.init();
@@ -202,7 +233,10 @@ export function guardedPool(pool: pg.Pool): PostgresPool {
 
 /** PostgresDialect with the connection-loss rules above. */
 export class ConnectionLossDialect extends PostgresDialect {
-  constructor(config: PostgresDialectConfig, private readonly policy: ConnectionLossPolicy) {
+  constructor(
+    config: PostgresDialectConfig,
+    private readonly policy: ConnectionLossPolicy,
+  ) {
     super(config);
   }
 

@@ -12,7 +12,9 @@ const provider: MigrationProvider = {
     const files = (await readdir(MIGRATIONS_DIR)).filter((f) => f.endsWith(".ts")).sort();
     const migrations: Record<string, Migration> = {};
     for (const file of files) {
-      migrations[file.replace(/\.ts$/, "")] = (await import(pathToFileURL(path.join(MIGRATIONS_DIR, file)).href)) as Migration;
+      migrations[file.replace(/\.ts$/, "")] = (await import(
+        pathToFileURL(path.join(MIGRATIONS_DIR, file)).href
+      )) as Migration;
     }
     return migrations;
   },

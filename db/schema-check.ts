@@ -34,5 +34,6 @@ type Agrees<Hand, Made> = [
 type Tables = { [T in keyof Database]: T extends keyof DB ? Agrees<Database[T], DB[T]> : "not in the database" };
 
 export const tablesAgree: { [T in keyof Database]: true } = null as unknown as Tables;
-export const everyTableModelled: Exclude<keyof DB, keyof Database | NotModelled> extends never ? true : Exclude<keyof DB, keyof Database | NotModelled> =
-  true;
+export const everyTableModelled: Exclude<keyof DB, keyof Database | NotModelled> extends never
+  ? true
+  : Exclude<keyof DB, keyof Database | NotModelled> = true;

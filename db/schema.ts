@@ -8,12 +8,10 @@ type TextArray = ColumnType<string[], string[] | undefined, string[]>;
 
 export type Trade = "automotive" | "fleet" | "heavy_equipment";
 export type PressureUnit = "psi" | "bar" | "kPa";
-export type Fitting =
-  | "shank-0.401" | "shank-0.498"
-  | "drive-1/4" | "drive-3/8" | "drive-1/2" | "drive-3/4" | "drive-1";
+export type Fitting = "shank-0.401" | "shank-0.498" | "drive-1/4" | "drive-3/8" | "drive-1/2" | "drive-3/4" | "drive-1";
 export type ReportStatus = "draft" | "submitted" | "returned" | "accepted" | "rejected" | "withdrawn";
 export type VehicleClass =
-  | "passenger_car" | "light_truck" | "heavy_truck" | "bus" | "trailer" | "agricultural" | "construction";
+  "passenger_car" | "light_truck" | "heavy_truck" | "bus" | "trailer" | "agricultural" | "construction";
 export type CorrosionLevel = "none" | "light" | "moderate" | "heavy" | "severe";
 export type InletSource = "measured_at_inlet" | "read_at_regulator" | "estimated";
 export type CouplerProfile = "industrial_m" | "automotive_t" | "high_flow_v" | "iso_6150_b" | "other";

@@ -18,14 +18,33 @@ export interface FakePorts {
 const BUCKET = "bayproof-evidence";
 
 /** `appOrigins`: where the app is served, for the object store's CORS rules. */
-export async function startFakes({ ports, dataDir, appOrigins }: { ports: FakePorts; dataDir: string; appOrigins: string[] }) {
+export async function startFakes({
+  ports,
+  dataDir,
+  appOrigins,
+}: {
+  ports: FakePorts;
+  dataDir: string;
+  appOrigins: string[];
+}) {
   const searchService = await startSearchService({ port: ports.search });
-  const store = await startObjectStore({ port: ports.s3, dir: path.join(dataDir, "objects"), bucket: BUCKET, origins: appOrigins });
+  const store = await startObjectStore({
+    port: ports.s3,
+    dir: path.join(dataDir, "objects"),
+    bucket: BUCKET,
+    origins: appOrigins,
+  });
   const mailDir = path.join(dataDir, "mail");
   const mail = await startMailCatcher({ port: ports.smtp, dir: mailDir });
   const oidc = await startOidcProvider({
     port: ports.oidc,
-    accounts: [...people].sort((a, b) => wellKnown(b.email) - wellKnown(a.email)).map((p) => ({ subject: demoSubject(p.handle), email: p.email, label: `${p.handle}${p.roles.length ? ` (${p.roles.join(", ")})` : ""}` })),
+    accounts: [...people]
+      .sort((a, b) => wellKnown(b.email) - wellKnown(a.email))
+      .map((p) => ({
+        subject: demoSubject(p.handle),
+        email: p.email,
+        label: `${p.handle}${p.roles.length ? ` (${p.roles.join(", ")})` : ""}`,
+      })),
   });
   return {
     env: {

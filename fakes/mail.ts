@@ -16,7 +16,10 @@ export async function startMailCatcher({ port, dir }: { port: number; dir: strin
       // fail once (451), as a relay under load would; the sender must retry. A `.refuse-<address>`
       // file makes every delivery to that address fail while it is there, as a relay that is down
       // would, without stopping the catcher other tests use.
-      const flag = (name: string) => session.envelope.rcptTo.map((r) => path.join(dir, `.${name}-${r.address.toLowerCase()}`)).find((f) => existsSync(f));
+      const flag = (name: string) =>
+        session.envelope.rcptTo
+          .map((r) => path.join(dir, `.${name}-${r.address.toLowerCase()}`))
+          .find((f) => existsSync(f));
       const rejectFlag = flag("reject-next");
       const refuseFlag = flag("refuse");
       if (rejectFlag || refuseFlag) {

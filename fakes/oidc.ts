@@ -23,7 +23,9 @@ function pickerPage(url: URL, accounts: DemoAccount[]) {
   refuse.searchParams.set("error", "access_denied");
   refuse.searchParams.set("error_description", "The person declined to sign in");
   if (url.searchParams.get("state")) refuse.searchParams.set("state", url.searchParams.get("state")!);
-  const items = accounts.map((a) => `<li><a href="${link(a.subject)}">${esc(a.label)}<small>${esc(a.email)}</small></a></li>`).join("");
+  const items = accounts
+    .map((a) => `<li><a href="${link(a.subject)}">${esc(a.label)}<small>${esc(a.email)}</small></a></li>`)
+    .join("");
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">
 <title>Demo ID — choose an account</title>
 <style>body{font:16px system-ui,sans-serif;max-width:34rem;margin:2rem auto;padding:0 1rem;color:#222}
@@ -53,12 +55,20 @@ export async function startOidcProvider({ port, accounts }: { port: number; acco
     }
     if (code && account) byCode.set(code, account);
   });
-  service.on("beforeTokenSigning", (token: { payload: Record<string, unknown> }, req: { body?: Record<string, unknown> }) => {
-    const code = req.body?.code;
-    const account = typeof code === "string" ? byCode.get(code) : undefined;
-    if (!account) return;
-    Object.assign(token.payload, { sub: account.subject, email: account.email, email_verified: true, name: account.label });
-  });
+  service.on(
+    "beforeTokenSigning",
+    (token: { payload: Record<string, unknown> }, req: { body?: Record<string, unknown> }) => {
+      const code = req.body?.code;
+      const account = typeof code === "string" ? byCode.get(code) : undefined;
+      if (!account) return;
+      Object.assign(token.payload, {
+        sub: account.subject,
+        email: account.email,
+        email_verified: true,
+        name: account.label,
+      });
+    },
+  );
 
   const server = http.createServer((req, res) => {
     const url = new URL(req.url ?? "/", base);

@@ -23,7 +23,9 @@ const NOT_MATCHED = 255;
 export const typoBudget = (word: string) => (word.length >= 9 ? 2 : word.length >= 5 ? 1 : 0);
 
 export const words = (text: string) =>
-  tokenize(text).map((t) => processTerm(t)).filter((t): t is string => typeof t === "string" && t.length > 0);
+  tokenize(text)
+    .map((t) => processTerm(t))
+    .filter((t): t is string => typeof t === "string" && t.length > 0);
 
 /** The word with each pair of neighbouring letters swapped. */
 function swaps(word: string) {
@@ -59,7 +61,10 @@ export class SearchEngine {
           const p = this.terms.fetch(word, () => ({ docs: [], attr: [] }));
           const last = p.docs.length - 1;
           if (p.docs[last] === n) p.attr[last] = Math.min(p.attr[last]!, attr);
-          else { p.docs.push(n); p.attr.push(attr); }
+          else {
+            p.docs.push(n);
+            p.attr.push(attr);
+          }
         }
       });
     });
@@ -92,7 +97,9 @@ export class SearchEngine {
           const d = p.docs[k]!;
           const a = p.attr[k]!;
           const rank = isPrefix ? 1 : 0;
-          const better = distance < typo[d]! || (distance === typo[d] && (rank < prefix[d]! || (rank === prefix[d] && a < attr[d]!)));
+          const better =
+            distance < typo[d]! ||
+            (distance === typo[d] && (rank < prefix[d]! || (rank === prefix[d] && a < attr[d]!)));
           if (better) {
             typo[d] = distance;
             attr[d] = a;
@@ -107,7 +114,8 @@ export class SearchEngine {
       }
       const budget = typoBudget(word);
       if (budget > 0) {
-        for (const [term, [p, distance]] of this.terms.fuzzyGet(word, budget)) if (term !== word && distance > 0) take(p, distance, false);
+        for (const [term, [p, distance]] of this.terms.fuzzyGet(word, budget))
+          if (term !== word && distance > 0) take(p, distance, false);
         for (const swapped of swaps(word)) {
           const p = this.terms.get(swapped);
           if (p) take(p, 1, false);

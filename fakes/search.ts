@@ -17,7 +17,11 @@ const now = () => new Date().toISOString();
 
 /** Meilisearch filter subset: `attr = value` / `attr = 'value'`, joined by AND; or an array of those. */
 function parseFilter(filter: unknown): [string, string][] {
-  const parts = Array.isArray(filter) ? filter.flat().map(String) : typeof filter === "string" && filter ? filter.split(/\s+AND\s+/i) : [];
+  const parts = Array.isArray(filter)
+    ? filter.flat().map(String)
+    : typeof filter === "string" && filter
+      ? filter.split(/\s+AND\s+/i)
+      : [];
   return parts.map((p) => {
     const m = p.trim().match(/^([A-Za-z_][\w.]*)\s*=\s*(?:'([^']*)'|"([^"]*)"|(\S+))$/);
     if (!m) throw Object.assign(new Error(`invalid filter: ${p}`), { code: "invalid_search_filter" });
@@ -32,7 +36,18 @@ export async function startSearchService({ port }: { port: number }) {
 
   const task = (indexUid: string | null, type: string) => {
     const uid = nextTask++;
-    const t = { uid, taskUid: uid, indexUid, status: "succeeded", type, enqueuedAt: now(), startedAt: now(), finishedAt: now(), error: null, details: {} };
+    const t = {
+      uid,
+      taskUid: uid,
+      indexUid,
+      status: "succeeded",
+      type,
+      enqueuedAt: now(),
+      startedAt: now(),
+      finishedAt: now(),
+      error: null,
+      details: {},
+    };
     tasks.set(uid, t);
     return { taskUid: uid, indexUid, status: "enqueued", type, enqueuedAt: t.enqueuedAt };
   };
@@ -40,7 +55,13 @@ export async function startSearchService({ port }: { port: number }) {
   const ensure = (uid: string, primaryKey = "id") => {
     let index = indexes.get(uid);
     if (!index) {
-      index = { uid, primaryKey, docs: new Map(), settings: { searchableAttributes: ["*"], filterableAttributes: [], sortableAttributes: [] }, engine: null };
+      index = {
+        uid,
+        primaryKey,
+        docs: new Map(),
+        settings: { searchableAttributes: ["*"], filterableAttributes: [], sortableAttributes: [] },
+        engine: null,
+      };
       indexes.set(uid, index);
     }
     return index;
@@ -49,17 +70,20 @@ export async function startSearchService({ port }: { port: number }) {
   const engineFor = (index: Index) => {
     if (index.engine) return index.engine;
     const sample = index.docs.values().next().value;
-    const fields = index.settings.searchableAttributes[0] === "*" || index.settings.searchableAttributes.length === 0
-      ? Object.keys(sample ?? {}).filter((k) => k !== index.primaryKey)
-      : index.settings.searchableAttributes;
+    const fields =
+      index.settings.searchableAttributes[0] === "*" || index.settings.searchableAttributes.length === 0
+        ? Object.keys(sample ?? {}).filter((k) => k !== index.primaryKey)
+        : index.settings.searchableAttributes;
     index.engine = new SearchEngine(index.docs.values(), fields);
     return index.engine;
   };
 
   const answer = async (req: http.IncomingMessage, res: http.ServerResponse) => {
     const url = new URL(req.url ?? "/", `http://127.0.0.1:${port}`);
-    const send = (status: number, body: unknown) => res.writeHead(status, { "Content-Type": "application/json" }).end(JSON.stringify(body));
-    const fail = (status: number, code: string, message: string) => send(status, { message, code, type: "invalid_request", link: "" });
+    const send = (status: number, body: unknown) =>
+      res.writeHead(status, { "Content-Type": "application/json" }).end(JSON.stringify(body));
+    const fail = (status: number, code: string, message: string) =>
+      send(status, { message, code, type: "invalid_request", link: "" });
     let body: unknown = null;
     if (req.method === "POST" || req.method === "PUT" || req.method === "PATCH") {
       const chunks: Buffer[] = [];
@@ -86,7 +110,9 @@ export async function startSearchService({ port }: { port: number }) {
       const uid = parts[1];
       if (parts.length === 2 && req.method === "GET") {
         const index = indexes.get(uid);
-        return index ? send(200, { uid, primaryKey: index.primaryKey, createdAt: now(), updatedAt: now() }) : fail(404, "index_not_found", `index ${uid} not found`);
+        return index
+          ? send(200, { uid, primaryKey: index.primaryKey, createdAt: now(), updatedAt: now() })
+          : fail(404, "index_not_found", `index ${uid} not found`);
       }
       if (parts.length === 2 && req.method === "DELETE") {
         indexes.delete(uid);
@@ -122,22 +148,38 @@ export async function startSearchService({ port }: { port: number }) {
         const index = indexes.get(uid);
         if (!index) return fail(404, "index_not_found", `index ${uid} not found`);
         const t0 = performance.now();
-        const { q = "", filter, facets = [], limit = 20, offset = 0 } = (body ?? {}) as { q?: string; filter?: unknown; facets?: string[]; limit?: number; offset?: number };
+        const {
+          q = "",
+          filter,
+          facets = [],
+          limit = 20,
+          offset = 0,
+        } = (body ?? {}) as { q?: string; filter?: unknown; facets?: string[]; limit?: number; offset?: number };
         const conditions = parseFilter(filter);
         for (const [attr] of conditions) {
-          if (!index.settings.filterableAttributes.includes(attr)) return fail(400, "invalid_search_filter", `attribute ${attr} is not filterable`);
+          if (!index.settings.filterableAttributes.includes(attr))
+            return fail(400, "invalid_search_filter", `attribute ${attr} is not filterable`);
         }
-        const matches = (doc: Doc) => conditions.every(([a, v]) => (Array.isArray(doc[a]) ? (doc[a] as unknown[]).map(String).includes(v) : String(doc[a]) === v));
+        const matches = (doc: Doc) =>
+          conditions.every(([a, v]) =>
+            Array.isArray(doc[a]) ? (doc[a] as unknown[]).map(String).includes(v) : String(doc[a]) === v,
+          );
         const hits = engineFor(index).search(q, matches, offset + limit);
         const facetDistribution: Record<string, Record<string, number>> = {};
         for (const f of facets) {
           const dist: Record<string, number> = {};
-          for (const h of hits) for (const v of [h[f]].flat()) if (v != null) dist[scalarText(v)] = (dist[scalarText(v)] ?? 0) + 1;
+          for (const h of hits)
+            for (const v of [h[f]].flat()) if (v != null) dist[scalarText(v)] = (dist[scalarText(v)] ?? 0) + 1;
           facetDistribution[f] = dist;
         }
         return send(200, {
-          hits: hits.slice(offset, offset + limit), query: q, limit, offset, estimatedTotalHits: hits.length,
-          processingTimeMs: Math.round(performance.now() - t0), ...(facets.length ? { facetDistribution } : {}),
+          hits: hits.slice(offset, offset + limit),
+          query: q,
+          limit,
+          offset,
+          estimatedTotalHits: hits.length,
+          processingTimeMs: Math.round(performance.now() - t0),
+          ...(facets.length ? { facetDistribution } : {}),
         });
       }
       return fail(404, "not_found", "no such route");

@@ -25,7 +25,10 @@ const xmlText = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").re
 
 /** s3rver behind a SigV4 check; CORS preflights (unsigned by nature) go straight through. */
 class SignedObjectStore extends S3rver {
-  constructor(options: ConstructorParameters<typeof S3rver>[0], private readonly origins: string[]) {
+  constructor(
+    options: ConstructorParameters<typeof S3rver>[0],
+    private readonly origins: string[],
+  ) {
     super(options);
   }
 
@@ -42,19 +45,34 @@ class SignedObjectStore extends S3rver {
         "Content-Type": "application/xml",
         ...(origin && this.origins.includes(origin) ? { "Access-Control-Allow-Origin": origin, Vary: "Origin" } : {}),
       });
-      res.end(`<?xml version="1.0" encoding="UTF-8"?>\n<Error><Code>${refusal.code}</Code><Message>${xmlText(refusal.message)}</Message></Error>`);
+      res.end(
+        `<?xml version="1.0" encoding="UTF-8"?>\n<Error><Code>${refusal.code}</Code><Message>${xmlText(refusal.message)}</Message></Error>`,
+      );
     };
   }
 }
 
-export async function startObjectStore({ port, dir, bucket, origins }: { port: number; dir: string; bucket: string; origins: string[] }) {
-  const server = new SignedObjectStore({
-    address: "127.0.0.1",
-    port,
-    directory: dir,
-    silent: true,
-    configureBuckets: [{ name: bucket, configs: [cors(origins)] }],
-  }, origins);
+export async function startObjectStore({
+  port,
+  dir,
+  bucket,
+  origins,
+}: {
+  port: number;
+  dir: string;
+  bucket: string;
+  origins: string[];
+}) {
+  const server = new SignedObjectStore(
+    {
+      address: "127.0.0.1",
+      port,
+      directory: dir,
+      silent: true,
+      configureBuckets: [{ name: bucket, configs: [cors(origins)] }],
+    },
+    origins,
+  );
   await server.run();
   return {
     url: `http://127.0.0.1:${port}`,

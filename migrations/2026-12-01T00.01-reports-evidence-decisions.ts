@@ -56,7 +56,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       constraint reports_accepted_has_time check ((status = 'accepted') = (accepted_at is not null))
     )
   `.execute(db);
-  await sql`create index reports_cell_idx on reports (tool_model_id, job_type_id) where status = 'accepted'`.execute(db);
+  await sql`create index reports_cell_idx on reports (tool_model_id, job_type_id) where status = 'accepted'`.execute(
+    db,
+  );
   await sql`create index reports_reporter_idx on reports (reporter_id, status)`.execute(db);
   await sql`create index reports_accepted_idx on reports (accepted_at, id) where status = 'accepted'`.execute(db);
   await sql`create index reports_status_idx on reports (status, submitted_at)`.execute(db);

@@ -84,7 +84,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 export async function down(db: Kysely<any>): Promise<void> {
   await sql`drop table role_changes`.execute(db);
   await sql`drop function append_only`.execute(db);
-  for (const t of [ "api_keys", "sign_in_links", "oauth_accounts", "sessions"]) {
+  for (const t of ["api_keys", "sign_in_links", "oauth_accounts", "sessions"]) {
     await sql`drop table ${sql.table(t)}`.execute(db);
   }
 }

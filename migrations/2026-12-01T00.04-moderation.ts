@@ -9,7 +9,9 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql`alter table decisions add constraint decisions_action_check
     check (action in ('accept', 'return', 'reject', 'claim', 'verify_evidence', 'fail_evidence'))`.execute(db);
   await sql`alter table decisions add column evidence_id integer references evidence (id)`.execute(db);
-  await sql`alter table decisions add column checklist jsonb check (checklist is null or jsonb_typeof(checklist) = 'object')`.execute(db);
+  await sql`alter table decisions add column checklist jsonb check (checklist is null or jsonb_typeof(checklist) = 'object')`.execute(
+    db,
+  );
   await sql`alter table decisions add constraint decisions_evidence_verdict
     check ((action in ('verify_evidence', 'fail_evidence')) = (evidence_id is not null))`.execute(db);
 

@@ -8,10 +8,16 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql`alter table users add column feed_pseudonym text
     not null default 'rp_' || substr(replace(gen_random_uuid()::text, '-', ''), 1, 16)`.execute(db);
   await sql`alter table users add constraint users_feed_pseudonym_key unique (feed_pseudonym)`.execute(db);
-  await sql`create table app_secrets (name text primary key, value text not null, created_at timestamptz not null default now())`.execute(db);
+  await sql`create table app_secrets (name text primary key, value text not null, created_at timestamptz not null default now())`.execute(
+    db,
+  );
   await sql`insert into app_secrets (name, value)
-    values ('feed-cursor', replace(gen_random_uuid()::text, '-', '') || replace(gen_random_uuid()::text, '-', ''))`.execute(db);
-  await sql`create table feed_rate_limits (key varchar(255) primary key, points integer not null default 0, expire bigint)`.execute(db);
+    values ('feed-cursor', replace(gen_random_uuid()::text, '-', '') || replace(gen_random_uuid()::text, '-', ''))`.execute(
+    db,
+  );
+  await sql`create table feed_rate_limits (key varchar(255) primary key, points integer not null default 0, expire bigint)`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

@@ -16,5 +16,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
 export async function down(db: Kysely<any>): Promise<void> {
   await sql`alter table reports drop constraint reports_complete_unless_draft`.execute(db);
-  await sql`alter table reports add constraint reports_complete_unless_draft check (status = 'draft' or (${COMPLETE}))`.execute(db);
+  await sql`alter table reports add constraint reports_complete_unless_draft check (status = 'draft' or (${COMPLETE}))`.execute(
+    db,
+  );
 }

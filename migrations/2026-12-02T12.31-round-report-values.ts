@@ -6,8 +6,14 @@ import { type Kysely, sql } from "kysely";
 // (inch sizes: 1/4 in is 6.35 mm, and the drop goes with the bore to the fifth), hose lengths 0.01 m, compressor delivery 0.01 l/s, tanks 0.1 l, times 1 s. A value that would round
 // to zero (below every column's lower bound) is left as it is.
 const STEPS: [column: string, digits: number][] = [
-  ["regulator_kpa", 1], ["inlet_kpa", 1], ["hose_id_mm", 2], ["attachment_length_mm", 1],
-  ["hose_length_m", 2], ["compressor_lps", 2], ["tank_l", 1], ["time_to_result_s", 0],
+  ["regulator_kpa", 1],
+  ["inlet_kpa", 1],
+  ["hose_id_mm", 2],
+  ["attachment_length_mm", 1],
+  ["hose_length_m", 2],
+  ["compressor_lps", 2],
+  ["tank_l", 1],
+  ["time_to_result_s", 0],
 ];
 
 export async function up(db: Kysely<any>): Promise<void> {

@@ -12,20 +12,28 @@ import type { Database } from "../db/schema";
 import { freePort } from "./free-port";
 import { type RunningPostgres, startPostgres } from "./postgres";
 
-export async function benchCluster(run: (ctx: { db: Kysely<Database>; url: string }) => Promise<void>, { onStop }: { onStop?: () => Promise<void> | void } = {}) {
+export async function benchCluster(
+  run: (ctx: { db: Kysely<Database>; url: string }) => Promise<void>,
+  { onStop }: { onStop?: () => Promise<void> | void } = {},
+) {
   const dataDir = mkdtempSync(path.join(tmpdir(), "bayproof-bench-"));
   let pg: RunningPostgres | null = null;
   let db: Kysely<Database> | null = null;
   // One clean-up, however many ways the run ends at once (a signal makes the run fail too): every
   // caller waits for the same one to finish before the process may exit.
   let cleaning: Promise<void> | null = null;
-  const cleanUp = () => (cleaning ??= (async () => {
-    await db?.destroy().catch(() => {});
-    await Promise.resolve(onStop?.()).catch(() => {});
-    try { pg?.stop(); } catch (e) { console.error("stopping PostgreSQL:", e); }
-    rmSync(pg?.dataDir ?? dataDir, { recursive: true, force: true });
-    rmSync(dataDir, { recursive: true, force: true });
-  })());
+  const cleanUp = () =>
+    (cleaning ??= (async () => {
+      await db?.destroy().catch(() => {});
+      await Promise.resolve(onStop?.()).catch(() => {});
+      try {
+        pg?.stop();
+      } catch (e) {
+        console.error("stopping PostgreSQL:", e);
+      }
+      rmSync(pg?.dataDir ?? dataDir, { recursive: true, force: true });
+      rmSync(dataDir, { recursive: true, force: true });
+    })());
   const onSignal = (signal: NodeJS.Signals) => {
     console.error(`\n${signal}: stopping the benchmark's PostgreSQL and deleting its folder…`);
     void cleanUp().then(() => process.exit(128 + (signal === "SIGINT" ? 2 : signal === "SIGHUP" ? 1 : 15)));

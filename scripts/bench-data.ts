@@ -5,15 +5,21 @@ import type { Database } from "../db/schema";
 
 export async function buildBenchData(db: Kysely<Database>, reports: number) {
   await sql`insert into users (email, handle) values ('bench@demo.bayproof.test', 'bench-reporter')`.execute(db);
-  await sql`insert into makers (slug, name) select 'bench-maker-' || i, 'Bench maker ' || i from generate_series(1, 10) i`.execute(db);
+  await sql`insert into makers (slug, name) select 'bench-maker-' || i, 'Bench maker ' || i from generate_series(1, 10) i`.execute(
+    db,
+  );
   await sql`insert into tool_categories (slug, name, action, description)
-    select 'bench-cat-' || c, 'Bench category ' || c, 'percussive', 'benchmark' from generate_series(1, 4) c`.execute(db);
+    select 'bench-cat-' || c, 'Bench category ' || c, 'percussive', 'benchmark' from generate_series(1, 4) c`.execute(
+    db,
+  );
   await sql`insert into tool_models (slug, maker_id, category_id, model_code, name, fitting, blows_per_minute, weight_kg, length_mm, air_inlet, rated_air_lps)
     select 'bench-model-' || i, (select id from makers order by id limit 1 offset (i % 10)),
       (select id from tool_categories order by id limit 1 offset (i % 4)), 'B-' || i, 'Bench model', 'shank-0.401', 3000, 1.2, 250, '1/4 in NPT', 2
     from generate_series(1, 400) i`.execute(db);
   await sql`insert into job_types (slug, category_id, name, description)
-    select 'bench-job-' || j, (select id from tool_categories order by id limit 1 offset (j % 4)), 'Bench job ' || j, 'benchmark' from generate_series(1, 40) j`.execute(db);
+    select 'bench-job-' || j, (select id from tool_categories order by id limit 1 offset (j % 4)), 'Bench job ' || j, 'benchmark' from generate_series(1, 40) j`.execute(
+    db,
+  );
   await sql`
     with m as (select id, category_id, row_number() over (partition by category_id order by id) - 1 as k, count(*) over (partition by category_id) as cnt from tool_models),
          j as (select id, category_id, row_number() over (partition by category_id order by id) - 1 as k, count(*) over (partition by category_id) as cnt from job_types),

@@ -47,19 +47,36 @@ try {
   // The floor: psql's \copy of the dump's own query (the same rows, in the same order) to /dev/null.
   const { bulkQuery } = await import("../app/feed/queries.server");
   const q = bulkQuery(db, origin, "ndjson");
-  const inline = q.sql.replace(/\$(\d+)/g, (_, i) => `'${String(q.parameters[Number(i) - 1]).replace(/'/g, "''")}'`).replace(/\s+/g, " ");
+  const inline = q.sql
+    .replace(/\$(\d+)/g, (_, i) => `'${String(q.parameters[Number(i) - 1]).replace(/'/g, "''")}'`)
+    .replace(/\s+/g, " ");
   t0 = performance.now();
   const copy = spawnSync("psql", [pg.url, "-q", "-c", `\\copy (${inline}) to '/dev/null'`], { encoding: "utf8" });
   if (copy.status !== 0) throw new Error(`psql failed: ${copy.stderr}`);
   const floorS = seconds(t0);
 
   console.log("Building and starting the server…");
-  const build = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], { cwd: root, encoding: "utf8" });
-  if (build.status !== 0) throw new Error(`build failed:\n${build.stderr}`);
-  server = spawn(process.execPath, [...(process.env.SERVER_FLAGS ? process.env.SERVER_FLAGS.split(" ") : []), "server.js"], {
-    cwd: root, stdio: ["ignore", "ignore", "inherit"],
-    env: { ...process.env, DATABASE_URL: pg.url, PORT: String(port), HOST: "127.0.0.1", APP_ORIGIN: origin, NODE_ENV: "production" },
+  const build = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], {
+    cwd: root,
+    encoding: "utf8",
   });
+  if (build.status !== 0) throw new Error(`build failed:\n${build.stderr}`);
+  server = spawn(
+    process.execPath,
+    [...(process.env.SERVER_FLAGS ? process.env.SERVER_FLAGS.split(" ") : []), "server.js"],
+    {
+      cwd: root,
+      stdio: ["ignore", "ignore", "inherit"],
+      env: {
+        ...process.env,
+        DATABASE_URL: pg.url,
+        PORT: String(port),
+        HOST: "127.0.0.1",
+        APP_ORIGIN: origin,
+        NODE_ENV: "production",
+      },
+    },
+  );
   await waitForHttp(`${origin}/api/v1`, server);
   const pid = server.pid!;
   const idleMb = rssMb(pid, "VmRSS");
@@ -68,17 +85,19 @@ try {
   const sampler = setInterval(() => (peakMb = Math.max(peakMb, rssMb(pid, "VmRSS"))), 50);
   t0 = performance.now();
   const { lines, bytes } = await new Promise<{ lines: number; bytes: number }>((resolve, reject) => {
-    http.get(`${origin}/api/v1/reports.ndjson`, { headers: { authorization: `Bearer ${key}` } }, (res) => {
-      if (res.statusCode !== 200) return reject(new Error(`dump answered ${res.statusCode}`));
-      let lines = 0;
-      let bytes = 0;
-      res.on("data", (chunk: Buffer) => {
-        bytes += chunk.length;
-        for (let i = chunk.indexOf(10); i !== -1; i = chunk.indexOf(10, i + 1)) lines++;
-      });
-      res.on("end", () => resolve({ lines, bytes }));
-      res.on("error", reject);
-    }).on("error", reject);
+    http
+      .get(`${origin}/api/v1/reports.ndjson`, { headers: { authorization: `Bearer ${key}` } }, (res) => {
+        if (res.statusCode !== 200) return reject(new Error(`dump answered ${res.statusCode}`));
+        let lines = 0;
+        let bytes = 0;
+        res.on("data", (chunk: Buffer) => {
+          bytes += chunk.length;
+          for (let i = chunk.indexOf(10); i !== -1; i = chunk.indexOf(10, i + 1)) lines++;
+        });
+        res.on("end", () => resolve({ lines, bytes }));
+        res.on("error", reject);
+      })
+      .on("error", reject);
   });
   const dumpS = seconds(t0);
   clearInterval(sampler);
@@ -107,8 +126,12 @@ try {
   console.log(`psql \\copy of the same query (floor)   ${floorS.toFixed(2)} s   ${fmt(floorRate)} reports/s`);
   console.log(`GET /api/v1/reports.ndjson             ${dumpS.toFixed(2)} s   ${fmt(dumpRate)} reports/s`);
   console.log(`ratio to the floor                     ${(dumpRate / floorRate).toFixed(2)} (goal ≥ 0.30)`);
-  console.log(`a page of 100 (median of 20 in a walk)  ${plainPage.toFixed(1)} ms; filtered by job type ${jobPage.toFixed(1)} ms`);
-  console.log(`server resident memory                 ${idleMb.toFixed(0)} MB idle, ${peakMb.toFixed(0)} MB peak while streaming (goal < 300 MB)`);
+  console.log(
+    `a page of 100 (median of 20 in a walk)  ${plainPage.toFixed(1)} ms; filtered by job type ${jobPage.toFixed(1)} ms`,
+  );
+  console.log(
+    `server resident memory                 ${idleMb.toFixed(0)} MB idle, ${peakMb.toFixed(0)} MB peak while streaming (goal < 300 MB)`,
+  );
   process.exitCode = 0;
 } finally {
   server?.kill("SIGTERM");

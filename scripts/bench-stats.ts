@@ -26,7 +26,9 @@ await benchCluster(async ({ db, url }) => {
   const floors: number[] = [];
   for (let i = 0; i < 3; i++) {
     t0 = performance.now();
-    await sql`select tool_model_id, job_type_id, count(*), count(*) filter (where outcome = 'freed') from reports where status = 'accepted' group by 1, 2`.execute(db);
+    await sql`select tool_model_id, job_type_id, count(*), count(*) filter (where outcome = 'freed') from reports where status = 'accepted' group by 1, 2`.execute(
+      db,
+    );
     floors.push(ms(t0));
   }
   const floor = Math.min(...floors);
@@ -36,7 +38,10 @@ await benchCluster(async ({ db, url }) => {
   const cells = await refreshAll(db);
   const full = ms(t0);
 
-  const sample = await sql<{ m: number; j: number }>`select tool_model_id m, job_type_id j from stats_cells order by random() limit 20`.execute(db);
+  const sample = await sql<{
+    m: number;
+    j: number;
+  }>`select tool_model_id m, job_type_id j from stats_cells order by random() limit 20`.execute(db);
   const single: number[] = [];
   for (const c of sample.rows) {
     t0 = performance.now();
@@ -61,7 +66,9 @@ await benchCluster(async ({ db, url }) => {
   console.log("");
   console.log(`cells                          ${cells}`);
   console.log(`bare GROUP BY (floor)          ${floor.toFixed(0)} ms (best of 3)`);
-  console.log(`full refresh of every cell     ${(full / 1000).toFixed(2)} s   (${(full / floor).toFixed(1)}× the floor; goal ≤ 5×)`);
+  console.log(
+    `full refresh of every cell     ${(full / 1000).toFixed(2)} s   (${(full / floor).toFixed(1)}× the floor; goal ≤ 5×)`,
+  );
   console.log(`one cell after an accept       ${medianOf(single).toFixed(1)} ms median of 20   (goal < 50 ms)`);
   console.log(`/jobs/:slug loader             ${medianOf(loads).toFixed(1)} ms median of 50   (goal < 30 ms)`);
 });

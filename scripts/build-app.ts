@@ -11,15 +11,20 @@ const SOURCE_FILES = ["package.json", "package-lock.json", "vite.config.ts", "re
 
 function listFiles(dir: string): string[] {
   if (!existsSync(dir)) return [];
-  return readdirSync(dir).sort().flatMap((name) => {
-    const full = path.join(dir, name);
-    return statSync(full).isDirectory() ? listFiles(full) : [full];
-  });
+  return readdirSync(dir)
+    .sort()
+    .flatMap((name) => {
+      const full = path.join(dir, name);
+      return statSync(full).isDirectory() ? listFiles(full) : [full];
+    });
 }
 
 export function sourceHash(root: string) {
   const hash = createHash("sha256");
-  const files = [...SOURCE_DIRS.flatMap((d) => listFiles(path.join(root, d))), ...SOURCE_FILES.map((f) => path.join(root, f)).filter((f) => existsSync(f))];
+  const files = [
+    ...SOURCE_DIRS.flatMap((d) => listFiles(path.join(root, d))),
+    ...SOURCE_FILES.map((f) => path.join(root, f)).filter((f) => existsSync(f)),
+  ];
   for (const file of files) hash.update(path.relative(root, file)).update("\0").update(readFileSync(file)).update("\0");
   return hash.digest("hex");
 }
@@ -28,12 +33,20 @@ export function sourceHash(root: string) {
 export function buildApp(root: string, log: (s: string) => void, { inheritOutput = true } = {}) {
   const stamp = path.join(root, "build", ".source-hash");
   const hash = sourceHash(root);
-  if (existsSync(path.join(root, "build/server/index.js")) && existsSync(stamp) && readFileSync(stamp, "utf8") === hash) {
+  if (
+    existsSync(path.join(root, "build/server/index.js")) &&
+    existsSync(stamp) &&
+    readFileSync(stamp, "utf8") === hash
+  ) {
     log("The build is up to date with the sources; not building again");
     return { ok: true as const };
   }
   log("Building the app…");
-  const r = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], { cwd: root, stdio: inheritOutput ? "inherit" : "pipe", encoding: "utf8" });
+  const r = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], {
+    cwd: root,
+    stdio: inheritOutput ? "inherit" : "pipe",
+    encoding: "utf8",
+  });
   if (r.status !== 0) return { ok: false as const, output: `${r.stdout ?? ""}\n${r.stderr ?? ""}` };
   writeFileSync(stamp, hash);
   return { ok: true as const };

@@ -12,12 +12,20 @@ control = await runStartCommand(
     const services = await startServices();
     const env = { ...process.env, ...services.env };
     supervisor.run("dev", () => {
-      const child = spawn(path.join(root, "node_modules/.bin/react-router"), ["dev", "--host", process.env.HOST ?? "127.0.0.1", "--port", process.env.PORT ?? "3000"], { cwd: root, stdio: "inherit", env });
+      const child = spawn(
+        path.join(root, "node_modules/.bin/react-router"),
+        ["dev", "--host", process.env.HOST ?? "127.0.0.1", "--port", process.env.PORT ?? "3000"],
+        { cwd: root, stdio: "inherit", env },
+      );
       services.runState.record("dev", child.pid);
       return child;
     });
     supervisor.run("worker", () => {
-      const child = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts"], { cwd: root, stdio: "inherit", env });
+      const child = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts"], {
+        cwd: root,
+        stdio: "inherit",
+        env,
+      });
       services.runState.record("worker", child.pid);
       return child;
     });

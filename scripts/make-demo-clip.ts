@@ -7,7 +7,15 @@ import { chromium } from "playwright-core";
 
 const browser = await chromium.launch({
   executablePath: "/usr/bin/chromium",
-  args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
+  args: [
+    "--headless",
+    "--no-sandbox",
+    "--disable-gpu",
+    "--disable-background-networking",
+    "--disable-component-update",
+    "--disable-sync",
+    "--no-first-run",
+  ],
 });
 const page = await browser.newPage();
 await page.setContent("<canvas width=320 height=240></canvas>");

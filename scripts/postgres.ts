@@ -50,9 +50,7 @@ function findBinDir(): string {
     const r = spawnSync("apt-get", ["install", "-y", "-qq", "postgresql"], { stdio: "inherit" });
     if (r.status === 0) return findBinDir();
   }
-  throw new Error(
-    "PostgreSQL server programs not found. Install Debian's server: apt-get install -y postgresql",
-  );
+  throw new Error("PostgreSQL server programs not found. Install Debian's server: apt-get install -y postgresql");
 }
 
 function run(bin: string, args: string[], opts: { allowFail?: boolean } = {}) {
@@ -113,7 +111,10 @@ export function clusterDirFor(wanted: string): { dir: string; moved: boolean } {
     chownSync(base, uid, gid);
   }
   // Short: the server's socket lives in the cluster folder, and a socket path has at most 107 bytes.
-  const name = wanted.replace(/^\/+/, "").replace(/[^A-Za-z0-9._-]+/g, "_").slice(-40);
+  const name = wanted
+    .replace(/^\/+/, "")
+    .replace(/[^A-Za-z0-9._-]+/g, "_")
+    .slice(-40);
   const hash = createHash("sha256").update(wanted).digest("hex").slice(0, 8);
   return { dir: path.join(base, `${name}-${hash}`), moved: true };
 }
@@ -132,7 +133,8 @@ function checkPidFile(dataDir: string, log: (line: string) => void): number | nu
   if (pid > 0 && isAlive(pid) && /postgres|postmaster/.test(commandLine(pid))) return Number(lines[3]) || null;
   rmSync(file, { force: true });
   // The socket's lock file (the socket lives in the data folder) names the same process.
-  for (const f of readdirSync(dataDir)) if (/^\.s\.PGSQL\.\d+\.lock$/.test(f)) rmSync(path.join(dataDir, f), { force: true });
+  for (const f of readdirSync(dataDir))
+    if (/^\.s\.PGSQL\.\d+\.lock$/.test(f)) rmSync(path.join(dataDir, f), { force: true });
   log(`Removed a stale postmaster.pid (process ${pid} is not a PostgreSQL server)`);
   return null;
 }
@@ -168,9 +170,7 @@ export async function startPostgres(options: PostgresOptions): Promise<RunningPo
     mkdirSync(dataDir, { recursive: true, mode: 0o700 });
     handToPostgresUser(dataDir);
     log(`Creating a PostgreSQL cluster in ${dataDir}`);
-    run(path.join(bin, "initdb"), [
-      "-D", dataDir, "-U", USER, "--auth=trust", "-E", "UTF8", "--no-locale",
-    ]);
+    run(path.join(bin, "initdb"), ["-D", dataDir, "-U", USER, "--auth=trust", "-E", "UTF8", "--no-locale"]);
   } else if (isRoot && statSync(dataDir).uid !== postgresIds().uid) {
     handToPostgresUser(dataDir);
   }
@@ -192,7 +192,18 @@ export async function startPostgres(options: PostgresOptions): Promise<RunningPo
       path.join(dataDir, `.s.PGSQL.${port}`).length <= 100 ? `-k ${dataDir}` : "-c unix_socket_directories=''",
       ...(fast ? ["-c fsync=off", "-c synchronous_commit=off", "-c full_page_writes=off"] : []),
     ].join(" ");
-    run(pgCtl, ["-D", dataDir, "-l", path.join(dataDir, "server.log"), "-w", "-t", "120", "-o", serverOptions, "start"]);
+    run(pgCtl, [
+      "-D",
+      dataDir,
+      "-l",
+      path.join(dataDir, "server.log"),
+      "-w",
+      "-t",
+      "120",
+      "-o",
+      serverOptions,
+      "start",
+    ]);
     log(`PostgreSQL listening on 127.0.0.1:${port} (cluster in ${dataDir})`);
   } else {
     log(`PostgreSQL was already running for ${dataDir}; taking it over`);

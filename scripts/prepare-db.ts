@@ -12,9 +12,13 @@ export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => 
   if (applied.length) log(`Applied migrations: ${applied.join(", ")}`);
   const t0 = Date.now();
   const seeded = await loadDemoScenario(db);
-  if (seeded.loaded) log(`Loaded the demo scenario: ${seeded.reports} reports in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+  if (seeded.loaded)
+    log(`Loaded the demo scenario: ${seeded.reports} reports in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
   else log("Demo scenario already present; left as it is");
-  const cells = await db.selectFrom("stats_cells").select((eb) => eb.fn.countAll<string>().as("n")).executeTakeFirstOrThrow();
+  const cells = await db
+    .selectFrom("stats_cells")
+    .select((eb) => eb.fn.countAll<string>().as("n"))
+    .executeTakeFirstOrThrow();
   if (Number(cells.n) === 0) {
     const t1 = Date.now();
     log(`Computed ${await refreshAll(db)} stats cells in ${((Date.now() - t1) / 1000).toFixed(1)} s`);

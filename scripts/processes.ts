@@ -95,8 +95,12 @@ export class StartError extends Error {}
 export async function ensurePortFree(port: number, what: string, variable: string) {
   if (!(await portInUse(port))) return;
   const holder = portHolder(port);
-  const who = holder ? `process ${holder.pid} (${holder.command.slice(0, 120) || "command line unreadable"})` : "another process";
-  throw new StartError(`Port ${port}, wanted for ${what}, is taken by ${who}. Stop it, or set ${variable} to another port.`);
+  const who = holder
+    ? `process ${holder.pid} (${holder.command.slice(0, 120) || "command line unreadable"})`
+    : "another process";
+  throw new StartError(
+    `Port ${port}, wanted for ${what}, is taken by ${who}. Stop it, or set ${variable} to another port.`,
+  );
 }
 
 /** SIGTERM, then SIGKILL if `pid` is still there after `graceMs`; resolves once it is gone. */

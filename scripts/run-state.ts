@@ -27,8 +27,15 @@ export async function claimRunState(dataDir: string, log: (s: string) => void) {
     } catch {
       // unreadable: treat as left behind
     }
-    if (previous && previous.startPid !== process.pid && isAlive(previous.startPid) && /scripts\/(start|dev)\.ts/.test(commandLine(previous.startPid))) {
-      throw new StartError(`Bayproof is already running from this folder (process ${previous.startPid}). Stop it first (Ctrl-C in its terminal, or kill ${previous.startPid}).`);
+    if (
+      previous &&
+      previous.startPid !== process.pid &&
+      isAlive(previous.startPid) &&
+      /scripts\/(start|dev)\.ts/.test(commandLine(previous.startPid))
+    ) {
+      throw new StartError(
+        `Bayproof is already running from this folder (process ${previous.startPid}). Stop it first (Ctrl-C in its terminal, or kill ${previous.startPid}).`,
+      );
     }
     for (const [name, pid] of Object.entries(previous?.children ?? {})) {
       if (isAlive(pid) && MARKS[name]?.test(commandLine(pid))) {

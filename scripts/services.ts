@@ -56,13 +56,19 @@ export async function startServices() {
   await ensurePortFree(ports.search, "the local search service", "BAYPROOF_SEARCH_PORT");
   let databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {
-    const pgServer = await startPostgres({ dataDir: path.join(dataDir, "postgres"), port: Number(process.env.BAYPROOF_PGPORT ?? 54320), log });
+    const pgServer = await startPostgres({
+      dataDir: path.join(dataDir, "postgres"),
+      port: Number(process.env.BAYPROOF_PGPORT ?? 54320),
+      log,
+    });
     onStop(() => pgServer.stop());
     databaseUrl = pgServer.url;
   }
   const fakes = await startFakes({ ports, dataDir, appOrigins: appOrigins() });
   onStop(() => fakes.stop());
-  log(`Local fakes: sign-in provider ${fakes.env.OIDC_ISSUER}, mail catcher ${fakes.env.SMTP_URL} (read it at /dev/mail), object store ${fakes.env.S3_ENDPOINT}, search ${fakes.env.SEARCH_URL}`);
+  log(
+    `Local fakes: sign-in provider ${fakes.env.OIDC_ISSUER}, mail catcher ${fakes.env.SMTP_URL} (read it at /dev/mail), object store ${fakes.env.S3_ENDPOINT}, search ${fakes.env.SEARCH_URL}`,
+  );
   const db = createDb(databaseUrl, 2);
   try {
     await prepareDatabase(db, log);
@@ -82,7 +88,9 @@ export async function startServices() {
 /** The origins a browser may reach the app at locally, for the object store's CORS rules. */
 function appOrigins() {
   const port = process.env.PORT ?? "3000";
-  return [process.env.APP_ORIGIN, `http://127.0.0.1:${port}`, `http://localhost:${port}`].filter((o): o is string => !!o);
+  return [process.env.APP_ORIGIN, `http://127.0.0.1:${port}`, `http://localhost:${port}`].filter(
+    (o): o is string => !!o,
+  );
 }
 
 /**
@@ -113,5 +121,10 @@ export async function runStartCommand(main: () => Promise<void>, beforeStop: () 
     else console.error(error);
     await exit(1);
   }
-  return { exit, get exiting() { return exiting; } };
+  return {
+    exit,
+    get exiting() {
+      return exiting;
+    },
+  };
 }

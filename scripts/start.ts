@@ -42,7 +42,15 @@ control = await runStartCommand(
       record("worker", child.pid);
       return child;
     });
-    await waitForHttp(`http://${host}:${port}/`, { get exitCode() { return gaveUp ? 1 : null; } }, 300_000);
+    await waitForHttp(
+      `http://${host}:${port}/`,
+      {
+        get exitCode() {
+          return gaveUp ? 1 : null;
+        },
+      },
+      300_000,
+    );
     log(`Bayproof is serving on http://${host}:${port}`);
   },
   () => supervisor.stopAll(),

@@ -25,7 +25,11 @@ const FREE_AIR_DENSITY = FREE_AIR_PA / (R_AIR * LINE_T_K);
 
 /** The world's coupler pairs: invented flow coefficients for a 1/4 in body plug and socket of each profile. */
 export const WORLD_COUPLER_CV: Record<string, number> = {
-  industrial_m: 0.55, automotive_t: 0.5, high_flow_v: 1.0, iso_6150_b: 0.65, other: 0.5,
+  industrial_m: 0.55,
+  automotive_t: 0.5,
+  high_flow_v: 1.0,
+  iso_6150_b: 0.65,
+  other: 0.5,
 };
 
 /** Haaland's friction factor for a smooth bore (ε = 0). */
@@ -83,9 +87,10 @@ export interface WorldLine {
 
 /** Gauge kPa at the tool inlet for a free-air flow; 0 when the line cannot pass it. */
 export function worldOutletKpa(regulatorKpa: number, flowLps: number, line: WorldLine): number {
-  let p = (regulatorKpa * 1000) + FREE_AIR_PA;
+  let p = regulatorKpa * 1000 + FREE_AIR_PA;
   p = hoseOutletPa(p, flowLps, line.hoseIdMm, line.hoseLengthM);
-  for (let i = 0; i < line.couplerCount && p > 0; i++) p = couplerOutletPa(p, flowLps, WORLD_COUPLER_CV[line.couplerProfile]!);
+  for (let i = 0; i < line.couplerCount && p > 0; i++)
+    p = couplerOutletPa(p, flowLps, WORLD_COUPLER_CV[line.couplerProfile]!);
   return Math.max(0, (p - FREE_AIR_PA) / 1000);
 }
 

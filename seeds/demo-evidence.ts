@@ -32,7 +32,9 @@ async function storedKeys(s3: S3Client, bucket: string) {
 
 export async function ensureDemoEvidence(db: Kysely<Database>, env: Record<string, string>) {
   const s3 = new S3Client({
-    endpoint: env.S3_ENDPOINT, region: env.S3_REGION ?? "us-east-1", forcePathStyle: true,
+    endpoint: env.S3_ENDPOINT,
+    region: env.S3_REGION ?? "us-east-1",
+    forcePathStyle: true,
     credentials: { accessKeyId: env.S3_ACCESS_KEY_ID!, secretAccessKey: env.S3_SECRET_ACCESS_KEY! },
   });
   try {
@@ -49,16 +51,31 @@ export async function ensureDemoEvidence(db: Kysely<Database>, env: Record<strin
       const ids = missing.filter((item) => item.kind === kind).map((item) => item.id);
       const file = files[kind];
       for (let i = 0; i < ids.length; i += 5000) {
-        await db.updateTable("evidence").set({
-          content_type: file.type, size_bytes: file.body.length, sha256: createHash("sha256").update(file.body).digest("hex"),
-        }).where("id", "in", ids.slice(i, i + 5000)).execute();
+        await db
+          .updateTable("evidence")
+          .set({
+            content_type: file.type,
+            size_bytes: file.body.length,
+            sha256: createHash("sha256").update(file.body).digest("hex"),
+          })
+          .where("id", "in", ids.slice(i, i + 5000))
+          .execute();
       }
     }
     for (let i = 0; i < missing.length; i += 16) {
-      await Promise.all(missing.slice(i, i + 16).map((item) => {
-        const file = files[item.kind];
-        return s3.send(new PutObjectCommand({ Bucket: env.S3_BUCKET, Key: item.object_key, Body: file.body, ContentType: file.type }));
-      }));
+      await Promise.all(
+        missing.slice(i, i + 16).map((item) => {
+          const file = files[item.kind];
+          return s3.send(
+            new PutObjectCommand({
+              Bucket: env.S3_BUCKET,
+              Key: item.object_key,
+              Body: file.body,
+              ContentType: file.type,
+            }),
+          );
+        }),
+      );
     }
     return missing.length;
   } finally {

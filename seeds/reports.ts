@@ -20,7 +20,7 @@ export type Rng = () => number;
 
 export const makeRng = (seed: string): Rng => seedrandom(seed);
 
-const pick = <T,>(rng: Rng, items: readonly T[]): T => items[Math.floor(rng() * items.length)]!;
+const pick = <T>(rng: Rng, items: readonly T[]): T => items[Math.floor(rng() * items.length)]!;
 
 function pickWeighted<T>(rng: Rng, items: readonly T[], weight: (t: T) => number): T {
   const total = items.reduce((s, t) => s + weight(t), 0);
@@ -83,12 +83,28 @@ function toolPower(m: ModelSeed): number {
 const JOB_VEHICLES: Record<string, Partial<Record<VehicleClass, number>>> = {
   "ball-joint-separation": { passenger_car: 6, light_truck: 4 },
   "tie-rod-end-release": { passenger_car: 5, light_truck: 4, heavy_truck: 2, bus: 1, agricultural: 1 },
-  "seized-bolt-punch-out": { passenger_car: 3, light_truck: 3, heavy_truck: 3, trailer: 2, construction: 2, agricultural: 1, bus: 1 },
+  "seized-bolt-punch-out": {
+    passenger_car: 3,
+    light_truck: 3,
+    heavy_truck: 3,
+    trailer: 2,
+    construction: 2,
+    agricultural: 1,
+    bus: 1,
+  },
   "exhaust-joint-split": { passenger_car: 6, light_truck: 4, heavy_truck: 1, bus: 1 },
   "rivet-shear": { heavy_truck: 4, trailer: 4, bus: 2, light_truck: 1 },
   "bushing-press-out": { passenger_car: 3, light_truck: 3, heavy_truck: 3, trailer: 2, bus: 1, construction: 1 },
   "king-pin-drive-out": { heavy_truck: 6, bus: 3 },
-  "lug-nut-breakaway": { passenger_car: 4, light_truck: 4, heavy_truck: 3, trailer: 2, bus: 2, construction: 1, agricultural: 1 },
+  "lug-nut-breakaway": {
+    passenger_car: 4,
+    light_truck: 4,
+    heavy_truck: 3,
+    trailer: 2,
+    bus: 2,
+    construction: 1,
+    agricultural: 1,
+  },
   "axle-nut-breakaway": { passenger_car: 6, light_truck: 4 },
   "crank-bolt-breakaway": { passenger_car: 7, light_truck: 3 },
   "control-arm-bolt-breakaway": { passenger_car: 6, light_truck: 4 },
@@ -107,9 +123,22 @@ const HEAVY: VehicleClass[] = ["heavy_truck", "bus", "trailer", "construction", 
 
 /** Coupler profiles by trade, with weights. */
 const TRADE_COUPLERS: Record<string, [CouplerProfile, number][]> = {
-  automotive: [["automotive_t", 4], ["industrial_m", 5], ["high_flow_v", 1]],
-  fleet: [["industrial_m", 6], ["high_flow_v", 2], ["iso_6150_b", 1], ["automotive_t", 1]],
-  heavy_equipment: [["industrial_m", 4], ["high_flow_v", 4], ["iso_6150_b", 2]],
+  automotive: [
+    ["automotive_t", 4],
+    ["industrial_m", 5],
+    ["high_flow_v", 1],
+  ],
+  fleet: [
+    ["industrial_m", 6],
+    ["high_flow_v", 2],
+    ["iso_6150_b", 1],
+    ["automotive_t", 1],
+  ],
+  heavy_equipment: [
+    ["industrial_m", 4],
+    ["high_flow_v", 4],
+    ["iso_6150_b", 2],
+  ],
 };
 
 const ATTACHMENTS: Record<string, string[]> = {
@@ -135,7 +164,9 @@ const SPAN_MS = Date.UTC(2026, 10, 20) - START;
 /** Report counts per (model, job) pair: a few popular pairs with 40–100, a long tail with a handful. */
 export function pairCounts(rng: Rng) {
   const pairs = models.flatMap((m, mi) =>
-    jobTypes.flatMap((j, ji) => (j.category === m.category ? [{ mi, ji, score: m.popularity * j.popularity * (0.6 + 0.8 * rng()) }] : [])),
+    jobTypes.flatMap((j, ji) =>
+      j.category === m.category ? [{ mi, ji, score: m.popularity * j.popularity * (0.6 + 0.8 * rng()) }] : [],
+    ),
   );
   pairs.sort((a, b) => b.score - a.score);
   return pairs.map((p, rank) => ({ ...p, count: Math.round(98 * Math.exp(-rank / 28)) + 2 + Math.floor(rng() * 4) }));
@@ -179,7 +210,8 @@ export function generateReports(seed = "bayproof-demo-v2"): GeneratedReport[] {
       const shopHose = rng() < 0.75 ? shop.air.hoseIdIn : pick(rng, [0.25, 0.3125, 0.375, 0.5]);
       const hoseIdIn = bigInlet && rng() < 0.85 ? Math.max(0.375, shopHose) : shopHose;
       const hoseFt = rng() < 0.7 ? shop.air.hoseFt : pick(rng, [15, 25, 35, 50, 75]);
-      const couplerProfile = bigInlet && rng() < 0.7 ? "high_flow_v" : pickWeighted(rng, TRADE_COUPLERS[shop.trade]!, ([, w]) => w)[0];
+      const couplerProfile =
+        bigInlet && rng() < 0.7 ? "high_flow_v" : pickWeighted(rng, TRADE_COUPLERS[shop.trade]!, ([, w]) => w)[0];
       const couplerCount = 1 + Math.floor(rng() * (bigInlet ? 2 : 3));
       const line = { hoseIdMm: hoseIdIn * MM_PER_IN, hoseLengthM: hoseFt * M_PER_FT, couplerProfile, couplerCount };
       const runningLps = runningAir[mi]!.trueLps;
@@ -200,10 +232,17 @@ export function generateReports(seed = "bayproof-demo-v2"): GeneratedReport[] {
 
       // What the reporter writes down: gauges read to a couple of psi.
       const regulatorKpa = fixed(regulatorSetKpa + normal(rng) * 1 * KPA_PER_PSI, 1);
-      const inletKpa = fixed(Math.max(50,
-        inletSource === "measured_at_inlet" ? truth.inletKpa + normal(rng) * 2 * KPA_PER_PSI
-          : inletSource === "read_at_regulator" ? regulatorKpa
-            : Math.min(regulatorKpa, truth.inletKpa + normal(rng) * 6 * KPA_PER_PSI)), 1);
+      const inletKpa = fixed(
+        Math.max(
+          50,
+          inletSource === "measured_at_inlet"
+            ? truth.inletKpa + normal(rng) * 2 * KPA_PER_PSI
+            : inletSource === "read_at_regulator"
+              ? regulatorKpa
+              : Math.min(regulatorKpa, truth.inletKpa + normal(rng) * 6 * KPA_PER_PSI),
+        ),
+        1,
+      );
 
       const corrosionIdx = Math.min(4, Math.floor(rng() * (shop.trade === "automotive" ? 4 : 5)));
       const heavy = HEAVY.includes(vehicleClass);
@@ -211,29 +250,47 @@ export function generateReports(seed = "bayproof-demo-v2"): GeneratedReport[] {
       const sizeGain = breakaway ? 1.8 * Math.log(power) : 0.6 * Math.log(power);
       const pressureGain = 1.0 * ((truth.inletKpa - 620) / 100);
       const vehiclePenalty = heavy && breakaway ? 0.4 : 0;
-      const pFree = logistic(job.difficulty + sizeGain + pressureGain - seizedPenalty - vehiclePenalty + 0.3 * normal(rng));
+      const pFree = logistic(
+        job.difficulty + sizeGain + pressureGain - seizedPenalty - vehiclePenalty + 0.3 * normal(rng),
+      );
       const u = rng();
       const outcome: Outcome = u < pFree ? "freed" : u < pFree + (1 - pFree) * 0.35 ? "freed_with_help" : "not_freed";
 
       const speed = Math.exp(-0.5 * Math.log(power) - 0.25 * ((truth.inletKpa - 620) / 100));
       const giveUp = outcome === "not_freed" ? 2.5 : outcome === "freed_with_help" ? 1.6 : 1;
-      const timeS = Math.min(28800, Math.max(2, Math.round(job.medianS * speed * giveUp * Math.exp(0.75 * normal(rng)))));
+      const timeS = Math.min(
+        28800,
+        Math.max(2, Math.round(job.medianS * speed * giveUp * Math.exp(0.75 * normal(rng)))),
+      );
       const attempts = Math.min(50, 1 + Math.floor(-Math.log(1 - rng()) * (outcome === "freed" ? 0.8 : 2.2)));
 
       const flags: string[] = plausibilityFlags({ inletKpa, regulatorKpa, maxInletKpa: maxKpa });
       const s = rng();
-      const status: ReportStatus = s < 0.86 ? "accepted" : s < 0.92 ? "submitted" : s < 0.95 ? "returned" : s < 0.985 ? "rejected" : "withdrawn";
+      const status: ReportStatus =
+        s < 0.86 ? "accepted" : s < 0.92 ? "submitted" : s < 0.95 ? "returned" : s < 0.985 ? "rejected" : "withdrawn";
 
       out.push({
-        modelIndex: mi, jobIndex: ji, reporterIndex, status, vehicleClass,
+        modelIndex: mi,
+        jobIndex: ji,
+        reporterIndex,
+        status,
+        vehicleClass,
         componentAgeYears: roundStep(1 + rng() * (heavy ? 25 : 18), 0.5),
         corrosion: CORROSION[corrosionIdx]!,
         attachment: pick(rng, ATTACHMENTS[model.category]!),
         attachmentLengthMm: roundStep(model.category === "air-hammer" ? 120 + rng() * 180 : 40 + rng() * 160, 5),
-        regulatorKpa, inletKpa, inletSource,
-        hoseIdMm: fixed(line.hoseIdMm, 2), hoseLengthM: fixed(line.hoseLengthM, 2), couplerProfile, couplerCount,
-        compressorLps: fixed(shop.air.compressorLps * (0.9 + 0.2 * rng()), 2), tankL: fixed(shop.air.tankL, 1),
-        outcome, timeS, attempts,
+        regulatorKpa,
+        inletKpa,
+        inletSource,
+        hoseIdMm: fixed(line.hoseIdMm, 2),
+        hoseLengthM: fixed(line.hoseLengthM, 2),
+        couplerProfile,
+        couplerCount,
+        compressorLps: fixed(shop.air.compressorLps * (0.9 + 0.2 * rng()), 2),
+        tankL: fixed(shop.air.tankL, 1),
+        outcome,
+        timeS,
+        attempts,
         triggerControl: Math.max(1, Math.min(5, Math.round(4.2 - 0.6 * Math.log(power) * 2 + normal(rng) * 0.7))),
         notes: rng() < 0.45 ? pick(rng, NOTES) : null,
         flags,

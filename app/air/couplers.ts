@@ -15,10 +15,20 @@ export const COUPLER_FLOW: Record<CouplerProfile, { throatMm: number; equivalent
   other: { throatMm: 6.0, equivalentLengthM: 4.0 },
 };
 
-export function couplerPressureDropBar(profile: CouplerProfile, count: number, flowLps: number, inletAbsBar: number): number {
+export function couplerPressureDropBar(
+  profile: CouplerProfile,
+  count: number,
+  flowLps: number,
+  inletAbsBar: number,
+): number {
   if (!Number.isInteger(count) || count < 0) throw new RangeError("coupler count must be a whole number, zero or more");
   const c = COUPLER_FLOW[profile];
   if (!c) throw new RangeError(`unknown coupler profile: ${profile}`);
   if (count === 0) return 0;
-  return hosePressureDropBar({ flowLps, lengthM: c.equivalentLengthM * count, insideDiameterMm: c.throatMm, inletAbsBar });
+  return hosePressureDropBar({
+    flowLps,
+    lengthM: c.equivalentLengthM * count,
+    insideDiameterMm: c.throatMm,
+    inletAbsBar,
+  });
 }

@@ -15,7 +15,9 @@ export interface HoseDropInput {
 export function hosePressureDropBar({ flowLps, lengthM, insideDiameterMm, inletAbsBar }: HoseDropInput): number {
   if (!(flowLps >= 0) || !Number.isFinite(flowLps)) throw new RangeError("flow must be zero or more l/s");
   if (!(lengthM >= 0) || !Number.isFinite(lengthM)) throw new RangeError("hose length must be zero or more metres");
-  if (!(insideDiameterMm > 0) || !Number.isFinite(insideDiameterMm)) throw new RangeError("hose inside diameter must be more than 0 mm");
-  if (!(inletAbsBar > 0) || !Number.isFinite(inletAbsBar)) throw new RangeError("absolute inlet pressure must be more than 0 bar(a)");
+  if (!(insideDiameterMm > 0) || !Number.isFinite(insideDiameterMm))
+    throw new RangeError("hose inside diameter must be more than 0 mm");
+  if (!(inletAbsBar > 0) || !Number.isFinite(inletAbsBar))
+    throw new RangeError("absolute inlet pressure must be more than 0 bar(a)");
   return (450 * flowLps ** 1.85 * lengthM) / (insideDiameterMm ** 5 * inletAbsBar);
 }

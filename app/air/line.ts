@@ -20,20 +20,28 @@ export const FLOW_EXPONENT = 1.85;
  * equivalent length per pair is our own estimate, not a published figure. Estimates: prefer a gauge
  * at the tool inlet.
  */
-export const COUPLER_THROATS: Record<CouplerProfile, { throatMm: number; equivalentLengthM: number; source: string }> = {
-  industrial_m: { throatMm: 5.0, equivalentLengthM: 0.6, source: "throat from memory; length our estimate" },
-  automotive_t: { throatMm: 4.8, equivalentLengthM: 0.6, source: "throat from memory; length our estimate" },
-  high_flow_v: { throatMm: 7.0, equivalentLengthM: 0.6, source: "throat from memory; length our estimate" },
-  iso_6150_b: { throatMm: 5.5, equivalentLengthM: 0.6, source: "throat from memory; length our estimate" },
-  other: { throatMm: 4.8, equivalentLengthM: 0.6, source: "the narrowest common throat, to err on the safe side" },
-};
+export const COUPLER_THROATS: Record<CouplerProfile, { throatMm: number; equivalentLengthM: number; source: string }> =
+  {
+    industrial_m: { throatMm: 5.0, equivalentLengthM: 0.6, source: "throat from memory; length our estimate" },
+    automotive_t: { throatMm: 4.8, equivalentLengthM: 0.6, source: "throat from memory; length our estimate" },
+    high_flow_v: { throatMm: 7.0, equivalentLengthM: 0.6, source: "throat from memory; length our estimate" },
+    iso_6150_b: { throatMm: 5.5, equivalentLengthM: 0.6, source: "throat from memory; length our estimate" },
+    other: { throatMm: 4.8, equivalentLengthM: 0.6, source: "the narrowest common throat, to err on the safe side" },
+  };
 
 export type Segment =
   /** Holds its outlet at the setting while the inlet is above it (no droop assumed). */
   | { kind: "regulator"; setKpa: number }
   | { kind: "hose"; idMm: number; lengthM: number; label?: string }
   /** `count` pairs in a row, each solved at its own inlet; throat and length override the profile's. */
-  | { kind: "coupler"; profile: CouplerProfile; count?: number; throatMm?: number; equivalentLengthM?: number; label?: string };
+  | {
+      kind: "coupler";
+      profile: CouplerProfile;
+      count?: number;
+      throatMm?: number;
+      equivalentLengthM?: number;
+      label?: string;
+    };
 
 export interface SegmentPressure {
   kind: Segment["kind"];
@@ -58,8 +66,15 @@ const gaugeKpa = (absBarValue: number) => absBarValue * 100 - ATMOSPHERE_KPA;
  * Outlet pressure (bar absolute) of a straight bore from the integrated pipe formula; 0 when the
  * bore cannot pass the flow (p₁² < 2·K·q^1.85·l/d⁵).
  */
-export function boreOutletAbsBar(inletAbsBar: number, flowLps: number, lengthM: number, idMm: number, k = LINE_LOSS_K): number {
-  if (!(inletAbsBar > 0) || !(flowLps >= 0) || !(lengthM >= 0) || !(idMm > 0)) throw new RangeError("bore: pressures, bore above 0; flow, length 0 or more");
+export function boreOutletAbsBar(
+  inletAbsBar: number,
+  flowLps: number,
+  lengthM: number,
+  idMm: number,
+  k = LINE_LOSS_K,
+): number {
+  if (!(inletAbsBar > 0) || !(flowLps >= 0) || !(lengthM >= 0) || !(idMm > 0))
+    throw new RangeError("bore: pressures, bore above 0; flow, length 0 or more");
   const square = inletAbsBar ** 2 - (2 * k * flowLps ** FLOW_EXPONENT * lengthM) / idMm ** 5;
   return square > 0 ? Math.sqrt(square) : 0;
 }
@@ -75,7 +90,8 @@ function label(s: Segment, i: number, all: Segment[]): string {
 
 /** The pressure after each segment in order, at a given free-air flow; a stalled line reads 0 from there on. */
 export function lineOutletPressure(supplyKpa: number, segments: Segment[], demandLps: number): LineResult {
-  if (!(supplyKpa >= 0) || !Number.isFinite(supplyKpa)) throw new RangeError("supply pressure must be zero or more kPa gauge");
+  if (!(supplyKpa >= 0) || !Number.isFinite(supplyKpa))
+    throw new RangeError("supply pressure must be zero or more kPa gauge");
   if (!(demandLps >= 0) || !Number.isFinite(demandLps)) throw new RangeError("demand must be zero or more l/s");
   let p = supplyKpa;
   let stalled = false;
@@ -88,9 +104,17 @@ export function lineOutletPressure(supplyKpa: number, segments: Segment[], deman
         const c = COUPLER_THROATS[s.profile];
         if (!c) throw new RangeError(`unknown coupler profile: ${s.profile}`);
         const count = s.count ?? 1;
-        if (!Number.isInteger(count) || count < 0) throw new RangeError("coupler count must be a whole number, zero or more");
+        if (!Number.isInteger(count) || count < 0)
+          throw new RangeError("coupler count must be a whole number, zero or more");
         for (let n = 0; n < count && p > 0; n++) {
-          p = gaugeKpa(boreOutletAbsBar(absBar(p), demandLps, s.equivalentLengthM ?? c.equivalentLengthM, s.throatMm ?? c.throatMm));
+          p = gaugeKpa(
+            boreOutletAbsBar(
+              absBar(p),
+              demandLps,
+              s.equivalentLengthM ?? c.equivalentLengthM,
+              s.throatMm ?? c.throatMm,
+            ),
+          );
         }
       }
       if (p <= 0 && demandLps > 0 && s.kind !== "regulator") stalled = true;
@@ -132,7 +156,11 @@ export function runningAir(tool: ToolAir): RunningAir {
   if (!(tool.ratedLps > 0)) throw new RangeError("rated air use must be more than 0 l/s");
   if (tool.runningLps != null && tool.runningLps > 0) {
     const source = tool.runningSource ?? "estimated";
-    return { lps: tool.runningLps, source, factor: source === "estimated" ? (tool.runningFactor ?? tool.runningLps / tool.ratedLps) : null };
+    return {
+      lps: tool.runningLps,
+      source,
+      factor: source === "estimated" ? (tool.runningFactor ?? tool.runningLps / tool.ratedLps) : null,
+    };
   }
   return { lps: tool.ratedLps * RUNNING_AIR_FACTOR, source: "estimated", factor: RUNNING_AIR_FACTOR };
 }
@@ -172,7 +200,15 @@ export function operatingPoint(supplyKpa: number, segments: Segment[], tool: Too
   let iterations = 0;
   const finish = (inletKpa: number, stalled: boolean, converged: boolean) => {
     const demandLps = demandAt(running.lps, inletKpa);
-    return { inletKpa, demandLps, running, line: lineOutletPressure(supplyKpa, segments, demandLps), stalled, converged, iterations };
+    return {
+      inletKpa,
+      demandLps,
+      running,
+      line: lineOutletPressure(supplyKpa, segments, demandLps),
+      stalled,
+      converged,
+      iterations,
+    };
   };
   if (residual(0) <= 0) return finish(0, true, true);
   while (hi - lo > INLET_TOLERANCE_KPA && iterations < 59) {

@@ -22,7 +22,9 @@ export interface Line {
 export function lineLossKpa(supplyKpa: number, flowLps: number, line: Line) {
   if (!(supplyKpa >= 0)) throw new RangeError("supply pressure must be zero or more kPa gauge");
   const absBar = (supplyKpa + ATMOSPHERE_KPA) / 100;
-  const hose = hosePressureDropBar({ flowLps, lengthM: line.hoseLengthM, insideDiameterMm: line.hoseIdMm, inletAbsBar: absBar }) * 100;
+  const hose =
+    hosePressureDropBar({ flowLps, lengthM: line.hoseLengthM, insideDiameterMm: line.hoseIdMm, inletAbsBar: absBar }) *
+    100;
   const couplers = couplerPressureDropBar(line.couplerProfile, line.couplerCount, flowLps, absBar) * 100;
   return { hose, couplers, total: hose + couplers };
 }
@@ -43,7 +45,8 @@ export interface OperatingPoint {
  * the root is unique when it exists. Tolerance 1e-6 kPa.
  */
 export function operatingInletPressure(supplyKpa: number, ratedLps: number, line: Line): OperatingPoint {
-  if (!inRange(RANGES.gaugePressure, supplyKpa)) throw new RangeError(`supply pressure must be ${RANGES.gaugePressure.stated.kPa.join("–")} kPa gauge`);
+  if (!inRange(RANGES.gaugePressure, supplyKpa))
+    throw new RangeError(`supply pressure must be ${RANGES.gaugePressure.stated.kPa.join("–")} kPa gauge`);
   if (!(ratedLps > 0)) throw new RangeError("rated air consumption must be more than 0 l/s");
   const residual = (p: number) => supplyKpa - lineLossKpa(supplyKpa, airDemandLps(ratedLps, p), line).total - p;
   let lo = 0;
@@ -51,7 +54,14 @@ export function operatingInletPressure(supplyKpa: number, ratedLps: number, line
   let iterations = 0;
   if (residual(0) <= 0) {
     const demand = airDemandLps(ratedLps, 0);
-    return { inletKpa: 0, demandLps: demand, loss: lineLossKpa(supplyKpa, demand, line), stalled: true, converged: true, iterations };
+    return {
+      inletKpa: 0,
+      demandLps: demand,
+      loss: lineLossKpa(supplyKpa, demand, line),
+      stalled: true,
+      converged: true,
+      iterations,
+    };
   }
   while (hi - lo > 1e-6 && iterations < 200) {
     const mid = (lo + hi) / 2;
@@ -61,5 +71,12 @@ export function operatingInletPressure(supplyKpa: number, ratedLps: number, line
   }
   const inletKpa = (lo + hi) / 2;
   const demandLps = airDemandLps(ratedLps, inletKpa);
-  return { inletKpa, demandLps, loss: lineLossKpa(supplyKpa, demandLps, line), stalled: false, converged: hi - lo <= 1e-6, iterations };
+  return {
+    inletKpa,
+    demandLps,
+    loss: lineLossKpa(supplyKpa, demandLps, line),
+    stalled: false,
+    converged: hi - lo <= 1e-6,
+    iterations,
+  };
 }

@@ -49,9 +49,16 @@ const MAX_STEP_KPA = 0.5;
 const SOLVER_SLACK_KPA = 1e-5;
 
 /** Time-stepped (fourth-order Runge–Kutta) tank pressure until the tool inlet falls below the minimum. */
-export function tankRunTime(tank: TankSpec, compressor: CompressorSpec, line: Segment[], tool: ToolAir, options: TankRunOptions = {}): TankRunResult {
+export function tankRunTime(
+  tank: TankSpec,
+  compressor: CompressorSpec,
+  line: Segment[],
+  tool: ToolAir,
+  options: TankRunOptions = {},
+): TankRunResult {
   if (!(tank.volumeL > 0)) throw new RangeError("tank volume must be more than 0 l");
-  if (!(tank.cutOutKpa > tank.cutInKpa) || tank.cutInKpa < 0 || tank.cutOutKpa > 2000) throw new RangeError("cut-out must be above cut-in, both 0–2,000 kPa");
+  if (!(tank.cutOutKpa > tank.cutInKpa) || tank.cutInKpa < 0 || tank.cutOutKpa > 2000)
+    throw new RangeError("cut-out must be above cut-in, both 0–2,000 kPa");
   if (!(compressor.deliveryLps >= 0)) throw new RangeError("compressor delivery must be zero or more l/s");
   const minInletKpa = options.minInletKpa ?? RATED_INLET_KPA;
   // While the tank is above a leading regulator's setting the regulator holds its outlet, so the
@@ -59,11 +66,20 @@ export function tankRunTime(tank: TankSpec, compressor: CompressorSpec, line: Se
   const first = line[0];
   const heldKpa = first?.kind === "regulator" ? first.setKpa : Infinity;
   let held: ReturnType<typeof operatingPoint> | null = null;
-  const point = (tankKpa: number) => (tankKpa >= heldKpa ? (held ??= operatingPoint(heldKpa, line, tool)) : operatingPoint(tankKpa, line, tool));
+  const point = (tankKpa: number) =>
+    tankKpa >= heldKpa ? (held ??= operatingPoint(heldKpa, line, tool)) : operatingPoint(tankKpa, line, tool);
   const start = point(tank.cutOutKpa);
   const base = { minInletKpa, startInletKpa: start.inletKpa, assumptions: TANK_RUN_ASSUMPTIONS };
   if (start.inletKpa < minInletKpa - SOLVER_SLACK_KPA) {
-    return { ...base, seconds: 0, ending: "below_minimum_from_start", floorTankKpa: tank.cutOutKpa, compressorOnS: null, demandLps: { start: start.demandLps, end: start.demandLps }, steps: 0 };
+    return {
+      ...base,
+      seconds: 0,
+      ending: "below_minimum_from_start",
+      floorTankKpa: tank.cutOutKpa,
+      compressorOnS: null,
+      demandLps: { start: start.demandLps, end: start.demandLps },
+      steps: 0,
+    };
   }
 
   // The inlet rises with tank pressure, so the tank pressure where it meets the minimum is one root.
@@ -78,10 +94,19 @@ export function tankRunTime(tank: TankSpec, compressor: CompressorSpec, line: Se
   const floorDemand = point(floorTankKpa).demandLps;
   if (floorTankKpa < tank.cutInKpa && compressor.deliveryLps >= floorDemand) {
     // Once on, the compressor holds the tank above the floor (it settles, or cycles back to cut-out).
-    return { ...base, seconds: Infinity, ending: "compressor_keeps_up", floorTankKpa, compressorOnS: null, demandLps: { start: start.demandLps, end: floorDemand }, steps: 0 };
+    return {
+      ...base,
+      seconds: Infinity,
+      ending: "compressor_keeps_up",
+      floorTankKpa,
+      compressorOnS: null,
+      demandLps: { start: start.demandLps, end: floorDemand },
+      steps: 0,
+    };
   }
 
-  const rate = (p: number, on: boolean) => (ATMOSPHERE_KPA * ((on ? compressor.deliveryLps : 0) - point(p).demandLps)) / tank.volumeL;
+  const rate = (p: number, on: boolean) =>
+    (ATMOSPHERE_KPA * ((on ? compressor.deliveryLps : 0) - point(p).demandLps)) / tank.volumeL;
   const rk4 = (p: number, on: boolean, dt: number) => {
     const k1 = rate(p, on);
     const k2 = rate(p + (dt / 2) * k1, on);
@@ -123,5 +148,13 @@ export function tankRunTime(tank: TankSpec, compressor: CompressorSpec, line: Se
     }
     if (steps > 1_000_000) throw new Error("tank run did not end: step size collapsed");
   }
-  return { ...base, seconds: t, ending: "inlet_below_minimum", floorTankKpa, compressorOnS, demandLps: { start: start.demandLps, end: floorDemand }, steps };
+  return {
+    ...base,
+    seconds: t,
+    ending: "inlet_below_minimum",
+    floorTankKpa,
+    compressorOnS,
+    demandLps: { start: start.demandLps, end: floorDemand },
+    steps,
+  };
 }

@@ -1,7 +1,6 @@
 import { sql } from "kysely";
 import type { Db } from "../../db/database";
 
-
 export async function listSessions(db: Db, userId: number) {
   return db
     .selectFrom("sessions")
@@ -14,8 +13,11 @@ export async function listSessions(db: Db, userId: number) {
 
 /** Ends one of the user's own sessions, identified by a short public prefix of its hash. */
 export async function endSession(db: Db, userId: number, hashPrefix: string) {
-  const r = await db.deleteFrom("sessions").where("user_id", "=", userId)
-    .where("id_hash", "like", `${hashPrefix}%`).executeTakeFirst();
+  const r = await db
+    .deleteFrom("sessions")
+    .where("user_id", "=", userId)
+    .where("id_hash", "like", `${hashPrefix}%`)
+    .executeTakeFirst();
   return r.numDeletedRows > 0n;
 }
 

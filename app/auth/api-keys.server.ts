@@ -7,7 +7,10 @@ export const MAX_KEYS_PER_USER = 10;
 
 export async function createApiKey(db: Db, userId: number, name: string) {
   const key = `bpk_${randomToken()}`;
-  await db.insertInto("api_keys").values({ user_id: userId, name, key_hash: sha256Hex(key), key_prefix: key.slice(0, 10) }).execute();
+  await db
+    .insertInto("api_keys")
+    .values({ user_id: userId, name, key_hash: sha256Hex(key), key_prefix: key.slice(0, 10) })
+    .execute();
   return key;
 }
 
@@ -22,23 +25,36 @@ export async function listApiKeys(db: Db, userId: number) {
 }
 
 export async function countActiveKeys(db: Db, userId: number) {
-  const row = await db.selectFrom("api_keys").select(sql<number>`count(*)::int`.as("n"))
-    .where("user_id", "=", userId).where("revoked_at", "is", null).executeTakeFirstOrThrow();
+  const row = await db
+    .selectFrom("api_keys")
+    .select(sql<number>`count(*)::int`.as("n"))
+    .where("user_id", "=", userId)
+    .where("revoked_at", "is", null)
+    .executeTakeFirstOrThrow();
   return row.n;
 }
 
 /** Revokes one of the user's own keys; false when it is not theirs or already revoked. */
 export async function revokeApiKey(db: Db, userId: number, keyId: number) {
-  const r = await db.updateTable("api_keys").set({ revoked_at: sql`now()` })
-    .where("id", "=", keyId).where("user_id", "=", userId).where("revoked_at", "is", null).executeTakeFirst();
+  const r = await db
+    .updateTable("api_keys")
+    .set({ revoked_at: sql`now()` })
+    .where("id", "=", keyId)
+    .where("user_id", "=", userId)
+    .where("revoked_at", "is", null)
+    .executeTakeFirst();
   return r.numUpdatedRows > 0n;
 }
 
 /** The key's owner, recording its use; null for an unknown or revoked key, or a banned owner's. */
 export async function verifyApiKey(db: Db, key: string) {
-  const row = await db.updateTable("api_keys").set({ last_used_at: sql`now()` })
-    .where("key_hash", "=", sha256Hex(key)).where("revoked_at", "is", null)
+  const row = await db
+    .updateTable("api_keys")
+    .set({ last_used_at: sql`now()` })
+    .where("key_hash", "=", sha256Hex(key))
+    .where("revoked_at", "is", null)
     .where("user_id", "not in", db.selectFrom("users").select("id").where("banned_at", "is not", null))
-    .returning(["id", "user_id"]).executeTakeFirst();
+    .returning(["id", "user_id"])
+    .executeTakeFirst();
   return row ?? null;
 }

@@ -15,9 +15,15 @@ export const RATE_WINDOW = "15 minutes";
 export const MAX_PER_ADDRESS = 3;
 export const MAX_PER_CLIENT = 10;
 
-export type LinkRequestResult = { ok: true } | { ok: false; reason: "too_many_for_address" | "too_many_for_client" | "mail_failed" };
+export type LinkRequestResult =
+  { ok: true } | { ok: false; reason: "too_many_for_address" | "too_many_for_client" | "mail_failed" };
 
-export async function requestSignInLink(db: Db, email: string, request: Request, redirectTo: string): Promise<LinkRequestResult> {
+export async function requestSignInLink(
+  db: Db,
+  email: string,
+  request: Request,
+  redirectTo: string,
+): Promise<LinkRequestResult> {
   const address = email.toLowerCase();
   const client = clientKey(request);
   const counts = await db
@@ -36,7 +42,12 @@ export async function requestSignInLink(db: Db, email: string, request: Request,
   const tokenHash = sha256Hex(token);
   await db
     .insertInto("sign_in_links")
-    .values({ token_hash: tokenHash, email: address, client_key: client, expires_at: new Date(Date.now() + LINK_LIFETIME_MS) })
+    .values({
+      token_hash: tokenHash,
+      email: address,
+      client_key: client,
+      expires_at: new Date(Date.now() + LINK_LIFETIME_MS),
+    })
     .execute();
   const link = `${config.appOrigin}/sign-in/link?token=${token}&redirectTo=${encodeURIComponent(redirectTo)}`;
   try {
@@ -61,8 +72,7 @@ export async function requestSignInLink(db: Db, email: string, request: Request,
 }
 
 export type ConsumeResult =
-  | { ok: true; userId: number }
-  | { ok: false; reason: "unknown" | "used" | "expired" | "banned" };
+  { ok: true; userId: number } | { ok: false; reason: "unknown" | "used" | "expired" | "banned" };
 
 /** Spends the link (once) and returns the user it signs in, creating the account on first use. */
 export async function consumeSignInLink(db: Db, token: string): Promise<ConsumeResult> {
@@ -77,8 +87,15 @@ export async function consumeSignInLink(db: Db, token: string): Promise<ConsumeR
       .returning("email")
       .executeTakeFirst();
     if (!spent) {
-      const link = await trx.selectFrom("sign_in_links").select(["used_at"]).where("token_hash", "=", hash).executeTakeFirst();
-      return { ok: false as const, reason: !link ? "unknown" as const : link.used_at ? "used" as const : "expired" as const };
+      const link = await trx
+        .selectFrom("sign_in_links")
+        .select(["used_at"])
+        .where("token_hash", "=", hash)
+        .executeTakeFirst();
+      return {
+        ok: false as const,
+        reason: !link ? ("unknown" as const) : link.used_at ? ("used" as const) : ("expired" as const),
+      };
     }
     const existing = await findUserByEmail(trx, spent.email);
     if (existing?.banned_at) return { ok: false as const, reason: "banned" as const };

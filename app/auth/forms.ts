@@ -11,7 +11,10 @@ export const emailSchema = z.object({
 
 export const profileSchema = z.object({
   intent: z.literal("profile"),
-  handle: plainText().trim().toLowerCase().regex(/^[a-z0-9][a-z0-9_-]{2,29}$/, "3–30 characters: letters, digits, - and _, starting with a letter or digit"),
+  handle: plainText()
+    .trim()
+    .toLowerCase()
+    .regex(/^[a-z0-9][a-z0-9_-]{2,29}$/, "3–30 characters: letters, digits, - and _, starting with a letter or digit"),
   /** One system for every figure; metric readers may keep bar for pressure. */
   units: z.enum(["us", "metric", "metric-bar"], { error: "Choose US customary or metric units" }),
 });
@@ -23,11 +26,22 @@ export const unitsSchema = z.object({
 });
 export const endSessionSchema = z.object({ intent: z.literal("end-session"), ref: z.string().regex(/^[0-9a-f]{16}$/) });
 export const endOthersSchema = z.object({ intent: z.literal("end-other-sessions") });
-export const createKeySchema = z.object({ intent: z.literal("create-key"), name: plainText().trim().min(1, "Give the key a name, e.g. the project it is for").max(60) });
+export const createKeySchema = z.object({
+  intent: z.literal("create-key"),
+  name: plainText().trim().min(1, "Give the key a name, e.g. the project it is for").max(60),
+});
 export const revokeKeySchema = z.object({ intent: z.literal("revoke-key"), keyId: idField("No such key") });
-export const accountSchema = z.discriminatedUnion("intent", [profileSchema, endSessionSchema, endOthersSchema, createKeySchema, revokeKeySchema]);
+export const accountSchema = z.discriminatedUnion("intent", [
+  profileSchema,
+  endSessionSchema,
+  endOthersSchema,
+  createKeySchema,
+  revokeKeySchema,
+]);
 
-export const userSearchSchema = z.object({ q: plainText().trim().max(100, "The search must be at most 100 characters").default("") });
+export const userSearchSchema = z.object({
+  q: plainText().trim().max(100, "The search must be at most 100 characters").default(""),
+});
 
 export const roleSchema = z.object({
   intent: z.enum(["grant", "revoke"]),

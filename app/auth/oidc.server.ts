@@ -35,13 +35,16 @@ export async function startSignIn(provider: typeof config.oidc, redirectTo: stri
   const verifier = generateCodeVerifier();
   const nonce = generateState();
   const url = client(provider).createAuthorizationURLWithPKCE(
-    provider.authorizationUrl, state, CodeChallengeMethod.S256, verifier, ["openid", "email", "profile"],
+    provider.authorizationUrl,
+    state,
+    CodeChallengeMethod.S256,
+    verifier,
+    ["openid", "email", "profile"],
   );
   url.searchParams.set("nonce", nonce);
   const cookie = await flowCookie.serialize({ state, verifier, nonce, redirectTo });
   return { url: url.toString(), cookie };
 }
-
 
 const claimsSchema = z.object({
   iss: z.string(),
@@ -56,12 +59,18 @@ const claimsSchema = z.object({
 export async function finishSignIn(db: Db, provider: typeof config.oidc, request: Request) {
   const url = new URL(request.url);
   const flow = flowSchema.safeParse(await flowCookie.parse(request.headers.get("cookie")));
-  if (!flow.success) throw new AppError("This sign-in attempt has expired or was started in another browser. Start again.");
+  if (!flow.success)
+    throw new AppError("This sign-in attempt has expired or was started in another browser. Start again.");
   const providerError = url.searchParams.get("error");
-  if (providerError) throw new AppError(`The sign-in provider refused: ${url.searchParams.get("error_description") ?? providerError}`, 401);
+  if (providerError)
+    throw new AppError(
+      `The sign-in provider refused: ${url.searchParams.get("error_description") ?? providerError}`,
+      401,
+    );
   const code = url.searchParams.get("code");
   const state = url.searchParams.get("state");
-  if (!code || !state || state !== flow.data.state) throw new AppError("The sign-in response does not match this attempt (state). Start again.");
+  if (!code || !state || state !== flow.data.state)
+    throw new AppError("The sign-in response does not match this attempt (state). Start again.");
 
   let idToken: string;
   try {
@@ -76,10 +85,12 @@ export async function finishSignIn(db: Db, provider: typeof config.oidc, request
   if (!claims.success) throw new AppError("The provider's ID token is missing required claims.", 401);
   const c = claims.data;
   const audiences = Array.isArray(c.aud) ? c.aud : [c.aud];
-  if (c.iss.replace(/\/$/, "") !== provider.issuer.replace(/\/$/, "")) throw new AppError("The ID token is from another issuer.", 401);
+  if (c.iss.replace(/\/$/, "") !== provider.issuer.replace(/\/$/, ""))
+    throw new AppError("The ID token is from another issuer.", 401);
   if (!audiences.includes(provider.clientId)) throw new AppError("The ID token is for another application.", 401);
   if (c.exp * 1000 < Date.now()) throw new AppError("The ID token has expired. Start again.", 401);
-  if (c.nonce !== flow.data.nonce) throw new AppError("The ID token does not match this attempt (nonce). Start again.", 401);
+  if (c.nonce !== flow.data.nonce)
+    throw new AppError("The ID token does not match this attempt (nonce). Start again.", 401);
 
   const userId = await db.transaction().execute(async (trx) => {
     const linked = await trx
@@ -93,7 +104,10 @@ export async function finishSignIn(db: Db, provider: typeof config.oidc, request
       if (linked.banned_at) throw new AppError("This account is suspended.", 403);
       return linked.id;
     }
-    if (!c.email) throw new AppError("The provider did not share an e-mail address; Bayproof needs one for decisions on your reports.");
+    if (!c.email)
+      throw new AppError(
+        "The provider did not share an e-mail address; Bayproof needs one for decisions on your reports.",
+      );
     if (await findUserByEmail(trx, c.email)) {
       throw new AppError(
         "A Bayproof account already uses this e-mail address. Sign in with an e-mail link instead; accounts are never joined by e-mail alone.",
@@ -101,7 +115,10 @@ export async function finishSignIn(db: Db, provider: typeof config.oidc, request
       );
     }
     const id = await createUser(trx, c.email);
-    await trx.insertInto("oauth_accounts").values({ provider: provider.id, subject: c.sub, user_id: id, email_at_link: c.email.toLowerCase() }).execute();
+    await trx
+      .insertInto("oauth_accounts")
+      .values({ provider: provider.id, subject: c.sub, user_id: id, email_at_link: c.email.toLowerCase() })
+      .execute();
     return id;
   });
   const clear = await flowCookie.serialize("", { maxAge: 0 });

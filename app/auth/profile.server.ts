@@ -8,7 +8,12 @@ export type Profile = Omit<z.output<typeof profileSchema>, "intent">;
 
 /** Whether another user already has this handle. */
 export async function handleTaken(db: Db, handle: string, userId: number) {
-  const row = await db.selectFrom("users").select("id").where("handle", "=", handle).where("id", "!=", userId).executeTakeFirst();
+  const row = await db
+    .selectFrom("users")
+    .select("id")
+    .where("handle", "=", handle)
+    .where("id", "!=", userId)
+    .executeTakeFirst();
   return !!row;
 }
 
@@ -17,8 +22,11 @@ export async function saveProfile(db: Db, userId: number, p: Profile): Promise<"
   if (await handleTaken(db, p.handle, userId)) return "handle-taken";
   try {
     const u = unitsOf(p.units === "us" ? "us" : "metric", p.units === "metric-bar" ? "bar" : "kPa");
-    await db.updateTable("users").set({ handle: p.handle, pressure_unit: u.pressure, length_unit: u.length, force_unit: u.force })
-      .where("id", "=", userId).execute();
+    await db
+      .updateTable("users")
+      .set({ handle: p.handle, pressure_unit: u.pressure, length_unit: u.length, force_unit: u.force })
+      .where("id", "=", userId)
+      .execute();
     return "saved";
   } catch (error) {
     if ((error as { code?: string }).code === "23505") return "handle-taken";

@@ -63,8 +63,18 @@ async function readSessionUser(db: Db, request: Request): Promise<SessionUser | 
     .selectFrom("sessions as s")
     .innerJoin("users as u", "u.id", "s.user_id")
     .select([
-      "u.id", "u.handle", "u.email", "u.pressure_unit", "u.length_unit", "u.force_unit", "s.last_seen_at",
-      sql<Role[]>`coalesce((select array_agg(ur.role order by ur.role) from user_roles ur where ur.user_id = u.id), '{}')`.as("roles"),
+      "u.id",
+      "u.handle",
+      "u.email",
+      "u.pressure_unit",
+      "u.length_unit",
+      "u.force_unit",
+      "s.last_seen_at",
+      sql<
+        Role[]
+      >`coalesce((select array_agg(ur.role order by ur.role) from user_roles ur where ur.user_id = u.id), '{}')`.as(
+        "roles",
+      ),
     ])
     .where("s.id_hash", "=", hash)
     .where("s.expires_at", ">", sql<Date>`now()`)
@@ -73,11 +83,21 @@ async function readSessionUser(db: Db, request: Request): Promise<SessionUser | 
     .executeTakeFirst();
   if (!row) return null;
   if (Date.now() - new Date(row.last_seen_at).getTime() > TOUCH_EVERY_MS) {
-    await db.updateTable("sessions").set({ last_seen_at: sql`now()` }).where("id_hash", "=", hash).execute();
+    await db
+      .updateTable("sessions")
+      .set({ last_seen_at: sql`now()` })
+      .where("id_hash", "=", hash)
+      .execute();
   }
   return {
-    id: row.id, handle: row.handle, email: row.email, roles: row.roles,
-    pressureUnit: row.pressure_unit, lengthUnit: row.length_unit, forceUnit: row.force_unit, sessionHash: hash,
+    id: row.id,
+    handle: row.handle,
+    email: row.email,
+    roles: row.roles,
+    pressureUnit: row.pressure_unit,
+    lengthUnit: row.length_unit,
+    forceUnit: row.force_unit,
+    sessionHash: hash,
   };
 }
 

@@ -1,10 +1,13 @@
 import type { Db } from "../../db/database";
 import { randomToken } from "~/utils/tokens.server";
 
-
 /** A new pseudonymous handle; the user can change it on /account. */
 function newHandle() {
-  return `tech-${randomToken(6).toLowerCase().replace(/[^a-z0-9]/g, "").slice(0, 6).padEnd(6, "0")}`;
+  return `tech-${randomToken(6)
+    .toLowerCase()
+    .replace(/[^a-z0-9]/g, "")
+    .slice(0, 6)
+    .padEnd(6, "0")}`;
 }
 
 export async function findUserByEmail(db: Db, email: string) {

@@ -12,7 +12,11 @@ const fields = {
   job: slugField("job"),
   maxPrice: z.coerce.number({ error: "maximum price" }).min(0, "maximum price").max(100_000, "maximum price"),
   maxWeight: z.coerce.number({ error: "maximum weight" }).gt(0, "maximum weight").max(50, "maximum weight"),
-  minReports: z.coerce.number({ error: "minimum reports" }).int("minimum reports").min(0, "minimum reports").max(100_000, "minimum reports"),
+  minReports: z.coerce
+    .number({ error: "minimum reports" })
+    .int("minimum reports")
+    .min(0, "minimum reports")
+    .max(100_000, "minimum reports"),
   sort: z.enum(SORTABLE, { error: "sort" }),
   dir: z.enum(["asc", "desc"], { error: "direction" }),
 };

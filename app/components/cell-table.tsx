@@ -3,10 +3,34 @@ import { formatDuration } from "~/domain";
 import { FEW_REPORTS, type StatsCell } from "~/stats/cells";
 import { IntervalBar, pct, plainLine } from "./intervals";
 
-export type CellRow = Pick<StatsCell,
-  | "n" | "successes" | "estimate" | "lower" | "upper" | "shrunk_estimate" | "reporters" | "design_effect" | "effective_n" | "set_aside"
-  | "time_n" | "time_median_s" | "time_lower_s" | "time_upper_s" | "time_coverage" | "km_n" | "km_median_s" | "km_lower_s" | "km_upper_s"
-  | "adj_estimate" | "adj_lower" | "adj_upper" | "adj_reason" | "measured_share" | "confidence"> & {
+export type CellRow = Pick<
+  StatsCell,
+  | "n"
+  | "successes"
+  | "estimate"
+  | "lower"
+  | "upper"
+  | "shrunk_estimate"
+  | "reporters"
+  | "design_effect"
+  | "effective_n"
+  | "set_aside"
+  | "time_n"
+  | "time_median_s"
+  | "time_lower_s"
+  | "time_upper_s"
+  | "time_coverage"
+  | "km_n"
+  | "km_median_s"
+  | "km_lower_s"
+  | "km_upper_s"
+  | "adj_estimate"
+  | "adj_lower"
+  | "adj_upper"
+  | "adj_reason"
+  | "measured_share"
+  | "confidence"
+> & {
   key: string;
   href: string;
   label: string;
@@ -32,9 +56,17 @@ export function CellTable({ rows, firstColumn }: { rows: CellRow[]; firstColumn:
   return (
     <ul className="space-y-3" aria-label={`${firstColumn}s with their figures`}>
       {rows.map((r) => (
-        <li key={r.key} data-testid="cell-row" data-slug={r.key} data-mark={r.tag ?? ""} className="rounded-lg border border-stone-200 bg-white p-3">
+        <li
+          key={r.key}
+          data-testid="cell-row"
+          data-slug={r.key}
+          data-mark={r.tag ?? ""}
+          className="rounded-lg border border-stone-200 bg-white p-3"
+        >
           <div className="flex flex-wrap items-baseline justify-between gap-x-3">
-            <Link to={r.href} className="font-semibold text-bay-700 hover:underline">{r.label}</Link>
+            <Link to={r.href} className="font-semibold text-bay-700 hover:underline">
+              {r.label}
+            </Link>
             {r.tag && <span className="text-xs font-semibold text-bay-700">{r.tag}</span>}
           </div>
           {r.sub && <div className="text-xs text-stone-500">{r.sub}</div>}
@@ -43,10 +75,16 @@ export function CellTable({ rows, firstColumn }: { rows: CellRow[]; firstColumn:
               <dt className="text-xs uppercase text-stone-500">Freed</dt>
               <dd className="flex flex-wrap items-center gap-2">
                 <IntervalBar estimate={r.estimate} lower={r.lower} upper={r.upper} muted={r.n < FEW_REPORTS} />
-                <span>{pct(r.estimate)} <span className="text-stone-500">({pct(r.lower)}–{pct(r.upper)})</span></span>
+                <span>
+                  {pct(r.estimate)}{" "}
+                  <span className="text-stone-500">
+                    ({pct(r.lower)}–{pct(r.upper)})
+                  </span>
+                </span>
               </dd>
               <dd className="text-xs text-stone-600">
-                {r.n < FEW_REPORTS ? `${r.n} reports — too few to compare; ` : `${r.n} reports, `}{reporters(r.reporters)}
+                {r.n < FEW_REPORTS ? `${r.n} reports — too few to compare; ` : `${r.n} reports, `}
+                {reporters(r.reporters)}
               </dd>
             </div>
             <div>
@@ -54,15 +92,27 @@ export function CellTable({ rows, firstColumn }: { rows: CellRow[]; firstColumn:
               <dd>
                 {r.km_median_s != null ? formatDuration(r.km_median_s) : r.km_n > 0 ? "not reached: most gave up" : "—"}
                 {r.km_median_s != null && (
-                  <span className="text-stone-500"> ({formatDuration(r.km_lower_s)}–{r.km_upper_s == null ? "not reached" : formatDuration(r.km_upper_s)})</span>
+                  <span className="text-stone-500">
+                    {" "}
+                    ({formatDuration(r.km_lower_s)}–
+                    {r.km_upper_s == null ? "not reached" : formatDuration(r.km_upper_s)})
+                  </span>
                 )}
               </dd>
             </div>
             <div>
               <dt className="text-xs uppercase text-stone-500">At 90 psi inlet</dt>
               <dd>
-                {r.adj_estimate != null ? <>{pct(r.adj_estimate)} <span className="text-stone-500">({pct(r.adj_lower!)}–{pct(r.adj_upper!)})</span></>
-                  : <span className="text-xs text-stone-500">{r.adj_reason}</span>}
+                {r.adj_estimate != null ? (
+                  <>
+                    {pct(r.adj_estimate)}{" "}
+                    <span className="text-stone-500">
+                      ({pct(r.adj_lower!)}–{pct(r.adj_upper!)})
+                    </span>
+                  </>
+                ) : (
+                  <span className="text-xs text-stone-500">{r.adj_reason}</span>
+                )}
               </dd>
             </div>
           </dl>
@@ -89,11 +139,15 @@ export function CellTable({ rows, firstColumn }: { rows: CellRow[]; firstColumn:
 const s = (k: number, one: string, many: string) => (k === 1 ? one : many);
 
 function rateNote(r: CellRow) {
-  return `${plainLine(r.successes, r.n, r.lower, r.upper)} ${level(r.confidence)} Wilson score interval at the effective sample size ${(r.effective_n ?? r.n).toFixed(1)} = n / design effect ${r.design_effect.toFixed(2)} (reports clustered by reporter, ${reporters(r.reporters)}).`
-    + (r.set_aside > 0 ? ` ${r.set_aside} ${s(r.set_aside, "report", "reports")} run above the tool's rated inlet pressure ${s(r.set_aside, "is", "are")} listed but set aside from every figure.` : "")
-    + (r.shrunk_estimate != null
+  return (
+    `${plainLine(r.successes, r.n, r.lower, r.upper)} ${level(r.confidence)} Wilson score interval at the effective sample size ${(r.effective_n ?? r.n).toFixed(1)} = n / design effect ${r.design_effect.toFixed(2)} (reports clustered by reporter, ${reporters(r.reporters)}).` +
+    (r.set_aside > 0
+      ? ` ${r.set_aside} ${s(r.set_aside, "report", "reports")} run above the tool's rated inlet pressure ${s(r.set_aside, "is", "are")} listed but set aside from every figure.`
+      : "") +
+    (r.shrunk_estimate != null
       ? ` Pooled with the other tools on this job: ${pct(r.shrunk_estimate)} — the rate pulled toward what all tools do on this job, more so the fewer reports a tool has, so a lucky or unlucky handful of jobs does not read as the whole story (empirical-Bayes beta-binomial).`
-      : "");
+      : "")
+  );
 }
 
 function timeNote(r: CellRow) {

@@ -9,9 +9,15 @@ const STATUS_MESSAGES: Record<number, { title: string; body: string }> = {
   403: { title: "Not allowed", body: "Your account cannot see or change this." },
   409: { title: "That clashes with something already there", body: "Nothing was changed." },
   429: { title: "Too many tries", body: "Wait a few minutes and try again." },
-  413: { title: "That was too much to send", body: "The form is larger than Bayproof accepts. Shorten the text and send it again." },
+  413: {
+    title: "That was too much to send",
+    body: "The form is larger than Bayproof accepts. Shorten the text and send it again.",
+  },
   415: { title: "That form could not be read", body: "Send the form from Bayproof's own page." },
-  503: { title: "Bayproof is busy for a moment", body: "The database could not be reached, so nothing was changed. Try again in a few seconds." },
+  503: {
+    title: "Bayproof is busy for a moment",
+    body: "The database could not be reached, so nothing was changed. Try again in a few seconds.",
+  },
   404: { title: "Not found", body: "There is no page here. The tool, job or report may have moved or never existed." },
 };
 
@@ -37,7 +43,11 @@ export function ErrorPage({ error }: { error: unknown }) {
       <p className="mt-2 text-stone-700">{body}</p>
       {detail && <p className="mt-2 text-stone-700">{detail}</p>}
       {stack && <pre className="mt-4 overflow-x-auto rounded bg-stone-100 p-3 text-xs">{stack}</pre>}
-      <p className="mt-4"><Link to="/" className="text-bay-700 underline">Back to the start page</Link></p>
+      <p className="mt-4">
+        <Link to="/" className="text-bay-700 underline">
+          Back to the start page
+        </Link>
+      </p>
     </Card>
   );
 }

@@ -3,7 +3,8 @@
 // conform's (`<id>-description`, `<id>-error`), so a conform field's own props agree with them.
 import type { ReactNode } from "react";
 
-export const inputClass = "mt-1 block w-full rounded border border-stone-300 px-3 py-3 text-base aria-[invalid]:border-red-600";
+export const inputClass =
+  "mt-1 block w-full rounded border border-stone-300 px-3 py-3 text-base aria-[invalid]:border-red-600";
 
 /** What a control needs to be described by its field: spread it onto the input, select or textarea. */
 export interface ControlProps {
@@ -18,7 +19,11 @@ export function controlProps(id: string, error?: string, hint?: ReactNode): Cont
 }
 
 export function FieldError({ id, message }: { id: string; message?: string }) {
-  return message ? <span id={`${id}-error`} className="mt-1 block text-sm text-red-700">{message}</span> : null;
+  return message ? (
+    <span id={`${id}-error`} className="mt-1 block text-sm text-red-700">
+      {message}
+    </span>
+  ) : null;
 }
 
 interface FieldProps {
@@ -33,11 +38,25 @@ interface FieldProps {
 }
 
 /** A label, the control, an optional hint and the error, tied together by ids. */
-export function Field({ id, label, hint, error, className = "block", labelClassName = "font-semibold", children }: FieldProps) {
+export function Field({
+  id,
+  label,
+  hint,
+  error,
+  className = "block",
+  labelClassName = "font-semibold",
+  children,
+}: FieldProps) {
   return (
     <div className={className}>
-      <label htmlFor={id} className={labelClassName}>{label}</label>
-      {hint && <span id={`${id}-description`} className="block text-sm text-stone-600">{hint}</span>}
+      <label htmlFor={id} className={labelClassName}>
+        {label}
+      </label>
+      {hint && (
+        <span id={`${id}-description`} className="block text-sm text-stone-600">
+          {hint}
+        </span>
+      )}
       {children(controlProps(id, error, hint))}
       <FieldError id={id} message={error} />
     </div>
@@ -64,10 +83,16 @@ export function Select({ name, options, defaultValue, selectProps, ...field }: S
           {options.map((o) =>
             "options" in o ? (
               <optgroup key={o.label} label={o.label}>
-                {o.options.map(([v, text]) => <option key={v} value={v}>{text}</option>)}
+                {o.options.map(([v, text]) => (
+                  <option key={v} value={v}>
+                    {text}
+                  </option>
+                ))}
               </optgroup>
             ) : (
-              <option key={o[0]} value={o[0]}>{o[1]}</option>
+              <option key={o[0]} value={o[0]}>
+                {o[1]}
+              </option>
             ),
           )}
         </select>
@@ -90,15 +115,36 @@ interface RadioChoicesProps {
 }
 
 /** One radio per choice in a fieldset, the error below and tied to the group. */
-export function RadioChoices({ id, name, choices, legend, legendClassName = "font-semibold", error, defaultValue, className = "mt-1 grid gap-2", choiceClassName }: RadioChoicesProps) {
+export function RadioChoices({
+  id,
+  name,
+  choices,
+  legend,
+  legendClassName = "font-semibold",
+  error,
+  defaultValue,
+  className = "mt-1 grid gap-2",
+  choiceClassName,
+}: RadioChoicesProps) {
   const { "aria-describedby": describedBy, "aria-invalid": invalid } = controlProps(id, error);
   return (
     <fieldset aria-describedby={describedBy}>
       {legend && <legend className={legendClassName}>{legend}</legend>}
       <div className={className}>
         {Object.entries(choices).map(([value, label]) => (
-          <label key={value} className={choiceClassName ?? "flex items-center gap-3 rounded border border-stone-300 px-3 py-3"}>
-            <input type="radio" id={`${id}-${value}`} name={name} value={value} defaultChecked={defaultValue === value} aria-invalid={invalid} className="h-5 w-5" />
+          <label
+            key={value}
+            className={choiceClassName ?? "flex items-center gap-3 rounded border border-stone-300 px-3 py-3"}
+          >
+            <input
+              type="radio"
+              id={`${id}-${value}`}
+              name={name}
+              value={value}
+              defaultChecked={defaultValue === value}
+              aria-invalid={invalid}
+              className="h-5 w-5"
+            />
             <span>{label}</span>
           </label>
         ))}

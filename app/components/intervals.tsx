@@ -4,12 +4,30 @@ import { scaleLinear } from "d3-scale";
 import { formatChance as prob, formatShare as pct } from "~/domain";
 
 /** A small 0–100 % bar with the interval as a band and the estimate as a tick. */
-export function IntervalBar({ estimate, lower, upper, muted = false }: { estimate: number; lower: number; upper: number; muted?: boolean }) {
+export function IntervalBar({
+  estimate,
+  lower,
+  upper,
+  muted = false,
+}: {
+  estimate: number;
+  lower: number;
+  upper: number;
+  muted?: boolean;
+}) {
   const x = scaleLinear().domain([0, 1]).range([2, 118]);
   return (
     <svg viewBox="0 0 120 14" width="120" height="14" aria-hidden className="inline-block align-middle">
       <rect x="2" y="6" width="116" height="2" fill="#e7e5e4" />
-      <rect x={x(lower)} y="3" width={Math.max(1, x(upper) - x(lower))} height="8" rx="2" fill={muted ? "#a8a29e" : "#2f6b5f"} opacity="0.35" />
+      <rect
+        x={x(lower)}
+        y="3"
+        width={Math.max(1, x(upper) - x(lower))}
+        height="8"
+        rx="2"
+        fill={muted ? "#a8a29e" : "#2f6b5f"}
+        opacity="0.35"
+      />
       <rect x={x(estimate) - 1} y="1" width="2" height="12" fill={muted ? "#78716c" : "#14302a"} />
     </svg>
   );
@@ -29,7 +47,9 @@ export interface ChartRow {
   highlight?: boolean;
 }
 
-const TOP = "#2f6b5f", OTHER = "#44403c", FEW = "#78716c";
+const TOP = "#2f6b5f",
+  OTHER = "#44403c",
+  FEW = "#78716c";
 
 /**
  * One row per tool: its name and count above, point and whisker below, on a shared 0–100 % axis.
@@ -37,9 +57,15 @@ const TOP = "#2f6b5f", OTHER = "#44403c", FEW = "#78716c";
  * capped in width on wide screens so it does not grow into a poster.
  */
 export function IntervalChart({ rows, title }: { rows: ChartRow[]; title: string }) {
-  const rowH = 50, left = 8, right = 12, top = 24, W = 320;
+  const rowH = 50,
+    left = 8,
+    right = 12,
+    top = 24,
+    W = 320;
   const H = top + rows.length * rowH + 6;
-  const x = scaleLinear().domain([0, 1]).range([left, W - right]);
+  const x = scaleLinear()
+    .domain([0, 1])
+    .range([left, W - right]);
   return (
     <figure className="max-w-xl">
       <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="interval-chart-title" className="h-auto w-full">
@@ -49,26 +75,61 @@ export function IntervalChart({ rows, title }: { rows: ChartRow[]; title: string
         ))}
         {/* Three labels, not five smaller ones. */}
         {[0, 0.5, 1].map((t) => (
-          <text key={t} x={x(t)} y={top - 10} textAnchor={t === 0 ? "start" : t === 1 ? "end" : "middle"} fontSize="13" fill="#57534e">{pct(t)}</text>
+          <text
+            key={t}
+            x={x(t)}
+            y={top - 10}
+            textAnchor={t === 0 ? "start" : t === 1 ? "end" : "middle"}
+            fontSize="13"
+            fill="#57534e"
+          >
+            {pct(t)}
+          </text>
         ))}
         {rows.map((r, i) => {
           const y = top + i * rowH;
           const colour = r.muted ? FEW : r.highlight || i === 0 ? TOP : OTHER;
           return (
             <g key={r.key}>
-              <text x={left} y={y + 13} fontSize="14" fill="#1c1917">{r.label}</text>
+              <text x={left} y={y + 13} fontSize="14" fill="#1c1917">
+                {r.label}
+              </text>
               <text x={W - right} y={y + 13} textAnchor="end" fontSize="13" fill="#57534e">{`${r.n} reports`}</text>
-              <line x1={x(r.lower)} x2={x(r.upper)} y1={y + 32} y2={y + 32} stroke={colour} strokeWidth={3} strokeLinecap="round" />
-              <circle cx={x(r.estimate)} cy={y + 32} r={6} fill={r.muted ? "#fff" : colour} stroke={colour} strokeWidth={2} />
+              <line
+                x1={x(r.lower)}
+                x2={x(r.upper)}
+                y1={y + 32}
+                y2={y + 32}
+                stroke={colour}
+                strokeWidth={3}
+                strokeLinecap="round"
+              />
+              <circle
+                cx={x(r.estimate)}
+                cy={y + 32}
+                r={6}
+                fill={r.muted ? "#fff" : colour}
+                stroke={colour}
+                strokeWidth={2}
+              />
             </g>
           );
         })}
       </svg>
       <figcaption className="mt-2">
         <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-stone-700" aria-label="Key">
-          <li className="flex items-center gap-1"><Swatch colour={TOP} />the top tool, and those not told apart from it</li>
-          <li className="flex items-center gap-1"><Swatch colour={OTHER} />frees it less often than the top tool</li>
-          <li className="flex items-center gap-1"><Swatch colour={FEW} hollow />too few reports to compare</li>
+          <li className="flex items-center gap-1">
+            <Swatch colour={TOP} />
+            the top tool, and those not told apart from it
+          </li>
+          <li className="flex items-center gap-1">
+            <Swatch colour={OTHER} />
+            frees it less often than the top tool
+          </li>
+          <li className="flex items-center gap-1">
+            <Swatch colour={FEW} hollow />
+            too few reports to compare
+          </li>
           <li>Dot: share freed; line: the range it likely lies in.</li>
         </ul>
       </figcaption>
@@ -87,10 +148,10 @@ function Swatch({ colour, hollow = false }: { colour: string; hollow?: boolean }
 export function IntervalsExplained() {
   return (
     <p className="rounded-lg bg-white p-3 text-sm text-stone-700">
-      Bayproof shows every success rate as a range, not as a single score or rank: a tool with 5 reports and a tool with 80 can
-      show the same rate, but only the second is known well. Two tools are told apart only when the range of the difference
-      between their rates leaves out zero; two ranges that overlap can still differ, so look at the mark beside each tool, not at
-      whether the bars touch.
+      Bayproof shows every success rate as a range, not as a single score or rank: a tool with 5 reports and a tool with
+      80 can show the same rate, but only the second is known well. Two tools are told apart only when the range of the
+      difference between their rates leaves out zero; two ranges that overlap can still differ, so look at the mark
+      beside each tool, not at whether the bars touch.
     </p>
   );
 }

@@ -1,7 +1,16 @@
 import { Link } from "react-router";
 import {
-  formatDate, formatDuration, formatHoseId, formatHoseLength, formatPressure, type Labels, type Outcome, OUTCOME_LABELS, toolName,
-  type Units, VEHICLE_LABELS,
+  formatDate,
+  formatDuration,
+  formatHoseId,
+  formatHoseLength,
+  formatPressure,
+  type Labels,
+  type Outcome,
+  OUTCOME_LABELS,
+  toolName,
+  type Units,
+  VEHICLE_LABELS,
 } from "~/domain";
 import type { AcceptedReportRow } from "~/catalogue/queries.server";
 import { Card } from "./ui";
@@ -22,7 +31,15 @@ export function OutcomeBadge({ outcome }: { outcome: string | null }) {
 }
 
 /** Accepted reports as cards on a phone and a table on wider screens. */
-export function ReportList({ reports, units, show = ["tool", "job"] }: { reports: AcceptedReportRow[]; units: Units; show?: ("tool" | "job")[] }) {
+export function ReportList({
+  reports,
+  units,
+  show = ["tool", "job"],
+}: {
+  reports: AcceptedReportRow[];
+  units: Units;
+  show?: ("tool" | "job")[];
+}) {
   if (reports.length === 0) return <p className="text-stone-600">No accepted reports yet.</p>;
   return (
     <Card as="ul" padding="none" className="divide-y divide-stone-200">
@@ -32,7 +49,10 @@ export function ReportList({ reports, units, show = ["tool", "job"] }: { reports
             <div className="flex flex-wrap items-center gap-2">
               <OutcomeBadge outcome={r.outcome} />
               {show.includes("tool") && (
-                <Link to={`/models/${r.model_slug}`} className="font-semibold text-bay-700 underline-offset-2 hover:underline">
+                <Link
+                  to={`/models/${r.model_slug}`}
+                  className="font-semibold text-bay-700 underline-offset-2 hover:underline"
+                >
                   {toolName(r.maker_name, r.model_code)}
                 </Link>
               )}
@@ -43,13 +63,25 @@ export function ReportList({ reports, units, show = ["tool", "job"] }: { reports
               )}
             </div>
             <p className="text-sm text-stone-600">
-              {VEHICLE_LABELS[r.vehicle_class ?? ""] ?? "—"} · {r.corrosion_level} corrosion · by {r.reporter_handle} · {formatDate(r.accepted_at)}
+              {VEHICLE_LABELS[r.vehicle_class ?? ""] ?? "—"} · {r.corrosion_level} corrosion · by {r.reporter_handle} ·{" "}
+              {formatDate(r.accepted_at)}
             </p>
           </div>
           <dl className="grid grid-cols-3 gap-3 text-sm sm:w-80">
-            <div><dt className="text-xs text-stone-500">Inlet</dt><dd>{formatPressure(r.inlet_kpa, units)}</dd></div>
-            <div><dt className="text-xs text-stone-500">Hose</dt><dd>{formatHoseId(r.hose_id_mm, units)} × {formatHoseLength(r.hose_length_m, units)}</dd></div>
-            <div><dt className="text-xs text-stone-500">Time</dt><dd>{formatDuration(r.time_to_result_s)}</dd></div>
+            <div>
+              <dt className="text-xs text-stone-500">Inlet</dt>
+              <dd>{formatPressure(r.inlet_kpa, units)}</dd>
+            </div>
+            <div>
+              <dt className="text-xs text-stone-500">Hose</dt>
+              <dd>
+                {formatHoseId(r.hose_id_mm, units)} × {formatHoseLength(r.hose_length_m, units)}
+              </dd>
+            </div>
+            <div>
+              <dt className="text-xs text-stone-500">Time</dt>
+              <dd>{formatDuration(r.time_to_result_s)}</dd>
+            </div>
           </dl>
         </li>
       ))}

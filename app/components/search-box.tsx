@@ -13,20 +13,43 @@ export function SearchBox() {
     const t = setTimeout(() => void load(`/api/search?q=${encodeURIComponent(q.trim())}`), 150);
     return () => clearTimeout(t);
   }, [q, load]);
-  const hits = open && q.trim().length >= 2 ? fetcher.data?.hits ?? [] : [];
+  const hits = open && q.trim().length >= 2 ? (fetcher.data?.hits ?? []) : [];
   return (
-    <Form method="get" action="/search" role="search" aria-label="Site search" className="relative w-full" onSubmit={() => setOpen(false)}>
-      <input name="q" value={q} onChange={(e) => { setQ(e.target.value); setOpen(true); }} onBlur={(e) => { if (!e.currentTarget.form?.contains(e.relatedTarget)) setOpen(false); }}
-        aria-label="Search tools and reports" placeholder="Search tools and reports" autoComplete="off"
-        className="min-h-11 w-full rounded bg-bay-700 px-3 py-2 text-sm text-white placeholder:text-bay-100" />
+    <Form
+      method="get"
+      action="/search"
+      role="search"
+      aria-label="Site search"
+      className="relative w-full"
+      onSubmit={() => setOpen(false)}
+    >
+      <input
+        name="q"
+        value={q}
+        onChange={(e) => {
+          setQ(e.target.value);
+          setOpen(true);
+        }}
+        onBlur={(e) => {
+          if (!e.currentTarget.form?.contains(e.relatedTarget)) setOpen(false);
+        }}
+        aria-label="Search tools and reports"
+        placeholder="Search tools and reports"
+        autoComplete="off"
+        className="min-h-11 w-full rounded bg-bay-700 px-3 py-2 text-sm text-white placeholder:text-bay-100"
+      />
       {hits.length > 0 && (
-        <ul className="absolute right-0 z-20 mt-1 w-full min-w-72 rounded border border-stone-300 bg-white text-stone-900 shadow-lg" data-testid="suggestions"
+        <ul
+          className="absolute right-0 z-20 mt-1 w-full min-w-72 rounded border border-stone-300 bg-white text-stone-900 shadow-lg"
+          data-testid="suggestions"
           // Keeps the focus in the box while a suggestion is pressed, so the list stays until the click lands.
-          onMouseDown={(e) => e.preventDefault()}>
+          onMouseDown={(e) => e.preventDefault()}
+        >
           {hits.map((h) => (
             <li key={h.id}>
               <Link to={h.url} onClick={() => setOpen(false)} className="block px-3 py-2 text-sm hover:bg-bay-50">
-                <span className="font-semibold">{h.title}</span> <span className="text-xs text-stone-500">{h.kind === "model" ? "tool" : h.detail}</span>
+                <span className="font-semibold">{h.title}</span>{" "}
+                <span className="text-xs text-stone-500">{h.kind === "model" ? "tool" : h.detail}</span>
               </Link>
             </li>
           ))}

@@ -14,11 +14,22 @@ function catcherDir(): string {
 
 export async function listMessages(limit = 50) {
   const dir = catcherDir();
-  const files = (await readdir(dir).catch(() => [] as string[])).filter((f) => f.endsWith(".eml")).sort().reverse().slice(0, limit);
-  return Promise.all(files.map(async (file) => {
-    const mail = await simpleParser(await readFile(path.join(dir, file)));
-    return { id: file.replace(/\.eml$/, ""), to: mail.to && !Array.isArray(mail.to) ? mail.to.text : "", subject: mail.subject ?? "", date: mail.date?.toISOString() ?? null };
-  }));
+  const files = (await readdir(dir).catch(() => [] as string[]))
+    .filter((f) => f.endsWith(".eml"))
+    .sort()
+    .reverse()
+    .slice(0, limit);
+  return Promise.all(
+    files.map(async (file) => {
+      const mail = await simpleParser(await readFile(path.join(dir, file)));
+      return {
+        id: file.replace(/\.eml$/, ""),
+        to: mail.to && !Array.isArray(mail.to) ? mail.to.text : "",
+        subject: mail.subject ?? "",
+        date: mail.date?.toISOString() ?? null,
+      };
+    }),
+  );
 }
 
 export async function getMessage(id: string) {
@@ -27,5 +38,12 @@ export async function getMessage(id: string) {
   const raw = await readFile(path.join(dir, `${id}.eml`)).catch(() => null);
   if (!raw) refuse("No such message", 404);
   const mail = await simpleParser(raw);
-  return { id, to: mail.to && !Array.isArray(mail.to) ? mail.to.text : "", from: mail.from?.text ?? "", subject: mail.subject ?? "", date: mail.date?.toISOString() ?? null, text: mail.text ?? "" };
+  return {
+    id,
+    to: mail.to && !Array.isArray(mail.to) ? mail.to.text : "",
+    from: mail.from?.text ?? "",
+    subject: mail.subject ?? "",
+    date: mail.date?.toISOString() ?? null,
+    text: mail.text ?? "",
+  };
 }

@@ -16,13 +16,24 @@ export interface Range {
 
 export const RANGES = {
   /** Any gauge pressure: regulator, tool inlet, tank cut-out. 2,000 kPa ≈ 290 psi. */
-  gaugePressure: { unit: "kPa", min: 0, max: 2000, stated: { kPa: ["0", "2,000"], psi: ["0", "290"], bar: ["0", "20"] } },
+  gaugePressure: {
+    unit: "kPa",
+    min: 0,
+    max: 2000,
+    stated: { kPa: ["0", "2,000"], psi: ["0", "290"], bar: ["0", "20"] },
+  },
   /** Hose inside diameter. 4 mm ≈ 5/32 in. */
   hoseBore: { unit: "mm", min: 4, max: 25, stated: { mm: ["4", "25"], in: ["5/32", "1"] } },
   hoseLength: { unit: "m", min: 0, aboveMin: true, max: 100, stated: { m: ["0", "100"], ft: ["0", "330"] } },
   attachmentLength: { unit: "mm", min: 0, aboveMin: true, max: 1000, stated: { mm: ["0", "1,000"], in: ["0", "39"] } },
   /** Compressor free-air delivery. */
-  compressorDelivery: { unit: "L/s", min: 0, aboveMin: true, max: 500, stated: { "l/s": ["0", "500"], SCFM: ["0", "1,000"] } },
+  compressorDelivery: {
+    unit: "L/s",
+    min: 0,
+    aboveMin: true,
+    max: 500,
+    stated: { "l/s": ["0", "500"], SCFM: ["0", "1,000"] },
+  },
   tankVolume: { unit: "L", min: 0, aboveMin: true, max: 5000, stated: { l: ["0", "5,000"], gal: ["0", "1,300"] } },
   /** A tool's rated air use (free air at 90 psi), as typed into the calculator. */
   toolAirUse: { unit: "L/s", min: 0.1, max: 50, stated: { "l/s": ["0.1", "50"], SCFM: ["0.2", "100"] } },
@@ -64,8 +75,14 @@ export const PRESSURE_RANGE_MESSAGE = `${rangeMessage(RANGES.gaugePressure, "kPa
  * (3/8 in = 9.525 mm); times are whole seconds.
  */
 export const STORED_DECIMALS = {
-  regulator_kpa: 1, inlet_kpa: 1, hose_id_mm: 3, attachment_length_mm: 1,
-  hose_length_m: 2, compressor_lps: 2, tank_l: 1, time_to_result_s: 0,
+  regulator_kpa: 1,
+  inlet_kpa: 1,
+  hose_id_mm: 3,
+  attachment_length_mm: 1,
+  hose_length_m: 2,
+  compressor_lps: 2,
+  tank_l: 1,
+  time_to_result_s: 0,
 } as const;
 
 /** Rounds half away from zero at `decimals` places on the decimal digits (9.525 → 9.53), not on the binary value. */

@@ -4,7 +4,15 @@
 /** Words for each code; a lookup by any string (a stored column, a URL value) may miss. */
 export type Labels<K extends string> = Readonly<Record<K, string>> & Readonly<Record<string, string>>;
 
-export const VEHICLE_CLASSES = ["passenger_car", "light_truck", "heavy_truck", "bus", "trailer", "agricultural", "construction"] as const;
+export const VEHICLE_CLASSES = [
+  "passenger_car",
+  "light_truck",
+  "heavy_truck",
+  "bus",
+  "trailer",
+  "agricultural",
+  "construction",
+] as const;
 export type VehicleClass = (typeof VEHICLE_CLASSES)[number];
 export const VEHICLE_LABELS: Labels<VehicleClass> = {
   passenger_car: "Passenger car",
@@ -64,7 +72,15 @@ export const COUPLER_LABELS: Labels<CouplerProfile> = {
 export const DEFAULT_COUPLER_PROFILE: CouplerProfile = "industrial_m";
 
 /** What a tool takes: a hammer's bit shank (inches) or a wrench's square drive. */
-export const FITTINGS = ["shank-0.401", "shank-0.498", "drive-1/4", "drive-3/8", "drive-1/2", "drive-3/4", "drive-1"] as const;
+export const FITTINGS = [
+  "shank-0.401",
+  "shank-0.498",
+  "drive-1/4",
+  "drive-3/8",
+  "drive-1/2",
+  "drive-3/4",
+  "drive-1",
+] as const;
 export type Fitting = (typeof FITTINGS)[number];
 export const FITTING_LABELS: Labels<Fitting> = {
   "shank-0.401": "0.401 in shank",

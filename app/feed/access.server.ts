@@ -10,7 +10,6 @@ import type { Db } from "../../db/database";
 import { feedError } from "./http.server";
 import { LIMITS } from "./params";
 
-
 type Tier = keyof typeof LIMITS;
 
 // One limiter per pool and tier, made on first use (it keeps no counts of its own).
@@ -19,8 +18,13 @@ const limiter = (pool: pg.Pool, tier: Tier) => {
   const forPool = limiters.get(pool) ?? {};
   limiters.set(pool, forPool);
   return (forPool[tier] ??= new RateLimiterPostgres({
-    storeClient: pool, storeType: "pool", tableName: "feed_rate_limits", tableCreated: true,
-    keyPrefix: `feed-${tier}`, points: LIMITS[tier].points, duration: LIMITS[tier].duration,
+    storeClient: pool,
+    storeType: "pool",
+    tableName: "feed_rate_limits",
+    tableCreated: true,
+    keyPrefix: `feed-${tier}`,
+    points: LIMITS[tier].points,
+    duration: LIMITS[tier].duration,
   }));
 };
 
@@ -31,7 +35,8 @@ export interface Caller {
 }
 
 const policy = (tier: Tier) => `"${tier}";q=${LIMITS[tier].points};w=${LIMITS[tier].duration}`;
-const state = (tier: Tier, res: RateLimiterRes) => `"${tier}";r=${res.remainingPoints};t=${Math.max(0, Math.ceil(res.msBeforeNext / 1000))}`;
+const state = (tier: Tier, res: RateLimiterRes) =>
+  `"${tier}";r=${res.remainingPoints};t=${Math.max(0, Math.ceil(res.msBeforeNext / 1000))}`;
 
 /** The caller's API key: absent (anonymous), or checked — an unknown or revoked key is a 401. */
 async function identify(db: Db, request: Request): Promise<{ tier: Tier; key: string; userId: number | null }> {
@@ -39,11 +44,23 @@ async function identify(db: Db, request: Request): Promise<{ tier: Tier; key: st
   if (!header) return { tier: "anonymous", key: clientKey(request), userId: null };
   const m = /^Bearer\s+(\S{1,200})$/i.exec(header.trim());
   const challenge = { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' };
-  if (!m) throw feedError(401, "invalid_authorization", "Send an API key as \"Authorization: Bearer <key>\", or no Authorization header at all.", undefined, challenge);
+  if (!m)
+    throw feedError(
+      401,
+      "invalid_authorization",
+      'Send an API key as "Authorization: Bearer <key>", or no Authorization header at all.',
+      undefined,
+      challenge,
+    );
   const found = await verifyApiKey(db, m[1]!);
   if (!found) {
-    throw feedError(401, "invalid_api_key", "This API key is unknown or has been revoked; create a new one on your account page.", undefined,
-      { "WWW-Authenticate": 'Bearer realm="bayproof-feed", error="invalid_token"' });
+    throw feedError(
+      401,
+      "invalid_api_key",
+      "This API key is unknown or has been revoked; create a new one on your account page.",
+      undefined,
+      { "WWW-Authenticate": 'Bearer realm="bayproof-feed", error="invalid_token"' },
+    );
   }
   return { tier: "key", key: `key-${found.id}`, userId: found.user_id };
 }
@@ -53,16 +70,30 @@ export async function admit(db: Db, pool: pg.Pool, request: Request): Promise<Ca
   const who = await identify(db, request);
   try {
     const res = await limiter(pool, who.tier).consume(who.key, 1);
-    return { tier: who.tier, userId: who.userId, headers: { "RateLimit-Policy": policy(who.tier), RateLimit: state(who.tier, res) } };
+    return {
+      tier: who.tier,
+      userId: who.userId,
+      headers: { "RateLimit-Policy": policy(who.tier), RateLimit: state(who.tier, res) },
+    };
   } catch (error) {
     if (!(error instanceof RateLimiterRes)) {
-      throw feedError(503, "unavailable", "The feed cannot count requests right now; try again in a minute.", undefined, { "Retry-After": "60" });
+      throw feedError(
+        503,
+        "unavailable",
+        "The feed cannot count requests right now; try again in a minute.",
+        undefined,
+        { "Retry-After": "60" },
+      );
     }
     const retry = String(Math.max(1, Math.ceil(error.msBeforeNext / 1000)));
-    throw feedError(429, "rate_limited",
+    throw feedError(
+      429,
+      "rate_limited",
       who.tier === "anonymous"
         ? `More than ${LIMITS.anonymous.points} requests a minute from this client; wait ${retry} s, or use an API key (${LIMITS.key.points} a minute).`
         : `More than ${LIMITS.key.points} requests a minute with this API key; wait ${retry} s.`,
-      undefined, { "Retry-After": retry, "RateLimit-Policy": policy(who.tier), RateLimit: state(who.tier, error) });
+      undefined,
+      { "Retry-After": retry, "RateLimit-Policy": policy(who.tier), RateLimit: state(who.tier, error) },
+    );
   }
 }

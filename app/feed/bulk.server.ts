@@ -17,7 +17,13 @@ const CONTENT_TYPE: Record<BulkFormat, string> = {
   csv: "text/csv; charset=utf-8; header=present",
 };
 
-function reportStream(db: Db, pool: pg.Pool, format: BulkFormat, origin: string, signal: AbortSignal): ReadableStream<Uint8Array> {
+function reportStream(
+  db: Db,
+  pool: pg.Pool,
+  format: BulkFormat,
+  origin: string,
+  signal: AbortSignal,
+): ReadableStream<Uint8Array> {
   let client: pg.PoolClient | null = null;
   let cursor: Cursor | null = null;
   let first = true;
@@ -36,37 +42,47 @@ function reportStream(db: Db, pool: pg.Pool, format: BulkFormat, origin: string,
     k?.release();
   };
   signal.addEventListener("abort", () => void release(), { once: true });
-  return new ReadableStream<Uint8Array>({
-    async start() {
-      client = await pool.connect();
-      const q = bulkQuery(db, origin, format);
-      cursor = client.query(new Cursor(q.sql, [...q.parameters], { rowMode: "array", types: RAW_TEXT }));
-    },
-    async pull(controller) {
-      if (!cursor) return controller.close();
-      try {
-        const rows = await (next ?? (cursor.read(BATCH) as Promise<RawRow[]>));
-        next = rows.length === BATCH ? (cursor.read(BATCH) as Promise<RawRow[]>) : null;
-        next?.catch(() => {});
-        for (const piece of batchText(format, rows, first)) controller.enqueue(encoder.encode(piece));
-        first = false;
-        if (rows.length < BATCH) {
+  return new ReadableStream<Uint8Array>(
+    {
+      async start() {
+        client = await pool.connect();
+        const q = bulkQuery(db, origin, format);
+        cursor = client.query(new Cursor(q.sql, [...q.parameters], { rowMode: "array", types: RAW_TEXT }));
+      },
+      async pull(controller) {
+        if (!cursor) return controller.close();
+        try {
+          const rows = await (next ?? (cursor.read(BATCH) as Promise<RawRow[]>));
+          next = rows.length === BATCH ? (cursor.read(BATCH) as Promise<RawRow[]>) : null;
+          next?.catch(() => {});
+          for (const piece of batchText(format, rows, first)) controller.enqueue(encoder.encode(piece));
+          first = false;
+          if (rows.length < BATCH) {
+            await release();
+            controller.close();
+          }
+        } catch (error) {
           await release();
-          controller.close();
+          controller.error(error);
         }
-      } catch (error) {
+      },
+      async cancel() {
         await release();
-        controller.error(error);
-      }
+      },
     },
-    async cancel() {
-      await release();
-    },
-  }, { highWaterMark: 1 });
+    { highWaterMark: 1 },
+  );
 }
 
 /** The whole file as a response; gzip-compressed here when the client accepts it. */
-export function bulkResponse(db: Db, pool: pg.Pool, request: Request, format: BulkFormat, origin: string, day: string): Response {
+export function bulkResponse(
+  db: Db,
+  pool: pg.Pool,
+  request: Request,
+  format: BulkFormat,
+  origin: string,
+  day: string,
+): Response {
   let body = reportStream(db, pool, format, origin, request.signal);
   const headers: Record<string, string> = {
     "Content-Type": CONTENT_TYPE[format],
@@ -74,7 +90,9 @@ export function bulkResponse(db: Db, pool: pg.Pool, request: Request, format: Bu
     "Cache-Control": "no-store",
   };
   if (/\bgzip\b/.test(request.headers.get("accept-encoding") ?? "")) {
-    body = Readable.toWeb(Readable.fromWeb(body as never).pipe(createGzip({ level: 4 }))) as unknown as ReadableStream<Uint8Array>;
+    body = Readable.toWeb(
+      Readable.fromWeb(body as never).pipe(createGzip({ level: 4 })),
+    ) as unknown as ReadableStream<Uint8Array>;
     headers["Content-Encoding"] = "gzip";
     headers.Vary = "Accept-Encoding";
   }

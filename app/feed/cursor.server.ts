@@ -18,23 +18,45 @@ export interface CursorState {
 let secret: Promise<string> | null = null;
 function cursorSecret(db: Db) {
   if (!secret) {
-    secret = db.selectFrom("app_secrets").select("value").where("name", "=", "feed-cursor").executeTakeFirstOrThrow().then((r) => r.value);
+    secret = db
+      .selectFrom("app_secrets")
+      .select("value")
+      .where("name", "=", "feed-cursor")
+      .executeTakeFirstOrThrow()
+      .then((r) => r.value);
     secret.catch(() => (secret = null)); // a failed read is tried again next time
   }
   return secret;
 }
 
 export const filtersDigest = (filters: Record<string, unknown>) =>
-  createHash("sha256").update(JSON.stringify(Object.entries(filters).filter(([, v]) => v != null).sort())).digest("base64url").slice(0, 16);
+  createHash("sha256")
+    .update(
+      JSON.stringify(
+        Object.entries(filters)
+          .filter(([, v]) => v != null)
+          .sort(),
+      ),
+    )
+    .digest("base64url")
+    .slice(0, 16);
 
 const sign = (key: string, payload: string) => createHmac("sha256", key).update(payload).digest().subarray(0, 16);
 
 export async function encodeCursor(db: Db, state: CursorState) {
-  const payload = Buffer.from(JSON.stringify([1, state.afterMicros, state.afterId, state.asOfMicros, state.filters])).toString("base64url");
+  const payload = Buffer.from(
+    JSON.stringify([1, state.afterMicros, state.afterId, state.asOfMicros, state.filters]),
+  ).toString("base64url");
   return `${payload}.${sign(await cursorSecret(db), payload).toString("base64url")}`;
 }
 
-const invalid = (why: string) => feedError(400, "invalid_cursor", `"cursor" ${why}; start again without it or use the next_cursor of the previous page.`, "cursor");
+const invalid = (why: string) =>
+  feedError(
+    400,
+    "invalid_cursor",
+    `"cursor" ${why}; start again without it or use the next_cursor of the previous page.`,
+    "cursor",
+  );
 
 export async function decodeCursor(db: Db, cursor: string, filters: string): Promise<CursorState> {
   const m = /^([A-Za-z0-9_-]{1,400})\.([A-Za-z0-9_-]{22})$/.exec(cursor);
@@ -51,7 +73,20 @@ export async function decodeCursor(db: Db, cursor: string, filters: string): Pro
   }
   const [v, afterMicros, afterId, asOfMicros, digest] = Array.isArray(parts) ? (parts as unknown[]) : [];
   const micros = (x: unknown): x is string => typeof x === "string" && /^\d{1,18}$/.test(x);
-  if (v !== 1 || !micros(afterMicros) || !Number.isSafeInteger(afterId) || !micros(asOfMicros) || typeof digest !== "string") throw invalid("cannot be read");
-  if (digest !== filters) throw feedError(400, "cursor_mismatch", `"cursor" belongs to a walk with other filters; keep the filters of its first page.`, "cursor");
+  if (
+    v !== 1 ||
+    !micros(afterMicros) ||
+    !Number.isSafeInteger(afterId) ||
+    !micros(asOfMicros) ||
+    typeof digest !== "string"
+  )
+    throw invalid("cannot be read");
+  if (digest !== filters)
+    throw feedError(
+      400,
+      "cursor_mismatch",
+      `"cursor" belongs to a walk with other filters; keep the filters of its first page.`,
+      "cursor",
+    );
   return { afterMicros, afterId: afterId as number, asOfMicros, filters: digest };
 }

@@ -5,7 +5,11 @@ import { type Field, REPORT_FIELDS } from "./fields";
 import { componentSchema, SCHEMA_NAMES } from "./schemas";
 import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "./params";
 
-export const LICENCE = { name: "CC-BY-4.0", title: "Creative Commons Attribution 4.0 International", path: "https://creativecommons.org/licenses/by/4.0/" };
+export const LICENCE = {
+  name: "CC-BY-4.0",
+  title: "Creative Commons Attribution 4.0 International",
+  path: "https://creativecommons.org/licenses/by/4.0/",
+};
 export const FEED_VERSION = "1.0.0";
 
 export const citation = (origin: string, day: string) =>
@@ -21,11 +25,21 @@ export interface SnapshotInfo {
   files: { format: "ndjson" | "csv"; path: string; key: string; bytes: number; sha256: string }[];
 }
 const ref = (name: string) => ({ $ref: `#/components/schemas/${name}` });
-const json = (schema: string, description: string) => ({ description, content: { "application/json": { schema: ref(schema) } } });
-const q = (name: string, description: string, schema: Json = { type: "string" }) => ({ name, in: "query", required: false, description, schema });
+const json = (schema: string, description: string) => ({
+  description,
+  content: { "application/json": { schema: ref(schema) } },
+});
+const q = (name: string, description: string, schema: Json = { type: "string" }) => ({
+  name,
+  in: "query",
+  required: false,
+  description,
+  schema,
+});
 // What params.ts accepts: a plain date (2026-12-01) or an RFC 3339 date-time with its offset.
 const dateOrDateTime = { type: "string", anyOf: [{ format: "date" }, { format: "date-time" }] };
-const slugQ = (name: string, what: string) => q(name, `Only ${what} with this slug.`, { type: "string", pattern: SLUG_PATTERN });
+const slugQ = (name: string, what: string) =>
+  q(name, `Only ${what} with this slug.`, { type: "string", pattern: SLUG_PATTERN });
 
 // Every operation can answer these: the parent route refuses unknown parameters and bad paths
 // (400), bad or revoked keys (401) and callers over their limit (429) before any endpoint runs.
@@ -67,19 +81,29 @@ export function openApi(origin: string): Json {
     servers: [{ url: origin }],
     security: [{}, { apiKey: [] }],
     components: {
-      securitySchemes: { apiKey: { type: "http", scheme: "bearer", description: "An API key from your account page." } },
+      securitySchemes: {
+        apiKey: { type: "http", scheme: "bearer", description: "An API key from your account page." },
+      },
       schemas: Object.fromEntries(SCHEMA_NAMES.map((n) => [n, componentSchema(n)])),
     },
     paths: {
       "/api/v1/reports": {
         get: {
           summary: "Accepted reports, a page at a time",
-          description: "Ordered by (accepted_at, id). Follow `next_cursor` (or the Link rel=next header) until it is null; a walk covers the reports accepted up to its `as_of`.",
+          description:
+            "Ordered by (accepted_at, id). Follow `next_cursor` (or the Link rel=next header) until it is null; a walk covers the reports accepted up to its `as_of`.",
           parameters: [
-            slugQ("model", "reports of the tool model"), slugQ("job", "reports of the job type"), slugQ("category", "reports in the tool category"),
+            slugQ("model", "reports of the tool model"),
+            slugQ("job", "reports of the job type"),
+            slugQ("category", "reports in the tool category"),
             q("accepted_since", "Accepted at or after this date (midnight UTC) or RFC 3339 date-time.", dateOrDateTime),
             q("accepted_until", "Accepted before this date (midnight UTC) or RFC 3339 date-time.", dateOrDateTime),
-            q("limit", `Reports per page (default ${DEFAULT_LIMIT}).`, { type: "integer", minimum: 1, maximum: MAX_LIMIT, default: DEFAULT_LIMIT }),
+            q("limit", `Reports per page (default ${DEFAULT_LIMIT}).`, {
+              type: "integer",
+              minimum: 1,
+              maximum: MAX_LIMIT,
+              default: DEFAULT_LIMIT,
+            }),
             q("cursor", "The next_cursor of the previous page; keep the other parameters the same."),
           ],
           responses: withLink(cached("report-page", "A page of reports")),
@@ -95,20 +119,50 @@ export function openApi(origin: string): Json {
       "/api/v1/snapshots/{snapshot}/{file}": {
         get: {
           summary: "The daily snapshot of every accepted report, gzipped (no key needed)",
-          description: "Written daily at 03:15 UTC. `latest` is the newest snapshot; a number names one (the Data Package lists the newest with its size and SHA-256, and that URL never changes content). Supports Range (206) and If-None-Match (304); the ETag is the file's SHA-256.",
+          description:
+            "Written daily at 03:15 UTC. `latest` is the newest snapshot; a number names one (the Data Package lists the newest with its size and SHA-256, and that URL never changes content). Supports Range (206) and If-None-Match (304); the ETag is the file's SHA-256.",
           security: [{}],
           parameters: [
-            { name: "snapshot", in: "path", required: true, schema: { oneOf: [{ type: "string", const: "latest" }, { type: "integer", minimum: 1 }] } },
-            { name: "file", in: "path", required: true, schema: { type: "string", enum: ["reports.ndjson.gz", "reports.csv.gz"] } },
-            { name: "Range", in: "header", required: false, description: "One byte range, e.g. `bytes=0-99`.", schema: { type: "string" } },
+            {
+              name: "snapshot",
+              in: "path",
+              required: true,
+              schema: {
+                oneOf: [
+                  { type: "string", const: "latest" },
+                  { type: "integer", minimum: 1 },
+                ],
+              },
+            },
+            {
+              name: "file",
+              in: "path",
+              required: true,
+              schema: { type: "string", enum: ["reports.ndjson.gz", "reports.csv.gz"] },
+            },
+            {
+              name: "Range",
+              in: "header",
+              required: false,
+              description: "One byte range, e.g. `bytes=0-99`.",
+              schema: { type: "string" },
+            },
           ],
           responses: {
             "200": {
               description: "The gzipped file: NDJSON of report records, or CSV with the columns of the Data Package",
-              headers: { ETag: { schema: { type: "string" } }, "Accept-Ranges": { schema: { type: "string", const: "bytes" } }, "Content-Length": { schema: { type: "integer" } } },
+              headers: {
+                ETag: { schema: { type: "string" } },
+                "Accept-Ranges": { schema: { type: "string", const: "bytes" } },
+                "Content-Length": { schema: { type: "integer" } },
+              },
               content: { "application/gzip": { schema: { type: "string", contentMediaType: "application/gzip" } } },
             },
-            "206": { description: "The requested byte range", headers: { "Content-Range": { schema: { type: "string" } } }, content: { "application/gzip": { schema: { type: "string" } } } },
+            "206": {
+              description: "The requested byte range",
+              headers: { "Content-Range": { schema: { type: "string" } } },
+              content: { "application/gzip": { schema: { type: "string" } } },
+            },
             "304": { description: "Not modified (If-None-Match matched the ETag)." },
             "404": json("error", "No such snapshot (there is none yet, or it was replaced by newer ones)."),
             "416": json("error", "The range lies outside the file."),
@@ -120,22 +174,47 @@ export function openApi(origin: string): Json {
         get: {
           summary: "Every accepted report, one JSON object per line (API key needed)",
           security: [{ apiKey: [] }],
-          responses: { "200": { description: "The file", content: { "application/x-ndjson": { schema: ref("report") } } }, ...errors },
+          responses: {
+            "200": { description: "The file", content: { "application/x-ndjson": { schema: ref("report") } } },
+            ...errors,
+          },
         },
       },
       "/api/v1/reports.csv": {
         get: {
           summary: "Every accepted report as CSV, RFC 4180 (API key needed)",
           security: [{ apiKey: [] }],
-          responses: { "200": { description: "The file; columns as in the datapackage descriptor", content: { "text/csv": { schema: { type: "string" } } } }, ...errors },
+          responses: {
+            "200": {
+              description: "The file; columns as in the datapackage descriptor",
+              content: { "text/csv": { schema: { type: "string" } } },
+            },
+            ...errors,
+          },
         },
       },
-      "/api/v1/models": { get: { summary: "Tool models", parameters: [slugQ("category", "models in the tool category")], responses: cached("model-list", "Tool models") } },
-      "/api/v1/job-types": { get: { summary: "Job types", parameters: [slugQ("category", "job types of the tool category")], responses: cached("job-type-list", "Job types") } },
+      "/api/v1/models": {
+        get: {
+          summary: "Tool models",
+          parameters: [slugQ("category", "models in the tool category")],
+          responses: cached("model-list", "Tool models"),
+        },
+      },
+      "/api/v1/job-types": {
+        get: {
+          summary: "Job types",
+          parameters: [slugQ("category", "job types of the tool category")],
+          responses: cached("job-type-list", "Job types"),
+        },
+      },
       "/api/v1/stats": {
         get: {
           summary: "Stats cells",
-          parameters: [slugQ("model", "cells of the tool model"), slugQ("job", "cells of the job type"), slugQ("category", "cells in the tool category")],
+          parameters: [
+            slugQ("model", "cells of the tool model"),
+            slugQ("job", "cells of the job type"),
+            slugQ("category", "cells in the tool category"),
+          ],
           responses: cached("stat-list", "Stats cells"),
         },
       },
@@ -143,24 +222,60 @@ export function openApi(origin: string): Json {
         get: {
           summary: "A published evidence file (redirects to it)",
           parameters: [{ name: "id", in: "path", required: true, schema: { type: "integer", minimum: 1 } }],
-          responses: { "302": { description: "To a short-lived link to the file" }, "404": json("error", "No published file has this number."), ...errors },
+          responses: {
+            "302": { description: "To a short-lived link to the file" },
+            "404": json("error", "No published file has this number."),
+            ...errors,
+          },
         },
       },
       "/api/v1/schema/{name}.json": {
         get: {
           summary: "JSON Schema (2020-12) of a record or response",
           parameters: [{ name: "name", in: "path", required: true, schema: { type: "string", enum: SCHEMA_NAMES } }],
-          responses: { "200": { description: "The schema", content: { "application/schema+json": { schema: { type: "object" } } } }, "404": json("error", "No schema has this name."), ...errors },
+          responses: {
+            "200": {
+              description: "The schema",
+              content: { "application/schema+json": { schema: { type: "object" } } },
+            },
+            "404": json("error", "No schema has this name."),
+            ...errors,
+          },
         },
       },
-      "/api/v1/openapi.json": { get: { summary: "This document", responses: { "200": { description: "OpenAPI 3.1", content: { "application/json": { schema: { type: "object" } } } }, ...errors } } },
-      "/api/v1/datapackage.json": { get: { summary: "Data Package descriptor of the bulk files", responses: { "200": { description: "Frictionless Data Package", content: { "application/json": { schema: { type: "object" } } } }, ...errors } } },
+      "/api/v1/openapi.json": {
+        get: {
+          summary: "This document",
+          responses: {
+            "200": { description: "OpenAPI 3.1", content: { "application/json": { schema: { type: "object" } } } },
+            ...errors,
+          },
+        },
+      },
+      "/api/v1/datapackage.json": {
+        get: {
+          summary: "Data Package descriptor of the bulk files",
+          responses: {
+            "200": {
+              description: "Frictionless Data Package",
+              content: { "application/json": { schema: { type: "object" } } },
+            },
+            ...errors,
+          },
+        },
+      },
     },
   };
 }
 
 const tableType: Record<Field["type"], string> = {
-  integer: "integer", number: "number", string: "string", boolean: "boolean", datetime: "datetime", "string-array": "array", object: "object",
+  integer: "integer",
+  number: "number",
+  string: "string",
+  boolean: "boolean",
+  datetime: "datetime",
+  "string-array": "array",
+  object: "object",
 };
 
 /** A Table Schema field; `unit` is our own property beside the standard ones. */
@@ -173,14 +288,16 @@ export function tableField(f: Field): Json {
   if (f.pattern) constraints.pattern = f.pattern;
   if (f.name === "id") constraints.unique = true;
   return {
-    name: f.name, type: tableType[f.type], description: f.description,
+    name: f.name,
+    type: tableType[f.type],
+    description: f.description,
     ...(f.type === "datetime" ? { format: "any" } : {}),
     ...(f.unit ? { unit: f.unit } : {}),
     ...(Object.keys(constraints).length ? { constraints } : {}),
   };
 }
 
-const CSV_DIALECT = { delimiter: ",", lineTerminator: "\r\n", quoteChar: "\"", doubleQuote: true, header: true };
+const CSV_DIALECT = { delimiter: ",", lineTerminator: "\r\n", quoteChar: '"', doubleQuote: true, header: true };
 
 /** Data Package resources for the snapshot's files: the fixed URL of this snapshot, size and hash. */
 function snapshotResources(origin: string, snapshot: SnapshotInfo, schema: Json): Json[] {
@@ -189,9 +306,13 @@ function snapshotResources(origin: string, snapshot: SnapshotInfo, schema: Json)
     name: `reports-${f.format}-snapshot`,
     title: `Daily snapshot of ${snapshot.reportCount} accepted reports, ${f.format.toUpperCase()}, gzipped`,
     path: `${origin}${f.path}`,
-    format: f.format, compression: "gz",
-    mediatype: f.format === "csv" ? "text/csv" : "application/x-ndjson", encoding: "utf-8",
-    bytes: f.bytes, hash: `sha256:${f.sha256}`, created: snapshot.createdAt,
+    format: f.format,
+    compression: "gz",
+    mediatype: f.format === "csv" ? "text/csv" : "application/x-ndjson",
+    encoding: "utf-8",
+    bytes: f.bytes,
+    hash: `sha256:${f.sha256}`,
+    created: snapshot.createdAt,
     ...(f.format === "csv" ? { dialect: CSV_DIALECT } : {}),
     schema,
   }));
@@ -203,7 +324,8 @@ export function dataPackage(origin: string, day: string, snapshot: SnapshotInfo 
     profile: "tabular-data-package",
     name: "bayproof-reports",
     title: "Bayproof: accepted air-tool job reports",
-    description: "Every report a moderator accepted: the tool, the job, the air supply at the tool (SI units), the outcome and the time it took. Reporters appear under stable pseudonyms. The daily snapshot files (gzipped, with size and SHA-256) are open to anyone; the live files need an API key (free, from an account page) sent as Authorization: Bearer <key>.",
+    description:
+      "Every report a moderator accepted: the tool, the job, the air supply at the tool (SI units), the outcome and the time it took. Reporters appear under stable pseudonyms. The daily snapshot files (gzipped, with size and SHA-256) are open to anyone; the live files need an API key (free, from an account page) sent as Authorization: Bearer <key>.",
     version: FEED_VERSION,
     homepage: `${origin}/data`,
     created: `${day}T00:00:00Z`,
@@ -212,12 +334,22 @@ export function dataPackage(origin: string, day: string, snapshot: SnapshotInfo 
     resources: [
       ...(snapshot ? snapshotResources(origin, snapshot, schema) : []),
       {
-        profile: "tabular-data-resource", name: "reports-csv", path: `${origin}/api/v1/reports.csv`, format: "csv", mediatype: "text/csv", encoding: "utf-8",
+        profile: "tabular-data-resource",
+        name: "reports-csv",
+        path: `${origin}/api/v1/reports.csv`,
+        format: "csv",
+        mediatype: "text/csv",
+        encoding: "utf-8",
         dialect: CSV_DIALECT,
         schema,
       },
       {
-        profile: "data-resource", name: "reports-ndjson", path: `${origin}/api/v1/reports.ndjson`, format: "ndjson", mediatype: "application/x-ndjson", encoding: "utf-8",
+        profile: "data-resource",
+        name: "reports-ndjson",
+        path: `${origin}/api/v1/reports.ndjson`,
+        format: "ndjson",
+        mediatype: "application/x-ndjson",
+        encoding: "utf-8",
         schema,
       },
     ],

@@ -6,8 +6,13 @@ import { AppError, failureAnswer } from "~/utils/errors";
 import { hasControlCharacters } from "~/utils/text";
 
 /** The feed's expected failures: an AppError with the code its JSON answer carries. */
-export const feedError = (status: number, code: string, message: string, parameter?: string, headers: Record<string, string> = {}) =>
-  new AppError(message, status, { code, field: parameter, headers });
+export const feedError = (
+  status: number,
+  code: string,
+  message: string,
+  parameter?: string,
+  headers: Record<string, string> = {},
+) => new AppError(message, status, { code, field: parameter, headers });
 
 /** Runs a loader body, turning expected failures (thrown anywhere inside) into the feed's JSON answers. */
 export async function answer(work: () => Promise<Response>): Promise<Response> {
@@ -22,16 +27,25 @@ export async function answer(work: () => Promise<Response>): Promise<Response> {
  * Reads the query string against `shape`: an unknown or repeated parameter and a value that
  * does not parse are 400s naming the parameter — nothing is silently dropped.
  */
-export function readParams<S extends Record<string, z.ZodType>>(url: URL, shape: S): { [K in keyof S]: z.output<S[K]> } {
+export function readParams<S extends Record<string, z.ZodType>>(
+  url: URL,
+  shape: S,
+): { [K in keyof S]: z.output<S[K]> } {
   const out: Record<string, unknown> = {};
   const seen = new Set<string>();
   for (const [name, value] of url.searchParams) {
     if (!Object.hasOwn(shape, name)) {
       const known = Object.keys(shape);
-      throw feedError(400, "unknown_parameter", `Unknown parameter "${name}"${known.length ? `; this endpoint takes ${known.join(", ")}` : "; this endpoint takes none"}.`, name);
+      throw feedError(
+        400,
+        "unknown_parameter",
+        `Unknown parameter "${name}"${known.length ? `; this endpoint takes ${known.join(", ")}` : "; this endpoint takes none"}.`,
+        name,
+      );
     }
     if (seen.has(name)) throw feedError(400, "repeated_parameter", `Give "${name}" once.`, name);
-    if (hasControlCharacters(value)) throw feedError(400, "invalid_parameter", `"${name}" holds control characters (such as NUL).`, name);
+    if (hasControlCharacters(value))
+      throw feedError(400, "invalid_parameter", `"${name}" holds control characters (such as NUL).`, name);
     seen.add(name);
   }
   for (const [name, schema] of Object.entries(shape)) {
@@ -61,14 +75,23 @@ const etagOf = (body: string) => `"${createHash("sha256").update(body).digest("b
 export function matchesIfNoneMatch(header: string | null, etag: string) {
   if (!header) return false;
   if (header.trim() === "*") return true;
-  return header.split(",").map((t) => t.trim().replace(/^W\//, "")).includes(etag);
+  return header
+    .split(",")
+    .map((t) => t.trim().replace(/^W\//, ""))
+    .includes(etag);
 }
 
 /** A JSON answer with a strong ETag over its exact bytes, or a 304 when the client has them. */
-export function jsonResponse(request: Request, value: unknown, cacheControl: string, headers: Record<string, string> = {}): Response {
+export function jsonResponse(
+  request: Request,
+  value: unknown,
+  cacheControl: string,
+  headers: Record<string, string> = {},
+): Response {
   const body = JSON.stringify(value);
   const etag = etagOf(body);
   const common = { ETag: etag, "Cache-Control": cacheControl, ...headers };
-  if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag)) return new Response(null, { status: 304, headers: common });
+  if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag))
+    return new Response(null, { status: 304, headers: common });
   return new Response(body, { status: 200, headers: { "Content-Type": "application/json; charset=utf-8", ...common } });
 }

@@ -8,8 +8,8 @@ import { statRecords as statRecordsOfStats } from "~/stats/feed.server";
 import { REPORT_FIELDS } from "./fields";
 import { feedError } from "./http.server";
 
-
-const iso = (column: RawBuilder<unknown>) => sql`to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
+const iso = (column: RawBuilder<unknown>) =>
+  sql`to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
 
 /**
  * The SQL for each report field; every other field is the reports column of the same name.
@@ -40,9 +40,11 @@ const reportFrom = (origin: string, evidence: "per-report" | "grouped" = "per-re
   join tool_categories c on c.id = r.category_id
   join job_types j on j.id = r.job_type_id
   join users u on u.id = r.reporter_id
-  ${evidence === "grouped"
-    ? sql`left join (select e.report_id, ${agg} from evidence e where ${published} group by e.report_id) ev on ev.report_id = r.id`
-    : sql`left join lateral (select ${agg} from evidence e where e.report_id = r.id and ${published}) ev on true`}`;
+  ${
+    evidence === "grouped"
+      ? sql`left join (select e.report_id, ${agg} from evidence e where ${published} group by e.report_id) ev on ev.report_id = r.id`
+      : sql`left join lateral (select ${agg} from evidence e where e.report_id = r.id and ${published}) ev on true`
+  }`;
 };
 
 /** The report fields as columns named after them, in the order of fields.ts. */
@@ -76,25 +78,41 @@ const SLUG_TABLES = {
  * The ids behind the slugs given, in one query; a slug that names nothing is a 400 naming its
  * parameter. Queries then filter on the ids, which their indexes hold.
  */
-export async function resolveSlugs(db: Db, f: SlugFilters): Promise<Pick<ReportFilters, "modelId" | "jobId" | "categoryId">> {
+export async function resolveSlugs(
+  db: Db,
+  f: SlugFilters,
+): Promise<Pick<ReportFilters, "modelId" | "jobId" | "categoryId">> {
   const given = (Object.keys(SLUG_TABLES) as (keyof SlugFilters)[]).filter((k) => f[k] !== undefined);
   if (given.length === 0) return {};
-  const row = (await sql<Record<string, number | null>>`select ${sql.join(given.map((k) =>
-    sql`(select id from ${sql.table(SLUG_TABLES[k][0])} where slug = ${f[k]!}) as ${sql.id(k)}`))}`.execute(db)).rows[0]!;
+  const row = (
+    await sql<Record<string, number | null>>`select ${sql.join(
+      given.map((k) => sql`(select id from ${sql.table(SLUG_TABLES[k][0])} where slug = ${f[k]!}) as ${sql.id(k)}`),
+    )}`.execute(db)
+  ).rows[0]!;
   for (const k of given) {
-    if (row[k] == null) throw feedError(400, "unknown_value", `"${k}": no ${SLUG_TABLES[k][1]} has the slug "${f[k]}" (see /api/v1/${SLUG_TABLES[k][2]}).`, k);
+    if (row[k] == null)
+      throw feedError(
+        400,
+        "unknown_value",
+        `"${k}": no ${SLUG_TABLES[k][1]} has the slug "${f[k]}" (see /api/v1/${SLUG_TABLES[k][2]}).`,
+        k,
+      );
   }
   return { modelId: row.model ?? undefined, jobId: row.job ?? undefined, categoryId: row.category ?? undefined };
 }
 
-const reportWhere = (f: ReportFilters) => sql.join([
-  sql`r.status = 'accepted'`,
-  ...(f.modelId ? [sql`r.tool_model_id = ${f.modelId}`] : []),
-  ...(f.jobId ? [sql`r.job_type_id = ${f.jobId}`] : []),
-  ...(f.categoryId ? [sql`r.category_id = ${f.categoryId}`] : []),
-  ...(f.accepted_since ? [sql`r.accepted_at >= ${f.accepted_since}`] : []),
-  ...(f.accepted_until ? [sql`r.accepted_at < ${f.accepted_until}`] : []),
-], sql` and `);
+const reportWhere = (f: ReportFilters) =>
+  sql.join(
+    [
+      sql`r.status = 'accepted'`,
+      ...(f.modelId ? [sql`r.tool_model_id = ${f.modelId}`] : []),
+      ...(f.jobId ? [sql`r.job_type_id = ${f.jobId}`] : []),
+      ...(f.categoryId ? [sql`r.category_id = ${f.categoryId}`] : []),
+      ...(f.accepted_since ? [sql`r.accepted_at >= ${f.accepted_since}`] : []),
+      ...(f.accepted_until ? [sql`r.accepted_at < ${f.accepted_until}`] : []),
+    ],
+    sql` and `,
+  );
 
 /** Microseconds since 1970 as timestamptz, exactly (no float on the way). */
 const fromMicros = (micros: string) => sql`(timestamptz 'epoch' + ${micros}::bigint * interval '1 microsecond')`;
@@ -117,7 +135,14 @@ export const microsToIso = (micros: string) => {
   return new Date(Number(ms)).toISOString().replace("Z", `${rest}Z`);
 };
 
-export async function reportPage(db: Db, origin: string, f: ReportFilters, limit: number, asOfMicros: string, after?: { micros: string; id: number }) {
+export async function reportPage(
+  db: Db,
+  origin: string,
+  f: ReportFilters,
+  limit: number,
+  asOfMicros: string,
+  after?: { micros: string; id: number },
+) {
   const rows = await sql<Record<string, unknown> & { feed_cursor_micros: string; id: number }>`
     select ${reportColumns()}, (extract(epoch from r.accepted_at) * 1000000)::bigint::text as feed_cursor_micros
     ${reportFrom(origin)}
@@ -149,11 +174,15 @@ function reportLine() {
     const e = exprs[f.name]!;
     const key = sql.lit(`${i === 0 ? "{" : ","}${JSON.stringify(f.name)}:`);
     const value =
-      f.type === "integer" || f.type === "number" ? sql`coalesce((${e})::text, 'null')`
-      : f.type === "string-array" ? e
-      : f.type === "boolean" ? sql`coalesce(case when ${e} then 'true' else 'false' end, 'null')`
-      : f.pattern || f.enum || f.type === "datetime" ? sql`coalesce('"' || ${e} || '"', 'null')`
-      : sql`coalesce(to_json(${e})::text, 'null')`;
+      f.type === "integer" || f.type === "number"
+        ? sql`coalesce((${e})::text, 'null')`
+        : f.type === "string-array"
+          ? e
+          : f.type === "boolean"
+            ? sql`coalesce(case when ${e} then 'true' else 'false' end, 'null')`
+            : f.pattern || f.enum || f.type === "datetime"
+              ? sql`coalesce('"' || ${e} || '"', 'null')`
+              : sql`coalesce(to_json(${e})::text, 'null')`;
     return sql`${key} || ${value}`;
   });
   return sql`${sql.join(pieces, sql` || `)} || '}'`;
@@ -162,25 +191,61 @@ function reportLine() {
 /** The bulk files' query: every accepted report in feed order, as JSON lines or as columns of text. */
 export function bulkQuery(db: Db, origin: string, format: "ndjson" | "csv") {
   const select = format === "ndjson" ? sql`${reportLine()} as line` : reportColumns(true);
-  return sql`select ${select} ${reportFrom(origin, "grouped")} where r.status = 'accepted' order by r.accepted_at, r.id`.compile(db);
+  return sql`select ${select} ${reportFrom(origin, "grouped")} where r.status = 'accepted' order by r.accepted_at, r.id`.compile(
+    db,
+  );
 }
 
 export async function modelRecords(db: Db, categoryId?: number) {
-  const rows = await db.selectFrom("tool_models as m").innerJoin("makers as mk", "mk.id", "m.maker_id").innerJoin("tool_categories as c", "c.id", "m.category_id")
-    .leftJoin(db.selectFrom("stats_cells").select(["tool_model_id", sql<number>`sum(n)::int`.as("n")]).groupBy("tool_model_id").as("s"), "s.tool_model_id", "m.id")
-    .select(["m.slug", "mk.slug as maker", "mk.name as maker_name", "c.slug as category", "m.model_code", "m.name", "m.fitting", "m.bore_mm", "m.stroke_mm",
-      "m.blows_per_minute", "m.free_speed_rpm", "m.max_torque_nm", "m.weight_kg", "m.length_mm", "m.street_price_cents", "m.air_inlet", "m.rated_air_lps",
-      "m.max_inlet_kpa", "m.measured_specs", sql<number>`coalesce(s.n, 0)`.as("accepted_reports")])
+  const rows = await db
+    .selectFrom("tool_models as m")
+    .innerJoin("makers as mk", "mk.id", "m.maker_id")
+    .innerJoin("tool_categories as c", "c.id", "m.category_id")
+    .leftJoin(
+      db
+        .selectFrom("stats_cells")
+        .select(["tool_model_id", sql<number>`sum(n)::int`.as("n")])
+        .groupBy("tool_model_id")
+        .as("s"),
+      "s.tool_model_id",
+      "m.id",
+    )
+    .select([
+      "m.slug",
+      "mk.slug as maker",
+      "mk.name as maker_name",
+      "c.slug as category",
+      "m.model_code",
+      "m.name",
+      "m.fitting",
+      "m.bore_mm",
+      "m.stroke_mm",
+      "m.blows_per_minute",
+      "m.free_speed_rpm",
+      "m.max_torque_nm",
+      "m.weight_kg",
+      "m.length_mm",
+      "m.street_price_cents",
+      "m.air_inlet",
+      "m.rated_air_lps",
+      "m.max_inlet_kpa",
+      "m.measured_specs",
+      sql<number>`coalesce(s.n, 0)`.as("accepted_reports"),
+    ])
     .$if(!!categoryId, (q) => q.where("m.category_id", "=", categoryId!))
-    .orderBy("m.slug").execute();
+    .orderBy("m.slug")
+    .execute();
   return rows;
 }
 
 export async function jobTypeRecords(db: Db, categoryId?: number) {
-  return db.selectFrom("job_types as j").innerJoin("tool_categories as c", "c.id", "j.category_id")
+  return db
+    .selectFrom("job_types as j")
+    .innerJoin("tool_categories as c", "c.id", "j.category_id")
     .select(["j.slug", "c.slug as category", "j.name", "j.description", "j.seized"])
     .$if(!!categoryId, (q) => q.where("j.category_id", "=", categoryId!))
-    .orderBy("j.slug").execute();
+    .orderBy("j.slug")
+    .execute();
 }
 
 export async function statRecords(db: Db, f: Pick<ReportFilters, "modelId" | "jobId" | "categoryId">) {

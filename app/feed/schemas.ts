@@ -57,10 +57,22 @@ function body(name: SchemaName, ref: RefStyle): Json {
     case "report-page":
       return {
         title: "A page of accepted reports",
-        ...list("report", ref, {
-          next_cursor: { type: ["string", "null"], description: "Pass as `cursor` for the next page; null on the last page." },
-          as_of: { type: "string", format: "date-time", description: "The walk covers reports accepted up to this moment; fixed for all its pages." },
-        }, ["next_cursor", "as_of"]),
+        ...list(
+          "report",
+          ref,
+          {
+            next_cursor: {
+              type: ["string", "null"],
+              description: "Pass as `cursor` for the next page; null on the last page.",
+            },
+            as_of: {
+              type: "string",
+              format: "date-time",
+              description: "The walk covers reports accepted up to this moment; fixed for all its pages.",
+            },
+          },
+          ["next_cursor", "as_of"],
+        ),
       };
     case "model-list":
       return { title: "Tool models", ...list("model", ref) };

@@ -30,7 +30,13 @@ interface Written {
 }
 
 /** Streams one format through gzip to a file, hashing and counting the gzipped bytes. */
-async function writeFile(client: pg.PoolClient, db: Db, format: BulkFormat, origin: string, file: string): Promise<Written> {
+async function writeFile(
+  client: pg.PoolClient,
+  db: Db,
+  format: BulkFormat,
+  origin: string,
+  file: string,
+): Promise<Written> {
   const q = bulkQuery(db, origin, format);
   const cursor = client.query(new Cursor(q.sql, [...q.parameters], { rowMode: "array", types: RAW_TEXT }));
   let rows = 0;
@@ -65,26 +71,46 @@ export async function writeSnapshot(db: Db, pool: pg.Pool, store: Store, origin:
   const client = await pool.connect();
   try {
     await client.query("begin isolation level repeatable read read only");
-    const { rows: [clock] } = await client.query<{ now: Date }>("select now()");
+    const {
+      rows: [clock],
+    } = await client.query<{ now: Date }>("select now()");
     const createdAt = clock!.now;
-    const stamp = createdAt.toISOString().replace(/[-:]/g, "").replace(/\.\d+Z$/, "Z");
+    const stamp = createdAt
+      .toISOString()
+      .replace(/[-:]/g, "")
+      .replace(/\.\d+Z$/, "Z");
     const written = {} as Record<BulkFormat, Written & { key: string }>;
     for (const format of SNAPSHOT_FORMATS) {
       const file = path.join(dir, `reports.${format}.gz`);
       const w = await writeFile(client, db, format, origin, file);
       const key = `snapshots/${stamp}/reports.${format}.gz`;
-      await store.client.send(new PutObjectCommand({
-        Bucket: store.bucket, Key: key, Body: createReadStream(file), ContentLength: w.bytes,
-        ContentType: "application/gzip", Metadata: { sha256: w.sha256 },
-      }));
+      await store.client.send(
+        new PutObjectCommand({
+          Bucket: store.bucket,
+          Key: key,
+          Body: createReadStream(file),
+          ContentLength: w.bytes,
+          ContentType: "application/gzip",
+          Metadata: { sha256: w.sha256 },
+        }),
+      );
       written[format] = { ...w, key };
     }
     await client.query("commit");
-    const row = await db.insertInto("feed_snapshots").values({
-      created_at: createdAt, report_count: written.ndjson.rows,
-      ndjson_key: written.ndjson.key, ndjson_bytes: written.ndjson.bytes, ndjson_sha256: written.ndjson.sha256,
-      csv_key: written.csv.key, csv_bytes: written.csv.bytes, csv_sha256: written.csv.sha256,
-    }).returningAll().executeTakeFirstOrThrow();
+    const row = await db
+      .insertInto("feed_snapshots")
+      .values({
+        created_at: createdAt,
+        report_count: written.ndjson.rows,
+        ndjson_key: written.ndjson.key,
+        ndjson_bytes: written.ndjson.bytes,
+        ndjson_sha256: written.ndjson.sha256,
+        csv_key: written.csv.key,
+        csv_bytes: written.csv.bytes,
+        csv_sha256: written.csv.sha256,
+      })
+      .returningAll()
+      .executeTakeFirstOrThrow();
     await pruneSnapshots(db, store);
     return snapshotInfo(row);
   } catch (error) {
@@ -98,19 +124,31 @@ export async function writeSnapshot(db: Db, pool: pg.Pool, store: Store, origin:
 
 /** Keeps the newest KEEP snapshots (a day apart), so a download of an older one has time to finish. */
 async function pruneSnapshots(db: Db, store: Store) {
-  const old = await db.selectFrom("feed_snapshots").select(["id", "ndjson_key", "csv_key"])
-    .orderBy("created_at", "desc").orderBy("id", "desc").offset(KEEP).limit(100).execute();
+  const old = await db
+    .selectFrom("feed_snapshots")
+    .select(["id", "ndjson_key", "csv_key"])
+    .orderBy("created_at", "desc")
+    .orderBy("id", "desc")
+    .offset(KEEP)
+    .limit(100)
+    .execute();
   for (const s of old) {
-    for (const key of [s.ndjson_key, s.csv_key]) await store.client.send(new DeleteObjectCommand({ Bucket: store.bucket, Key: key }));
+    for (const key of [s.ndjson_key, s.csv_key])
+      await store.client.send(new DeleteObjectCommand({ Bucket: store.bucket, Key: key }));
     await db.deleteFrom("feed_snapshots").where("id", "=", s.id).execute();
   }
 }
 
 type Row = Awaited<ReturnType<typeof findRow>>;
 const findRow = (db: Db, id: number | "latest") =>
-  db.selectFrom("feed_snapshots").selectAll()
+  db
+    .selectFrom("feed_snapshots")
+    .selectAll()
     .$if(id !== "latest", (q) => q.where("id", "=", id as number))
-    .orderBy("created_at", "desc").orderBy("id", "desc").limit(1).executeTakeFirst();
+    .orderBy("created_at", "desc")
+    .orderBy("id", "desc")
+    .limit(1)
+    .executeTakeFirst();
 
 export const snapshotPath = (id: number, format: BulkFormat) => `/api/v1/snapshots/${id}/reports.${format}.gz`;
 
@@ -120,8 +158,11 @@ function snapshotInfo(row: NonNullable<Row>): SnapshotInfo {
     createdAt: new Date(row.created_at).toISOString(),
     reportCount: row.report_count,
     files: SNAPSHOT_FORMATS.map((format) => ({
-      format, path: snapshotPath(row.id, format), key: row[`${format}_key`],
-      bytes: Number(row[`${format}_bytes`]), sha256: row[`${format}_sha256`],
+      format,
+      path: snapshotPath(row.id, format),
+      key: row[`${format}_key`],
+      bytes: Number(row[`${format}_bytes`]),
+      sha256: row[`${format}_sha256`],
     })),
   };
 }
@@ -135,6 +176,12 @@ export const latestSnapshot = (db: Db) => findSnapshot(db, "latest");
 
 /** A stored file, whole or one byte range of it. */
 export async function readSnapshotObject(store: Store, key: string, range?: { start: number; end: number }) {
-  const res = await store.client.send(new GetObjectCommand({ Bucket: store.bucket, Key: key, ...(range ? { Range: `bytes=${range.start}-${range.end}` } : {}) }));
+  const res = await store.client.send(
+    new GetObjectCommand({
+      Bucket: store.bucket,
+      Key: key,
+      ...(range ? { Range: `bytes=${range.start}-${range.end}` } : {}),
+    }),
+  );
   return res.Body as Readable;
 }

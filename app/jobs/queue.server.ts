@@ -35,7 +35,13 @@ export interface JobPayloads {
  * days) must exceed the whole schedule. A job that still fails stays `failed` in the job table for
  * WORKER_OPTIONS.archiveFailedAfterSeconds and is listed on /admin/jobs ("Stuck work").
  */
-export const MAIL_RETRY = { retryLimit: 15, retryDelay: 3, retryBackoff: true, expireInSeconds: 5 * 60, retentionDays: 7 } as const;
+export const MAIL_RETRY = {
+  retryLimit: 15,
+  retryDelay: 3,
+  retryBackoff: true,
+  expireInSeconds: 5 * 60,
+  retentionDays: 7,
+} as const;
 
 /** Options each queue's jobs get when sent (enqueue merges them in; a caller may override). */
 export const JOB_OPTIONS: Record<QueueName, PgBoss.SendOptions> = {
@@ -50,7 +56,11 @@ export const JOB_OPTIONS: Record<QueueName, PgBoss.SendOptions> = {
  * The worker's housekeeping: failed jobs stay in the job table (where pg-boss can retry them)
  * for 30 days, so stuck work is listed until someone acts on it.
  */
-export const WORKER_OPTIONS = { archiveFailedAfterSeconds: 30 * 24 * 3600, archiveCompletedAfterSeconds: 12 * 3600, deleteAfterDays: 7 } as const;
+export const WORKER_OPTIONS = {
+  archiveFailedAfterSeconds: 30 * 24 * 3600,
+  archiveCompletedAfterSeconds: 12 * 3600,
+  deleteAfterDays: 7,
+} as const;
 
 /** The snapshot queue holds at most one waiting and one running job, however many workers ask. */
 const POLICY: Partial<Record<QueueName, PgBoss.QueuePolicy>> = { [QUEUES.feedSnapshot]: "stately" };
@@ -65,7 +75,13 @@ let boss: Promise<PgBoss> | null = null;
 /** One pg-boss client per process; the app only sends, the worker (scripts/worker.ts) works. */
 export function queue(): Promise<PgBoss> {
   boss ??= (async () => {
-    const b = new PgBoss({ connectionString: config.databaseUrl, schema: "pgboss", supervise: false, schedule: false, max: 2 });
+    const b = new PgBoss({
+      connectionString: config.databaseUrl,
+      schema: "pgboss",
+      supervise: false,
+      schedule: false,
+      max: 2,
+    });
     b.on("error", (error) => console.warn(`[queue] ${error.message}`));
     await b.start();
     await createQueues(b);
@@ -77,12 +93,19 @@ export function queue(): Promise<PgBoss> {
 /** A pg-boss `db` option that runs its SQL through a Kysely transaction. */
 export function inTransaction(trx: Trx) {
   return {
-    executeSql: async (text: string, values: unknown[]) => ({ rows: (await trx.executeQuery(CompiledQuery.raw(text, values))).rows }),
+    executeSql: async (text: string, values: unknown[]) => ({
+      rows: (await trx.executeQuery(CompiledQuery.raw(text, values))).rows,
+    }),
   };
 }
 
 /** Enqueues a job through the caller's transaction, with its queue's options. */
-export function enqueue<N extends QueueName>(trx: Trx, name: N, data: JobPayloads[N], options: PgBoss.SendOptions = {}) {
+export function enqueue<N extends QueueName>(
+  trx: Trx,
+  name: N,
+  data: JobPayloads[N],
+  options: PgBoss.SendOptions = {},
+) {
   return sendThrough(trx, name, data, options);
 }
 

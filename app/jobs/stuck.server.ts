@@ -63,10 +63,18 @@ const VERB: Record<string, string> = { accept: "accepted", return: "returned", r
 /** What each job was for, in the words of the people who would miss it. */
 async function describe(db: Db, jobs: JobRow[]): Promise<string[]> {
   const num = (j: JobRow, key: string) => (typeof j.data?.[key] === "number" ? j.data[key] : null);
-  const decisionIds = jobs.filter((j) => j.name === QUEUES.decisionMail).map((j) => num(j, "decisionId")).filter((n): n is number => n != null);
+  const decisionIds = jobs
+    .filter((j) => j.name === QUEUES.decisionMail)
+    .map((j) => num(j, "decisionId"))
+    .filter((n): n is number => n != null);
   const decisions = decisionIds.length
-    ? await db.selectFrom("decisions as d").innerJoin("reports as r", "r.id", "d.report_id").innerJoin("users as u", "u.id", "r.reporter_id")
-      .select(["d.id", "d.action", "r.id as report_id", "u.email"]).where("d.id", "in", decisionIds).execute()
+    ? await db
+        .selectFrom("decisions as d")
+        .innerJoin("reports as r", "r.id", "d.report_id")
+        .innerJoin("users as u", "u.id", "r.reporter_id")
+        .select(["d.id", "d.action", "r.id as report_id", "u.email"])
+        .where("d.id", "in", decisionIds)
+        .execute()
     : [];
   const byDecision = new Map(decisions.map((d) => [d.id, d]));
   return jobs.map((j) => {
@@ -103,10 +111,17 @@ export async function sendAgain(db: Db, id: string): Promise<SendAgainResult> {
     const { rows } = await sql<{ name: string; data: object | null; state: string }>`
       select name, data, state::text as state from pgboss.job where id = ${id}::uuid for update`.execute(trx);
     const job = rows[0];
-    if (!job) return { ok: false as const, status: 404 as const, message: "That job is no longer on record; it may have been sent again already." };
-    if (job.state !== "failed" || !isQueue(job.name)) return { ok: false as const, status: 409 as const, message: "Only failed work can be sent again." };
+    if (!job)
+      return {
+        ok: false as const,
+        status: 404 as const,
+        message: "That job is no longer on record; it may have been sent again already.",
+      };
+    if (job.state !== "failed" || !isQueue(job.name))
+      return { ok: false as const, status: 409 as const, message: "Only failed work can be sent again." };
     const newId = await sendThrough(trx, job.name, job.data ?? {});
-    if (!newId) return { ok: false as const, status: 409 as const, message: "The same work is already waiting to run." };
+    if (!newId)
+      return { ok: false as const, status: 409 as const, message: "The same work is already waiting to run." };
     await boss.deleteJob(job.name, id, { db: inTransaction(trx) });
     return { ok: true as const, newId };
   });

@@ -18,20 +18,37 @@ export interface ClaimState {
 }
 
 async function acceptedThisVersion(db: Db, moderatorId: number, reportId: number, version: number) {
-  const row = await db.selectFrom("decisions").select("id").where("report_id", "=", reportId)
-    .where("moderator_id", "=", moderatorId).where("action", "=", "accept").where("report_version", "=", version).executeTakeFirst();
+  const row = await db
+    .selectFrom("decisions")
+    .select("id")
+    .where("report_id", "=", reportId)
+    .where("moderator_id", "=", moderatorId)
+    .where("action", "=", "accept")
+    .where("report_version", "=", version)
+    .executeTakeFirst();
   return row !== undefined;
 }
 
 async function liveClaim(db: Db, reportId: number) {
-  return db.selectFrom("report_claims as c").innerJoin("users as u", "u.id", "c.moderator_id")
-    .select(["c.moderator_id", "u.handle", "c.expires_at"]).where("c.report_id", "=", reportId)
-    .where("c.expires_at", ">", sql<Date>`now()`).executeTakeFirst();
+  return db
+    .selectFrom("report_claims as c")
+    .innerJoin("users as u", "u.id", "c.moderator_id")
+    .select(["c.moderator_id", "u.handle", "c.expires_at"])
+    .where("c.report_id", "=", reportId)
+    .where("c.expires_at", ">", sql<Date>`now()`)
+    .executeTakeFirst();
 }
 
 /** Who holds the report now, as the review page shows it. Reads only. */
-export async function claimState(db: Db, moderatorId: number, report: { id: number; version: number }): Promise<ClaimState> {
-  const [claim, alreadyAccepted] = await Promise.all([liveClaim(db, report.id), acceptedThisVersion(db, moderatorId, report.id, report.version)]);
+export async function claimState(
+  db: Db,
+  moderatorId: number,
+  report: { id: number; version: number },
+): Promise<ClaimState> {
+  const [claim, alreadyAccepted] = await Promise.all([
+    liveClaim(db, report.id),
+    acceptedThisVersion(db, moderatorId, report.id, report.version),
+  ]);
   const mine = claim?.moderator_id === moderatorId;
   return { mine, holder: claim && !mine ? claim.handle : null, expiresAt: claim?.expires_at ?? null, alreadyAccepted };
 }
@@ -48,10 +65,17 @@ async function takeClaim(trx: Trx, moderatorId: number, reportId: number) {
 }
 
 async function refuseHeld(trx: Trx, reportId: number): Promise<never> {
-  const holder = await trx.selectFrom("report_claims as c").innerJoin("users as u", "u.id", "c.moderator_id")
-    .select(["u.handle", "c.expires_at"]).where("c.report_id", "=", reportId).executeTakeFirstOrThrow();
+  const holder = await trx
+    .selectFrom("report_claims as c")
+    .innerJoin("users as u", "u.id", "c.moderator_id")
+    .select(["u.handle", "c.expires_at"])
+    .where("c.report_id", "=", reportId)
+    .executeTakeFirstOrThrow();
   const until = new Date(holder.expires_at).toISOString().slice(11, 16);
-  throw new DecisionError(`${holder.handle} has this report open until ${until} UTC; deciding waits until they decide or their claim runs out.`, 409);
+  throw new DecisionError(
+    `${holder.handle} has this report open until ${until} UTC; deciding waits until they decide or their claim runs out.`,
+    409,
+  );
 }
 
 /**
@@ -61,10 +85,15 @@ async function refuseHeld(trx: Trx, reportId: number): Promise<never> {
  */
 export async function claim(db: Db, moderatorId: number, reportId: number) {
   return db.transaction().execute(async (trx) => {
-    const report = await trx.selectFrom("reports").select(["id", "status", "reporter_id", "version"]).where("id", "=", reportId).executeTakeFirst();
+    const report = await trx
+      .selectFrom("reports")
+      .select(["id", "status", "reporter_id", "version"])
+      .where("id", "=", reportId)
+      .executeTakeFirst();
     if (!report || !moderatorsMaySee(report.status)) throw new DecisionError("No such report", 404);
     if (report.reporter_id === moderatorId) throw new DecisionError("Nobody decides on their own report", 403);
-    if (report.status !== "submitted") throw new DecisionError(`This report is not waiting for a decision (it is ${report.status})`, 409);
+    if (report.status !== "submitted")
+      throw new DecisionError(`This report is not waiting for a decision (it is ${report.status})`, 409);
     // Whoever gave the first accept leaves the report free for the second look.
     if (await acceptedThisVersion(trx, moderatorId, reportId, report.version)) {
       throw new DecisionError("You accepted this version; the second look is another moderator's.", 409);
@@ -72,7 +101,16 @@ export async function claim(db: Db, moderatorId: number, reportId: number) {
     const row = await takeClaim(trx, moderatorId, reportId);
     if (!row) return refuseHeld(trx, reportId);
     if (row.fresh) {
-      await trx.insertInto("decisions").values({ report_id: reportId, moderator_id: moderatorId, action: "claim", reason_code: "review_started", report_version: report.version }).execute();
+      await trx
+        .insertInto("decisions")
+        .values({
+          report_id: reportId,
+          moderator_id: moderatorId,
+          action: "claim",
+          reason_code: "review_started",
+          report_version: report.version,
+        })
+        .execute();
     }
     return { expiresAt: row.expires_at };
   });

@@ -7,10 +7,9 @@ import { plainText } from "~/utils/text";
 import { CHECKLIST, type ChecklistKey } from "./reasons";
 
 /** One checkbox per checklist line, named `check_<key>`; ticked is "on". */
-const CHECK_FIELDS = Object.fromEntries(Object.keys(CHECKLIST).map((k) => [`check_${k}`, z.string().optional()])) as Record<
-  `check_${ChecklistKey}`,
-  z.ZodOptional<z.ZodString>
->;
+const CHECK_FIELDS = Object.fromEntries(
+  Object.keys(CHECKLIST).map((k) => [`check_${k}`, z.string().optional()]),
+) as Record<`check_${ChecklistKey}`, z.ZodOptional<z.ZodString>>;
 
 const FILE_VERDICT = "Mark each file verified or failed";
 /** One radio group per evidence file, named `evidence_<id>`. */
@@ -26,7 +25,10 @@ export const decisionFields = z.looseObject({
   reasonCode: plainText("Pick a reason").min(1, "Pick a reason").max(40),
   note: plainText().max(4000, "At most 4,000 characters").optional(),
   version: idField("Reload the report: the version sent is not one it has had"),
-  seenDecisions: z.string().regex(/^(0|[1-9][0-9]{0,9})$/, "Reload the report and decide again").transform(Number)
+  seenDecisions: z
+    .string()
+    .regex(/^(0|[1-9][0-9]{0,9})$/, "Reload the report and decide again")
+    .transform(Number)
     .refine((n) => n <= MAX_ID, "Reload the report and decide again"),
   /** Ticked ("on") when the moderator has compared a duplicate-evidence file with the other report. */
   ack_duplicate: z.string().optional(),
@@ -44,11 +46,21 @@ function toDecision(v: z.output<typeof decisionFields>, ctx: z.RefinementCtx) {
     if (id.success) evidence[id.data] = verdict;
     else ctx.addIssue({ code: "custom", path: [key], message: FILE_VERDICT });
   }
-  if (!files.success) for (const issue of files.error.issues) ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
+  if (!files.success)
+    for (const issue of files.error.issues) ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
   const checklist = Object.fromEntries(
     (Object.keys(CHECKLIST) as ChecklistKey[]).map((k) => [k, v[`check_${k}`] === "on"]),
   ) as Record<ChecklistKey, boolean>;
-  return { intent: "decide" as const, action: v.action, reasonCode: v.reasonCode, note: v.note ?? null, version: v.version, seenDecisions: v.seenDecisions, checklist, evidence };
+  return {
+    intent: "decide" as const,
+    action: v.action,
+    reasonCode: v.reasonCode,
+    note: v.note ?? null,
+    version: v.version,
+    seenDecisions: v.seenDecisions,
+    checklist,
+    evidence,
+  };
 }
 
 export const decisionSchema = decisionFields.transform(toDecision);
@@ -66,7 +78,8 @@ export function reviewActionSchemaFor(report: { flags: readonly string[] }) {
     claimSchema,
     decisionFields
       .superRefine((v, ctx) => {
-        if (v.action === "accept" && v.ack_duplicate !== "on") ctx.addIssue({ code: "custom", path: ["ack_duplicate"], message: DUPLICATE_ACK_MESSAGE });
+        if (v.action === "accept" && v.ack_duplicate !== "on")
+          ctx.addIssue({ code: "custom", path: ["ack_duplicate"], message: DUPLICATE_ACK_MESSAGE });
       })
       .transform(toDecision),
   ]);

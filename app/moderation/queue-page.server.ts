@@ -26,7 +26,14 @@ export async function queuePage(db: Db, moderatorId: number, filter: QueueFilter
   ]);
   // Counted here, once, so the page says the same on the server and in the browser.
   const waitDays = counts.oldest ? Math.floor((Date.now() - new Date(counts.oldest).getTime()) / 86_400_000) : 0;
-  return { redirectTo: null, queue, counts, waitDays, jumpError, jump: jumpError ? (jump?.slice(0, 20) ?? null) : null } as const;
+  return {
+    redirectTo: null,
+    queue,
+    counts,
+    waitDays,
+    jumpError,
+    jump: jumpError ? (jump?.slice(0, 20) ?? null) : null,
+  } as const;
 }
 
 async function moderatorsCanOpen(db: Db, id: number) {

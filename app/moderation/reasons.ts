@@ -25,7 +25,8 @@ export type DecisionKind = keyof typeof REASONS;
 export const isReason = (action: DecisionKind, code: string) => Object.hasOwn(REASONS[action], code);
 
 export const reasonLabel = (code: string) => {
-  for (const group of Object.values(REASONS)) if (Object.hasOwn(group, code)) return (group as Record<string, string>)[code]!;
+  for (const group of Object.values(REASONS))
+    if (Object.hasOwn(group, code)) return (group as Record<string, string>)[code]!;
   return code.replaceAll("_", " ");
 };
 

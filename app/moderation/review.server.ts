@@ -13,7 +13,10 @@ export async function openReview(db: Db, moderatorId: number, reportId: number) 
   const detail = await reviewDetail(db, reportId);
   if (!detail) return null;
   const own = detail.report.reporter_id === moderatorId;
-  const [claimed, log] = await Promise.all([own ? null : claimState(db, moderatorId, detail.report), reportLog(db, reportId)]);
+  const [claimed, log] = await Promise.all([
+    own ? null : claimState(db, moderatorId, detail.report),
+    reportLog(db, reportId),
+  ]);
   return {
     ...detail,
     own,
@@ -26,7 +29,12 @@ export async function openReview(db: Db, moderatorId: number, reportId: number) 
 }
 
 /** Starts the review or records a decision; refusals throw DecisionError. Returns the message for the page. */
-export async function reviewAction(db: Db, moderatorId: number, reportId: number, input: ReviewAction): Promise<string> {
+export async function reviewAction(
+  db: Db,
+  moderatorId: number,
+  reportId: number,
+  input: ReviewAction,
+): Promise<string> {
   if (input.intent === "claim") {
     const { expiresAt } = await claim(db, moderatorId, reportId);
     return `The report is held for you until ${new Date(expiresAt).toISOString().slice(11, 16)} UTC.`;

@@ -39,4 +39,5 @@ export function reporterRecord(h: History): string {
 }
 
 /** A report needs two accepting moderators when flagged, or when its reporter is new or held. */
-export const needsSecondLook = (flags: string[], level: TrustLevel) => flags.length > 0 || level === "new" || level === "held";
+export const needsSecondLook = (flags: string[], level: TrustLevel) =>
+  flags.length > 0 || level === "new" || level === "held";

@@ -10,7 +10,18 @@ import { hasControlCharacters } from "~/utils/text";
 import { idField } from "~/utils/params";
 import { listReportEvidence } from "./evidence.server";
 import { parseDraft, reportSchema, toFormValues } from "./form-schema";
-import { findModel, getOwnReport, jobTypesByCategory, listOpenDrafts, recentSupplies, ReportError, saveDraft, submitReport, suggestModels, withdrawReport } from "./reports.server";
+import {
+  findModel,
+  getOwnReport,
+  jobTypesByCategory,
+  listOpenDrafts,
+  recentSupplies,
+  ReportError,
+  saveDraft,
+  submitReport,
+  suggestModels,
+  withdrawReport,
+} from "./reports.server";
 import { EDITABLE } from "./status";
 
 interface Reporter {
@@ -19,7 +30,8 @@ interface Reporter {
   lengthUnit: LengthUnit;
 }
 
-const NOT_EDITABLE = "This report is submitted or decided and can no longer be edited. Withdraw it from your reports first if it is still waiting.";
+const NOT_EDITABLE =
+  "This report is submitted or decided and can no longer be edited. Withdraw it from your reports first if it is still waiting.";
 
 /** A report of the reporter's own that may still change, as the form shows it. */
 async function editableReport(db: Db, reporter: Reporter, reportId: number) {
@@ -27,14 +39,32 @@ async function editableReport(db: Db, reporter: Reporter, reportId: number) {
   if (!EDITABLE.includes(own.report.status)) throw new ReportError(NOT_EDITABLE, 409);
   const [model, evidence] = await Promise.all([findModel(db, own.modelSlug), listReportEvidence(db, reportId)]);
   const tool = model
-    ? { slug: model.slug, label: own.modelLabel, categorySlug: model.category_slug, action: model.action, maxInletKpa: model.max_inlet_kpa }
+    ? {
+        slug: model.slug,
+        label: own.modelLabel,
+        categorySlug: model.category_slug,
+        action: model.action,
+        maxInletKpa: model.max_inlet_kpa,
+      }
     : null;
-  const values: Record<string, string> = { ...toFormValues(own.report, reporter.pressureUnit, reporter.lengthUnit), toolModel: own.modelSlug, jobType: own.jobSlug };
+  const values: Record<string, string> = {
+    ...toFormValues(own.report, reporter.pressureUnit, reporter.lengthUnit),
+    toolModel: own.modelSlug,
+    jobType: own.jobSlug,
+  };
   return { reportId: own.report.id, status: own.report.status as string, tool, values, evidence };
 }
 
 /** The supply fields a recent supply fills in one tap. */
-const SUPPLY_FIELDS = ["regulator", "hoseId", "hoseLength", "couplerProfile", "couplerCount", "compressor", "tank"] as const;
+const SUPPLY_FIELDS = [
+  "regulator",
+  "hoseId",
+  "hoseLength",
+  "couplerProfile",
+  "couplerCount",
+  "compressor",
+  "tank",
+] as const;
 
 /** What the editor opens with: a new form, or the reporter's draft or returned report (refused otherwise). */
 export async function loadEditor(db: Db, reporter: Reporter, reportId: number | null) {
@@ -49,10 +79,16 @@ export async function loadEditor(db: Db, reporter: Reporter, reportId: number | 
   const newForm: Record<string, string> = { pu, lu };
   return {
     ...(report ?? { reportId: null, status: "new", tool: null, values: newForm, evidence: [] }),
-    jobs, pu, lu, drafts,
+    jobs,
+    pu,
+    lu,
+    drafts,
     supplies: supplies.map((s) => {
       const v = toFormValues({ ...s }, pu, lu);
-      return Object.fromEntries(SUPPLY_FIELDS.map((k) => [k, v[k] ?? ""])) as Record<(typeof SUPPLY_FIELDS)[number], string>;
+      return Object.fromEntries(SUPPLY_FIELDS.map((k) => [k, v[k] ?? ""])) as Record<
+        (typeof SUPPLY_FIELDS)[number],
+        string
+      >;
     }),
   };
 }
@@ -63,16 +99,24 @@ export type EditorAnswer =
   | { kind: "autosave-failed"; error: string; status: number }
   | { kind: "invalid"; result: SubmissionResult<string[]>; status: number };
 
-const editorIntent = z.enum(["submit", "autosave", "save-draft", "withdraw"], { error: "Unknown request; reload the page" }).default("submit");
+const editorIntent = z
+  .enum(["submit", "autosave", "save-draft", "withdraw"], { error: "Unknown request; reload the page" })
+  .default("submit");
 
 /** Runs one of the form's intents for the reporter; `pathId` is the report in the address, if any. */
-export async function editReport(db: Db, userId: number, pathId: number | undefined, formData: FormData): Promise<EditorAnswer> {
+export async function editReport(
+  db: Db,
+  userId: number,
+  pathId: number | undefined,
+  formData: FormData,
+): Promise<EditorAnswer> {
   const intentField = editorIntent.safeParse(formData.get("intent") || undefined);
   if (!intentField.success) throw new ReportError(intentField.error.issues[0]!.message, 400);
   const intent = intentField.data;
   const field = formData.get("reportId");
   const reportId = field ? idField().safeParse(field) : null;
-  if (reportId && !reportId.success) throw new ReportError("The report number sent with the form is not valid; reload the page", 400);
+  if (reportId && !reportId.success)
+    throw new ReportError("The report number sent with the form is not valid; reload the page", 400);
   const id = reportId?.data ?? pathId;
 
   // Without JavaScript the tool is typed, not picked: accept it when it names exactly one model.
@@ -102,6 +146,10 @@ export async function editReport(db: Db, userId: number, pathId: number | undefi
     if (intent === "autosave") return { kind: "autosave-failed", error: error.message, status: error.status };
     if (!error.field) throw error;
     const submission = parseWithZod(formData, { schema: reportSchema });
-    return { kind: "invalid", result: submission.reply({ fieldErrors: { [error.field]: [error.message] } }), status: error.status };
+    return {
+      kind: "invalid",
+      result: submission.reply({ fieldErrors: { [error.field]: [error.message] } }),
+      status: error.status,
+    };
   }
 }

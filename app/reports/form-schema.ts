@@ -3,9 +3,30 @@
 // as the SI columns of the reports table.
 import { z } from "zod";
 import {
-  CORROSION_LEVELS, COUPLER_PROFILES, INLET_SOURCES, LENGTH_UNITS, type Range, RANGES, OUTCOMES, parseDuration, parseMeasure,
-  PRESSURE_RANGE_MESSAGE, PRESSURE_UNITS, pressureToKpa, kpaTo, type LengthUnit, type PressureUnit, rangeMessage, slugField,
-  SYSTEM_UNITS, fromSi, toSi, VEHICLE_CLASSES, inRange, roundDecimals, STORED_DECIMALS,
+  CORROSION_LEVELS,
+  COUPLER_PROFILES,
+  INLET_SOURCES,
+  LENGTH_UNITS,
+  type Range,
+  RANGES,
+  OUTCOMES,
+  parseDuration,
+  parseMeasure,
+  PRESSURE_RANGE_MESSAGE,
+  PRESSURE_UNITS,
+  pressureToKpa,
+  kpaTo,
+  type LengthUnit,
+  type PressureUnit,
+  rangeMessage,
+  slugField,
+  SYSTEM_UNITS,
+  fromSi,
+  toSi,
+  VEHICLE_CLASSES,
+  inRange,
+  roundDecimals,
+  STORED_DECIMALS,
 } from "~/domain";
 import { GAUGE_ERROR_KPA } from "~/moderation/flags";
 import { plainText } from "~/utils/text";
@@ -13,12 +34,17 @@ import type { Report } from "../../db/schema";
 
 // An empty field says what is needed; a field typed wrong says how to type it.
 const blank = (v: unknown) => v === undefined || (typeof v === "string" && v.trim() === "");
-const needed = (required: string, wrong: string) => ({ error: (issue: { input?: unknown }) => (issue.input === undefined ? required : wrong) });
+const needed = (required: string, wrong: string) => ({
+  error: (issue: { input?: unknown }) => (issue.input === undefined ? required : wrong),
+});
 const measure = (required: string, wrong = required) =>
   z.preprocess((v) => (blank(v) ? undefined : parseMeasure(v)), z.number(needed(required, wrong)).finite(wrong));
 const optionalMeasure = (wrong: string) => measure(wrong).optional();
 const int = (wrong: string, { min, max }: Range, required = wrong) =>
-  z.preprocess((v) => (blank(v) ? undefined : Number(v)), z.number(needed(required, wrong)).int(wrong).min(min, `At least ${min}`).max(max, `At most ${max}`));
+  z.preprocess(
+    (v) => (blank(v) ? undefined : Number(v)),
+    z.number(needed(required, wrong)).int(wrong).min(min, `At least ${min}`).max(max, `At most ${max}`),
+  );
 
 const TIME_HINT = "Enter the time, e.g. 45 s, 3 min or 1:30";
 
@@ -43,12 +69,18 @@ export const reportFields = {
   compressor: optionalMeasure("Enter the compressor's delivery as a number"),
   tank: optionalMeasure("Enter the tank size as a number"),
   outcome: z.enum(OUTCOMES, { error: "Say how it ended" }),
-  time: z.preprocess((v) => (blank(v) ? undefined : parseDuration(v)),
-    z.number(needed("Enter the time to result", TIME_HINT)).finite(TIME_HINT)
-      .min(RANGES.timeToResult.min, "At least 1 second").max(RANGES.timeToResult.max, "At most 8 hours")),
+  time: z.preprocess(
+    (v) => (blank(v) ? undefined : parseDuration(v)),
+    z
+      .number(needed("Enter the time to result", TIME_HINT))
+      .finite(TIME_HINT)
+      .min(RANGES.timeToResult.min, "At least 1 second")
+      .max(RANGES.timeToResult.max, "At most 8 hours"),
+  ),
   attempts: int("Attempts in whole numbers", RANGES.attempts, "Enter how many attempts it took"),
   triggerControl: int("Rate 1 to 5", RANGES.triggerControl).optional(),
-  notes: plainText().max(4000, "At most 4,000 characters")
+  notes: plainText()
+    .max(4000, "At most 4,000 characters")
     .refine((t) => !/<\s*[a-z!/]/i.test(t), "Notes are plain text: leave out <tags>")
     .optional(),
 };
@@ -74,15 +106,19 @@ function checkRanges(v: Partial<Fields>, add: (path: keyof Fields, message: stri
   if (v.inlet != null && v.regulator != null && kpa(v.inlet) > kpa(v.regulator) + GAUGE_ERROR_KPA) {
     add("inlet", "Higher than the regulator by more than gauge error: check both readings");
   }
-  for (const [key, { quantity, limit }] of Object.entries(MEASURED) as [keyof typeof MEASURED, (typeof MEASURED)[keyof typeof MEASURED]][]) {
+  for (const [key, { quantity, limit }] of Object.entries(MEASURED) as [
+    keyof typeof MEASURED,
+    (typeof MEASURED)[keyof typeof MEASURED],
+  ][]) {
     const typed = v[key];
-    if (typed != null && !inRange(limit, toSi(quantity, typed, lu))) add(key, rangeMessage(limit, SYSTEM_UNITS[lu][quantity]));
+    if (typed != null && !inRange(limit, toSi(quantity, typed, lu)))
+      add(key, rangeMessage(limit, SYSTEM_UNITS[lu][quantity]));
   }
 }
 
-export const reportSchema = z.object(reportFields).superRefine((v, ctx) =>
-  checkRanges(v, (path, message) => ctx.addIssue({ code: "custom", path: [path], message })),
-);
+export const reportSchema = z
+  .object(reportFields)
+  .superRefine((v, ctx) => checkRanges(v, (path, message) => ctx.addIssue({ code: "custom", path: [path], message })));
 
 export type ReportForm = z.output<typeof reportSchema>;
 
@@ -100,18 +136,40 @@ export function parseDraft(values: Record<string, unknown>): Partial<Fields> {
 }
 
 /** The SI columns a report form fills, typed from the table itself. */
-export type ReportColumns = Pick<Report,
-  | "vehicle_class" | "component_age_years" | "corrosion_level" | "attachment" | "attachment_length_mm" | "regulator_kpa"
-  | "inlet_kpa" | "inlet_source" | "hose_id_mm" | "hose_length_m" | "coupler_profile" | "coupler_count" | "compressor_lps"
-  | "tank_l" | "outcome" | "time_to_result_s" | "attempts" | "trigger_control" | "notes">;
+export type ReportColumns = Pick<
+  Report,
+  | "vehicle_class"
+  | "component_age_years"
+  | "corrosion_level"
+  | "attachment"
+  | "attachment_length_mm"
+  | "regulator_kpa"
+  | "inlet_kpa"
+  | "inlet_source"
+  | "hose_id_mm"
+  | "hose_length_m"
+  | "coupler_profile"
+  | "coupler_count"
+  | "compressor_lps"
+  | "tank_l"
+  | "outcome"
+  | "time_to_result_s"
+  | "attempts"
+  | "trigger_control"
+  | "notes"
+>;
 
 /** The form's values (typed units) as the SI columns; missing values become null. */
 export function toColumns(v: Partial<Fields>): ReportColumns {
   const lu = v.lu ?? "in";
   const pu = v.pu ?? "psi";
-  const stored = (column: keyof typeof STORED_DECIMALS, x: number | null) => (x == null ? null : roundDecimals(x, STORED_DECIMALS[column]));
+  const stored = (column: keyof typeof STORED_DECIMALS, x: number | null) =>
+    x == null ? null : roundDecimals(x, STORED_DECIMALS[column]);
   const kpa = (x: number | undefined) => (x == null ? null : pressureToKpa(x, pu));
-  const si = (key: keyof typeof MEASURED) => { const x = v[key]; return x == null ? null : toSi(MEASURED[key].quantity, x, lu); };
+  const si = (key: keyof typeof MEASURED) => {
+    const x = v[key];
+    return x == null ? null : toSi(MEASURED[key].quantity, x, lu);
+  };
   return {
     vehicle_class: v.vehicleClass ?? null,
     component_age_years: v.componentAge ?? null,
@@ -141,17 +199,31 @@ const round = (x: number, digits: number) => String(Number(x.toFixed(digits)));
 export function toFormValues(r: Partial<ReportColumns>, pu: PressureUnit, lu: LengthUnit): Record<string, string> {
   const metric = lu === "mm";
   const p = (kpa: number | null | undefined) => (kpa == null ? "" : round(kpaTo(kpa, pu), pu === "bar" ? 2 : 1));
-  const l = (x: number | null | undefined, key: keyof typeof MEASURED, digits: number) => (x == null ? "" : round(fromSi(MEASURED[key].quantity, x, lu), digits));
+  const l = (x: number | null | undefined, key: keyof typeof MEASURED, digits: number) =>
+    x == null ? "" : round(fromSi(MEASURED[key].quantity, x, lu), digits);
   const s = (x: string | number | null | undefined) => (x == null ? "" : String(x));
   return {
-    pu, lu,
-    vehicleClass: s(r.vehicle_class), componentAge: s(r.component_age_years), corrosion: s(r.corrosion_level),
-    attachment: s(r.attachment), attachmentLength: l(r.attachment_length_mm, "attachmentLength", metric ? 0 : 2),
-    regulator: p(r.regulator_kpa), inlet: p(r.inlet_kpa), inletSource: s(r.inlet_source),
-    hoseId: l(r.hose_id_mm, "hoseId", metric ? 1 : 4), hoseLength: l(r.hose_length_m, "hoseLength", metric ? 1 : 0),
-    couplerProfile: s(r.coupler_profile), couplerCount: s(r.coupler_count),
-    compressor: l(r.compressor_lps, "compressor", 1), tank: l(r.tank_l, "tank", 0),
-    outcome: s(r.outcome), time: r.time_to_result_s == null ? "" : durationForForm(r.time_to_result_s), attempts: s(r.attempts), triggerControl: s(r.trigger_control), notes: s(r.notes),
+    pu,
+    lu,
+    vehicleClass: s(r.vehicle_class),
+    componentAge: s(r.component_age_years),
+    corrosion: s(r.corrosion_level),
+    attachment: s(r.attachment),
+    attachmentLength: l(r.attachment_length_mm, "attachmentLength", metric ? 0 : 2),
+    regulator: p(r.regulator_kpa),
+    inlet: p(r.inlet_kpa),
+    inletSource: s(r.inlet_source),
+    hoseId: l(r.hose_id_mm, "hoseId", metric ? 1 : 4),
+    hoseLength: l(r.hose_length_m, "hoseLength", metric ? 1 : 0),
+    couplerProfile: s(r.coupler_profile),
+    couplerCount: s(r.coupler_count),
+    compressor: l(r.compressor_lps, "compressor", 1),
+    tank: l(r.tank_l, "tank", 0),
+    outcome: s(r.outcome),
+    time: r.time_to_result_s == null ? "" : durationForForm(r.time_to_result_s),
+    attempts: s(r.attempts),
+    triggerControl: s(r.trigger_control),
+    notes: s(r.notes),
   };
 }
 

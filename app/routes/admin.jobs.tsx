@@ -35,27 +35,55 @@ export default function AdminJobs({ loaderData, actionData }: Route.ComponentPro
         <h1 className="text-2xl font-bold">Stuck work</h1>
         <p className="max-w-prose text-stone-700">
           Background work that failed every try — mail that never reached the relay, stats or search updates that kept
-          erroring. Fix the cause (a relay that is down, say), then send it again. Work still being retried is listed below it.
+          erroring. Fix the cause (a relay that is down, say), then send it again. Work still being retried is listed
+          below it.
         </p>
       </header>
       {actionData && (
-        <p role={actionData.ok ? "status" : "alert"} className={`rounded px-3 py-2 ${actionData.ok ? "bg-bay-100" : "bg-red-100 text-red-900"}`}>{actionData.message}</p>
+        <p
+          role={actionData.ok ? "status" : "alert"}
+          className={`rounded px-3 py-2 ${actionData.ok ? "bg-bay-100" : "bg-red-100 text-red-900"}`}
+        >
+          {actionData.message}
+        </p>
       )}
       <section aria-labelledby="failed-heading" className="space-y-2">
-        <h2 id="failed-heading" className="text-lg font-semibold">Failed ({failed.length})</h2>
-        {failed.length === 0 ? <p className="text-stone-600">Nothing is stuck.</p> : (
-          <JobTable label="Failed work" jobs={failed} when="Gave up" action={(id) => (
-            <Form method="post">
-              <input type="hidden" name="jobId" value={id} />
-              <button type="submit" name="intent" value="send-again" disabled={busy}
-                className={buttonClass("primary", "sm")}>Send again</button>
-            </Form>
-          )} />
+        <h2 id="failed-heading" className="text-lg font-semibold">
+          Failed ({failed.length})
+        </h2>
+        {failed.length === 0 ? (
+          <p className="text-stone-600">Nothing is stuck.</p>
+        ) : (
+          <JobTable
+            label="Failed work"
+            jobs={failed}
+            when="Gave up"
+            action={(id) => (
+              <Form method="post">
+                <input type="hidden" name="jobId" value={id} />
+                <button
+                  type="submit"
+                  name="intent"
+                  value="send-again"
+                  disabled={busy}
+                  className={buttonClass("primary", "sm")}
+                >
+                  Send again
+                </button>
+              </Form>
+            )}
+          />
         )}
       </section>
       <section aria-labelledby="retrying-heading" className="space-y-2">
-        <h2 id="retrying-heading" className="text-lg font-semibold">Waiting for another try ({retrying.length})</h2>
-        {retrying.length === 0 ? <p className="text-stone-600">None.</p> : <JobTable label="Work waiting for another try" jobs={retrying} when="Next try" />}
+        <h2 id="retrying-heading" className="text-lg font-semibold">
+          Waiting for another try ({retrying.length})
+        </h2>
+        {retrying.length === 0 ? (
+          <p className="text-stone-600">None.</p>
+        ) : (
+          <JobTable label="Work waiting for another try" jobs={retrying} when="Next try" />
+        )}
       </section>
     </div>
   );
@@ -63,24 +91,50 @@ export default function AdminJobs({ loaderData, actionData }: Route.ComponentPro
 
 type Job = Route.ComponentProps["loaderData"]["failed"][number];
 
-function JobTable({ label, jobs, when, action }: { label: string; jobs: Job[]; when: string; action?: (id: string) => React.ReactNode }) {
+function JobTable({
+  label,
+  jobs,
+  when,
+  action,
+}: {
+  label: string;
+  jobs: Job[];
+  when: string;
+  action?: (id: string) => React.ReactNode;
+}) {
   return (
-    <DataTable label={label} minWidth="48rem" bodyClassName="align-top" head={
-      <tr>
-        <th className="px-3 py-2">Queue</th><th className="px-3 py-2">What it was for</th><th className="px-3 py-2">Last error</th>
-        <th className="px-3 py-2">Tries</th><th className="px-3 py-2">{when}</th>{action && <th className="px-3 py-2"><span className="sr-only">Action</span></th>}
-      </tr>
-    }>
-          {jobs.map((j) => (
-            <tr key={j.id}>
-              <td className="px-3 py-2 font-mono text-xs">{j.queue}</td>
-              <td className="px-3 py-2">{j.what}<span className="block text-xs text-stone-500">queued {at(j.createdAt)}</span></td>
-              <td className="px-3 py-2 text-red-900">{j.lastError ?? "—"}</td>
-              <td className="px-3 py-2">{`${j.attempts} of ${j.allowedAttempts}`}</td>
-              <td className="px-3 py-2">{at(j.at)}</td>
-              {action && <td className="px-3 py-2">{j.canSendAgain ? action(j.id) : null}</td>}
-            </tr>
-          ))}
+    <DataTable
+      label={label}
+      minWidth="48rem"
+      bodyClassName="align-top"
+      head={
+        <tr>
+          <th className="px-3 py-2">Queue</th>
+          <th className="px-3 py-2">What it was for</th>
+          <th className="px-3 py-2">Last error</th>
+          <th className="px-3 py-2">Tries</th>
+          <th className="px-3 py-2">{when}</th>
+          {action && (
+            <th className="px-3 py-2">
+              <span className="sr-only">Action</span>
+            </th>
+          )}
+        </tr>
+      }
+    >
+      {jobs.map((j) => (
+        <tr key={j.id}>
+          <td className="px-3 py-2 font-mono text-xs">{j.queue}</td>
+          <td className="px-3 py-2">
+            {j.what}
+            <span className="block text-xs text-stone-500">queued {at(j.createdAt)}</span>
+          </td>
+          <td className="px-3 py-2 text-red-900">{j.lastError ?? "—"}</td>
+          <td className="px-3 py-2">{`${j.attempts} of ${j.allowedAttempts}`}</td>
+          <td className="px-3 py-2">{at(j.at)}</td>
+          {action && <td className="px-3 py-2">{j.canSendAgain ? action(j.id) : null}</td>}
+        </tr>
+      ))}
     </DataTable>
   );
 }

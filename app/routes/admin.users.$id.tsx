@@ -24,7 +24,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 const banSchema = z.object({
   intent: z.enum(["ban", "unban"], { error: "Choose ban or unban" }),
-  reason: z.string().trim()
+  reason: z
+    .string()
+    .trim()
     .min(BAN_REASON_MIN, `Say why, in at least ${BAN_REASON_MIN} characters`)
     .max(BAN_REASON_MAX, `Keep the reason under ${BAN_REASON_MAX} characters`),
 });
@@ -40,7 +42,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
   try {
     const changed = await changeBan(db, admin.id, id.data, form.data.intent, form.data.reason);
-    const done = form.data.intent === "ban" ? "Banned: every session ended and every API key revoked." : "Unbanned: they may sign in again.";
+    const done =
+      form.data.intent === "ban"
+        ? "Banned: every session ended and every API key revoked."
+        : "Unbanned: they may sign in again.";
     return { ok: true as const, message: changed ? `${done} Logged.` : "Nothing to change.", reason: "" };
   } catch (error) {
     return failureAnswer(error, "form", { reason: form.data.reason });
@@ -53,41 +58,72 @@ export default function AdminUser({ loaderData, actionData }: Route.ComponentPro
   const banned = user.banned_at !== null;
   return (
     <div className="space-y-6">
-      <p className="text-sm"><Link to="/admin/users" className="text-bay-700 underline">← Users and roles</Link></p>
+      <p className="text-sm">
+        <Link to="/admin/users" className="text-bay-700 underline">
+          ← Users and roles
+        </Link>
+      </p>
       <header>
         <h1 className="text-2xl font-bold">{user.handle}</h1>
         <p className="text-sm text-stone-600">
-          {user.email} · joined {formatDate(user.created_at)} · {banned ? `banned since ${formatDate(user.banned_at)}` : "in good standing"} ·
-          {" "}{sessions} session{sessions === 1 ? "" : "s"} · {activeKeys} active API key{activeKeys === 1 ? "" : "s"}
+          {user.email} · joined {formatDate(user.created_at)} ·{" "}
+          {banned ? `banned since ${formatDate(user.banned_at)}` : "in good standing"} · {sessions} session
+          {sessions === 1 ? "" : "s"} · {activeKeys} active API key{activeKeys === 1 ? "" : "s"}
         </p>
       </header>
       {actionData && (
-        <p role={actionData.ok ? "status" : "alert"} className={`rounded px-3 py-2 ${actionData.ok ? "bg-bay-100" : "bg-red-100 text-red-900"}`}>{actionData.message}</p>
+        <p
+          role={actionData.ok ? "status" : "alert"}
+          className={`rounded px-3 py-2 ${actionData.ok ? "bg-bay-100" : "bg-red-100 text-red-900"}`}
+        >
+          {actionData.message}
+        </p>
       )}
-      {self ? <p className="text-stone-600">This is your own account; another admin would have to ban it.</p> : (
+      {self ? (
+        <p className="text-stone-600">This is your own account; another admin would have to ban it.</p>
+      ) : (
         <Form method="post" className={cardClass("md", "space-y-3")}>
           <h2 className="font-semibold">{banned ? "Lift the ban" : "Ban this account"}</h2>
           <p className="text-sm text-stone-600">
-            {banned ? "They may sign in again; their old sessions and keys stay ended." : "Every session ends now and every API key is revoked. Their reports stay."}
+            {banned
+              ? "They may sign in again; their old sessions and keys stay ended."
+              : "Every session ends now and every API key is revoked. Their reports stay."}
           </p>
           <label className="block">
             <span className="font-semibold">Reason (kept in the log)</span>
-            <textarea name="reason" required minLength={3} maxLength={500} rows={3} defaultValue={actionData?.ok ? "" : actionData?.reason}
-              className="mt-1 block w-full rounded border border-stone-300 px-3 py-2" />
+            <textarea
+              name="reason"
+              required
+              minLength={3}
+              maxLength={500}
+              rows={3}
+              defaultValue={actionData?.ok ? "" : actionData?.reason}
+              className="mt-1 block w-full rounded border border-stone-300 px-3 py-2"
+            />
           </label>
-          <button type="submit" name="intent" value={banned ? "unban" : "ban"} disabled={busy}
-            className={buttonClass(banned ? "primary" : "danger")}>
+          <button
+            type="submit"
+            name="intent"
+            value={banned ? "unban" : "ban"}
+            disabled={busy}
+            className={buttonClass(banned ? "primary" : "danger")}
+          >
             {banned ? "Unban" : "Ban"}
           </button>
         </Form>
       )}
       <section aria-labelledby="bans-heading">
-        <h2 id="bans-heading" className="mb-2 text-lg font-semibold">Bans and unbans</h2>
-        {bans.length === 0 ? <p className="text-stone-600">None.</p> : (
+        <h2 id="bans-heading" className="mb-2 text-lg font-semibold">
+          Bans and unbans
+        </h2>
+        {bans.length === 0 ? (
+          <p className="text-stone-600">None.</p>
+        ) : (
           <Card as="ul" padding="none" className="text-sm">
             {bans.map((b) => (
               <li key={b.id} className="border-b border-stone-100 px-3 py-2 last:border-0">
-                {formatDate(b.created_at)}: {b.actor_handle ?? "someone"} {b.change === "ban" ? "banned" : "unbanned"} — {b.reason}
+                {formatDate(b.created_at)}: {b.actor_handle ?? "someone"} {b.change === "ban" ? "banned" : "unbanned"} —{" "}
+                {b.reason}
               </li>
             ))}
           </Card>

@@ -15,7 +15,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   const user = await requireApiUser(request);
   if (!isId(params.id)) return Response.json({ error: "No such file" }, { status: 404 });
   const parsed = body.safeParse(await readJson(request));
-  if (!parsed.success) return Response.json({ error: "Send { \"public\": true } or { \"public\": false }" }, { status: 400 });
+  if (!parsed.success)
+    return Response.json({ error: 'Send { "public": true } or { "public": false }' }, { status: 400 });
   try {
     return Response.json(await setEvidencePublic(db, user.id, Number(params.id), parsed.data.public));
   } catch (error) {
@@ -23,4 +24,4 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-export const loader = postOnly("POST { \"public\": true } or { \"public\": false } here");
+export const loader = postOnly('POST { "public": true } or { "public": false } here');

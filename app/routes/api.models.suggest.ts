@@ -13,8 +13,12 @@ export async function loader({ request }: Route.LoaderArgs) {
   const models = parsed.data.q.length < 1 ? [] : await suggestModels(db, parsed.data.q);
   return Response.json({
     suggestions: models.map((m) => ({
-      slug: m.slug, label: toolName(m.maker_name, m.model_code), detail: `${m.name} · ${m.category_name}`,
-      categorySlug: m.category_slug, action: m.action, maxInletKpa: m.max_inlet_kpa,
+      slug: m.slug,
+      label: toolName(m.maker_name, m.model_code),
+      detail: `${m.name} · ${m.category_name}`,
+      categorySlug: m.category_slug,
+      action: m.action,
+      maxInletKpa: m.max_inlet_kpa,
     })),
   });
 }

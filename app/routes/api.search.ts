@@ -12,5 +12,14 @@ export async function loader({ request }: Route.LoaderArgs) {
   const seen = new Set<string>();
   const place = (h: { title: string; url: string }) => h.title + h.url.split("#")[0];
   const hits = r.hits.filter((h) => !seen.has(place(h)) && seen.add(place(h))).slice(0, 8);
-  return Response.json({ source: r.source, hits: hits.map((h) => ({ id: h.id, title: h.title, url: h.url, kind: h.kind, detail: h.kind === "report" ? h.job_name : h.category_name })) });
+  return Response.json({
+    source: r.source,
+    hits: hits.map((h) => ({
+      id: h.id,
+      title: h.title,
+      url: h.url,
+      kind: h.kind,
+      detail: h.kind === "report" ? h.job_name : h.category_name,
+    })),
+  });
 }

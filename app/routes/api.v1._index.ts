@@ -8,13 +8,22 @@ export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     readParams(new URL(request.url), {});
     const at = (p: string) => `${config.appOrigin}/api/v1/${p}`;
-    return jsonResponse(request, {
-      documentation: `${config.appOrigin}/data`,
-      openapi: at("openapi.json"), datapackage: at("datapackage.json"),
-      reports: at("reports"), reports_ndjson: at("reports.ndjson"), reports_csv: at("reports.csv"),
-      models: at("models"), job_types: at("job-types"), stats: at("stats"),
-      schemas: Object.fromEntries(SCHEMA_NAMES.map((n) => [n, at(`schema/${n}.json`)])),
-      licence: "CC-BY-4.0",
-    }, CACHE.document);
+    return jsonResponse(
+      request,
+      {
+        documentation: `${config.appOrigin}/data`,
+        openapi: at("openapi.json"),
+        datapackage: at("datapackage.json"),
+        reports: at("reports"),
+        reports_ndjson: at("reports.ndjson"),
+        reports_csv: at("reports.csv"),
+        models: at("models"),
+        job_types: at("job-types"),
+        stats: at("stats"),
+        schemas: Object.fromEntries(SCHEMA_NAMES.map((n) => [n, at(`schema/${n}.json`)])),
+        licence: "CC-BY-4.0",
+      },
+      CACHE.document,
+    );
   });
 }

@@ -10,6 +10,10 @@ export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     readParams(new URL(request.url), {});
     const snapshot = await latestSnapshot(db);
-    return jsonResponse(request, dataPackage(config.appOrigin, new Date().toISOString().slice(0, 10), snapshot), CACHE.live);
+    return jsonResponse(
+      request,
+      dataPackage(config.appOrigin, new Date().toISOString().slice(0, 10), snapshot),
+      CACHE.live,
+    );
   });
 }

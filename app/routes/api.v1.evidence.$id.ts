@@ -11,9 +11,21 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return answer(async () => {
     readParams(new URL(request.url), {});
     const id = idParam.safeParse(params.id);
-    if (!id.success) throw feedError(400, "invalid_parameter", `"id" ${id.error.issues[0]?.message ?? "cannot be read"}: give an evidence file number.`, "id");
-    const file = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id").select("e.object_key")
-      .where("e.id", "=", id.data).where("e.is_public", "=", true).where("e.status", "in", ["uploaded", "verified"]).where("r.status", "=", "accepted")
+    if (!id.success)
+      throw feedError(
+        400,
+        "invalid_parameter",
+        `"id" ${id.error.issues[0]?.message ?? "cannot be read"}: give an evidence file number.`,
+        "id",
+      );
+    const file = await db
+      .selectFrom("evidence as e")
+      .innerJoin("reports as r", "r.id", "e.report_id")
+      .select("e.object_key")
+      .where("e.id", "=", id.data)
+      .where("e.is_public", "=", true)
+      .where("e.status", "in", ["uploaded", "verified"])
+      .where("r.status", "=", "accepted")
       .executeTakeFirst();
     if (!file) throw feedError(404, "not_found", `No published evidence file has the number ${id.data}.`, "id");
     return redirect(await presignGet(file.object_key, 600), { headers: { "Cache-Control": "private, max-age=300" } });

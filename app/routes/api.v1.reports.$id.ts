@@ -10,7 +10,13 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return answer(async () => {
     readParams(new URL(request.url), {});
     const id = idParam.safeParse(params.id);
-    if (!id.success) throw feedError(400, "invalid_parameter", `"id" ${id.error.issues[0]?.message ?? "cannot be read"}: give a report number.`, "id");
+    if (!id.success)
+      throw feedError(
+        400,
+        "invalid_parameter",
+        `"id" ${id.error.issues[0]?.message ?? "cannot be read"}: give a report number.`,
+        "id",
+      );
     const record = await reportById(db, config.appOrigin, id.data);
     if (!record) throw feedError(404, "not_found", `No accepted report has the number ${id.data}.`, "id");
     return jsonResponse(request, record, CACHE.record);

@@ -12,8 +12,13 @@ export async function loader({ request, context }: Route.LoaderArgs) {
     const url = new URL(request.url);
     readParams(url, {});
     if (context.get(callerContext)?.tier !== "key") {
-      throw feedError(401, "api_key_required", "The bulk files need an API key: sign in, create one on your account page, and send it as \"Authorization: Bearer <key>\".",
-        undefined, { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' });
+      throw feedError(
+        401,
+        "api_key_required",
+        'The bulk files need an API key: sign in, create one on your account page, and send it as "Authorization: Bearer <key>".',
+        undefined,
+        { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' },
+      );
     }
     const format = url.pathname.endsWith(".csv") ? "csv" : "ndjson";
     return bulkResponse(db, pool, request, format, config.appOrigin, new Date().toISOString().slice(0, 10));

@@ -7,9 +7,13 @@ import { microsToIso, newHorizon, reportPage, resolveSlugs } from "~/feed/querie
 import type { Route } from "./+types/api.v1.reports";
 
 const params = {
-  model: slugParam, job: slugParam, category: slugParam,
-  accepted_since: instantParam, accepted_until: instantParam,
-  limit: limitParam, cursor: cursorParam,
+  model: slugParam,
+  job: slugParam,
+  category: slugParam,
+  accepted_since: instantParam,
+  accepted_until: instantParam,
+  limit: limitParam,
+  cursor: cursorParam,
 };
 
 // Accepted reports, oldest accepted first, a page at a time. The first page fixes the walk's
@@ -19,15 +23,36 @@ export async function loader({ request }: Route.LoaderArgs) {
     const url = new URL(request.url);
     const { limit, cursor, ...filters } = readParams(url, params);
     if (filters.accepted_since && filters.accepted_until && filters.accepted_since >= filters.accepted_until) {
-      throw feedError(400, "invalid_parameter", `"accepted_until" must be later than "accepted_since".`, "accepted_until");
+      throw feedError(
+        400,
+        "invalid_parameter",
+        `"accepted_until" must be later than "accepted_since".`,
+        "accepted_until",
+      );
     }
     const ids = await resolveSlugs(db, filters);
-    const digest = filtersDigest({ ...filters, accepted_since: filters.accepted_since?.toISOString(), accepted_until: filters.accepted_until?.toISOString() });
+    const digest = filtersDigest({
+      ...filters,
+      accepted_since: filters.accepted_since?.toISOString(),
+      accepted_until: filters.accepted_until?.toISOString(),
+    });
     const state = cursor ? await decodeCursor(db, cursor, digest) : null;
     const asOf = state?.asOfMicros ?? (await newHorizon(db));
-    const page = await reportPage(db, config.appOrigin, { ...ids, accepted_since: filters.accepted_since, accepted_until: filters.accepted_until }, limit, asOf, state ? { micros: state.afterMicros, id: state.afterId } : undefined);
+    const page = await reportPage(
+      db,
+      config.appOrigin,
+      { ...ids, accepted_since: filters.accepted_since, accepted_until: filters.accepted_until },
+      limit,
+      asOf,
+      state ? { micros: state.afterMicros, id: state.afterId } : undefined,
+    );
     const nextCursor = page.next
-      ? await encodeCursor(db, { afterMicros: page.next.micros, afterId: page.next.id, asOfMicros: asOf, filters: digest })
+      ? await encodeCursor(db, {
+          afterMicros: page.next.micros,
+          afterId: page.next.id,
+          asOfMicros: asOf,
+          filters: digest,
+        })
       : null;
     const headers: Record<string, string> = {};
     if (nextCursor) {
@@ -36,6 +61,11 @@ export async function loader({ request }: Route.LoaderArgs) {
       next.searchParams.set("cursor", nextCursor);
       headers.Link = `<${next.toString()}>; rel="next"`;
     }
-    return jsonResponse(request, { data: page.records, next_cursor: nextCursor, as_of: microsToIso(asOf) }, CACHE.live, headers);
+    return jsonResponse(
+      request,
+      { data: page.records, next_cursor: nextCursor, as_of: microsToIso(asOf) },
+      CACHE.live,
+      headers,
+    );
   });
 }

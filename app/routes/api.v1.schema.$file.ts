@@ -9,7 +9,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     readParams(new URL(request.url), {});
     const name = params.file.replace(/\.json$/, "");
     if (!params.file.endsWith(".json") || !isSchemaName(name)) {
-      throw feedError(404, "not_found", `No schema "${params.file}"; there are ${SCHEMA_NAMES.map((n) => `${n}.json`).join(", ")}.`);
+      throw feedError(
+        404,
+        "not_found",
+        `No schema "${params.file}"; there are ${SCHEMA_NAMES.map((n) => `${n}.json`).join(", ")}.`,
+      );
     }
     const response = jsonResponse(request, jsonSchema(name, config.appOrigin), CACHE.document);
     if (response.status === 200) response.headers.set("Content-Type", "application/schema+json; charset=utf-8");

@@ -11,12 +11,26 @@ import type { Route } from "./+types/api.v1.snapshots.$snapshot.$file";
 export async function loader({ request, params }: Route.LoaderArgs) {
   return answer(async () => {
     readParams(new URL(request.url), {});
-    const which = params.snapshot === "latest" ? "latest" : /^[1-9]\d{0,9}$/.test(params.snapshot) ? Number(params.snapshot) : null;
-    const format = ({ "reports.ndjson.gz": "ndjson", "reports.csv.gz": "csv" } as const)[params.file as "reports.ndjson.gz" | "reports.csv.gz"];
-    if (which === null || !format) throw feedError(404, "not_found", "No such file: use /api/v1/snapshots/latest/reports.ndjson.gz or reports.csv.gz.");
+    const which =
+      params.snapshot === "latest" ? "latest" : /^[1-9]\d{0,9}$/.test(params.snapshot) ? Number(params.snapshot) : null;
+    const format = ({ "reports.ndjson.gz": "ndjson", "reports.csv.gz": "csv" } as const)[
+      params.file as "reports.ndjson.gz" | "reports.csv.gz"
+    ];
+    if (which === null || !format)
+      throw feedError(
+        404,
+        "not_found",
+        "No such file: use /api/v1/snapshots/latest/reports.ndjson.gz or reports.csv.gz.",
+      );
     const snapshot = await findSnapshot(db, which);
     if (!snapshot) {
-      throw feedError(404, "no_snapshot", which === "latest" ? "No snapshot has been written yet; one is written daily at 03:15 UTC." : "No such snapshot: it may have been replaced by newer ones (see /api/v1/datapackage.json).");
+      throw feedError(
+        404,
+        "no_snapshot",
+        which === "latest"
+          ? "No snapshot has been written yet; one is written daily at 03:15 UTC."
+          : "No such snapshot: it may have been replaced by newer ones (see /api/v1/datapackage.json).",
+      );
     }
     const file = snapshot.files.find((f) => f.format === format)!;
     const etag = `"${file.sha256}"`;
@@ -27,11 +41,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       "Accept-Ranges": "bytes",
       "Content-Disposition": `attachment; filename="bayproof-reports-${snapshot.createdAt.slice(0, 10)}.${format}.gz"`,
     };
-    if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag)) return new Response(null, { status: 304, headers });
+    if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag))
+      return new Response(null, { status: 304, headers });
 
     const range = wantedRange(request, etag, file.bytes);
     if (range === "unsatisfiable") {
-      throw feedError(416, "range_not_satisfiable", `The file has ${file.bytes} bytes; ask for a range inside it.`, undefined, { "Content-Range": `bytes */${file.bytes}` });
+      throw feedError(
+        416,
+        "range_not_satisfiable",
+        `The file has ${file.bytes} bytes; ask for a range inside it.`,
+        undefined,
+        { "Content-Range": `bytes */${file.bytes}` },
+      );
     }
     const length = range ? range.end - range.start + 1 : file.bytes;
     Object.assign(headers, { "Content-Type": "application/gzip", "Content-Length": String(length) });
@@ -48,7 +69,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
  * The one byte range asked for (RFC 9110 §14): null for the whole file — no Range, one this
  * server does not read (several ranges, another unit), or an If-Range that names an older file.
  */
-function wantedRange(request: Request, etag: string, size: number): { start: number; end: number } | null | "unsatisfiable" {
+function wantedRange(
+  request: Request,
+  etag: string,
+  size: number,
+): { start: number; end: number } | null | "unsatisfiable" {
   const header = request.headers.get("range");
   if (!header) return null;
   const ifRange = request.headers.get("if-range");

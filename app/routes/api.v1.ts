@@ -7,7 +7,8 @@ import type { Route } from "./+types/api.v1";
 
 const CORS = {
   "Access-Control-Allow-Origin": "*",
-  "Access-Control-Expose-Headers": "ETag, Link, RateLimit, RateLimit-Policy, Retry-After, Content-Disposition, Content-Range, Accept-Ranges, Content-Length",
+  "Access-Control-Expose-Headers":
+    "ETag, Link, RateLimit, RateLimit-Policy, Retry-After, Content-Disposition, Content-Range, Accept-Ranges, Content-Length",
 };
 
 // Every /api/v1 request: open CORS for reading, only GET and HEAD, and the rate limits (which
@@ -19,14 +20,21 @@ export const middleware: Route.MiddlewareFunction[] = [
       return new Response(null, {
         status: 204,
         headers: {
-          ...CORS, "Access-Control-Allow-Methods": "GET, HEAD, OPTIONS",
-          "Access-Control-Allow-Headers": "Authorization, If-None-Match, Range, If-Range", "Access-Control-Max-Age": "86400",
+          ...CORS,
+          "Access-Control-Allow-Methods": "GET, HEAD, OPTIONS",
+          "Access-Control-Allow-Headers": "Authorization, If-None-Match, Range, If-Range",
+          "Access-Control-Max-Age": "86400",
         },
       });
     }
     let response: Response;
     if (method !== "GET" && method !== "HEAD") {
-      response = failureAnswer(feedError(405, "method_not_allowed", "The feed is read-only: use GET.", undefined, { Allow: "GET, HEAD, OPTIONS" }), "feed");
+      response = failureAnswer(
+        feedError(405, "method_not_allowed", "The feed is read-only: use GET.", undefined, {
+          Allow: "GET, HEAD, OPTIONS",
+        }),
+        "feed",
+      );
     } else {
       try {
         const caller = await admit(db, pool, request);

@@ -14,11 +14,25 @@ export default function DevMailMessage({ loaderData }: Route.ComponentProps) {
   const parts = m.text.split(/(https?:\/\/\S+)/g);
   return (
     <Card as="article" className="space-y-3">
-      <p><Link to="/dev/mail" className="text-bay-700 underline">← All local mail</Link></p>
+      <p>
+        <Link to="/dev/mail" className="text-bay-700 underline">
+          ← All local mail
+        </Link>
+      </p>
       <h1 className="text-xl font-bold">{m.subject}</h1>
-      <p className="text-sm text-stone-600">From {m.from} to {m.to} · {m.date}</p>
+      <p className="text-sm text-stone-600">
+        From {m.from} to {m.to} · {m.date}
+      </p>
       <pre className="whitespace-pre-wrap break-all font-sans">
-        {parts.map((p, i) => (/^https?:\/\//.test(p) ? <a key={i} href={p} className="text-bay-700 underline">{p}</a> : p))}
+        {parts.map((p, i) =>
+          /^https?:\/\//.test(p) ? (
+            <a key={i} href={p} className="text-bay-700 underline">
+              {p}
+            </a>
+          ) : (
+            p
+          ),
+        )}
       </pre>
     </Card>
   );

@@ -13,13 +13,20 @@ export default function DevMail({ loaderData }: Route.ComponentProps) {
   return (
     <div className="space-y-4">
       <h1 className="text-2xl font-bold">Local mail</h1>
-      <p className="text-sm text-stone-600">Messages the local mail catcher received (newest first). This page does not exist in production.</p>
-      {loaderData.messages.length === 0 ? <p>No mail yet.</p> : (
+      <p className="text-sm text-stone-600">
+        Messages the local mail catcher received (newest first). This page does not exist in production.
+      </p>
+      {loaderData.messages.length === 0 ? (
+        <p>No mail yet.</p>
+      ) : (
         <Card as="ul" padding="none" className="divide-y divide-stone-100">
           {loaderData.messages.map((m) => (
             <li key={m.id}>
               <Link to={`/dev/mail/${m.id}`} className="block px-3 py-3 hover:bg-bay-50">
-                <span className="font-semibold">{m.subject}</span> <span className="text-sm text-stone-600">to {m.to} · {m.date}</span>
+                <span className="font-semibold">{m.subject}</span>{" "}
+                <span className="text-sm text-stone-600">
+                  to {m.to} · {m.date}
+                </span>
               </Link>
             </li>
           ))}

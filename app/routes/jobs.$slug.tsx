@@ -30,8 +30,24 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   ]);
   // The shopper's supply: read what parses, and say what did not rather than fail the page.
   const asked = readSupply(search);
-  const which = asked?.supply ? rankAtSupply(standings.rows.map((r) => r.cell), asked.supply) : null;
-  return { job, standings, reports, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), which, note: asked?.note ?? null, search, units, pu: units.pressure };
+  const which = asked?.supply
+    ? rankAtSupply(
+        standings.rows.map((r) => r.cell),
+        asked.supply,
+      )
+    : null;
+  return {
+    job,
+    standings,
+    reports,
+    page,
+    pages: Math.max(1, Math.ceil(total / PER_PAGE)),
+    which,
+    note: asked?.note ?? null,
+    search,
+    units,
+    pu: units.pressure,
+  };
 }
 
 export default function JobPage({ loaderData }: Route.ComponentProps) {
@@ -46,12 +62,28 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
 
       <SafetyCautions action={job.category_action} />
 
-      <WhichToolPanel jobSlug={job.slug} percussive={job.category_action === "percussive"} values={loaderData.search} note={loaderData.note} rows={loaderData.which} pu={loaderData.pu} />
+      <WhichToolPanel
+        jobSlug={job.slug}
+        percussive={job.category_action === "percussive"}
+        values={loaderData.search}
+        note={loaderData.note}
+        rows={loaderData.which}
+        pu={loaderData.pu}
+      />
 
-      <JobTools job={job} basis={standings.basis} rows={standings.rows} fit={standings.fit} setAside={standings.setAside} units={loaderData.units} />
+      <JobTools
+        job={job}
+        basis={standings.basis}
+        rows={standings.rows}
+        fit={standings.fit}
+        setAside={standings.setAside}
+        units={loaderData.units}
+      />
 
       <section aria-labelledby="reports-heading">
-        <h2 id="reports-heading" className="mb-2 text-lg font-semibold">Accepted reports</h2>
+        <h2 id="reports-heading" className="mb-2 text-lg font-semibold">
+          Accepted reports
+        </h2>
         <ReportList reports={reports} units={loaderData.units} show={["tool"]} />
         <Pager page={page} pages={pages} basePath={`/jobs/${job.slug}`} />
       </section>

@@ -15,7 +15,9 @@ export default function Jobs({ loaderData }: Route.ComponentProps) {
     <div className="space-y-6">
       <header>
         <h1 className="text-2xl font-bold">Jobs</h1>
-        <p className="text-stone-700">Start from the job you need done; each page shows the tools technicians used on it and how it went.</p>
+        <p className="text-stone-700">
+          Start from the job you need done; each page shows the tools technicians used on it and how it went.
+        </p>
       </header>
       {[...byCategory].map(([category, jobs]) => (
         <section key={category}>

@@ -40,7 +40,10 @@ export async function action({ request }: Route.ActionArgs) {
   const user = await requireUser(request);
   const parsed = myReportsForm.safeParse(formValues(await readForm(request)));
   if (!parsed.success) {
-    throw data(parsed.error.issues[0]?.path[0] === "intent" ? "Unknown request" : "Say which file, and whether to publish it", { status: 400 });
+    throw data(
+      parsed.error.issues[0]?.path[0] === "intent" ? "Unknown request" : "Say which file, and whether to publish it",
+      { status: 400 },
+    );
   }
   const input = parsed.data;
   if (input.intent === "read-notices") {
@@ -84,23 +87,50 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
     <div className="space-y-6">
       <header className="flex flex-wrap items-center justify-between gap-3">
         <h1 className="text-2xl font-bold">Your reports</h1>
-        <Link to="/reports/new" className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">File a new report</Link>
+        <Link to="/reports/new" className="rounded bg-bay-700 px-4 py-3 font-semibold text-white">
+          File a new report
+        </Link>
       </header>
-      {submitted && <p role="status" className="rounded bg-bay-100 px-3 py-2">Report #{submitted} is submitted. A moderator will check the evidence.</p>}
-      {withdrawn && <p role="status" className="rounded bg-bay-100 px-3 py-2">The report is withdrawn.</p>}
+      {submitted && (
+        <p role="status" className="rounded bg-bay-100 px-3 py-2">
+          Report #{submitted} is submitted. A moderator will check the evidence.
+        </p>
+      )}
+      {withdrawn && (
+        <p role="status" className="rounded bg-bay-100 px-3 py-2">
+          The report is withdrawn.
+        </p>
+      )}
       {unread.length > 0 && (
         <section aria-labelledby="notices-heading" className="rounded-lg border border-signal-500 bg-signal-100 p-3">
-          <h2 id="notices-heading" className="font-semibold">News on your reports</h2>
-          <ul className="mt-1 space-y-1 text-sm">{unread.map((n) => <li key={n.id}>{formatDateTime(n.created_at)}: {n.message}</li>)}</ul>
+          <h2 id="notices-heading" className="font-semibold">
+            News on your reports
+          </h2>
+          <ul className="mt-1 space-y-1 text-sm">
+            {unread.map((n) => (
+              <li key={n.id}>
+                {formatDateTime(n.created_at)}: {n.message}
+              </li>
+            ))}
+          </ul>
           <Form method="post" className="mt-2">
-            <button type="submit" name="intent" value="read-notices" className="rounded border border-stone-400 px-3 py-1 text-sm">Mark as read</button>
+            <button
+              type="submit"
+              name="intent"
+              value="read-notices"
+              className="rounded border border-stone-400 px-3 py-1 text-sm"
+            >
+              Mark as read
+            </button>
           </Form>
         </section>
       )}
       {reports.length === 0 && <p className="text-stone-600">No reports yet.</p>}
       {STATUS_ORDER.filter((s) => byStatus.has(s)).map((status) => (
         <section key={status} aria-labelledby={`st-${status}`}>
-          <h2 id={`st-${status}`} className="mb-2 text-lg font-semibold">{STATUS_LABELS[status]} <span className="text-stone-500">({byStatus.get(status)!.length})</span></h2>
+          <h2 id={`st-${status}`} className="mb-2 text-lg font-semibold">
+            {STATUS_LABELS[status]} <span className="text-stone-500">({byStatus.get(status)!.length})</span>
+          </h2>
           <ul className="space-y-2">
             {byStatus.get(status)!.map((r) => (
               <li key={r.id} className="rounded-lg border border-stone-200 bg-white p-3" data-testid={`report-${r.id}`}>
@@ -109,30 +139,51 @@ export default function MyReports({ loaderData }: Route.ComponentProps) {
                   <span>{toolName(r.maker_name, r.model_code)}</span>
                   <span className="text-stone-600">· {r.job_name}</span>
                   <OutcomeBadge outcome={r.outcome} />
-                  <span className="ml-auto text-xs text-stone-500">{r.submitted_at ? `submitted ${formatDate(r.submitted_at)}` : `started ${formatDate(r.created_at)}`} · v{r.version} · {r.evidence} files</span>
+                  <span className="ml-auto text-xs text-stone-500">
+                    {r.submitted_at ? `submitted ${formatDate(r.submitted_at)}` : `started ${formatDate(r.created_at)}`}{" "}
+                    · v{r.version} · {r.evidence} files
+                  </span>
                 </div>
                 {r.flags.length > 0 && (
                   <ul className="mt-2 space-y-1 text-sm" aria-label="Flags">
                     {r.flags.map((f) => (
-                      <li key={f} className="rounded bg-amber-50 px-2 py-1"><span className="font-semibold">⚑ {f.replaceAll("_", " ")}</span> — {FLAG_EXPLANATIONS[f as FlagCode] ?? ""}</li>
+                      <li key={f} className="rounded bg-amber-50 px-2 py-1">
+                        <span className="font-semibold">⚑ {f.replaceAll("_", " ")}</span> —{" "}
+                        {FLAG_EXPLANATIONS[f as FlagCode] ?? ""}
+                      </li>
                     ))}
                   </ul>
                 )}
                 {r.decisions.length > 0 && (
                   <ul className="mt-2 space-y-1 text-sm">
                     {r.decisions.map((d, i) => (
-                      <li key={i}>{formatDateTime(d.created_at)}: <span className="font-semibold">{ACTION_LABELS[d.action]}</span> ({d.reason_code.replaceAll("_", " ")}){d.note ? ` — ${d.note}` : ""}</li>
+                      <li key={i}>
+                        {formatDateTime(d.created_at)}: <span className="font-semibold">{ACTION_LABELS[d.action]}</span>{" "}
+                        ({d.reason_code.replaceAll("_", " ")}){d.note ? ` — ${d.note}` : ""}
+                      </li>
                     ))}
                   </ul>
                 )}
-                {!EDITABLE.includes(r.status) && filesByReport.has(r.id) && <OpenDataFiles files={filesByReport.get(r.id)!} />}
+                {!EDITABLE.includes(r.status) && filesByReport.has(r.id) && (
+                  <OpenDataFiles files={filesByReport.get(r.id)!} />
+                )}
                 <div className="mt-2 flex flex-wrap gap-2">
-                  {r.status !== "draft" && <Link to={`/reports/${r.id}/history`} className={ROW_ACTION}>History</Link>}
-                  {EDITABLE.includes(r.status) && <Link to={`/reports/${r.id}/edit`} className={cx(ROW_ACTION_BASE, "border-bay-700 text-bay-700")}>{r.status === "returned" ? "Fix and resubmit" : "Continue"}</Link>}
+                  {r.status !== "draft" && (
+                    <Link to={`/reports/${r.id}/history`} className={ROW_ACTION}>
+                      History
+                    </Link>
+                  )}
+                  {EDITABLE.includes(r.status) && (
+                    <Link to={`/reports/${r.id}/edit`} className={cx(ROW_ACTION_BASE, "border-bay-700 text-bay-700")}>
+                      {r.status === "returned" ? "Fix and resubmit" : "Continue"}
+                    </Link>
+                  )}
                   {WITHDRAWABLE.includes(r.status) && (
                     <Form method="post" action={`/reports/${r.id}/edit`}>
                       <input type="hidden" name="reportId" value={r.id} />
-                      <button type="submit" name="intent" value="withdraw" className={ROW_ACTION}>Withdraw</button>
+                      <button type="submit" name="intent" value="withdraw" className={ROW_ACTION}>
+                        Withdraw
+                      </button>
                     </Form>
                   )}
                 </div>

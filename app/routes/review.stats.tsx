@@ -18,19 +18,45 @@ export default function ReviewStats({ loaderData }: Route.ComponentProps) {
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-bold">Review workload</h1>
-      <p>Median time from submission to decision, last 90 days: <strong>{medianHours.hours == null ? "—" : `${medianHours.hours.toFixed(1)} hours`}</strong> ({medianHours.n} decisions).</p>
+      <p>
+        Median time from submission to decision, last 90 days:{" "}
+        <strong>{medianHours.hours == null ? "—" : `${medianHours.hours.toFixed(1)} hours`}</strong> ({medianHours.n}{" "}
+        decisions).
+      </p>
       <section aria-labelledby="weeks-heading">
-        <h2 id="weeks-heading" className="mb-2 text-lg font-semibold">Queue by week (last 12 weeks)</h2>
+        <h2 id="weeks-heading" className="mb-2 text-lg font-semibold">
+          Queue by week (last 12 weeks)
+        </h2>
         <WorkloadWeeks weeks={weeks} />
       </section>
       <section aria-labelledby="mods-heading">
-        <h2 id="mods-heading" className="mb-2 text-lg font-semibold">Decisions per moderator per week</h2>
-        <DataTable label="Decisions per moderator per week" scrollHint head={
-          <tr><th className="px-3 py-2 text-left">Moderator</th>{modWeeks.map((w) => <th key={w} className="px-3 py-2 text-right">{w}</th>)}</tr>
-        }>
-              {moderators.map((m) => (
-                <tr key={m}><td className="px-3 py-1.5 font-semibold">{m}</td>{modWeeks.map((w) => <td key={w} className="px-3 py-1.5 text-right">{perModerator.find((r) => r.moderator === m && r.week === w)?.decisions ?? 0}</td>)}</tr>
+        <h2 id="mods-heading" className="mb-2 text-lg font-semibold">
+          Decisions per moderator per week
+        </h2>
+        <DataTable
+          label="Decisions per moderator per week"
+          scrollHint
+          head={
+            <tr>
+              <th className="px-3 py-2 text-left">Moderator</th>
+              {modWeeks.map((w) => (
+                <th key={w} className="px-3 py-2 text-right">
+                  {w}
+                </th>
               ))}
+            </tr>
+          }
+        >
+          {moderators.map((m) => (
+            <tr key={m}>
+              <td className="px-3 py-1.5 font-semibold">{m}</td>
+              {modWeeks.map((w) => (
+                <td key={w} className="px-3 py-1.5 text-right">
+                  {perModerator.find((r) => r.moderator === m && r.week === w)?.decisions ?? 0}
+                </td>
+              ))}
+            </tr>
+          ))}
         </DataTable>
       </section>
     </div>

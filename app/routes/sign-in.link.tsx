@@ -45,7 +45,9 @@ export default function SignInLink({ loaderData }: Route.ComponentProps) {
       <Form method="post" className="mt-4">
         <input type="hidden" name="token" value={loaderData.token} />
         <input type="hidden" name="redirectTo" value={loaderData.redirectTo} />
-        <button type="submit" className={buttonClass("primary", "md", "w-full")}>Sign in</button>
+        <button type="submit" className={buttonClass("primary", "md", "w-full")}>
+          Sign in
+        </button>
       </Form>
     </Card>
   );

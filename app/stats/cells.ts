@@ -37,7 +37,13 @@ export interface CellFigures {
   /** Median time of the jobs freed, with the order-statistic interval (null bounds for ≤ 5 times). */
   time: { n: number; median: number; lower: number | null; upper: number | null; coverage: number | null } | null;
   /** Kaplan–Meier median time to free it, counting give-ups (censored). */
-  km: { n: number; median: number | null; lower: number | null; upper: number | null; steps: { time: number; survival: number }[] } | null;
+  km: {
+    n: number;
+    median: number | null;
+    lower: number | null;
+    upper: number | null;
+    steps: { time: number; survival: number }[];
+  } | null;
   measuredShare: number;
   estimatedShare: number;
 }
@@ -67,20 +73,49 @@ export function cellFigures(all: readonly CellReport[], confidence = 0.95): Cell
     const sorted = [...freedTimes].sort((a, b) => a - b);
     const mid = sorted.length >> 1;
     const median = m?.estimate ?? (sorted.length % 2 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2);
-    time = { n: freedTimes.length, median, lower: m?.lower ?? null, upper: m?.upper ?? null, coverage: m?.coverage ?? null };
+    time = {
+      n: freedTimes.length,
+      median,
+      lower: m?.lower ?? null,
+      upper: m?.upper ?? null,
+      coverage: m?.coverage ?? null,
+    };
   }
-  const k = kaplanMeier(reports.map((r) => r.timeS), reports.map((r) => r.outcome === "freed"), confidence);
-  const km = { n, median: k.median, lower: k.lower, upper: k.upper, steps: k.steps.map((s) => ({ time: s.time, survival: s.survival })) };
+  const k = kaplanMeier(
+    reports.map((r) => r.timeS),
+    reports.map((r) => r.outcome === "freed"),
+    confidence,
+  );
+  const km = {
+    n,
+    median: k.median,
+    lower: k.lower,
+    upper: k.upper,
+    steps: k.steps.map((s) => ({ time: s.time, survival: s.survival })),
+  };
   return {
-    n, successes, setAside, estimate: w.estimate, lower: w.lower, upper: w.upper,
-    reporters: w.clusters, designEffect: w.designEffect, effectiveN: w.effectiveN, time, km,
+    n,
+    successes,
+    setAside,
+    estimate: w.estimate,
+    lower: w.lower,
+    upper: w.upper,
+    reporters: w.clusters,
+    designEffect: w.designEffect,
+    effectiveN: w.effectiveN,
+    time,
+    km,
     measuredShare: reports.filter((r) => r.inletSource === "measured_at_inlet").length / n,
     estimatedShare: reports.filter((r) => r.inletSource === "estimated").length / n,
   };
 }
 
 /** A stored cell's pressure-adjusted success at the reference inlet, or null where there is none. */
-export function adjustedAtReference(cell: { adj_estimate: number | null; adj_lower: number | null; adj_upper: number | null }) {
+export function adjustedAtReference(cell: {
+  adj_estimate: number | null;
+  adj_lower: number | null;
+  adj_upper: number | null;
+}) {
   if (cell.adj_estimate == null || cell.adj_lower == null || cell.adj_upper == null) return null;
   return { inlet_kpa: REFERENCE_INLET_KPA, estimate: cell.adj_estimate, lower: cell.adj_lower, upper: cell.adj_upper };
 }

@@ -27,7 +27,13 @@ export interface ClusteredInterval extends Interval {
 export function clusteredWilson(clusters: readonly Group[], confidence = 0.95): ClusteredInterval {
   checkConfidence(confidence);
   for (const c of clusters) {
-    if (!Number.isInteger(c.successes) || !Number.isInteger(c.trials) || c.trials < 0 || c.successes < 0 || c.successes > c.trials) {
+    if (
+      !Number.isInteger(c.successes) ||
+      !Number.isInteger(c.trials) ||
+      c.trials < 0 ||
+      c.successes < 0 ||
+      c.successes > c.trials
+    ) {
       throw new RangeError("need whole numbers with 0 ≤ successes ≤ trials");
     }
   }
@@ -63,14 +69,21 @@ export interface Distinguishable {
  * effective sample size n / deff before they are combined.
  */
 export function distinguishable(
-  s1: number, n1: number, s2: number, n2: number, confidence = 0.95,
+  s1: number,
+  n1: number,
+  s2: number,
+  n2: number,
+  confidence = 0.95,
   { designEffect1 = 1, designEffect2 = 1 }: { designEffect1?: number; designEffect2?: number } = {},
 ): Distinguishable {
   if (!(designEffect1 >= 1 && designEffect2 >= 1)) throw new RangeError("design effects must be ≥ 1");
   const difference =
     designEffect1 === 1 && designEffect2 === 1
       ? differenceInterval(s1, n1, s2, n2, confidence)
-      : hybridDifference(wilsonAt(rate(s1, n1), n1 / designEffect1, confidence), wilsonAt(rate(s2, n2), n2 / designEffect2, confidence));
+      : hybridDifference(
+          wilsonAt(rate(s1, n1), n1 / designEffect1, confidence),
+          wilsonAt(rate(s2, n2), n2 / designEffect2, confidence),
+        );
   return { distinguishable: difference.lower > 0 || difference.upper < 0, difference };
 }
 

@@ -2,11 +2,18 @@
 // the inlet pressure to read the pressure fit at. Read what parses; say plainly what did not.
 import { z } from "zod";
 
-const slug = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, "Tools and jobs are named by their address, like bh-260l").max(80);
+const slug = z
+  .string()
+  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, "Tools and jobs are named by their address, like bh-260l")
+  .max(80);
 const schema = z.object({
   job: slug.optional(),
   models: z.array(slug).max(4, "Pick at most four tools"),
-  psi: z.coerce.number({ error: "Pressure: a number of psi" }).min(40, "Pressure: 40–200 psi").max(200, "Pressure: 40–200 psi").default(90),
+  psi: z.coerce
+    .number({ error: "Pressure: a number of psi" })
+    .min(40, "Pressure: 40–200 psi")
+    .max(200, "Pressure: 40–200 psi")
+    .default(90),
 });
 
 export interface CompareQuery {
@@ -18,10 +25,19 @@ export interface CompareQuery {
 }
 
 export function readCompareQuery(params: URLSearchParams): CompareQuery {
-  const models = [...new Set(params.getAll("models").flatMap((v) => v.split(",")).map((x) => x.trim()).filter(Boolean))];
+  const models = [
+    ...new Set(
+      params
+        .getAll("models")
+        .flatMap((v) => v.split(","))
+        .map((x) => x.trim())
+        .filter(Boolean),
+    ),
+  ];
   const raw = { job: params.get("job") || undefined, models, psi: params.get("psi") || undefined };
   const parsed = schema.safeParse(raw);
-  if (parsed.success) return { job: parsed.data.job ?? null, models: parsed.data.models, psi: parsed.data.psi, problem: null };
+  if (parsed.success)
+    return { job: parsed.data.job ?? null, models: parsed.data.models, psi: parsed.data.psi, problem: null };
   const jobOk = slug.safeParse(raw.job).success;
   return {
     job: jobOk ? raw.job! : null,

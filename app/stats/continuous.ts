@@ -4,7 +4,12 @@ import { checkConfidence, tCritical } from "./distributions";
 import type { Interval } from "./proportions";
 
 /** Student t interval for a mean from summary statistics: x̄ ± t(1−α/2, n−1) · s/√n. */
-export function meanIntervalFromSummary(mean: number, sd: number, n: number, confidence = 0.95): Interval & { df: number } {
+export function meanIntervalFromSummary(
+  mean: number,
+  sd: number,
+  n: number,
+  confidence = 0.95,
+): Interval & { df: number } {
   if (!Number.isInteger(n) || n < 2) throw new RangeError("need at least two values");
   if (!(sd >= 0)) throw new RangeError("standard deviation must be zero or more");
   checkConfidence(confidence);
@@ -23,16 +28,21 @@ export function meanInterval(values: number[], confidence = 0.95): Interval & { 
 
 /** k-th smallest of a (scratch) array by quickselect, in place: O(n), for bootstrap medians. */
 function select(a: Float64Array, k: number): number {
-  let lo = 0, hi = a.length - 1;
+  let lo = 0,
+    hi = a.length - 1;
   while (lo < hi) {
     const pivot = a[(lo + hi) >> 1]!;
-    let i = lo, j = hi;
+    let i = lo,
+      j = hi;
     while (i <= j) {
       while (a[i]! < pivot) i++;
       while (a[j]! > pivot) j--;
       if (i <= j) {
-        const t = a[i]!; a[i] = a[j]!; a[j] = t;
-        i++; j--;
+        const t = a[i]!;
+        a[i] = a[j]!;
+        a[j] = t;
+        i++;
+        j--;
       }
     }
     if (k <= j) hi = j;
@@ -71,7 +81,11 @@ export interface BootstrapOptions {
  * `resamples` times from a seeded generator (same seed → same answer), take the statistic of each,
  * and read its α/2 and 1−α/2 quantiles. Also returns the bootstrap standard error.
  */
-export function bootstrapInterval<T>(values: readonly T[], statistic: (sample: T[]) => number, { resamples = 2000, seed, confidence = 0.95 }: BootstrapOptions): Interval & { se: number } {
+export function bootstrapInterval<T>(
+  values: readonly T[],
+  statistic: (sample: T[]) => number,
+  { resamples = 2000, seed, confidence = 0.95 }: BootstrapOptions,
+): Interval & { se: number } {
   if (values.length === 0) throw new RangeError("need at least one value");
   if (!Number.isInteger(resamples) || resamples < 10) throw new RangeError("need at least 10 resamples");
   checkConfidence(confidence);
@@ -87,7 +101,12 @@ export function bootstrapInterval<T>(values: readonly T[], statistic: (sample: T
   const se = Math.sqrt(stats.reduce((s, v) => s + (v - mean) ** 2, 0) / (resamples - 1));
   stats.sort((a, b) => a - b);
   const tail = (1 - confidence) / 2;
-  return { estimate: statistic([...values]), lower: quantileSorted(stats, tail), upper: quantileSorted(stats, 1 - tail), se };
+  return {
+    estimate: statistic([...values]),
+    lower: quantileSorted(stats, tail),
+    upper: quantileSorted(stats, 1 - tail),
+    se,
+  };
 }
 
 /** Pearson correlation of [x, y] pairs. */
@@ -95,7 +114,9 @@ export function correlation(pairs: readonly (readonly [number, number])[]): numb
   const n = pairs.length;
   const mx = pairs.reduce((s, p) => s + p[0], 0) / n;
   const my = pairs.reduce((s, p) => s + p[1], 0) / n;
-  let sxy = 0, sxx = 0, syy = 0;
+  let sxy = 0,
+    sxx = 0,
+    syy = 0;
   for (const [x, y] of pairs) {
     sxy += (x - mx) * (y - my);
     sxx += (x - mx) ** 2;
@@ -109,7 +130,10 @@ export function correlation(pairs: readonly (readonly [number, number])[]): numb
  * (same seed, same draws, same answer), but fast: the values are sorted once, and since a
  * resample's median is the value at the median of its drawn ranks, each resample only counts ranks.
  */
-export function bootstrapMedianInterval(values: readonly number[], { resamples = 2000, seed, confidence = 0.95 }: BootstrapOptions): Interval & { se: number } {
+export function bootstrapMedianInterval(
+  values: readonly number[],
+  { resamples = 2000, seed, confidence = 0.95 }: BootstrapOptions,
+): Interval & { se: number } {
   const n = values.length;
   if (n === 0) throw new RangeError("need at least one value");
   if (!Number.isInteger(resamples) || resamples < 10) throw new RangeError("need at least 10 resamples");
@@ -127,7 +151,9 @@ export function bootstrapMedianInterval(values: readonly number[], { resamples =
     counts.fill(0);
     for (let i = 0; i < n; i++) counts[rankOf[Math.floor(rng() * n)]!]!++;
     // The k-th smallest drawn rank, for k = mid (and mid − 1 when n is even).
-    let seen = 0, r = 0, lowerRank = -1;
+    let seen = 0,
+      r = 0,
+      lowerRank = -1;
     for (; r < n; r++) {
       seen += counts[r]!;
       if (lowerRank < 0 && n % 2 === 0 && seen >= mid) lowerRank = r;

@@ -23,12 +23,17 @@ const expit = (eta: number) => 1 / (1 + Math.exp(-eta));
 export function logisticFit(x: readonly number[], y: readonly number[], maxIterations = 50): LogisticFit {
   if (x.length !== y.length || x.length < 3) throw new RangeError("need matching x and y with at least 3 points");
   if (y.some((v) => v !== 0 && v !== 1)) throw new RangeError("y must be 0 or 1");
-  let a = 0, b = 0;
+  let a = 0,
+    b = 0;
   let converged = false;
   let iterations = 0;
   let info: [number, number, number] = [0, 0, 0];
   for (; iterations < maxIterations; iterations++) {
-    let g0 = 0, g1 = 0, h00 = 0, h01 = 0, h11 = 0;
+    let g0 = 0,
+      g1 = 0,
+      h00 = 0,
+      h01 = 0,
+      h11 = 0;
     for (let i = 0; i < x.length; i++) {
       const p = expit(a + b * x[i]!);
       const w = p * (1 - p);
@@ -52,8 +57,21 @@ export function logisticFit(x: readonly number[], y: readonly number[], maxItera
     }
   }
   const det = info[0] * info[2] - info[1] * info[1];
-  const v00 = info[2] / det, v01 = -info[1] / det, v11 = info[0] / det;
-  return { intercept: a, slope: b, interceptSE: Math.sqrt(v00), slopeSE: Math.sqrt(v11), covariance: [[v00, v01], [v01, v11]], converged, iterations };
+  const v00 = info[2] / det,
+    v01 = -info[1] / det,
+    v11 = info[0] / det;
+  return {
+    intercept: a,
+    slope: b,
+    interceptSE: Math.sqrt(v00),
+    slopeSE: Math.sqrt(v11),
+    covariance: [
+      [v00, v01],
+      [v01, v11],
+    ],
+    converged,
+    iterations,
+  };
 }
 
 /** Predicted P(y = 1) at x with a Wald interval on the logit scale, mapped back. */

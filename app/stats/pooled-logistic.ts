@@ -49,7 +49,10 @@ const logit = (p: number) => Math.log(p / (1 - p));
  * slope: O(n + G) per iteration, hundreds of models in one job cost no more than a few.
  * Throws when x does not vary within any group (the slope is then not estimable).
  */
-export function pooledLogisticFit(rows: readonly PooledRow[], { firth = true, maxIterations = 100 } = {}): PooledLogisticFit {
+export function pooledLogisticFit(
+  rows: readonly PooledRow[],
+  { firth = true, maxIterations = 100 } = {},
+): PooledLogisticFit {
   if (rows.length === 0) throw new RangeError("need at least one row");
   if (rows.some((r) => r.y !== 0 && r.y !== 1)) throw new RangeError("y must be 0 or 1");
   if (rows.some((r) => !Number.isFinite(r.x))) throw new RangeError("x must be finite");
@@ -154,7 +157,12 @@ export function pooledLogisticFit(rows: readonly PooledRow[], { firth = true, ma
   const { d, r, sigma } = state;
   const keys = [...index.keys()];
   const fit = {
-    groups: keys.map((group, k) => ({ group, intercept: alpha[k]!, se: Math.sqrt(1 / d[k]! + (r[k]! * r[k]!) / sigma), n: n[k]! })),
+    groups: keys.map((group, k) => ({
+      group,
+      intercept: alpha[k]!,
+      se: Math.sqrt(1 / d[k]! + (r[k]! * r[k]!) / sigma),
+      n: n[k]!,
+    })),
     slope: beta,
     slopeSE: Math.sqrt(1 / sigma),
     inverse: { d, r, sigma },
@@ -163,7 +171,10 @@ export function pooledLogisticFit(rows: readonly PooledRow[], { firth = true, ma
     iterations,
   };
   let dense: number[][] | undefined;
-  return Object.defineProperty(fit, "covariance", { enumerable: true, get: () => (dense ??= denseCovariance(d, r, sigma)) }) as PooledLogisticFit;
+  return Object.defineProperty(fit, "covariance", {
+    enumerable: true,
+    get: () => (dense ??= denseCovariance(d, r, sigma)),
+  }) as PooledLogisticFit;
 }
 
 function denseCovariance(d: number[], r: number[], sigma: number): number[][] {

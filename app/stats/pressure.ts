@@ -77,12 +77,18 @@ export function jobPressureFit(reports: readonly FitReport[], models: readonly n
     return { n: reports.length, models: byModel.size, slope: null, slopeSE: null, converged: false, reason, perModel };
   };
   if (reports.length < MIN_FIT_REPORTS) {
-    return noFit(`Only ${reports.length} reports on this job have a known inlet pressure (measured at the inlet, or a regulator reading less the predicted line loss); the pressure fit needs ${MIN_FIT_REPORTS}.`);
+    return noFit(
+      `Only ${reports.length} reports on this job have a known inlet pressure (measured at the inlet, or a regulator reading less the predicted line loss); the pressure fit needs ${MIN_FIT_REPORTS}.`,
+    );
   }
   const spread = [...byModel.values()].some((k) => Math.max(...k) - Math.min(...k) >= 1);
-  if (!spread) return noFit("No tool's reports with a known inlet pressure on this job differ in pressure; there is no pressure effect to fit.");
+  if (!spread)
+    return noFit(
+      "No tool's reports with a known inlet pressure on this job differ in pressure; there is no pressure effect to fit.",
+    );
   const fit = pooledLogisticFit(reports.map((r) => ({ group: r.model, x: pressureX(r.inletKpa), y: r.freed ? 1 : 0 })));
-  if (!fit.converged || !Number.isFinite(fit.slopeSE)) return noFit("The job's pressure fit did not settle; no pressure-adjusted figures.");
+  if (!fit.converged || !Number.isFinite(fit.slopeSE))
+    return noFit("The job's pressure fit did not settle; no pressure-adjusted figures.");
   const z = zCritical(confidence);
   const { d, r, sigma } = fit.inverse;
   fit.groups.forEach((g, k) => {
@@ -90,16 +96,38 @@ export function jobPressureFit(reports: readonly FitReport[], models: readonly n
     perModel.set(g.group as number, modelFigure(g.intercept, fit.slope, d[k]!, r[k]!, sigma, kpas, z));
   });
   for (const m of models) {
-    if (!perModel.has(m)) perModel.set(m, { fit: null, adjusted: null, reason: "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers)." });
+    if (!perModel.has(m))
+      perModel.set(m, {
+        fit: null,
+        adjusted: null,
+        reason:
+          "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers).",
+      });
   }
-  return { n: reports.length, models: byModel.size, slope: fit.slope, slopeSE: fit.slopeSE, converged: true, reason: null, perModel };
+  return {
+    n: reports.length,
+    models: byModel.size,
+    slope: fit.slope,
+    slopeSE: fit.slopeSE,
+    converged: true,
+    reason: null,
+    perModel,
+  };
 }
 
 function modelFigure(intercept: number, slope: number, d: number, r: number, sigma: number, kpas: number[], z: number) {
   kpas.sort((a, b) => a - b);
   const cell: PooledCellFit = {
-    intercept, slope, d, r, sigma, n: kpas.length,
-    p10Kpa: quantile(kpas, 0.1), p90Kpa: quantile(kpas, 0.9), minKpa: kpas[0]!, maxKpa: kpas[kpas.length - 1]!,
+    intercept,
+    slope,
+    d,
+    r,
+    sigma,
+    n: kpas.length,
+    p10Kpa: quantile(kpas, 0.1),
+    p90Kpa: quantile(kpas, 0.9),
+    minKpa: kpas[0]!,
+    maxKpa: kpas[kpas.length - 1]!,
   };
   const inside = cell.p10Kpa <= REFERENCE_INLET_KPA && REFERENCE_INLET_KPA <= cell.p90Kpa;
   return {
@@ -119,25 +147,52 @@ function modelFigure(intercept: number, slope: number, d: number, r: number, sig
  * pooledLogisticFit for one group: modified score Σ(y − p + h(½ − p)), hᵢ = wᵢ(1/d + (xᵢ − r)²/σ)),
  * and its d, r there. The other models' figures and the slope wait for the job's next full refit.
  */
-export function modelAtJobSlope(reports: readonly FitReport[], job: { slope: number; sigma: number }, confidence = 0.95) {
-  if (reports.length === 0) return { fit: null, adjusted: null, reason: "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers)." };
+export function modelAtJobSlope(
+  reports: readonly FitReport[],
+  job: { slope: number; sigma: number },
+  confidence = 0.95,
+) {
+  if (reports.length === 0)
+    return {
+      fit: null,
+      adjusted: null,
+      reason:
+        "None of its reports on this job has a known inlet pressure (measured at the inlet, or a regulator reading with its hose and couplers).",
+    };
   const x = reports.map((r) => pressureX(r.inletKpa));
   const y = reports.map((r) => (r.freed ? 1 : 0));
   const s = y.reduce((a: number, b) => a + b, 0);
   let alpha = Math.log((s + 0.5) / (reports.length - s + 0.5));
-  let d = 0, r = 0;
+  let d = 0,
+    r = 0;
   for (let it = 0; it < 50; it++) {
-    d = 0; let c = 0;
+    d = 0;
+    let c = 0;
     const p = x.map((xi) => 1 / (1 + Math.exp(-(alpha + job.slope * xi))));
-    p.forEach((pi, i) => { const w = pi * (1 - pi); d += w; c += w * x[i]!; });
+    p.forEach((pi, i) => {
+      const w = pi * (1 - pi);
+      d += w;
+      c += w * x[i]!;
+    });
     r = c / d;
     let u = 0;
-    p.forEach((pi, i) => { const w = pi * (1 - pi); u += y[i]! - pi + w * (1 / d + (x[i]! - r) ** 2 / job.sigma) * (0.5 - pi); });
+    p.forEach((pi, i) => {
+      const w = pi * (1 - pi);
+      u += y[i]! - pi + w * (1 / d + (x[i]! - r) ** 2 / job.sigma) * (0.5 - pi);
+    });
     const step = Math.max(-5, Math.min(5, u / d));
     alpha += step;
     if (Math.abs(step) < 1e-8) break;
   }
-  return modelFigure(alpha, job.slope, d, r, job.sigma, reports.map((q) => q.inletKpa), zFor(confidence));
+  return modelFigure(
+    alpha,
+    job.slope,
+    d,
+    r,
+    job.sigma,
+    reports.map((q) => q.inletKpa),
+    zFor(confidence),
+  );
 }
 
 function predictWith(fit: PooledCellFit, inletKpa: number, z: number): Interval {
@@ -155,7 +210,10 @@ function predictWith(fit: PooledCellFit, inletKpa: number, z: number): Interval 
  * Pure and small: the compare page runs it in the browser as the shopper moves the pressure.
  */
 export function predictAt(fit: PooledCellFit, inletKpa: number, confidence = 0.95) {
-  return { ...predictWith(fit, inletKpa, zFor(confidence)), extrapolating: inletKpa < fit.p10Kpa || inletKpa > fit.p90Kpa };
+  return {
+    ...predictWith(fit, inletKpa, zFor(confidence)),
+    extrapolating: inletKpa < fit.p10Kpa || inletKpa > fit.p90Kpa,
+  };
 }
 
 // 1.959964 for 95 % (published normal quantile); other levels from the library.

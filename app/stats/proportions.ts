@@ -93,7 +93,11 @@ export interface ShrinkResult {
  * `prior` skips the search and uses the one given (a prior found earlier for the same job type:
  * one more report moves it by next to nothing, and the search is the costly part).
  */
-export function shrinkProportions(groups: Group[], confidence = 0.95, prior?: { alpha: number; beta: number }): ShrinkResult {
+export function shrinkProportions(
+  groups: Group[],
+  confidence = 0.95,
+  prior?: { alpha: number; beta: number },
+): ShrinkResult {
   if (groups.length === 0) throw new RangeError("need at least one group");
   for (const g of groups) checkCounts(g.successes, g.trials);
   if (prior) return posteriors(groups, prior.alpha, prior.beta, confidence);
@@ -123,15 +127,25 @@ export function shrinkProportions(groups: Group[], confidence = 0.95, prior?: { 
   // interior point is kept), stopping once the bracket is below 1e-7; rounds stop when both settle.
   const golden = (f: (x: number) => number, lo: number, hi: number) => {
     const g = (Math.sqrt(5) - 1) / 2;
-    let a = lo, b = hi, c = b - g * (b - a), d = a + g * (b - a);
-    let fc = f(c), fd = f(d);
+    let a = lo,
+      b = hi,
+      c = b - g * (b - a),
+      d = a + g * (b - a);
+    let fc = f(c),
+      fd = f(d);
     while (b - a > 1e-7) {
       if (fc > fd) {
-        b = d; d = c; fd = fc;
-        c = b - g * (b - a); fc = f(c);
+        b = d;
+        d = c;
+        fd = fc;
+        c = b - g * (b - a);
+        fc = f(c);
       } else {
-        a = c; c = d; fc = fd;
-        d = a + g * (b - a); fd = f(d);
+        a = c;
+        c = d;
+        fc = fd;
+        d = a + g * (b - a);
+        fd = f(d);
       }
     }
     return (a + b) / 2;
@@ -154,7 +168,12 @@ function posteriors(groups: Group[], alpha: number, beta: number, confidence: nu
     groups: groups.map((g) => {
       const a = alpha + g.successes;
       const b = beta + g.trials - g.successes;
-      return { raw: g.successes / g.trials, estimate: a / (a + b), lower: betaQuantile(tail, a, b), upper: betaQuantile(1 - tail, a, b) };
+      return {
+        raw: g.successes / g.trials,
+        estimate: a / (a + b),
+        lower: betaQuantile(tail, a, b),
+        upper: betaQuantile(1 - tail, a, b),
+      };
     }),
   };
 }

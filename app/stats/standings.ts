@@ -46,7 +46,10 @@ export interface TellApart {
 
 /** Whether two tools on one job can be told apart: the difference interval excludes 0 (issue 16, item 5). */
 export function tellApart(a: StandingInput, b: StandingInput, confidence = 0.95): TellApart {
-  const d = distinguishable(a.successes, a.n, b.successes, b.n, confidence, { designEffect1: a.design_effect, designEffect2: b.design_effect });
+  const d = distinguishable(a.successes, a.n, b.successes, b.n, confidence, {
+    designEffect1: a.design_effect,
+    designEffect2: b.design_effect,
+  });
   return { ...d, chanceAFreesMore: probabilityGreater(a.successes, a.n, b.successes, b.n) };
 }
 
@@ -60,9 +63,13 @@ const byLower = (key: (c: StandingInput) => number) => (a: StandingInput, b: Sta
  * marked "too few"; the first tool with enough is the top tool, and every other is marked by
  * whether the difference of rates with it excludes 0.
  */
-export function orderCells<T extends StandingInput>(cells: readonly T[], jobHasFit: boolean): { basis: OrderBasis; rows: Standing<T>[] } {
+export function orderCells<T extends StandingInput>(
+  cells: readonly T[],
+  jobHasFit: boolean,
+): { basis: OrderBasis; rows: Standing<T>[] } {
   const basis: OrderBasis = jobHasFit && cells.some((c) => c.adj_lower != null) ? "pressure_adjusted" : "rate";
-  const adjusted = basis === "pressure_adjusted" ? cells.filter((c) => c.adj_lower != null).sort(byLower((c) => c.adj_lower!)) : [];
+  const adjusted =
+    basis === "pressure_adjusted" ? cells.filter((c) => c.adj_lower != null).sort(byLower((c) => c.adj_lower!)) : [];
   const rest = cells.filter((c) => !adjusted.includes(c)).sort(byLower((c) => c.lower));
   const ordered = [...adjusted, ...rest];
   const top = ordered.find((c) => c.n >= FEW_REPORTS);

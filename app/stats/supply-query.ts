@@ -7,6 +7,10 @@ import type { Supply } from "./which-tool";
 export function readSupply(search: Record<string, string>): { supply: Supply | null; note: string | null } | null {
   if (search.reg === undefined) return null;
   const parsed = supplySchema.safeParse(search);
-  if (!parsed.success) return { supply: null, note: `Could not use your supply: ${parsed.error.issues.map((i) => i.message).join("; ")}.` };
+  if (!parsed.success)
+    return {
+      supply: null,
+      note: `Could not use your supply: ${parsed.error.issues.map((i) => i.message).join("; ")}.`,
+    };
   return { supply: parsed.data, note: null };
 }

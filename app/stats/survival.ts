@@ -47,9 +47,10 @@ export function kaplanMeier(times: readonly number[], events: readonly boolean[]
   let atRisk = times.length;
   let survival = 1;
   let greenwood = 0; // Σ d/(n(n−d))
-  for (let i = 0; i < order.length; ) {
+  for (let i = 0; i < order.length;) {
     const t = times[order[i]!]!;
-    let d = 0, c = 0;
+    let d = 0,
+      c = 0;
     for (; i < order.length && times[order[i]!] === t; i++) {
       if (events[order[i]!]) d++;
       else c++;
@@ -72,7 +73,10 @@ export function kaplanMeier(times: readonly number[], events: readonly boolean[]
   const stepTimes = steps.map((s) => s.time);
   return {
     steps,
-    median: crossing(stepTimes, steps.map((s) => s.survival)),
+    median: crossing(
+      stepTimes,
+      steps.map((s) => s.survival),
+    ),
     lower: crossing(stepTimes, lowerBand),
     upper: crossing(stepTimes, upperBand),
   };

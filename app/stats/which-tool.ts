@@ -27,9 +27,12 @@ export function atSupply(tool: ToolAtSupply, supply: Supply) {
   const point = operatingPoint(supply.regulatorKpa, shopLineSegments(supply.regulatorKpa, supply.line), tool);
   const needs: string[] = [];
   if (supply.bits && tool.fitting.startsWith("shank-") && tool.fitting !== supply.bits) {
-    needs.push(`${tool.fitting === "shank-0.498" ? "0.498" : "0.401"} in shank bits (yours will not fit; never use a shank adapter)`);
+    needs.push(
+      `${tool.fitting === "shank-0.498" ? "0.498" : "0.401"} in shank bits (yours will not fit; never use a shank adapter)`,
+    );
   }
-  if (point.inletKpa < RATED_INLET_KPA - 1) needs.push("a bigger air supply or hose: it would run below its 90 psi rating");
+  if (point.inletKpa < RATED_INLET_KPA - 1)
+    needs.push("a bigger air supply or hose: it would run below its 90 psi rating");
   return {
     inletKpa: point.inletKpa,
     demandLps: point.demandLps,
@@ -60,18 +63,36 @@ export interface RankableCell {
  * last, each saying why).
  */
 export function rankAtSupply(cells: readonly RankableCell[], supply: Supply) {
-  return cells.map((m) => {
-    const r = atSupply({
-      slug: m.model_slug, fitting: m.fitting, ratedLps: m.rated_air_lps, runningLps: m.running_air_lps,
-      runningSource: runningSourceOf(m.running_air_source), runningFactor: m.running_air_factor, fit: m.fit,
-    }, supply);
-    return {
-      slug: m.model_slug, label: toolName(m.maker_name, m.model_code), price: m.street_price_cents, weightKg: m.weight_kg,
-      inletKpa: r.inletKpa, running: r.running, predicted: r.predicted, reason: m.adj_reason, needs: r.needs,
-    };
-  }).sort((a, b) => (b.predicted?.lower ?? -1) - (a.predicted?.lower ?? -1) || a.slug.localeCompare(b.slug));
+  return cells
+    .map((m) => {
+      const r = atSupply(
+        {
+          slug: m.model_slug,
+          fitting: m.fitting,
+          ratedLps: m.rated_air_lps,
+          runningLps: m.running_air_lps,
+          runningSource: runningSourceOf(m.running_air_source),
+          runningFactor: m.running_air_factor,
+          fit: m.fit,
+        },
+        supply,
+      );
+      return {
+        slug: m.model_slug,
+        label: toolName(m.maker_name, m.model_code),
+        price: m.street_price_cents,
+        weightKg: m.weight_kg,
+        inletKpa: r.inletKpa,
+        running: r.running,
+        predicted: r.predicted,
+        reason: m.adj_reason,
+        needs: r.needs,
+      };
+    })
+    .sort((a, b) => (b.predicted?.lower ?? -1) - (a.predicted?.lower ?? -1) || a.slug.localeCompare(b.slug));
 }
 const RUNNING_SOURCES: readonly string[] = ["maker_sheet", "measured", "estimated"] satisfies RunningAirSource[];
-const runningSourceOf = (s: string | null) => (s != null && RUNNING_SOURCES.includes(s) ? (s as RunningAirSource) : null);
+const runningSourceOf = (s: string | null) =>
+  s != null && RUNNING_SOURCES.includes(s) ? (s as RunningAirSource) : null;
 
 export type SupplyRow = ReturnType<typeof rankAtSupply>[number];

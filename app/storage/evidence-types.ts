@@ -11,6 +11,9 @@ export const EVIDENCE_TYPES = {
 } as const satisfies Record<string, { kind: EvidenceKind; ext: readonly string[] }>;
 
 export type EvidenceType = keyof typeof EVIDENCE_TYPES;
-export const MAX_BYTES = { video: 500 * 1024 * 1024, photo: 25 * 1024 * 1024 } as const satisfies Record<EvidenceKind, number>;
+export const MAX_BYTES = { video: 500 * 1024 * 1024, photo: 25 * 1024 * 1024 } as const satisfies Record<
+  EvidenceKind,
+  number
+>;
 
 export const isEvidenceType = (t: string): t is EvidenceType => Object.hasOwn(EVIDENCE_TYPES, t);

@@ -3,21 +3,29 @@
 // gets short-lived presigned URLs.
 import { createHash } from "node:crypto";
 import type { Readable } from "node:stream";
-import { CopyObjectCommand, DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import {
+  CopyObjectCommand,
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadObjectCommand,
+  PutObjectCommand,
+  S3Client,
+} from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { config } from "~/config.server";
 
 export const storageConfig = config.storage;
 
-const clientFor = (endpoint: string) => new S3Client({
-  endpoint,
-  region: storageConfig.region,
-  forcePathStyle: storageConfig.forcePathStyle,
-  credentials: { accessKeyId: storageConfig.accessKeyId, secretAccessKey: storageConfig.secretAccessKey },
-  // Presigned browser PUTs cannot add the SDK's default checksum headers.
-  requestChecksumCalculation: "WHEN_REQUIRED",
-  responseChecksumValidation: "WHEN_REQUIRED",
-});
+const clientFor = (endpoint: string) =>
+  new S3Client({
+    endpoint,
+    region: storageConfig.region,
+    forcePathStyle: storageConfig.forcePathStyle,
+    credentials: { accessKeyId: storageConfig.accessKeyId, secretAccessKey: storageConfig.secretAccessKey },
+    // Presigned browser PUTs cannot add the SDK's default checksum headers.
+    requestChecksumCalculation: "WHEN_REQUIRED",
+    responseChecksumValidation: "WHEN_REQUIRED",
+  });
 
 export const s3 = clientFor(storageConfig.endpoint);
 
@@ -40,11 +48,25 @@ export const UPLOAD_URL_SECONDS = 600;
  * Content-Type or Content-Length (both are signed; the S3 presigner leaves Content-Type unsigned
  * unless asked).
  */
-export async function presignPut(key: string, contentType: string, contentLength: number, expiresIn = UPLOAD_URL_SECONDS) {
-  return getSignedUrl(s3, new PutObjectCommand({ Bucket: storageConfig.bucket, Key: key, ContentType: contentType, ContentLength: contentLength }), {
-    expiresIn,
-    signableHeaders: new Set(["content-type", "content-length"]),
-  });
+export async function presignPut(
+  key: string,
+  contentType: string,
+  contentLength: number,
+  expiresIn = UPLOAD_URL_SECONDS,
+) {
+  return getSignedUrl(
+    s3,
+    new PutObjectCommand({
+      Bucket: storageConfig.bucket,
+      Key: key,
+      ContentType: contentType,
+      ContentLength: contentLength,
+    }),
+    {
+      expiresIn,
+      signableHeaders: new Set(["content-type", "content-length"]),
+    },
+  );
 }
 
 export async function presignGet(key: string, expiresIn = 300) {
@@ -63,7 +85,9 @@ export async function objectSize(key: string): Promise<number | null> {
 }
 
 export async function readHead(key: string, bytes = 4100): Promise<Uint8Array> {
-  const res = await s3.send(new GetObjectCommand({ Bucket: storageConfig.bucket, Key: key, Range: `bytes=0-${bytes - 1}` }));
+  const res = await s3.send(
+    new GetObjectCommand({ Bucket: storageConfig.bucket, Key: key, Range: `bytes=0-${bytes - 1}` }),
+  );
   return res.Body!.transformToByteArray();
 }
 

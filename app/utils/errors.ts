@@ -13,8 +13,16 @@ export interface FailureDetails {
 }
 
 const CODES: Record<number, string> = {
-  400: "bad_request", 401: "unauthorized", 403: "forbidden", 404: "not_found", 405: "method_not_allowed",
-  409: "conflict", 413: "too_large", 415: "unsupported_media_type", 422: "unprocessable", 429: "rate_limited",
+  400: "bad_request",
+  401: "unauthorized",
+  403: "forbidden",
+  404: "not_found",
+  405: "method_not_allowed",
+  409: "conflict",
+  413: "too_large",
+  415: "unsupported_media_type",
+  422: "unprocessable",
+  429: "rate_limited",
   503: "unavailable",
 };
 
@@ -22,7 +30,11 @@ export class AppError extends Error {
   readonly code: string;
   readonly field?: string;
   readonly headers: Record<string, string>;
-  constructor(message: string, readonly status = 400, details: FailureDetails = {}) {
+  constructor(
+    message: string,
+    readonly status = 400,
+    details: FailureDetails = {},
+  ) {
     super(message);
     this.code = details.code ?? CODES[status] ?? "error";
     this.field = details.field;
@@ -43,7 +55,11 @@ type Shape = "page" | "form" | "api" | "feed";
 export function failureAnswer(error: unknown, shape: "api" | "feed"): Response;
 export function failureAnswer(error: unknown, shape: "page"): ReturnType<typeof data<string>>;
 /** `extra` goes beside the message (what the user typed, say), so nothing typed is lost. */
-export function failureAnswer<X extends object = object>(error: unknown, shape: "form", extra?: X): ReturnType<typeof data<FormFailure & X>>;
+export function failureAnswer<X extends object = object>(
+  error: unknown,
+  shape: "form",
+  extra?: X,
+): ReturnType<typeof data<FormFailure & X>>;
 export function failureAnswer(error: unknown, shape: Shape, extra: object = {}) {
   if (!(error instanceof AppError)) throw error;
   const { status, message, headers } = error;
@@ -51,7 +67,10 @@ export function failureAnswer(error: unknown, shape: Shape, extra: object = {}) 
     case "page":
       return data(message, { status, headers });
     case "form":
-      return data({ ok: false as const, message, ...(error.field ? { field: error.field } : {}), ...extra }, { status, headers });
+      return data(
+        { ok: false as const, message, ...(error.field ? { field: error.field } : {}), ...extra },
+        { status, headers },
+      );
     case "api":
       return Response.json({ error: message }, { status, headers });
     case "feed":

@@ -36,7 +36,10 @@ export async function readForm(request: Request): Promise<FormData> {
 
 /** A JSON error of the app's own API (`/api/*`): `{ error: { code, message } }`. */
 export function apiError(status: number, code: string, message: string, headers?: HeadersInit) {
-  return Response.json({ error: { code, message } }, { status, headers: { "Cache-Control": "no-store", ...Object.fromEntries(new Headers(headers)) } });
+  return Response.json(
+    { error: { code, message } },
+    { status, headers: { "Cache-Control": "no-store", ...Object.fromEntries(new Headers(headers)) } },
+  );
 }
 
 /** The JSON body of an API action: another content type is a 415, unreadable JSON a 400. */
@@ -64,10 +67,12 @@ export function parseForm<S extends z.ZodType>(schema: S, formData: FormData) {
 
 /** A form's text values by name: a repeated name gives an array (which a string field refuses). */
 export function formValues(formData: FormData): Record<string, string | string[]> {
-  return Object.fromEntries([...new Set(formData.keys())].map((k) => {
-    const all = formData.getAll(k).filter((v): v is string => typeof v === "string");
-    return [k, all.length > 1 ? all : all[0] ?? ""];
-  }));
+  return Object.fromEntries(
+    [...new Set(formData.keys())].map((k) => {
+      const all = formData.getAll(k).filter((v): v is string => typeof v === "string");
+      return [k, all.length > 1 ? all : (all[0] ?? "")];
+    }),
+  );
 }
 
 export function invalid(errors: FieldErrors, values: Record<string, unknown>, formError?: string) {

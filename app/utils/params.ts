@@ -24,7 +24,11 @@ const ID_PATTERN = /^[1-9][0-9]{0,9}$/;
 
 /** A row id as typed in a URL or a form: decimal digits only (no sign, no 0x, no exponent), 1 to MAX_ID. */
 export const idField = (message = "Give a number from 1 to 2,147,483,647") =>
-  z.string({ error: message }).regex(ID_PATTERN, message).transform(Number).refine((n) => n <= MAX_ID, message);
+  z
+    .string({ error: message })
+    .regex(ID_PATTERN, message)
+    .transform(Number)
+    .refine((n) => n <= MAX_ID, message);
 
 const idSchema = idField();
 

@@ -10,7 +10,10 @@ const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 const refusal = (api: boolean, status: number, code: string, message: string) =>
   api
     ? Response.json({ error: { code, message } }, { status, headers: { "Cache-Control": "no-store" } })
-    : new Response(message, { status, headers: { "Content-Type": "text/plain; charset=utf-8", "Cache-Control": "no-store" } });
+    : new Response(message, {
+        status,
+        headers: { "Content-Type": "text/plain; charset=utf-8", "Cache-Control": "no-store" },
+      });
 
 export function refuseUnreadableRequest(request: Request): Response | null {
   const url = new URL(request.url);
@@ -18,7 +21,12 @@ export function refuseUnreadableRequest(request: Request): Response | null {
   if (!url.pathname.startsWith("/api/v1/") && url.pathname !== "/api/v1") {
     for (const [name, value] of url.searchParams) {
       if (hasControlCharacters(name) || hasControlCharacters(value)) {
-        return refusal(api, 400, "invalid_parameter", `The address's "${name.replace(/[^\w-]/g, "?").slice(0, 40)}" holds control characters (such as NUL): type plain text.`);
+        return refusal(
+          api,
+          400,
+          "invalid_parameter",
+          `The address's "${name.replace(/[^\w-]/g, "?").slice(0, 40)}" holds control characters (such as NUL): type plain text.`,
+        );
       }
     }
   }

@@ -13,4 +13,6 @@ export function hasControlCharacters(text: string): boolean {
 
 /** A text field of any form: refuses control characters with a field message. */
 export const plainText = (error?: string) =>
-  z.string(error === undefined ? undefined : { error }).refine((s) => !hasControlCharacters(s), CONTROL_CHARACTER_MESSAGE);
+  z
+    .string(error === undefined ? undefined : { error })
+    .refine((s) => !hasControlCharacters(s), CONTROL_CHARACTER_MESSAGE);

@@ -10,7 +10,9 @@ describe("comparing tools", () => {
   it("chooses a job and two tools, then moves the pressure without asking the server", async () => {
     const { page, assertClean, close } = await newCheckedPage(browser(), { width: 390, height: 844 });
     const asked: string[] = [];
-    page.on("request", (r) => { if (r.url().includes("/api/stats/cell")) asked.push(r.url()); });
+    page.on("request", (r) => {
+      if (r.url().includes("/api/stats/cell")) asked.push(r.url());
+    });
     await page.goto(`${baseUrl}/compare`);
     await page.getByText("Pick the job first").waitFor();
     await page.getByRole("link", { name: "Ball joint separation" }).click();
@@ -25,7 +27,10 @@ describe("comparing tools", () => {
     const rows = page.locator("[data-testid^=at-]");
     await expect(rows.first().textContent()).resolves.toMatch(/at 90 psi/);
     await page.locator("select[name=psi]").selectOption("110");
-    await rows.first().getByText(/at 110 psi/).waitFor();
+    await rows
+      .first()
+      .getByText(/at 110 psi/)
+      .waitFor();
     expect(asked).toEqual([]);
     await page.getByText("How this is worked out").first().click();
     await page.getByText(/Newcombe's hybrid score method/).waitFor();
@@ -40,7 +45,10 @@ describe("comparing tools", () => {
     await page.goto(`${baseUrl}/jobs/tie-rod-end-release`);
     await page.getByTestId("order-basis").waitFor();
     await page.getByText("How this is worked out").first().click();
-    await page.getByText(/Wilson score interval at the effective sample size/).first().waitFor();
+    await page
+      .getByText(/Wilson score interval at the effective sample size/)
+      .first()
+      .waitFor();
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     if (process.env.STATS_SCREENSHOT) await page.screenshot({ path: process.env.STATS_SCREENSHOT, fullPage: false });

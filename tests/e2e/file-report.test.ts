@@ -43,12 +43,19 @@ describe("filing a report from the bay", () => {
     await page.getByLabel("Attempts").fill("2");
 
     await page.getByLabel("Choose a file").setInputFiles(video);
-    await page.getByRole("list", { name: "Attached evidence" }).getByText(/Video · MP4 .*received/).waitFor({ timeout: 90_000 });
+    await page
+      .getByRole("list", { name: "Attached evidence" })
+      .getByText(/Video · MP4 .*received/)
+      .waitFor({ timeout: 90_000 });
     // Published with the open data only when the reporter says so.
     const publish = page.getByRole("checkbox", { name: "Publish with the open data" });
     expect(await publish.isChecked()).toBe(false);
     await publish.check();
-    await page.waitForFunction(() => document.querySelector<HTMLInputElement>("[aria-label='Attached evidence'] input[type=checkbox]")?.disabled === false);
+    await page.waitForFunction(
+      () =>
+        document.querySelector<HTMLInputElement>("[aria-label='Attached evidence'] input[type=checkbox]")?.disabled ===
+        false,
+    );
     expect(await publish.isChecked()).toBe(true);
 
     await page.getByRole("button", { name: "Submit report" }).click();
@@ -63,7 +70,12 @@ describe("filing a report from the bay", () => {
     expect(text).toMatch(/first report/);
     expect(text).not.toMatch(/no evidence/);
     const db = testDb();
-    const files = await db.selectFrom("evidence").select("is_public").where("report_id", "=", Number(id)).execute().finally(() => db.destroy());
+    const files = await db
+      .selectFrom("evidence")
+      .select("is_public")
+      .where("report_id", "=", Number(id))
+      .execute()
+      .finally(() => db.destroy());
     expect(files).toEqual([{ is_public: true }]);
     await assertClean();
     await close();

@@ -25,21 +25,35 @@ beforeAll(async () => {
   // A new reporter files a report with a real video; it is made the oldest in the queue.
   const stamp = String(Date.now());
   reporterEmail = `e2e-mod-${stamp}@demo.bayproof.test`;
-  await db.insertInto("users").values({ email: reporterEmail, handle: `e2e-${stamp.slice(-8)}` }).execute();
+  await db
+    .insertInto("users")
+    .values({ email: reporterEmail, handle: `e2e-${stamp.slice(-8)}` })
+    .execute();
   const reporter = await signedInAs(db, reporterEmail);
   reportId = await newDraft(reporter);
   const { check } = await upload(reporter, reportId, clip, "video/webm");
   expect(check.status).toBe(200);
   const res = await reporter.post(`/reports/${reportId}/edit`, { ...validReport(), reportId: String(reportId) });
   expect(res.status).toBe(302);
-  await db.updateTable("reports").set({ submitted_at: new Date("2024-06-01T08:00:00Z") }).where("id", "=", reportId).execute();
+  await db
+    .updateTable("reports")
+    .set({ submitted_at: new Date("2024-06-01T08:00:00Z") })
+    .where("id", "=", reportId)
+    .execute();
 
   // Another new reporter's first report, a second after it: next in the same flagged queue.
   const nextEmail = `e2e-next-${stamp}@demo.bayproof.test`;
-  await db.insertInto("users").values({ email: nextEmail, handle: `e2n-${stamp.slice(-8)}` }).execute();
+  await db
+    .insertInto("users")
+    .values({ email: nextEmail, handle: `e2n-${stamp.slice(-8)}` })
+    .execute();
   const next = await (await signedInAs(db, nextEmail)).post("/reports/new", validReport());
   nextId = Number(next.headers.get("location")!.match(/submitted=(\d+)/)![1]);
-  await db.updateTable("reports").set({ submitted_at: new Date("2024-06-01T08:00:01Z") }).where("id", "=", nextId).execute();
+  await db
+    .updateTable("reports")
+    .set({ submitted_at: new Date("2024-06-01T08:00:01Z") })
+    .where("id", "=", nextId)
+    .execute();
 });
 afterAll(() => db.destroy());
 

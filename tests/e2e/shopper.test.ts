@@ -27,8 +27,16 @@ describe("shopping by job", () => {
     await page.waitForURL(/maxPrice=300/);
     await page.getByText(/^\d+ tools$/).waitFor();
 
-    await page.getByRole("searchbox", { name: "Search tools and reports" }).or(page.getByLabel("Search tools and reports").first()).first().fill("tesaly t-750");
-    await page.getByTestId("suggestions").getByRole("link", { name: /Tessaly Tool Works T-750/ }).first().click();
+    await page
+      .getByRole("searchbox", { name: "Search tools and reports" })
+      .or(page.getByLabel("Search tools and reports").first())
+      .first()
+      .fill("tesaly t-750");
+    await page
+      .getByTestId("suggestions")
+      .getByRole("link", { name: /Tessaly Tool Works T-750/ })
+      .first()
+      .click();
     await page.getByRole("heading", { level: 1, name: "Tessaly Tool Works T-750" }).waitFor();
     await assertClean();
     await close();

@@ -30,7 +30,10 @@ describe("signing in", () => {
     await page.getByRole("heading", { name: "Check your mail" }).waitFor();
 
     await page.goto(`${baseUrl}/dev/mail`);
-    await page.getByRole("link", { name: /Your Bayproof sign-in link.*admin@demo\.bayproof\.test/ }).first().click();
+    await page
+      .getByRole("link", { name: /Your Bayproof sign-in link.*admin@demo\.bayproof\.test/ })
+      .first()
+      .click();
     await page.getByRole("link", { name: /\/sign-in\/link\?token=/ }).click();
     await page.getByRole("button", { name: "Sign in" }).click();
     // Issue 18: with no page asked for, a moderator lands on the review queue.

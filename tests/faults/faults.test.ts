@@ -18,9 +18,15 @@ afterAll(() => stack?.stop());
 async function signIn(email: string) {
   const user = await stack.db.selectFrom("users").select("id").where("email", "=", email).executeTakeFirstOrThrow();
   const token = randomToken();
-  await stack.db.insertInto("sessions").values({
-    id_hash: sha256Hex(token), user_id: user.id, expires_at: new Date(Date.now() + 3600_000), sign_in_method: "email_link",
-  }).execute();
+  await stack.db
+    .insertInto("sessions")
+    .values({
+      id_hash: sha256Hex(token),
+      user_id: user.id,
+      expires_at: new Date(Date.now() + 3600_000),
+      sign_in_method: "email_link",
+    })
+    .execute();
   const client = new Browserish(stack.baseUrl);
   client.cookies.set("bayproof_session", cookieValue(token));
   return { client, userId: user.id };
@@ -34,15 +40,24 @@ describe("the app server killed in the middle of submissions", () => {
       client.post("/reports/new", { ...validReport(), notes: `${tag}-${i}` }).then(
         (r) => ({ status: r.status, location: r.headers.get("location") ?? "" }),
         (e: Error) => ({ status: 0, location: "", error: e.message }),
-      ));
+      ),
+    );
     // Once the first answer is in, the others are in flight: kill -9 the server then.
     await Promise.race(posts);
     await stack.killServer();
     const results = await Promise.all(posts);
     await stack.startServer();
 
-    const rows = await stack.db.selectFrom("reports").select(["id", "status", "reporter_id"]).where("notes", "like", `${tag}-%`).execute();
-    const versions = await stack.db.selectFrom("report_versions").select("report_id").where("report_id", "in", rows.length ? rows.map((r) => r.id) : [0]).execute();
+    const rows = await stack.db
+      .selectFrom("reports")
+      .select(["id", "status", "reporter_id"])
+      .where("notes", "like", `${tag}-%`)
+      .execute();
+    const versions = await stack.db
+      .selectFrom("report_versions")
+      .select("report_id")
+      .where("report_id", "in", rows.length ? rows.map((r) => r.id) : [0])
+      .execute();
     // Whole: submitted, by this reporter, with its version snapshot (written in the same transaction).
     for (const row of rows) {
       expect(row.status).toBe("submitted");
@@ -50,10 +65,14 @@ describe("the app server killed in the middle of submissions", () => {
       expect(versions.some((v) => v.report_id === row.id)).toBe(true);
     }
     // Every submission the server answered as done is there.
-    const answered = results.filter((r) => r.status === 302).map((r) => Number(new URL(r.location, stack.baseUrl).searchParams.get("submitted")));
+    const answered = results
+      .filter((r) => r.status === 302)
+      .map((r) => Number(new URL(r.location, stack.baseUrl).searchParams.get("submitted")));
     for (const id of answered) expect(rows.map((r) => r.id)).toContain(id);
     expect(results.every((r) => r.status === 0 || r.status === 302)).toBe(true);
-    console.log(`kill -9 during 40 submissions: ${answered.length} answered, ${results.filter((r) => r.status === 0).length} cut off, ${rows.length} stored`);
+    console.log(
+      `kill -9 during 40 submissions: ${answered.length} answered, ${results.filter((r) => r.status === 0).length} cut off, ${rows.length} stored`,
+    );
 
     // The restarted server answers as before.
     expect((await client.get("/me/reports")).status).toBe(200);
@@ -93,7 +112,9 @@ describe("PostgreSQL restarted under steady load", () => {
     await Promise.all(load);
     expect(statuses.filter((s) => s >= 500 && s !== 503)).toEqual([]);
     expect(statuses.filter((s) => s === 0)).toEqual([]);
-    console.log(`PostgreSQL restart under load: ${statuses.length} requests, ${duringRestart} of them while it restarted, ${statuses.filter((s) => s === 200).length} answered 200, ${statuses.filter((s) => s === 503).length} answered 503`);
+    console.log(
+      `PostgreSQL restart under load: ${statuses.length} requests, ${duringRestart} of them while it restarted, ${statuses.filter((s) => s === 200).length} answered 200, ${statuses.filter((s) => s === 503).length} answered 503`,
+    );
   });
 });
 

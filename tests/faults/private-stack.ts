@@ -30,8 +30,15 @@ export async function startPrivateStack() {
     server = spawn(process.execPath, ["server.js"], {
       cwd: root,
       env: {
-        ...process.env, ...fakes.env, DATABASE_URL: database.url, HOST: "127.0.0.1", PORT: String(port),
-        APP_ORIGIN: baseUrl, NODE_ENV: "production", AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true", BAYPROOF_TRUST_PROXY: "1",
+        ...process.env,
+        ...fakes.env,
+        DATABASE_URL: database.url,
+        HOST: "127.0.0.1",
+        PORT: String(port),
+        APP_ORIGIN: baseUrl,
+        NODE_ENV: "production",
+        AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
+        BAYPROOF_TRUST_PROXY: "1",
       },
       stdio: ["ignore", "ignore", serverLog],
     });

@@ -14,13 +14,18 @@ afterAll(() => db.destroy());
 
 beforeAll(async () => {
   const email = `restart-${process.pid}-${Date.now()}@demo.bayproof.test`;
-  await db.insertInto("users").values({ email, handle: `restart-${Date.now() % 1e8}` }).execute();
+  await db
+    .insertInto("users")
+    .values({ email, handle: `restart-${Date.now() % 1e8}` })
+    .execute();
   reporter = await signedInAs(db, email);
 });
 
 const cutAppConnections = async () =>
-  (await sql<{ cut: number }>`select count(pg_terminate_backend(pid))::int as cut from pg_stat_activity
-    where application_name = 'bayproof-web'`.execute(db)).rows[0]!.cut;
+  (
+    await sql<{ cut: number }>`select count(pg_terminate_backend(pid))::int as cut from pg_stat_activity
+    where application_name = 'bayproof-web'`.execute(db)
+  ).rows[0]!.cut;
 
 describe("a database restart under the web server", () => {
   it("answers reads after every connection was cut", async () => {

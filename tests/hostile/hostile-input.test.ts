@@ -12,7 +12,16 @@ import { testDb } from "../support/db";
 import { baseUrl, cookieValue } from "../support/http";
 import { validReport } from "../support/reports";
 import {
-  damage, FORM_TARGETS, hostileJson, hostileText, JSON_TARGETS, type Own, PATH_ID_TARGETS, QUERY_TARGETS, type Transport, type Who,
+  damage,
+  FORM_TARGETS,
+  hostileJson,
+  hostileText,
+  JSON_TARGETS,
+  type Own,
+  PATH_ID_TARGETS,
+  QUERY_TARGETS,
+  type Transport,
+  type Who,
 } from "./targets";
 
 const SEED = 20_261_202;
@@ -27,11 +36,29 @@ afterAll(() => db.destroy());
 
 const cookies = {} as Record<Who, string>;
 let own: Own;
-const tally = { requests: 0, serverErrors: 0, refusedWrites: 0, rowsChangedByRefusedWrites: 0, byStatus: {} as Record<number, number> };
+const tally = {
+  requests: 0,
+  serverErrors: 0,
+  refusedWrites: 0,
+  rowsChangedByRefusedWrites: 0,
+  byStatus: {} as Record<number, number>,
+};
 const problems: string[] = [];
 
-const MAIN_TABLES = ["users", "user_roles", "role_changes", "sessions", "sign_in_links", "api_keys", "reports", "report_versions",
-  "evidence", "decisions", "report_claims", "notices"] as const;
+const MAIN_TABLES = [
+  "users",
+  "user_roles",
+  "role_changes",
+  "sessions",
+  "sign_in_links",
+  "api_keys",
+  "reports",
+  "report_versions",
+  "evidence",
+  "decisions",
+  "report_claims",
+  "notices",
+] as const;
 
 async function rowCounts(): Promise<Record<string, number>> {
   const { rows } = await sql<Record<string, number>>`select ${sql.join(
@@ -42,13 +69,23 @@ async function rowCounts(): Promise<Record<string, number>> {
 
 async function newUser(label: string, roles: ("moderator" | "admin")[]) {
   const tag = `${label}-${process.pid}-${Date.now() % 1e7}`;
-  const user = await db.insertInto("users").values({ email: `hostile-${tag}@demo.bayproof.test`, handle: `h-${tag}`.slice(0, 30) })
-    .returning("id").executeTakeFirstOrThrow();
-  for (const role of roles) await db.insertInto("user_roles").values({ user_id: user.id, role, granted_by: null }).execute();
+  const user = await db
+    .insertInto("users")
+    .values({ email: `hostile-${tag}@demo.bayproof.test`, handle: `h-${tag}`.slice(0, 30) })
+    .returning("id")
+    .executeTakeFirstOrThrow();
+  for (const role of roles)
+    await db.insertInto("user_roles").values({ user_id: user.id, role, granted_by: null }).execute();
   const token = randomToken();
-  await db.insertInto("sessions").values({
-    id_hash: sha256Hex(token), user_id: user.id, expires_at: new Date(Date.now() + 3600_000), sign_in_method: "email_link",
-  }).execute();
+  await db
+    .insertInto("sessions")
+    .values({
+      id_hash: sha256Hex(token),
+      user_id: user.id,
+      expires_at: new Date(Date.now() + 3600_000),
+      sign_in_method: "email_link",
+    })
+    .execute();
   return { id: user.id, cookie: `bayproof_session=${cookieValue(token)}` };
 }
 
@@ -56,7 +93,10 @@ let clientNumber = 0;
 /** A fresh client address each request (TEST-NET-2), so per-client rate limits rarely decide the answer. */
 const clientAddress = () => `198.51.100.${(clientNumber++ % 250) + 1}`;
 
-function encodeBody(entries: [string, string][], how: Transport): { body?: BodyInit; type?: string; chunked?: boolean } {
+function encodeBody(
+  entries: [string, string][],
+  how: Transport,
+): { body?: BodyInit; type?: string; chunked?: boolean } {
   switch (how) {
     case "urlencoded":
       return { body: new URLSearchParams(entries).toString(), type: "application/x-www-form-urlencoded" };
@@ -70,11 +110,17 @@ function encodeBody(entries: [string, string][], how: Transport): { body?: BodyI
     case "text":
       return { body: entries.map(([k, v]) => `${k}=${v}`).join("\n"), type: "text/plain" };
     case "broken-multipart":
-      return { body: `--cut\r\nContent-Disposition: form-data; name="${entries[0]?.[0] ?? "a"}"\r\n\r\nno end`, type: "multipart/form-data; boundary=cut" };
+      return {
+        body: `--cut\r\nContent-Disposition: form-data; name="${entries[0]?.[0] ?? "a"}"\r\n\r\nno end`,
+        type: "multipart/form-data; boundary=cut",
+      };
     case "none":
       return {};
     case "oversize":
-      return { body: new URLSearchParams([...entries, ["padding", "x".repeat(200 * KIB)]]).toString(), type: "application/x-www-form-urlencoded" };
+      return {
+        body: new URLSearchParams([...entries, ["padding", "x".repeat(200 * KIB)]]).toString(),
+        type: "application/x-www-form-urlencoded",
+      };
     case "oversize-chunked":
       return { body: "", type: "application/x-www-form-urlencoded", chunked: true };
   }
@@ -92,7 +138,12 @@ const endlessBody = () => {
   });
 };
 
-async function send(who: Who, method: string, path: string, body?: { body?: BodyInit; type?: string; chunked?: boolean }) {
+async function send(
+  who: Who,
+  method: string,
+  path: string,
+  body?: { body?: BodyInit; type?: string; chunked?: boolean },
+) {
   const headers: Record<string, string> = { origin: baseUrl(), "x-forwarded-for": clientAddress() };
   if (cookies[who]) headers.cookie = cookies[who];
   if (body?.type) headers["content-type"] = body.type;
@@ -127,14 +178,18 @@ async function send(who: Who, method: string, path: string, body?: { body?: Body
 async function write(who: Who, path: string, body: ReturnType<typeof encodeBody>) {
   const before = await rowCounts();
   const res = await send(who, "POST", path, body);
-  const accepted = (res.status >= 200 && res.status < 300) || (res.status >= 300 && res.status < 400 && !res.location?.startsWith("/sign-in"));
+  const accepted =
+    (res.status >= 200 && res.status < 300) ||
+    (res.status >= 300 && res.status < 400 && !res.location?.startsWith("/sign-in"));
   if (!accepted) {
     tally.refusedWrites++;
     const after = await rowCounts();
     const moved = MAIN_TABLES.filter((t) => after[t] !== before[t]);
     if (moved.length) {
       tally.rowsChangedByRefusedWrites += moved.reduce((n, t) => n + Math.abs(after[t]! - before[t]!), 0);
-      problems.push(`${who} POST ${path} → ${res.status} changed ${moved.map((t) => `${t} ${before[t]}→${after[t]}`).join(", ")}`);
+      problems.push(
+        `${who} POST ${path} → ${res.status} changed ${moved.map((t) => `${t} ${before[t]}→${after[t]}`).join(", ")}`,
+      );
     }
   }
   return res;
@@ -148,15 +203,28 @@ function ownOnly(field: string, value: string): string {
 
 beforeAll(async () => {
   const [reporter, moderator, admin, target] = await Promise.all([
-    newUser("rep", []), newUser("mod", ["moderator"]), newUser("adm", ["admin"]), newUser("tgt", []),
+    newUser("rep", []),
+    newUser("mod", ["moderator"]),
+    newUser("adm", ["admin"]),
+    newUser("tgt", []),
   ]);
   cookies.anonymous = "";
   cookies.reporter = reporter.cookie;
   cookies.moderator = moderator.cookie;
   cookies.admin = admin.cookie;
   // The reporter's own draft and submitted report, filed through the app.
-  const draft = await send("reporter", "POST", "/reports/new", encodeBody(Object.entries({ ...validReport(), intent: "save-draft" }), "urlencoded"));
-  const submitted = await send("reporter", "POST", "/reports/new", encodeBody(Object.entries(validReport()), "urlencoded"));
+  const draft = await send(
+    "reporter",
+    "POST",
+    "/reports/new",
+    encodeBody(Object.entries({ ...validReport(), intent: "save-draft" }), "urlencoded"),
+  );
+  const submitted = await send(
+    "reporter",
+    "POST",
+    "/reports/new",
+    encodeBody(Object.entries(validReport()), "urlencoded"),
+  );
   own = {
     reporterDraft: Number(draft.location!.match(/\/reports\/(\d+)\/edit/)![1]),
     submittedReport: Number(new URL(submitted.location!, baseUrl()).searchParams.get("submitted")),
@@ -164,15 +232,18 @@ beforeAll(async () => {
   };
   // Starting the review claims the report for the moderator (the admin's start finds it held):
   // done here, so the decisions that follow meet a claim already taken.
-  for (const who of ["moderator", "admin"] as const) await send(who, "POST", `/review/${own.submittedReport}`, encodeBody([["intent", "claim"]], "urlencoded"));
+  for (const who of ["moderator", "admin"] as const)
+    await send(who, "POST", `/review/${own.submittedReport}`, encodeBody([["intent", "claim"]], "urlencoded"));
 });
 
 afterAll(() => {
   const summary = { seed: SEED, ...tally, problems: problems.length };
   mkdirSync(".data", { recursive: true });
   writeFileSync(".data/hostile-report.json", JSON.stringify({ ...summary, problemList: problems }, null, 2));
-  console.log(`[hostile] ${tally.requests} requests, ${tally.serverErrors} answered 5xx, ${tally.refusedWrites} refused writes, ` +
-    `${tally.rowsChangedByRefusedWrites} rows changed by refused writes; statuses ${JSON.stringify(tally.byStatus)}`);
+  console.log(
+    `[hostile] ${tally.requests} requests, ${tally.serverErrors} answered 5xx, ${tally.refusedWrites} refused writes, ` +
+      `${tally.rowsChangedByRefusedWrites} rows changed by refused writes; statuses ${JSON.stringify(tally.byStatus)}`,
+  );
 });
 
 describe("hostile input", () => {
@@ -201,14 +272,18 @@ describe("hostile input", () => {
       for (const who of target.who) {
         const arb = fc.record({
           changes: fc.array(fc.tuple(fc.constantFrom(...target.fields, "extra"), hostileJson), { maxLength: 2 }),
-          raw: fc.option(fc.constantFrom("{", "[1,", "null", "\"text\"", "{\"public\": tru}"), { nil: undefined }),
+          raw: fc.option(fc.constantFrom("{", "[1,", "null", '"text"', '{"public": tru}'), { nil: undefined }),
           transport: fc.constantFrom<Transport>("json", "json", "json", "urlencoded", "text", "none", "oversize"),
         });
         for (const c of fc.sample(arb, { seed: SEED + 1000 + n++, numRuns: RUNS_PER_JSON })) {
           const body = { ...target.base(), ...Object.fromEntries(c.changes) };
-          const encoded = c.transport === "json"
-            ? { body: c.raw ?? JSON.stringify(body), type: "application/json" }
-            : encodeBody(Object.entries(body).map(([k, v]) => [k, String(v)]), c.transport);
+          const encoded =
+            c.transport === "json"
+              ? { body: c.raw ?? JSON.stringify(body), type: "application/json" }
+              : encodeBody(
+                  Object.entries(body).map(([k, v]) => [k, String(v)]),
+                  c.transport,
+                );
           await write(who, target.path(own), encoded);
         }
       }
@@ -220,13 +295,17 @@ describe("hostile input", () => {
     let n = 0;
     for (const target of QUERY_TARGETS) {
       for (const who of target.who) {
-        const arb = fc.array(fc.tuple(fc.constantFrom(...target.fields, "unknown"), hostileText), { minLength: 1, maxLength: 3 });
+        const arb = fc.array(fc.tuple(fc.constantFrom(...target.fields, "unknown"), hostileText), {
+          minLength: 1,
+          maxLength: 3,
+        });
         for (const params of fc.sample(arb, { seed: SEED + 2000 + n++, numRuns: RUNS_PER_QUERY })) {
           await send(who, "GET", `${target.path(own)}?${new URLSearchParams(params)}`);
         }
       }
     }
-    for (const path of PATH_ID_TARGETS(own)) for (const who of ["anonymous", "moderator"] as const) await send(who, "GET", path);
+    for (const path of PATH_ID_TARGETS(own))
+      for (const who of ["anonymous", "moderator"] as const) await send(who, "GET", path);
     expect(problems).toEqual([]);
   }, 300_000);
 
@@ -248,7 +327,10 @@ describe("hostile input", () => {
         let path = template;
         for (const name of inPath) path = path.replace(`{${name}}`, encodeURIComponent(c.path));
         const url = `${path.startsWith("/api/") ? "" : "/api/v1"}${path}${c.query.length ? `?${new URLSearchParams(c.query)}` : ""}`;
-        const res = c.method === "GET" || c.method === "HEAD" ? await send("anonymous", c.method, url) : await write("anonymous", url, encodeBody([["a", "b"]], "urlencoded"));
+        const res =
+          c.method === "GET" || c.method === "HEAD"
+            ? await send("anonymous", c.method, url)
+            : await write("anonymous", url, encodeBody([["a", "b"]], "urlencoded"));
         if (res.status >= 400 && c.method === "GET") expect.soft(res.type, url).toContain("application/json");
       }
     }

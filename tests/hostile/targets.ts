@@ -49,7 +49,8 @@ export type Target = FormTarget | JsonTarget | QueryTarget;
 
 /** The field names of a zod object, or of every branch of a discriminated union. */
 export function fieldsOf(schema: z.ZodType): string[] {
-  const def = (schema as unknown as { def: { type: string; shape?: Record<string, unknown>; options?: z.ZodType[] } }).def;
+  const def = (schema as unknown as { def: { type: string; shape?: Record<string, unknown>; options?: z.ZodType[] } })
+    .def;
   if (def.type === "object") return Object.keys(def.shape!);
   if (def.type === "union") return [...new Set(def.options!.flatMap(fieldsOf))];
   if (def.type === "pipe") return fieldsOf((def as unknown as { in: z.ZodType }).in);
@@ -60,91 +61,216 @@ const ALL: Who[] = WHO;
 const SIGNED_IN: Who[] = ["reporter", "moderator", "admin"];
 
 export const FORM_TARGETS: FormTarget[] = [
-  { kind: "form", path: () => "/sign-in", fields: fieldsOf(emailSchema), who: ["anonymous"],
-    base: (_, n) => ({ email: `hostile-${process.pid}-${n}@demo.bayproof.test`, redirectTo: "/" }) },
-  { kind: "form", path: () => "/sign-in/link", fields: ["token", "redirectTo"], who: ["anonymous"],
-    base: () => ({ token: "A".repeat(43), redirectTo: "/" }) },
+  {
+    kind: "form",
+    path: () => "/sign-in",
+    fields: fieldsOf(emailSchema),
+    who: ["anonymous"],
+    base: (_, n) => ({ email: `hostile-${process.pid}-${n}@demo.bayproof.test`, redirectTo: "/" }),
+  },
+  {
+    kind: "form",
+    path: () => "/sign-in/link",
+    fields: ["token", "redirectTo"],
+    who: ["anonymous"],
+    base: () => ({ token: "A".repeat(43), redirectTo: "/" }),
+  },
   { kind: "form", path: () => "/sign-out", fields: [], who: ["anonymous"], base: () => ({}) },
-  ...(["profile", "create-key", "revoke-key", "end-session", "end-other-sessions"] as const).map((intent): FormTarget => ({
-    kind: "form", path: () => "/account", fields: fieldsOf(accountSchema), who: ALL,
-    base: (_, n) => ({
-      intent,
-      ...(intent === "profile" ? { handle: `hostile-${process.pid % 1e5}-${n}`, units: "us" } : {}),
-      ...(intent === "create-key" ? { name: `hostile key ${n}` } : {}),
-      ...(intent === "revoke-key" ? { keyId: "1" } : {}),
-      ...(intent === "end-session" ? { ref: "0123456789abcdef" } : {}),
+  ...(["profile", "create-key", "revoke-key", "end-session", "end-other-sessions"] as const).map(
+    (intent): FormTarget => ({
+      kind: "form",
+      path: () => "/account",
+      fields: fieldsOf(accountSchema),
+      who: ALL,
+      base: (_, n) => ({
+        intent,
+        ...(intent === "profile" ? { handle: `hostile-${process.pid % 1e5}-${n}`, units: "us" } : {}),
+        ...(intent === "create-key" ? { name: `hostile key ${n}` } : {}),
+        ...(intent === "revoke-key" ? { keyId: "1" } : {}),
+        ...(intent === "end-session" ? { ref: "0123456789abcdef" } : {}),
+      }),
     }),
-  })),
-  { kind: "form", path: () => "/units", fields: fieldsOf(unitsSchema), who: ALL, base: () => ({ system: "us", back: "/models" }) },
-  { kind: "form", path: () => "/admin/users", fields: fieldsOf(roleSchema), who: ALL,
-    base: (own, n) => ({ intent: n % 2 ? "grant" : "revoke", userId: String(own.targetUser), role: "moderator" }) },
+  ),
+  {
+    kind: "form",
+    path: () => "/units",
+    fields: fieldsOf(unitsSchema),
+    who: ALL,
+    base: () => ({ system: "us", back: "/models" }),
+  },
+  {
+    kind: "form",
+    path: () => "/admin/users",
+    fields: fieldsOf(roleSchema),
+    who: ALL,
+    base: (own, n) => ({ intent: n % 2 ? "grant" : "revoke", userId: String(own.targetUser), role: "moderator" }),
+  },
   ...(["submit", "save-draft", "autosave"] as const).map((intent): FormTarget => ({
-    kind: "form", path: () => "/reports/new", fields: [...Object.keys(reportFields), "intent", "reportId", "toolQuery"], who: ALL,
+    kind: "form",
+    path: () => "/reports/new",
+    fields: [...Object.keys(reportFields), "intent", "reportId", "toolQuery"],
+    who: ALL,
     base: () => ({ ...validReport(), intent }),
   })),
   ...(["autosave", "withdraw"] as const).map((intent): FormTarget => ({
-    kind: "form", path: (own) => `/reports/${own.reporterDraft}/edit`, fields: [...Object.keys(reportFields), "intent", "reportId"], who: ALL,
+    kind: "form",
+    path: (own) => `/reports/${own.reporterDraft}/edit`,
+    fields: [...Object.keys(reportFields), "intent", "reportId"],
+    who: ALL,
     base: (own) => ({ ...validReport(), intent, reportId: String(own.reporterDraft) }),
   })),
-  { kind: "form", path: () => "/me/reports", fields: ["intent", "evidenceId", "publish"], who: ALL,
-    base: (_, n): Record<string, string> => (n % 2 ? { intent: "publish-evidence", evidenceId: "1", publish: "yes" } : { intent: "read-notices" }) },
-  { kind: "form", path: (own) => `/review/${own.submittedReport}`, fields: fieldsOf(claimSchema), who: ALL, base: () => ({ intent: "claim" }) },
-  { kind: "form", path: (own) => `/review/${own.submittedReport}`, fields: [...fieldsOf(decisionFields), "evidence_1", "check_tool"], who: ALL,
-    base: () => ({ action: "return", reasonCode: "gauge_unreadable", note: "Show the gauge", version: "1", seenDecisions: "0" }) },
+  {
+    kind: "form",
+    path: () => "/me/reports",
+    fields: ["intent", "evidenceId", "publish"],
+    who: ALL,
+    base: (_, n): Record<string, string> =>
+      n % 2 ? { intent: "publish-evidence", evidenceId: "1", publish: "yes" } : { intent: "read-notices" },
+  },
+  {
+    kind: "form",
+    path: (own) => `/review/${own.submittedReport}`,
+    fields: fieldsOf(claimSchema),
+    who: ALL,
+    base: () => ({ intent: "claim" }),
+  },
+  {
+    kind: "form",
+    path: (own) => `/review/${own.submittedReport}`,
+    fields: [...fieldsOf(decisionFields), "evidence_1", "check_tool"],
+    who: ALL,
+    base: () => ({
+      action: "return",
+      reasonCode: "gauge_unreadable",
+      note: "Show the gauge",
+      version: "1",
+      seenDecisions: "0",
+    }),
+  },
 ];
 
 export const JSON_TARGETS: JsonTarget[] = [
-  { kind: "json", path: (own) => `/api/reports/${own.reporterDraft}/evidence`, fields: ["type", "size"], who: ALL, base: () => ({ type: "image/jpeg", size: 1000 }) },
+  {
+    kind: "json",
+    path: (own) => `/api/reports/${own.reporterDraft}/evidence`,
+    fields: ["type", "size"],
+    who: ALL,
+    base: () => ({ type: "image/jpeg", size: 1000 }),
+  },
   { kind: "json", path: () => "/api/evidence/1/complete", fields: [], who: ALL, base: () => ({}) },
   { kind: "json", path: () => "/api/evidence/1/publish", fields: ["public"], who: ALL, base: () => ({ public: true }) },
 ];
 
 export const QUERY_TARGETS: QueryTarget[] = [
-  { kind: "query", path: () => "/search", fields: ["q", "category", "job", "shank", "kind"], who: ["anonymous", "reporter"] },
+  {
+    kind: "query",
+    path: () => "/search",
+    fields: ["q", "category", "job", "shank", "kind"],
+    who: ["anonymous", "reporter"],
+  },
   { kind: "query", path: () => "/api/search", fields: ["q", "category", "kind"], who: ["anonymous"] },
   { kind: "query", path: () => "/api/models/suggest", fields: ["q"], who: ["anonymous"] },
   { kind: "query", path: () => "/api/models", fields: ["category", "shank", "sort", "q"], who: ["anonymous"] },
   { kind: "query", path: () => "/api/stats/cell", fields: ["model", "job", "inlet_kpa"], who: ["anonymous"] },
   { kind: "query", path: () => "/compare", fields: ["job", "models", "psi"], who: ["anonymous"] },
-  { kind: "query", path: () => "/jobs/ball-joint-separation", fields: ["reg", "hid", "hlen", "cc", "cp", "bits", "page"], who: ["anonymous"] },
+  {
+    kind: "query",
+    path: () => "/jobs/ball-joint-separation",
+    fields: ["reg", "hid", "hlen", "cc", "cp", "bits", "page"],
+    who: ["anonymous"],
+  },
   { kind: "query", path: () => "/admin/users", fields: fieldsOf(userSearchSchema), who: ["admin", "moderator"] },
   { kind: "query", path: () => "/me/reports", fields: ["submitted", "withdrawn"], who: SIGNED_IN },
-  { kind: "query", path: () => "/review", fields: [...fieldsOf(queueFilterSchema), "report"], who: ["moderator", "admin"] },
-  { kind: "query", path: (own) => `/review/${own.submittedReport}`, fields: fieldsOf(queueFilterSchema), who: ["moderator"] },
+  {
+    kind: "query",
+    path: () => "/review",
+    fields: [...fieldsOf(queueFilterSchema), "report"],
+    who: ["moderator", "admin"],
+  },
+  {
+    kind: "query",
+    path: (own) => `/review/${own.submittedReport}`,
+    fields: fieldsOf(queueFilterSchema),
+    who: ["moderator"],
+  },
   { kind: "query", path: () => "/models", fields: ["category", "shank", "page", "sort"], who: ["anonymous"] },
   { kind: "query", path: () => "/sign-in", fields: ["redirectTo"], who: ["anonymous"] },
   { kind: "query", path: () => "/sign-in/link", fields: ["token", "redirectTo"], who: ["anonymous"] },
 ];
 
 /** Path params: the suite's own ids, and ids no route may take for real. */
-export const BAD_IDS = ["0", "-1", "0x10", "1e3", "2147483648", "99999999999999999999", "1.5", "%00", "%20", "abc", "00012"];
+export const BAD_IDS = [
+  "0",
+  "-1",
+  "0x10",
+  "1e3",
+  "2147483648",
+  "99999999999999999999",
+  "1.5",
+  "%00",
+  "%20",
+  "abc",
+  "00012",
+];
 export const PATH_ID_TARGETS = (own: Own) => [
-  ...BAD_IDS.flatMap((id) => [`/reports/${id}/edit`, `/reports/${id}/history`, `/review/${id}`, `/api/v1/reports/${id}`, `/api/v1/evidence/${id}`]),
-  `/reports/${own.reporterDraft}/edit`, `/reports/${own.submittedReport}/history`, `/review/${own.submittedReport}`,
+  ...BAD_IDS.flatMap((id) => [
+    `/reports/${id}/edit`,
+    `/reports/${id}/history`,
+    `/review/${id}`,
+    `/api/v1/reports/${id}`,
+    `/api/v1/evidence/${id}`,
+  ]),
+  `/reports/${own.reporterDraft}/edit`,
+  `/reports/${own.submittedReport}/history`,
+  `/review/${own.submittedReport}`,
 ];
 
 /** Every value a person or a script might send in place of a good one. */
 export const hostileText: fc.Arbitrary<string> = fc.oneof(
   fc.constantFrom("", " ", "\u0000", "a\u0000b", "\u0007", "\u001b[31m", "\u007f", "line\nbreak", "tab\there", "\r\n"),
   fc.constantFrom(...BAD_IDS, "2147483647", "1", "NaN", "Infinity", "-0", "true", "null", "[]", "{}"),
-  fc.constantFrom("<script>alert(1)</script>", "'; drop table reports; --", "../../etc/passwd", "\uD800", "é".repeat(300), "🔧".repeat(2100)),
+  fc.constantFrom(
+    "<script>alert(1)</script>",
+    "'; drop table reports; --",
+    "../../etc/passwd",
+    "\uD800",
+    "é".repeat(300),
+    "🔧".repeat(2100),
+  ),
   fc.constantFrom("x".repeat(121), "x".repeat(4001), "y".repeat(20_000)),
   fc.string({ maxLength: 40 }),
-  fc.string({ unit: fc.integer({ min: 0, max: 0x1f }).map((c) => String.fromCharCode(c)), minLength: 1, maxLength: 4 }).map((c) => `typed ${c} text`),
+  fc
+    .string({ unit: fc.integer({ min: 0, max: 0x1f }).map((c) => String.fromCharCode(c)), minLength: 1, maxLength: 4 })
+    .map((c) => `typed ${c} text`),
 );
 
-export type Transport = "urlencoded" | "multipart" | "json" | "text" | "broken-multipart" | "none" | "oversize" | "oversize-chunked";
+export type Transport =
+  "urlencoded" | "multipart" | "json" | "text" | "broken-multipart" | "none" | "oversize" | "oversize-chunked";
 export const transport: fc.Arbitrary<Transport> = fc.oneof(
   { weight: 10, arbitrary: fc.constant("urlencoded" as const) },
   { weight: 3, arbitrary: fc.constant("multipart" as const) },
-  { weight: 4, arbitrary: fc.constantFrom("json" as const, "text" as const, "broken-multipart" as const, "none" as const, "oversize" as const, "oversize-chunked" as const) },
+  {
+    weight: 4,
+    arbitrary: fc.constantFrom(
+      "json" as const,
+      "text" as const,
+      "broken-multipart" as const,
+      "none" as const,
+      "oversize" as const,
+      "oversize-chunked" as const,
+    ),
+  },
 );
 
 /** One request's worth of damage to a form: which fields change, vanish or repeat. */
 export const damage = (fields: string[]) =>
   fc.record({
-    changed: fields.length ? fc.uniqueArray(fc.tuple(fc.constantFrom(...fields), hostileText), { maxLength: 3, selector: ([k]) => k }) : fc.constant([] as [string, string][]),
-    missing: fields.length ? fc.subarray(fields, { maxLength: Math.min(2, fields.length) }) : fc.constant([] as string[]),
+    changed: fields.length
+      ? fc.uniqueArray(fc.tuple(fc.constantFrom(...fields), hostileText), { maxLength: 3, selector: ([k]) => k })
+      : fc.constant([] as [string, string][]),
+    missing: fields.length
+      ? fc.subarray(fields, { maxLength: Math.min(2, fields.length) })
+      : fc.constant([] as string[]),
     repeated: fields.length ? fc.subarray(fields, { maxLength: 1 }) : fc.constant([] as string[]),
     transport,
   });

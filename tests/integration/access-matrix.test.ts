@@ -14,11 +14,17 @@ let banTargetId = "0";
 
 beforeAll(async () => {
   // Role changes in the matrix land on a user of the test's own, not on the demo people.
-  const target = await db.insertInto("users").values({ email: `matrix-${Date.now()}@demo.bayproof.test`, handle: `matrix-${Date.now() % 1e8}` })
-    .returning("id").executeTakeFirstOrThrow();
+  const target = await db
+    .insertInto("users")
+    .values({ email: `matrix-${Date.now()}@demo.bayproof.test`, handle: `matrix-${Date.now() % 1e8}` })
+    .returning("id")
+    .executeTakeFirstOrThrow();
   targetId = String(target.id);
-  const banTarget = await db.insertInto("users").values({ email: `matrix-ban-${Date.now()}@demo.bayproof.test`, handle: `matrix-ban-${Date.now() % 1e8}` })
-    .returning("id").executeTakeFirstOrThrow();
+  const banTarget = await db
+    .insertInto("users")
+    .values({ email: `matrix-ban-${Date.now()}@demo.bayproof.test`, handle: `matrix-ban-${Date.now() % 1e8}` })
+    .returning("id")
+    .executeTakeFirstOrThrow();
   banTargetId = String(banTarget.id);
   clients.visitor = new Browserish();
   clients.reporter = await signedInAs(db, "reporter@demo.bayproof.test");
@@ -31,25 +37,65 @@ const SIGN_IN = 302; // a visitor is sent to /sign-in for any page that needs an
 // [method, path, form (for POST), expected status per role]
 const matrix: [string, string, (() => Record<string, string>) | null, Record<Who, number>][] = [
   ["GET", "/account", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
-  ["POST", "/account", () => ({ intent: "end-other-sessions" }), { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
+  [
+    "POST",
+    "/account",
+    () => ({ intent: "end-other-sessions" }),
+    { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 },
+  ],
   ["GET", "/admin/users", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
   ["GET", "/admin/users?q=mod", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
-  ["POST", "/admin/users", () => ({ intent: "grant", userId: targetId, role: "moderator" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
+  [
+    "POST",
+    "/admin/users",
+    () => ({ intent: "grant", userId: targetId, role: "moderator" }),
+    { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 },
+  ],
   ["GET", "/admin/jobs", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
-  ["POST", "/admin/jobs", () => ({ intent: "send-again", jobId: "00000000-0000-4000-8000-000000000000" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 404 }],
+  [
+    "POST",
+    "/admin/jobs",
+    () => ({ intent: "send-again", jobId: "00000000-0000-4000-8000-000000000000" }),
+    { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 404 },
+  ],
   ["GET", "/admin/users/:target", null, { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
-  ["POST", "/admin/users/:target", () => ({ intent: "ban", reason: "Access matrix check" }), { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 }],
+  [
+    "POST",
+    "/admin/users/:target",
+    () => ({ intent: "ban", reason: "Access matrix check" }),
+    { visitor: SIGN_IN, reporter: 403, moderator: 403, admin: 200 },
+  ],
   ["GET", "/reports/new", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/me/reports", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
-  ["POST", "/reports/new", () => ({ intent: "autosave" }), { visitor: SIGN_IN, reporter: 400, moderator: 400, admin: 400 }],
+  [
+    "POST",
+    "/reports/new",
+    () => ({ intent: "autosave" }),
+    { visitor: SIGN_IN, reporter: 400, moderator: 400, admin: 400 },
+  ],
   ["POST", "/api/evidence/1/complete", () => ({}), { visitor: 401, reporter: 404, moderator: 404, admin: 404 }],
   ["GET", "/review", null, { visitor: SIGN_IN, reporter: 403, moderator: 200, admin: 200 }],
   ["GET", "/review/stats", null, { visitor: SIGN_IN, reporter: 403, moderator: 200, admin: 200 }],
   ["GET", "/review/999999", null, { visitor: SIGN_IN, reporter: 403, moderator: 404, admin: 404 }],
-  ["POST", "/review/999999", () => ({ action: "reject", reasonCode: "duplicate", version: "1", seenDecisions: "0" }), { visitor: SIGN_IN, reporter: 403, moderator: 404, admin: 404 }],
-  ["POST", "/review/999999", () => ({ intent: "claim" }), { visitor: SIGN_IN, reporter: 403, moderator: 404, admin: 404 }],
+  [
+    "POST",
+    "/review/999999",
+    () => ({ action: "reject", reasonCode: "duplicate", version: "1", seenDecisions: "0" }),
+    { visitor: SIGN_IN, reporter: 403, moderator: 404, admin: 404 },
+  ],
+  [
+    "POST",
+    "/review/999999",
+    () => ({ intent: "claim" }),
+    { visitor: SIGN_IN, reporter: 403, moderator: 404, admin: 404 },
+  ],
   ["GET", "/reports/999999/history", null, { visitor: SIGN_IN, reporter: 404, moderator: 404, admin: 404 }],
-  ["POST", "/units", () => ({ system: "us", back: "/models" }), { visitor: 303, reporter: 303, moderator: 303, admin: 303 }],
+  [
+    "POST",
+    "/units",
+    () => ({ system: "us", back: "/models" }),
+    { visitor: 303, reporter: 303, moderator: 303, admin: 303 },
+  ],
   ["GET", "/air", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/models", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
@@ -79,19 +125,37 @@ describe("access by role", () => {
   it("logs who changed a role and when", async () => {
     const target = { id: Number(targetId) };
     await clients.admin.post("/admin/users", { intent: "revoke", userId: targetId, role: "moderator" });
-    const res = await clients.admin.post("/admin/users", { intent: "grant", userId: String(target.id), role: "moderator" });
+    const res = await clients.admin.post("/admin/users", {
+      intent: "grant",
+      userId: String(target.id),
+      role: "moderator",
+    });
     expect(res.status).toBe(200);
-    const log = await db.selectFrom("role_changes as rc").innerJoin("users as a", "a.id", "rc.changed_by")
-      .select(["rc.change", "rc.role", "a.email"]).where("rc.user_id", "=", target.id).orderBy("rc.id", "desc").executeTakeFirstOrThrow();
+    const log = await db
+      .selectFrom("role_changes as rc")
+      .innerJoin("users as a", "a.id", "rc.changed_by")
+      .select(["rc.change", "rc.role", "a.email"])
+      .where("rc.user_id", "=", target.id)
+      .orderBy("rc.id", "desc")
+      .executeTakeFirstOrThrow();
     expect(log).toEqual({ change: "grant", role: "moderator", email: "admin@demo.bayproof.test" });
     await clients.admin.post("/admin/users", { intent: "revoke", userId: String(target.id), role: "moderator" });
   });
 
   it("does not let an admin remove their own admin role", async () => {
-    const me = await db.selectFrom("users").select("id").where("email", "=", "admin@demo.bayproof.test").executeTakeFirstOrThrow();
+    const me = await db
+      .selectFrom("users")
+      .select("id")
+      .where("email", "=", "admin@demo.bayproof.test")
+      .executeTakeFirstOrThrow();
     const res = await clients.admin.post("/admin/users", { intent: "revoke", userId: String(me.id), role: "admin" });
     expect(res.status).toBe(400);
-    const still = await db.selectFrom("user_roles").select("role").where("user_id", "=", me.id).where("role", "=", "admin").executeTakeFirst();
+    const still = await db
+      .selectFrom("user_roles")
+      .select("role")
+      .where("user_id", "=", me.id)
+      .where("role", "=", "admin")
+      .executeTakeFirst();
     expect(still).toBeTruthy();
   });
 });

@@ -16,17 +16,31 @@ beforeAll(async () => {
 async function freshUser() {
   const stamp = `${Date.now()}${Math.floor(Math.random() * 1000)}`;
   const email = `ban-test-${stamp}@demo.bayproof.test`;
-  const { id } = await db.insertInto("users").values({ email, handle: `bantest-${stamp.slice(-9)}` }).returning("id").executeTakeFirstOrThrow();
+  const { id } = await db
+    .insertInto("users")
+    .values({ email, handle: `bantest-${stamp.slice(-9)}` })
+    .returning("id")
+    .executeTakeFirstOrThrow();
   const phone = await signedInAs(db, email);
   const laptop = await signedInAs(db, email);
   const key = await createApiKey(db, id, "bench scripts");
   return { id, phone, laptop, key };
 }
 
-const sessionsOf = async (userId: number) => (await db.selectFrom("sessions").select("id_hash").where("user_id", "=", userId).execute()).length;
-const feedWith = (key: string) => fetch(new URL("/api/v1/job-types", admin.origin), { headers: { authorization: `Bearer ${key}`, "x-forwarded-for": `198.51.100.${Math.floor(Math.random() * 250) + 1}` } });
-const banLog = (userId: number) => db.selectFrom("ban_changes as b").innerJoin("users as a", "a.id", "b.changed_by")
-  .select(["b.change", "b.reason", "a.email as actor"]).where("b.user_id", "=", userId).orderBy("b.id").execute();
+const sessionsOf = async (userId: number) =>
+  (await db.selectFrom("sessions").select("id_hash").where("user_id", "=", userId).execute()).length;
+const feedWith = (key: string) =>
+  fetch(new URL("/api/v1/job-types", admin.origin), {
+    headers: { authorization: `Bearer ${key}`, "x-forwarded-for": `198.51.100.${Math.floor(Math.random() * 250) + 1}` },
+  });
+const banLog = (userId: number) =>
+  db
+    .selectFrom("ban_changes as b")
+    .innerJoin("users as a", "a.id", "b.changed_by")
+    .select(["b.change", "b.reason", "a.email as actor"])
+    .where("b.user_id", "=", userId)
+    .orderBy("b.id")
+    .execute();
 
 describe("banning from /admin/users/:id", () => {
   it("needs a reason, and changes nothing without one", async () => {
@@ -52,7 +66,9 @@ describe("banning from /admin/users/:id", () => {
     const keys = await db.selectFrom("api_keys").select("revoked_at").where("user_id", "=", target.id).execute();
     expect(keys.every((k) => k.revoked_at !== null)).toBe(true);
     expect((await feedWith(target.key)).status).toBe(401);
-    expect(await banLog(target.id)).toEqual([{ change: "ban", reason: "Filed invented reports", actor: "admin@demo.bayproof.test" }]);
+    expect(await banLog(target.id)).toEqual([
+      { change: "ban", reason: "Filed invented reports", actor: "admin@demo.bayproof.test" },
+    ]);
     expect(await (await admin.get(`/admin/users/${target.id}`)).text()).toContain("Filed invented reports");
   });
 
@@ -65,11 +81,18 @@ describe("banning from /admin/users/:id", () => {
     expect(user.banned_at).toBeNull();
     expect((await target.phone.get("/account")).status).toBe(302);
     expect((await feedWith(target.key)).status).toBe(401);
-    expect((await banLog(target.id)).map((b) => [b.change, b.reason])).toEqual([["ban", "Spam in report notes"], ["unban", "Appeal upheld"]]);
+    expect((await banLog(target.id)).map((b) => [b.change, b.reason])).toEqual([
+      ["ban", "Spam in report notes"],
+      ["unban", "Appeal upheld"],
+    ]);
   });
 
   it("does not let an admin ban themselves, and answers 404 for an unknown user", async () => {
-    const me = await db.selectFrom("users").select("id").where("email", "=", "admin@demo.bayproof.test").executeTakeFirstOrThrow();
+    const me = await db
+      .selectFrom("users")
+      .select("id")
+      .where("email", "=", "admin@demo.bayproof.test")
+      .executeTakeFirstOrThrow();
     const self = await admin.post(`/admin/users/${me.id}`, { intent: "ban", reason: "Testing myself" });
     expect(self.status).toBe(400);
     expect(await self.text()).toMatch(/cannot ban yourself/);

@@ -13,7 +13,10 @@ const APP = `connection-loss-test-${process.pid}`;
 class Unavailable extends Error {}
 let readAllowed = true;
 const pool = createPool(inject("databaseUrl"), 1, APP);
-const db = createDb(pool, 1, { mayRetryRead: () => readAllowed, unavailable: (error) => new Unavailable(String(error)) });
+const db = createDb(pool, 1, {
+  mayRetryRead: () => readAllowed,
+  unavailable: (error) => new Unavailable(String(error)),
+});
 afterAll(async () => {
   await db.destroy();
   await admin.destroy();
@@ -55,7 +58,8 @@ describe("a lost connection", () => {
   it("never runs a statement of a transaction again", async () => {
     readAllowed = true;
     const result = await cutWhileRunning(() =>
-      db.transaction().execute(async (trx) => sql`select 1 as one from pg_sleep(0.5)`.execute(trx)));
+      db.transaction().execute(async (trx) => sql`select 1 as one from pg_sleep(0.5)`.execute(trx)),
+    );
     expect(result.status === "rejected" && result.reason).toBeInstanceOf(Unavailable);
     expect((await sql<{ one: number }>`select 1 as one`.execute(db)).rows).toEqual([{ one: 1 }]);
   });
@@ -64,7 +68,9 @@ describe("a lost connection", () => {
     await sql`select 1`.execute(db);
     await sql`select pg_terminate_backend(pid) from pg_stat_activity where application_name = ${APP}`.execute(admin);
     readAllowed = false; // even a write request: nothing had been sent on the dead connection
-    expect((await db.transaction().execute((trx) => sql<{ one: number }>`select 1 as one`.execute(trx))).rows).toEqual([{ one: 1 }]);
+    expect((await db.transaction().execute((trx) => sql<{ one: number }>`select 1 as one`.execute(trx))).rows).toEqual([
+      { one: 1 },
+    ]);
     readAllowed = true;
   });
 });

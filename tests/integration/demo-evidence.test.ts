@@ -11,10 +11,16 @@ afterAll(() => db.destroy());
 
 describe("demo evidence in the local object store", () => {
   it("serves every sampled published file of an accepted report, with the recorded SHA-256", async () => {
-    const sample = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
+    const sample = await db
+      .selectFrom("evidence as e")
+      .innerJoin("reports as r", "r.id", "e.report_id")
       .select(["e.id", "e.sha256", "e.size_bytes"])
-      .where("r.status", "=", "accepted").where("e.is_public", "=", true).where("e.status", "in", ["uploaded", "verified"])
-      .orderBy(sql`random()`).limit(40).execute();
+      .where("r.status", "=", "accepted")
+      .where("e.is_public", "=", true)
+      .where("e.status", "in", ["uploaded", "verified"])
+      .orderBy(sql`random()`)
+      .limit(40)
+      .execute();
     expect(sample.length).toBe(40);
     const get = feedClient(); // 40 requests: under the anonymous limit of 60 a minute
     for (const file of sample) {

@@ -7,7 +7,21 @@ const db = testDb();
 afterAll(() => db.destroy());
 
 async function counts() {
-  const r = await sql<Record<"makers" | "models" | "categories" | "jobs" | "shops" | "users" | "reports" | "accepted" | "decisions" | "evidence", number>>`
+  const r = await sql<
+    Record<
+      | "makers"
+      | "models"
+      | "categories"
+      | "jobs"
+      | "shops"
+      | "users"
+      | "reports"
+      | "accepted"
+      | "decisions"
+      | "evidence",
+      number
+    >
+  >`
     select (select count(*)::int from makers) makers, (select count(*)::int from tool_models) models,
            (select count(*)::int from tool_categories) categories, (select count(*)::int from job_types) jobs,
            (select count(*)::int from shops) shops, (select count(*)::int from users) users,
@@ -31,10 +45,23 @@ describe("the demo scenario in PostgreSQL", () => {
   });
 
   it("has the well-known demo accounts with their roles", async () => {
-    const rows = await db.selectFrom("users").leftJoin("user_roles", "user_roles.user_id", "users.id")
-      .select(["users.email", "user_roles.role"]).where("users.email", "in", ["reporter@demo.bayproof.test", "moderator@demo.bayproof.test", "moderator2@demo.bayproof.test", "admin@demo.bayproof.test"])
+    const rows = await db
+      .selectFrom("users")
+      .leftJoin("user_roles", "user_roles.user_id", "users.id")
+      .select(["users.email", "user_roles.role"])
+      .where("users.email", "in", [
+        "reporter@demo.bayproof.test",
+        "moderator@demo.bayproof.test",
+        "moderator2@demo.bayproof.test",
+        "admin@demo.bayproof.test",
+      ])
       .execute();
-    const roles = (email: string) => rows.filter((r) => r.email === email).map((r) => r.role).filter(Boolean).sort();
+    const roles = (email: string) =>
+      rows
+        .filter((r) => r.email === email)
+        .map((r) => r.role)
+        .filter(Boolean)
+        .sort();
     expect(roles("reporter@demo.bayproof.test")).toEqual([]);
     expect(roles("moderator@demo.bayproof.test")).toEqual(["moderator"]);
     expect(roles("moderator2@demo.bayproof.test")).toEqual(["moderator"]);
@@ -42,8 +69,12 @@ describe("the demo scenario in PostgreSQL", () => {
   });
 
   it("never has a moderator decide on their own report", async () => {
-    const own = await db.selectFrom("decisions as d").innerJoin("reports as r", "r.id", "d.report_id")
-      .select(sql<number>`count(*)::int`.as("n")).whereRef("d.moderator_id", "=", "r.reporter_id").executeTakeFirstOrThrow();
+    const own = await db
+      .selectFrom("decisions as d")
+      .innerJoin("reports as r", "r.id", "d.report_id")
+      .select(sql<number>`count(*)::int`.as("n"))
+      .whereRef("d.moderator_id", "=", "r.reporter_id")
+      .executeTakeFirstOrThrow();
     expect(own.n).toBe(0);
   });
 

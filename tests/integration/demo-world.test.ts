@@ -26,7 +26,10 @@ async function rolledBack(work: (trx: typeof db) => Promise<unknown>): Promise<E
 
 describe("running air figures in the catalogue", () => {
   it("carry their source on every demo model, and a factor only where estimated", async () => {
-    const rows = await db.selectFrom("tool_models").select(["rated_air_lps", "running_air_lps", "running_air_source", "running_air_factor"]).execute();
+    const rows = await db
+      .selectFrom("tool_models")
+      .select(["rated_air_lps", "running_air_lps", "running_air_source", "running_air_factor"])
+      .execute();
     expect(rows.length).toBeGreaterThanOrEqual(24);
     expect(new Set(rows.map((r) => r.running_air_source))).toEqual(new Set(["maker_sheet", "measured", "estimated"]));
     for (const r of rows) {
@@ -37,12 +40,21 @@ describe("running air figures in the catalogue", () => {
 
   it("are refused by the database without a source, or estimated without a factor", async () => {
     const model = await db.selectFrom("tool_models").select("id").orderBy("id").executeTakeFirstOrThrow();
-    const set = (values: Record<string, unknown>) => rolledBack((trx) => trx.updateTable("tool_models").set(values).where("id", "=", model.id).execute());
+    const set = (values: Record<string, unknown>) =>
+      rolledBack((trx) => trx.updateTable("tool_models").set(values).where("id", "=", model.id).execute());
     expect(await set({ running_air_lps: 5, running_air_source: "measured", running_air_factor: null })).toBeNull();
-    expect((await set({ running_air_lps: 5, running_air_source: null, running_air_factor: null }))?.message).toMatch(/tool_models_running_air_sourced/);
-    expect((await set({ running_air_lps: 5, running_air_source: "estimated", running_air_factor: null }))?.message).toMatch(/tool_models_running_air_sourced/);
-    expect((await set({ running_air_lps: 5, running_air_source: "maker_sheet", running_air_factor: 2 }))?.message).toMatch(/tool_models_running_air_sourced/);
-    expect((await set({ running_air_lps: 5, running_air_source: "guessed", running_air_factor: null }))?.message).toMatch(/check/);
+    expect((await set({ running_air_lps: 5, running_air_source: null, running_air_factor: null }))?.message).toMatch(
+      /tool_models_running_air_sourced/,
+    );
+    expect(
+      (await set({ running_air_lps: 5, running_air_source: "estimated", running_air_factor: null }))?.message,
+    ).toMatch(/tool_models_running_air_sourced/);
+    expect(
+      (await set({ running_air_lps: 5, running_air_source: "maker_sheet", running_air_factor: 2 }))?.message,
+    ).toMatch(/tool_models_running_air_sourced/);
+    expect(
+      (await set({ running_air_lps: 5, running_air_source: "guessed", running_air_factor: null }))?.message,
+    ).toMatch(/check/);
   });
 });
 
@@ -51,18 +63,36 @@ describe("report values", () => {
     const noisy = await sql<{ n: number }>`select count(*)::int n from reports r where ${DEMO} and (
       regulator_kpa <> round(regulator_kpa::numeric, 1)::float8 or inlet_kpa <> round(inlet_kpa::numeric, 1)::float8
       or hose_id_mm <> round(hose_id_mm::numeric, 2)::float8 or hose_length_m <> round(hose_length_m::numeric, 2)::float8
-      or compressor_lps <> round(compressor_lps::numeric, 2)::float8 or tank_l <> round(tank_l::numeric, 1)::float8)`.execute(db);
+      or compressor_lps <> round(compressor_lps::numeric, 2)::float8 or tank_l <> round(tank_l::numeric, 1)::float8)`.execute(
+      db,
+    );
     expect(noisy.rows[0]!.n).toBe(0);
   });
 
   it("are rounded by the migration where an older row has float noise", async () => {
-    const row = await db.selectFrom("reports as r").select(["r.id"]).where(DEMO).where("r.status", "=", "accepted").orderBy("r.id").executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom("reports as r")
+      .select(["r.id"])
+      .where(DEMO)
+      .where("r.status", "=", "accepted")
+      .orderBy("r.id")
+      .executeTakeFirstOrThrow();
     let after: { regulator_kpa: number | null; hose_length_m: number | null; hose_id_mm: number | null } | undefined;
-    expect(await rolledBack(async (trx) => {
-      await trx.updateTable("reports").set({ regulator_kpa: 661.9000000000001, hose_length_m: 7.6000000000000005, hose_id_mm: 9.525 }).where("id", "=", row.id).execute();
-      await rounding.up(trx);
-      after = await trx.selectFrom("reports").select(["regulator_kpa", "hose_length_m", "hose_id_mm"]).where("id", "=", row.id).executeTakeFirstOrThrow();
-    })).toBeNull();
+    expect(
+      await rolledBack(async (trx) => {
+        await trx
+          .updateTable("reports")
+          .set({ regulator_kpa: 661.9000000000001, hose_length_m: 7.6000000000000005, hose_id_mm: 9.525 })
+          .where("id", "=", row.id)
+          .execute();
+        await rounding.up(trx);
+        after = await trx
+          .selectFrom("reports")
+          .select(["regulator_kpa", "hose_length_m", "hose_id_mm"])
+          .where("id", "=", row.id)
+          .executeTakeFirstOrThrow();
+      }),
+    ).toBeNull();
     expect(after).toEqual({ regulator_kpa: 661.9, hose_length_m: 7.6, hose_id_mm: 9.53 });
   });
 });
@@ -76,17 +106,24 @@ describe("the demo world's figures (issue 17)", () => {
     const { median, above, n } = q.rows[0]!;
     const drops = await sql<{ hose_id_mm: number; drop: number; n: number }>`
       select r.hose_id_mm, avg(r.regulator_kpa - r.inlet_kpa)::float8 drop, count(*)::int n from reports r
-      where r.status = 'accepted' and r.inlet_source = 'measured_at_inlet' and ${DEMO} group by 1 order by 1`.execute(db);
+      where r.status = 'accepted' and r.inlet_source = 'measured_at_inlet' and ${DEMO} group by 1 order by 1`.execute(
+      db,
+    );
     const rates = await sql<{ job: string; fitting: string; rate: number; n: number }>`
       select j.slug job, m.fitting, avg((r.outcome = 'freed')::int)::float8 rate, count(*)::int n
       from reports r join tool_models m on m.id = r.tool_model_id join job_types j on j.id = r.job_type_id
       where r.status = 'accepted' and ${DEMO} and m.fitting in ('shank-0.401', 'shank-0.498', 'drive-1/2', 'drive-3/4')
       group by 1, 2 order by 1, 2`.execute(db);
-    console.log([
-      `accepted demo reports ${n}; median inlet ${(median / KPA_PER_PSI).toFixed(1)} psi; above the tool's maximum ${(100 * above).toFixed(1)} %`,
-      ...drops.rows.map((d) => `hose ${d.hose_id_mm} mm: mean regulator-to-inlet drop (measured at inlet) ${(d.drop / KPA_PER_PSI).toFixed(1)} psi, n ${d.n}`),
-      ...rates.rows.map((r) => `${r.job} ${r.fitting}: freed ${(100 * r.rate).toFixed(0)} % of ${r.n}`),
-    ].join("\n"));
+    console.log(
+      [
+        `accepted demo reports ${n}; median inlet ${(median / KPA_PER_PSI).toFixed(1)} psi; above the tool's maximum ${(100 * above).toFixed(1)} %`,
+        ...drops.rows.map(
+          (d) =>
+            `hose ${d.hose_id_mm} mm: mean regulator-to-inlet drop (measured at inlet) ${(d.drop / KPA_PER_PSI).toFixed(1)} psi, n ${d.n}`,
+        ),
+        ...rates.rows.map((r) => `${r.job} ${r.fitting}: freed ${(100 * r.rate).toFixed(0)} % of ${r.n}`),
+      ].join("\n"),
+    );
     expect(median / KPA_PER_PSI).toBeGreaterThan(85);
     expect(median / KPA_PER_PSI).toBeLessThan(100);
     expect(above).toBeLessThan(0.08);

@@ -1,7 +1,13 @@
 // Evidence: presigned uploads straight to the fake object store, the completion check on the
 // bytes, checked files that no upload URL can change, the store's signature checks, shared-file
 // flags, and the clean-up of orphaned objects.
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadObjectCommand,
+  PutObjectCommand,
+  S3Client,
+} from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { createHash } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
@@ -13,22 +19,35 @@ import { complete, newDraft, presign, publish, upload } from "../support/evidenc
 
 const db = testDb();
 const { endpoint, bucket } = inject("s3");
-const s3 = new S3Client({ endpoint, region: "us-east-1", forcePathStyle: true, credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" } });
+const s3 = new S3Client({
+  endpoint,
+  region: "us-east-1",
+  forcePathStyle: true,
+  credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" },
+});
 let owner: Browserish;
 let stranger: Browserish;
 let draftId: number;
 
-const exists = async (key: string) => s3.send(new HeadObjectCommand({ Bucket: bucket, Key: key })).then(() => true, () => false);
+const exists = async (key: string) =>
+  s3.send(new HeadObjectCommand({ Bucket: bucket, Key: key })).then(
+    () => true,
+    () => false,
+  );
 const storedSha256 = async (key: string) => {
   const res = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
-  return createHash("sha256").update(await res.Body!.transformToByteArray()).digest("hex");
+  return createHash("sha256")
+    .update(await res.Body!.transformToByteArray())
+    .digest("hex");
 };
 const row = (id: number) => db.selectFrom("evidence").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
 /** Files the draft through the real form; the report is then "submitted". */
 async function submit(client: Browserish, reportId: number) {
   const res = await client.post(`/reports/${reportId}/edit`, { ...validReport(), reportId: String(reportId) });
   expect(res.status).toBe(302);
-  expect((await db.selectFrom("reports").select("status").where("id", "=", reportId).executeTakeFirstOrThrow()).status).toBe("submitted");
+  expect(
+    (await db.selectFrom("reports").select("status").where("id", "=", reportId).executeTakeFirstOrThrow()).status,
+  ).toBe("submitted");
 }
 
 beforeAll(async () => {
@@ -47,7 +66,9 @@ describe("presigned upload URLs", () => {
     const url = new URL(body.url);
     expect(url.pathname).toBe(`/${bucket}/${body.key}`);
     expect(Number(url.searchParams.get("X-Amz-Expires"))).toBeLessThanOrEqual(600);
-    expect(url.searchParams.get("X-Amz-SignedHeaders")!.split(";")).toEqual(expect.arrayContaining(["content-length", "content-type", "host"]));
+    expect(url.searchParams.get("X-Amz-SignedHeaders")!.split(";")).toEqual(
+      expect.arrayContaining(["content-length", "content-type", "host"]),
+    );
   });
 
   it("refuses another user's draft, forbidden types, oversized files and visitors", async () => {
@@ -63,8 +84,22 @@ describe("presigned upload URLs", () => {
   });
 
   it("refuses uploads to a report that is already submitted", async () => {
-    const submitted = await db.selectFrom("reports").select("id").where("reporter_id", "=", (await db.selectFrom("users").select("id").where("email", "=", "torque-omar@demo.bayproof.test").executeTakeFirstOrThrow()).id)
-      .where("status", "=", "submitted").executeTakeFirstOrThrow();
+    const submitted = await db
+      .selectFrom("reports")
+      .select("id")
+      .where(
+        "reporter_id",
+        "=",
+        (
+          await db
+            .selectFrom("users")
+            .select("id")
+            .where("email", "=", "torque-omar@demo.bayproof.test")
+            .executeTakeFirstOrThrow()
+        ).id,
+      )
+      .where("status", "=", "submitted")
+      .executeTakeFirstOrThrow();
     const res = await presign(stranger, submitted.id, { type: "video/mp4", size: 1000 });
     expect(res.status).toBe(409);
     expect((await res.json()).error).toMatch(/only be added while the report is a draft or returned/);
@@ -83,7 +118,9 @@ describe("presigned upload URLs", () => {
 describe("simultaneous requests", () => {
   it("hands out no more upload URLs than the per-report limit, however many arrive at once", async () => {
     const reportId = await newDraft(owner);
-    const answers = await Promise.all(Array.from({ length: 20 }, () => presign(owner, reportId, { type: "image/png", size: 1000 })));
+    const answers = await Promise.all(
+      Array.from({ length: 20 }, () => presign(owner, reportId, { type: "image/png", size: 1000 })),
+    );
     const statuses = answers.map((r) => r.status);
     expect(statuses.filter((s) => s === 200)).toHaveLength(12); // MAX_EVIDENCE_PER_REPORT
     expect(statuses.filter((s) => s === 409)).toHaveLength(8);
@@ -97,13 +134,19 @@ describe("simultaneous requests", () => {
     const reportId = await newDraft(owner);
     const bytes = tinyPng();
     const signed = await (await presign(owner, reportId, { type: "image/png", size: bytes.length })).json();
-    expect((await fetch(signed.url, { method: "PUT", headers: signed.headers, body: new Uint8Array(bytes) })).status).toBe(200);
+    expect(
+      (await fetch(signed.url, { method: "PUT", headers: signed.headers, body: new Uint8Array(bytes) })).status,
+    ).toBe(200);
     const answers = await Promise.all(Array.from({ length: 5 }, () => complete(owner, signed.evidenceId)));
     expect(answers.map((r) => r.status).sort()).toEqual([200, 409, 409, 409, 409]);
     for (const loser of answers.filter((r) => r.status === 409)) {
       expect((await loser.json()).error).toMatch(/being checked by another request|already checked/);
     }
-    const row = await db.selectFrom("evidence").select(["status", "sha256"]).where("id", "=", signed.evidenceId).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom("evidence")
+      .select(["status", "sha256"])
+      .where("id", "=", signed.evidenceId)
+      .executeTakeFirstOrThrow();
     expect(row.status).toBe("uploaded");
     expect(row.sha256).toBe(createHash("sha256").update(bytes).digest("hex"));
   });
@@ -126,13 +169,19 @@ describe("the completion check", () => {
     expect(check.status).toBe(422);
     expect((await check.json()).error).toMatch(/not a video or photo/);
     expect(await exists(key)).toBe(false);
-    expect(await db.selectFrom("evidence").select("id").where("id", "=", evidenceId).executeTakeFirst()).toBeUndefined();
+    expect(
+      await db.selectFrom("evidence").select("id").where("id", "=", evidenceId).executeTakeFirst(),
+    ).toBeUndefined();
   });
 
   it("takes the type from the bytes, not the claim", async () => {
     const { evidenceId, check } = await upload(owner, draftId, tinyPng(), "video/mp4");
     expect(check.status).toBe(200);
-    const row = await db.selectFrom("evidence").select(["kind", "content_type"]).where("id", "=", evidenceId).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom("evidence")
+      .select(["kind", "content_type"])
+      .where("id", "=", evidenceId)
+      .executeTakeFirstOrThrow();
     expect(row).toEqual({ kind: "photo", content_type: "image/png" });
   });
 
@@ -140,7 +189,9 @@ describe("the completion check", () => {
     const draft = await newDraft(owner);
     await upload(owner, draft, tinyPng(), "image/png"); // so the report has evidence when filed
     const signed = await (await presign(owner, draft, { type: "image/png", size: tinyPng().length })).json();
-    expect((await fetch(signed.url, { method: "PUT", headers: signed.headers, body: new Uint8Array(tinyPng()) })).status).toBe(200);
+    expect(
+      (await fetch(signed.url, { method: "PUT", headers: signed.headers, body: new Uint8Array(tinyPng()) })).status,
+    ).toBe(200);
     await submit(owner, draft);
     const res = await complete(owner, signed.evidenceId);
     expect(res.status).toBe(409);
@@ -168,7 +219,10 @@ describe("a checked file cannot be changed afterwards", () => {
     // Same length and type as signed, so the still-valid URL accepts it: it can only write the upload key.
     const html = Buffer.alloc(png.length, " ");
     html.write("<!doctype html><script>alert(1)</script>");
-    expect((await fetch(url, { method: "PUT", headers: { "Content-Type": "image/png" }, body: new Uint8Array(html) })).status).toBe(200);
+    expect(
+      (await fetch(url, { method: "PUT", headers: { "Content-Type": "image/png" }, body: new Uint8Array(html) }))
+        .status,
+    ).toBe(200);
     const after = await row(evidenceId);
     expect(after.object_key).toBe(checked.object_key);
     expect(await storedSha256(after.object_key)).toBe(checked.sha256);
@@ -176,9 +230,18 @@ describe("a checked file cannot be changed afterwards", () => {
   });
 
   it("is refused by the database when a checked row points into uploads/", async () => {
-    const bad = db.insertInto("evidence").values({
-      report_id: draftId, object_key: `uploads/${draftId}/x`, kind: "photo", status: "uploaded", content_type: "image/png", size_bytes: 10, sha256: "a".repeat(64),
-    }).execute();
+    const bad = db
+      .insertInto("evidence")
+      .values({
+        report_id: draftId,
+        object_key: `uploads/${draftId}/x`,
+        kind: "photo",
+        status: "uploaded",
+        content_type: "image/png",
+        size_bytes: 10,
+        sha256: "a".repeat(64),
+      })
+      .execute();
     await expect(bad).rejects.toThrow(/evidence_checked_not_in_uploads/);
   });
 });
@@ -208,7 +271,9 @@ describe("the object store checks signatures like the hosted one", () => {
     const res = await fetch(tampered, { method: "PUT", headers: signed.headers, body });
     expect(res.status).toBe(403);
     expect(await code(res)).toBe("SignatureDoesNotMatch");
-    expect((await fetch(signed.url, { method: "PUT", headers: { "Content-Type": "text/html" }, body })).status).toBe(403);
+    expect((await fetch(signed.url, { method: "PUT", headers: { "Content-Type": "text/html" }, body })).status).toBe(
+      403,
+    );
     expect(await exists(signed.key)).toBe(false);
   });
 
@@ -218,7 +283,10 @@ describe("the object store checks signatures like the hosted one", () => {
     const fresh = await getSignedUrl(s3, new GetObjectCommand({ Bucket: bucket, Key: key }), { expiresIn: 60 });
     expect((await fetch(fresh)).status).toBe(200);
     // Signed a minute ago for one second, rather than waiting for it to run out.
-    const expired = await getSignedUrl(s3, new GetObjectCommand({ Bucket: bucket, Key: key }), { expiresIn: 1, signingDate: new Date(Date.now() - 60_000) });
+    const expired = await getSignedUrl(s3, new GetObjectCommand({ Bucket: bucket, Key: key }), {
+      expiresIn: 1,
+      signingDate: new Date(Date.now() - 60_000),
+    });
     const res = await fetch(expired);
     expect(res.status).toBe(403);
     expect(await code(res)).toBe("AccessDenied");
@@ -226,7 +294,14 @@ describe("the object store checks signatures like the hosted one", () => {
   });
 
   it("still answers the browser's CORS preflight from the app's origin", async () => {
-    const res = await fetch(objectUrl("uploads/1/x"), { method: "OPTIONS", headers: { Origin: owner.origin, "Access-Control-Request-Method": "PUT", "Access-Control-Request-Headers": "content-type" } });
+    const res = await fetch(objectUrl("uploads/1/x"), {
+      method: "OPTIONS",
+      headers: {
+        Origin: owner.origin,
+        "Access-Control-Request-Method": "PUT",
+        "Access-Control-Request-Headers": "content-type",
+      },
+    });
     expect(res.status).toBe(200);
     expect(res.headers.get("access-control-allow-methods")).toMatch(/PUT/);
   });
@@ -235,7 +310,9 @@ describe("the object store checks signatures like the hosted one", () => {
 describe("publishing a file with the open data", () => {
   it("is off by default and only the reporter can change it", async () => {
     const { evidenceId } = await upload(owner, draftId, tinyPng(), "image/png");
-    const isPublic = async () => (await db.selectFrom("evidence").select("is_public").where("id", "=", evidenceId).executeTakeFirstOrThrow()).is_public;
+    const isPublic = async () =>
+      (await db.selectFrom("evidence").select("is_public").where("id", "=", evidenceId).executeTakeFirstOrThrow())
+        .is_public;
     expect(await isPublic()).toBe(false);
     expect((await publish(owner, evidenceId, { public: true })).status).toBe(200);
     expect(await isPublic()).toBe(true);
@@ -247,10 +324,23 @@ describe("publishing a file with the open data", () => {
     expect(await isPublic()).toBe(false);
 
     // The same from "Your reports", as a plain form (for reports past the form).
-    expect((await owner.post("/me/reports", { intent: "publish-evidence", evidenceId: String(evidenceId), publish: "yes" })).status).toBe(200);
+    expect(
+      (await owner.post("/me/reports", { intent: "publish-evidence", evidenceId: String(evidenceId), publish: "yes" }))
+        .status,
+    ).toBe(200);
     expect(await isPublic()).toBe(true);
-    expect((await stranger.post("/me/reports", { intent: "publish-evidence", evidenceId: String(evidenceId), publish: "no" })).status).toBe(404);
-    expect((await owner.post("/me/reports", { intent: "publish-evidence", evidenceId: "x", publish: "no" })).status).toBe(400);
+    expect(
+      (
+        await stranger.post("/me/reports", {
+          intent: "publish-evidence",
+          evidenceId: String(evidenceId),
+          publish: "no",
+        })
+      ).status,
+    ).toBe(404);
+    expect(
+      (await owner.post("/me/reports", { intent: "publish-evidence", evidenceId: "x", publish: "no" })).status,
+    ).toBe(400);
     expect(await isPublic()).toBe(true);
   });
 });
@@ -275,10 +365,16 @@ describe("clean-up of orphaned objects", () => {
     const { removeOrphanedEvidence } = await import("../../app/reports/evidence.server");
     const draft = await newDraft(owner);
     const { key, evidenceId } = await upload(owner, draft, tinyMp4(512), "video/mp4");
-    await db.updateTable("evidence").set({ created_at: new Date(Date.now() - 25 * 3600_000) }).where("id", "=", evidenceId).execute();
+    await db
+      .updateTable("evidence")
+      .set({ created_at: new Date(Date.now() - 25 * 3600_000) })
+      .where("id", "=", evidenceId)
+      .execute();
     const removed = await removeOrphanedEvidence(db);
     expect(removed).toBeGreaterThanOrEqual(1);
     expect(await exists(key)).toBe(false);
-    expect(await db.selectFrom("evidence").select("id").where("id", "=", evidenceId).executeTakeFirst()).toBeUndefined();
+    expect(
+      await db.selectFrom("evidence").select("id").where("id", "=", evidenceId).executeTakeFirst(),
+    ).toBeUndefined();
   });
 });

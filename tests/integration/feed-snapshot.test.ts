@@ -32,8 +32,12 @@ const file = (format: "ndjson" | "csv") => snapshot.files.find((f) => f.format =
 describe("the daily snapshot", () => {
   it("holds every report accepted as of its time, one NDJSON line each, and its published SHA-256 and size", async () => {
     const lines = gunzipSync(ndjson).toString("utf8").split("\n").filter(Boolean);
-    const accepted = await db.selectFrom("reports").select(sql<number>`count(*)::int`.as("n"))
-      .where("status", "=", "accepted").where("accepted_at", "<=", new Date(snapshot.createdAt)).executeTakeFirstOrThrow();
+    const accepted = await db
+      .selectFrom("reports")
+      .select(sql<number>`count(*)::int`.as("n"))
+      .where("status", "=", "accepted")
+      .where("accepted_at", "<=", new Date(snapshot.createdAt))
+      .executeTakeFirstOrThrow();
     expect(lines.length).toBe(accepted.n);
     expect(lines.length).toBe(snapshot.reportCount);
     expect(ndjson.length).toBe(file("ndjson").bytes);
@@ -51,8 +55,21 @@ describe("the daily snapshot", () => {
     expect(createHash("sha256").update(body).digest("hex")).toBe(file("csv").sha256);
     const text = gunzipSync(body).toString("utf8");
     expect(text.split("\r\n")[0]).toBe(REPORT_FIELDS.map((f) => f.name).join(","));
-    const ids = new Set(gunzipSync(ndjson).toString("utf8").split("\n").filter(Boolean).map((l) => String(JSON.parse(l).id)));
-    const csvIds = new Set(text.split("\r\n").slice(1).filter(Boolean).map((l) => l.split(",")[0]!).filter((v) => /^\d+$/.test(v)));
+    const ids = new Set(
+      gunzipSync(ndjson)
+        .toString("utf8")
+        .split("\n")
+        .filter(Boolean)
+        .map((l) => String(JSON.parse(l).id)),
+    );
+    const csvIds = new Set(
+      text
+        .split("\r\n")
+        .slice(1)
+        .filter(Boolean)
+        .map((l) => l.split(",")[0]!)
+        .filter((v) => /^\d+$/.test(v)),
+    );
     for (const id of ids) expect(csvIds.has(id), id).toBe(true);
   });
 
@@ -102,7 +119,12 @@ describe("the daily snapshot", () => {
   it("is on /data with sizes and SHA-256, and the latest one downloads without a key", async () => {
     const html = await (await get("/data")).text();
     expect(html).toContain("Daily snapshot");
-    const latest = await db.selectFrom("feed_snapshots").select(["ndjson_sha256"]).orderBy("created_at", "desc").orderBy("id", "desc").executeTakeFirstOrThrow();
+    const latest = await db
+      .selectFrom("feed_snapshots")
+      .select(["ndjson_sha256"])
+      .orderBy("created_at", "desc")
+      .orderBy("id", "desc")
+      .executeTakeFirstOrThrow();
     expect(html).toContain(latest.ndjson_sha256);
     const res = await get("/api/v1/snapshots/latest/reports.csv.gz");
     expect(res.status).toBe(200);
@@ -110,7 +132,11 @@ describe("the daily snapshot", () => {
   });
 
   it("refuses malformed snapshot paths with a 404 that says why", async () => {
-    for (const path of ["/api/v1/snapshots/abc/reports.ndjson.gz", "/api/v1/snapshots/latest/reports.zip", "/api/v1/snapshots/999999999/reports.csv.gz"]) {
+    for (const path of [
+      "/api/v1/snapshots/abc/reports.ndjson.gz",
+      "/api/v1/snapshots/latest/reports.zip",
+      "/api/v1/snapshots/999999999/reports.csv.gz",
+    ]) {
       const res = await get(path);
       expect(res.status, path).toBe(404);
       expect((await res.json()).error.message).toBeTruthy();
@@ -121,7 +147,11 @@ describe("the daily snapshot", () => {
     const deadline = Date.now() + 60_000;
     let done = 0;
     while (Date.now() < deadline) {
-      done = (await sql<{ n: number }>`select count(*)::int as n from pgboss.job where name = 'feed-snapshot' and state = 'completed'`.execute(db)).rows[0]!.n;
+      done = (
+        await sql<{
+          n: number;
+        }>`select count(*)::int as n from pgboss.job where name = 'feed-snapshot' and state = 'completed'`.execute(db)
+      ).rows[0]!.n;
       if (done > 0) break;
       await new Promise((r) => setTimeout(r, 500));
     }
@@ -130,8 +160,13 @@ describe("the daily snapshot", () => {
 
   it("the database refuses a snapshot row with a malformed SHA-256 or an empty file", async () => {
     const good = {
-      report_count: 1, ndjson_key: `snapshots/test-${Date.now()}/reports.ndjson.gz`, ndjson_bytes: 10, ndjson_sha256: "a".repeat(64),
-      csv_key: `snapshots/test-${Date.now()}/reports.csv.gz`, csv_bytes: 10, csv_sha256: "b".repeat(64),
+      report_count: 1,
+      ndjson_key: `snapshots/test-${Date.now()}/reports.ndjson.gz`,
+      ndjson_bytes: 10,
+      ndjson_sha256: "a".repeat(64),
+      csv_key: `snapshots/test-${Date.now()}/reports.csv.gz`,
+      csv_bytes: 10,
+      csv_sha256: "b".repeat(64),
     };
     const tryInsert = async (row: typeof good) => {
       try {

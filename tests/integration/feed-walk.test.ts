@@ -11,7 +11,11 @@ const added: number[] = [];
 let get: ReturnType<typeof feedClient>;
 
 beforeAll(async () => {
-  const user = await db.selectFrom("users").select("id").where("email", "=", "reporter@demo.bayproof.test").executeTakeFirstOrThrow();
+  const user = await db
+    .selectFrom("users")
+    .select("id")
+    .where("email", "=", "reporter@demo.bayproof.test")
+    .executeTakeFirstOrThrow();
   get = feedClient(undefined, await createApiKey(db, user.id, "walk tests"));
 });
 afterAll(async () => {
@@ -21,11 +25,28 @@ afterAll(async () => {
 
 /** Accepts a copy of an existing accepted report, at `at` (now by default). */
 async function acceptOne(at: Date | null = null) {
-  const { id: _id, created_at: _c, updated_at: _u, ...row } = await db.selectFrom("reports").selectAll()
-    .where("status", "=", "accepted").orderBy("id").limit(1).executeTakeFirstOrThrow();
-  const { id } = await db.insertInto("reports")
-    .values({ ...row, notes: "Accepted during a feed walk (test)", accepted_at: at ?? sql<Date>`now()` as never, decided_at: sql`now()` as never })
-    .returning("id").executeTakeFirstOrThrow();
+  const {
+    id: _id,
+    created_at: _c,
+    updated_at: _u,
+    ...row
+  } = await db
+    .selectFrom("reports")
+    .selectAll()
+    .where("status", "=", "accepted")
+    .orderBy("id")
+    .limit(1)
+    .executeTakeFirstOrThrow();
+  const { id } = await db
+    .insertInto("reports")
+    .values({
+      ...row,
+      notes: "Accepted during a feed walk (test)",
+      accepted_at: at ?? (sql<Date>`now()` as never),
+      decided_at: sql`now()` as never,
+    })
+    .returning("id")
+    .executeTakeFirstOrThrow();
   added.push(id);
   return id;
 }
@@ -59,10 +80,18 @@ async function walk(query: string, between?: (page: number, asOf: string) => Pro
 
 /** The reports the walk should hold; the horizon has microseconds, which a JS Date would drop. */
 const expected = async (asOf: string, job?: string) =>
-  (await db.selectFrom("reports as r").innerJoin("job_types as j", "j.id", "r.job_type_id").select("r.id")
-    .where("r.status", "=", "accepted").where(sql<boolean>`r.accepted_at <= ${asOf}::timestamptz`)
-    .$if(!!job, (q) => q.where("j.slug", "=", job!))
-    .orderBy("r.accepted_at").orderBy("r.id").execute()).map((r) => r.id);
+  (
+    await db
+      .selectFrom("reports as r")
+      .innerJoin("job_types as j", "j.id", "r.job_type_id")
+      .select("r.id")
+      .where("r.status", "=", "accepted")
+      .where(sql<boolean>`r.accepted_at <= ${asOf}::timestamptz`)
+      .$if(!!job, (q) => q.where("j.slug", "=", job!))
+      .orderBy("r.accepted_at")
+      .orderBy("r.id")
+      .execute()
+  ).map((r) => r.id);
 
 describe("cursor pagination", () => {
   it("returns every report once while others are accepted between pages", async () => {
@@ -88,12 +117,27 @@ describe("cursor pagination", () => {
   });
 
   it("filters by accepted time: since inclusive, until exclusive", async () => {
-    const edges = await db.selectFrom("reports").select("accepted_at").where("status", "=", "accepted").orderBy("accepted_at").orderBy("id").execute();
+    const edges = await db
+      .selectFrom("reports")
+      .select("accepted_at")
+      .where("status", "=", "accepted")
+      .orderBy("accepted_at")
+      .orderBy("id")
+      .execute();
     const since = new Date(edges[100]!.accepted_at!);
     const until = new Date(edges[400]!.accepted_at!);
     const { ids } = await walk(`limit=120&accepted_since=${since.toISOString()}&accepted_until=${until.toISOString()}`);
-    const want = (await db.selectFrom("reports").select("id").where("status", "=", "accepted")
-      .where("accepted_at", ">=", since).where("accepted_at", "<", until).orderBy("accepted_at").orderBy("id").execute()).map((r) => r.id);
+    const want = (
+      await db
+        .selectFrom("reports")
+        .select("id")
+        .where("status", "=", "accepted")
+        .where("accepted_at", ">=", since)
+        .where("accepted_at", "<", until)
+        .orderBy("accepted_at")
+        .orderBy("id")
+        .execute()
+    ).map((r) => r.id);
     expect(want.length).toBeGreaterThan(250);
     expect(ids).toEqual(want);
   });

@@ -17,7 +17,13 @@ let get: ReturnType<typeof feedClient>;
 
 beforeAll(async () => {
   check = await publishedSchemas();
-  userId = (await db.selectFrom("users").select("id").where("email", "=", "reporter@demo.bayproof.test").executeTakeFirstOrThrow()).id;
+  userId = (
+    await db
+      .selectFrom("users")
+      .select("id")
+      .where("email", "=", "reporter@demo.bayproof.test")
+      .executeTakeFirstOrThrow()
+  ).id;
   key = await createApiKey(db, userId, "feed tests");
   get = feedClient(undefined, key);
 });
@@ -49,15 +55,32 @@ describe("each endpoint's answer matches its published JSON Schema", () => {
     const stats = await json("/api/v1/stats");
     expect(check("stat-list", stats)).toEqual([]);
     expect(stats.data.some((s: { pressure_adjusted: unknown }) => s.pressure_adjusted !== null)).toBe(true);
-    expect(stats.data.some((s: { pressure_adjusted: unknown; pressure_adjusted_reason: unknown }) => s.pressure_adjusted === null && s.pressure_adjusted_reason)).toBe(true);
+    expect(
+      stats.data.some(
+        (s: { pressure_adjusted: unknown; pressure_adjusted_reason: unknown }) =>
+          s.pressure_adjusted === null && s.pressure_adjusted_reason,
+      ),
+    ).toBe(true);
   });
 
   it("stats agree with the stored cells", async () => {
-    const row = await db.selectFrom("stats_cells as s").innerJoin("tool_models as m", "m.id", "s.tool_model_id").innerJoin("job_types as j", "j.id", "s.job_type_id")
-      .select(["m.slug as model", "j.slug as job", "s.n", "s.successes", "s.lower", "s.upper"]).orderBy("s.n", "desc").executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom("stats_cells as s")
+      .innerJoin("tool_models as m", "m.id", "s.tool_model_id")
+      .innerJoin("job_types as j", "j.id", "s.job_type_id")
+      .select(["m.slug as model", "j.slug as job", "s.n", "s.successes", "s.lower", "s.upper"])
+      .orderBy("s.n", "desc")
+      .executeTakeFirstOrThrow();
     const { data } = await json(`/api/v1/stats?model=${row.model}&job=${row.job}`);
     expect(data).toHaveLength(1);
-    expect(data[0]).toMatchObject({ n: row.n, successes: row.successes, lower: row.lower, upper: row.upper, method: "wilson_score", confidence: 0.95 });
+    expect(data[0]).toMatchObject({
+      n: row.n,
+      successes: row.successes,
+      lower: row.lower,
+      upper: row.upper,
+      method: "wilson_score",
+      confidence: 0.95,
+    });
   });
 
   it("errors", async () => {
@@ -71,17 +94,23 @@ describe("each endpoint's answer matches its published JSON Schema", () => {
     const nd = await withKey("/api/v1/reports.ndjson");
     expect(nd.status).toBe(200);
     expect(nd.headers.get("content-type")).toMatch(/^application\/x-ndjson/);
-    expect(nd.headers.get("content-disposition")).toMatch(/^attachment; filename="bayproof-reports-\d{4}-\d{2}-\d{2}\.ndjson"$/);
+    expect(nd.headers.get("content-disposition")).toMatch(
+      /^attachment; filename="bayproof-reports-\d{4}-\d{2}-\d{2}\.ndjson"$/,
+    );
     const text = await nd.text();
     expect(text.endsWith("\n")).toBe(true);
-    const lines = text.trimEnd().split("\n").map((l) => JSON.parse(l));
+    const lines = text
+      .trimEnd()
+      .split("\n")
+      .map((l) => JSON.parse(l));
     const accepted = await db.selectFrom("reports").select(["id"]).where("status", "=", "accepted").execute();
     expect(lines.length).toBeGreaterThanOrEqual(accepted.length);
     for (const line of lines.slice(0, 300)) expect(check("report", line)).toEqual([]);
     const ids = lines.map((l) => l.id);
     expect(new Set(ids).size).toBe(ids.length);
     // The same report reads the same in the file and from /api/v1/reports/{id}.
-    for (const line of [lines[0], lines[Math.floor(lines.length / 2)], lines.at(-1)]) expect(await json(`/api/v1/reports/${line.id}`)).toEqual(line);
+    for (const line of [lines[0], lines[Math.floor(lines.length / 2)], lines.at(-1)])
+      expect(await json(`/api/v1/reports/${line.id}`)).toEqual(line);
     const withLinks = lines.find((l) => l.evidence_urls.length > 0);
     expect(await json(`/api/v1/reports/${withLinks.id}`)).toEqual(withLinks);
 
@@ -116,14 +145,25 @@ describe("privacy", () => {
     expect(text).not.toMatch(/@demo\.bayproof\.test|@[a-z0-9-]+\.[a-z]{2,}/i);
     const handles = await db.selectFrom("users").select(["handle", "feed_pseudonym", "id"]).execute();
     for (const h of handles) expect(text).not.toContain(`"${h.handle}"`);
-    const records = text.trimEnd().split("\n").map((l) => JSON.parse(l));
-    const owners = await db.selectFrom("reports").select(["id", "reporter_id"]).where("status", "=", "accepted").execute();
+    const records = text
+      .trimEnd()
+      .split("\n")
+      .map((l) => JSON.parse(l));
+    const owners = await db
+      .selectFrom("reports")
+      .select(["id", "reporter_id"])
+      .where("status", "=", "accepted")
+      .execute();
     const pseudonymOf = new Map(handles.map((h) => [h.id, h.feed_pseudonym]));
     const ownerOf = new Map(owners.map((o) => [o.id, o.reporter_id]));
     for (const r of records) expect(r.reporter).toBe(pseudonymOf.get(ownerOf.get(r.id)!));
 
-    const evidence = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id")
-      .select(["e.id", "e.report_id", "e.is_public", "e.status"]).where("r.status", "=", "accepted").execute();
+    const evidence = await db
+      .selectFrom("evidence as e")
+      .innerJoin("reports as r", "r.id", "e.report_id")
+      .select(["e.id", "e.report_id", "e.is_public", "e.status"])
+      .where("r.status", "=", "accepted")
+      .execute();
     const counted = evidence.filter((e) => e.status === "uploaded" || e.status === "verified");
     const published = counted.filter((e) => e.is_public);
     expect(published.length).toBeGreaterThan(0);
@@ -134,10 +174,23 @@ describe("privacy", () => {
   });
 
   it("a published file redirects to a short-lived link; an unpublished one is a 404", async () => {
-    const [pub] = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id").select("e.id")
-      .where("r.status", "=", "accepted").where("e.is_public", "=", true).where("e.status", "in", ["uploaded", "verified"]).limit(1).execute();
-    const [priv] = await db.selectFrom("evidence as e").innerJoin("reports as r", "r.id", "e.report_id").select("e.id")
-      .where("r.status", "=", "accepted").where("e.is_public", "=", false).limit(1).execute();
+    const [pub] = await db
+      .selectFrom("evidence as e")
+      .innerJoin("reports as r", "r.id", "e.report_id")
+      .select("e.id")
+      .where("r.status", "=", "accepted")
+      .where("e.is_public", "=", true)
+      .where("e.status", "in", ["uploaded", "verified"])
+      .limit(1)
+      .execute();
+    const [priv] = await db
+      .selectFrom("evidence as e")
+      .innerJoin("reports as r", "r.id", "e.report_id")
+      .select("e.id")
+      .where("r.status", "=", "accepted")
+      .where("e.is_public", "=", false)
+      .limit(1)
+      .execute();
     const ok = await get(`/api/v1/evidence/${pub!.id}`);
     expect(ok.status).toBe(302);
     expect(ok.headers.get("location")).toMatch(/X-Amz-Expires=600/);
@@ -147,7 +200,13 @@ describe("privacy", () => {
 
 describe("HTTP", () => {
   it("sends an ETag on every JSON answer and 304 when it is sent back", async () => {
-    for (const path of ["/api/v1/models", "/api/v1/reports?limit=5", "/api/v1/stats?job=ball-joint-separation", "/api/v1/schema/report.json", "/api/v1/openapi.json"]) {
+    for (const path of [
+      "/api/v1/models",
+      "/api/v1/reports?limit=5",
+      "/api/v1/stats?job=ball-joint-separation",
+      "/api/v1/schema/report.json",
+      "/api/v1/openapi.json",
+    ]) {
       const first = await get(path);
       const etag = first.headers.get("etag");
       expect(etag, path).toMatch(/^"[A-Za-z0-9_-]{32}"$/);
@@ -161,7 +220,10 @@ describe("HTTP", () => {
   });
 
   it("answers HEAD like GET, without a body", async () => {
-    const res = await fetch(new URL("/api/v1/models", (await import("../support/http")).baseUrl()), { method: "HEAD", headers: { authorization: `Bearer ${key}` } });
+    const res = await fetch(new URL("/api/v1/models", (await import("../support/http")).baseUrl()), {
+      method: "HEAD",
+      headers: { authorization: `Bearer ${key}` },
+    });
     expect(res.status).toBe(200);
     expect(res.headers.get("etag")).toMatch(/^"/);
     expect(await res.text()).toBe("");
@@ -172,7 +234,12 @@ describe("HTTP", () => {
     expect(res.headers.get("access-control-allow-origin")).toBe("*");
     expect(res.headers.get("access-control-expose-headers")).toMatch(/ETag.*RateLimit/);
     const pre = await fetch(new URL("/api/v1/reports", (await import("../support/http")).baseUrl()), {
-      method: "OPTIONS", headers: { origin: "https://example.org", "access-control-request-method": "GET", "access-control-request-headers": "authorization" },
+      method: "OPTIONS",
+      headers: {
+        origin: "https://example.org",
+        "access-control-request-method": "GET",
+        "access-control-request-headers": "authorization",
+      },
     });
     expect(pre.status).toBe(204);
     expect(pre.headers.get("access-control-allow-headers")).toMatch(/Authorization/);
@@ -208,7 +275,11 @@ describe("rate limits and API keys", () => {
     expect(ok.status).toBe(200);
     expect(ok.headers.get("ratelimit-policy")).toBe('"key";q=600;w=60');
     expect(ok.headers.get("ratelimit")).toMatch(/^"key";r=599;t=\d+$/);
-    const { id } = await db.selectFrom("api_keys").select("id").where("name", "=", "to revoke").executeTakeFirstOrThrow();
+    const { id } = await db
+      .selectFrom("api_keys")
+      .select("id")
+      .where("name", "=", "to revoke")
+      .executeTakeFirstOrThrow();
     expect(await revokeApiKey(db, userId, id)).toBe(true);
     const revoked = await withKey("/api/v1/models");
     expect(revoked.status).toBe(401);
@@ -219,8 +290,11 @@ describe("rate limits and API keys", () => {
   });
 
   it("stops the keys of a banned account", async () => {
-    const { id } = await db.insertInto("users").values({ email: `feed-ban-${Date.now()}@demo.bayproof.test`, handle: `feed-ban-${Date.now() % 1e8}` })
-      .returning("id").executeTakeFirstOrThrow();
+    const { id } = await db
+      .insertInto("users")
+      .values({ email: `feed-ban-${Date.now()}@demo.bayproof.test`, handle: `feed-ban-${Date.now() % 1e8}` })
+      .returning("id")
+      .executeTakeFirstOrThrow();
     const banned = await createApiKey(db, id, "soon banned");
     const client = feedClient("198.51.100.9", banned);
     expect((await client("/api/v1")).status).toBe(200);
@@ -258,9 +332,15 @@ describe("bad input is a 400 naming the parameter", () => {
     const state = JSON.parse(Buffer.from(payload, "base64url").toString());
     state[2] = 1; // jump to another report
     const forged = `${Buffer.from(JSON.stringify(state)).toString("base64url")}.${mac}`;
-    expect((await json(`/api/v1/reports?limit=2&job=ball-joint-separation&cursor=${forged}`, 400)).error.code).toBe("invalid_cursor");
-    expect((await json(`/api/v1/reports?limit=2&job=tie-rod-end-release&cursor=${page.next_cursor}`, 400)).error.code).toBe("cursor_mismatch");
-    expect((await json(`/api/v1/reports?limit=7&job=ball-joint-separation&cursor=${page.next_cursor}`)).data).toHaveLength(7);
+    expect((await json(`/api/v1/reports?limit=2&job=ball-joint-separation&cursor=${forged}`, 400)).error.code).toBe(
+      "invalid_cursor",
+    );
+    expect(
+      (await json(`/api/v1/reports?limit=2&job=tie-rod-end-release&cursor=${page.next_cursor}`, 400)).error.code,
+    ).toBe("cursor_mismatch");
+    expect(
+      (await json(`/api/v1/reports?limit=7&job=ball-joint-separation&cursor=${page.next_cursor}`)).data,
+    ).toHaveLength(7);
   });
 });
 
@@ -274,7 +354,10 @@ describe("documentation", () => {
     (await import("ajv-formats")).default(ajv);
     ajv.addSchema(doc, "openapi");
     const answers: Record<string, string> = {
-      "/api/v1/reports": "report-page", "/api/v1/models": "model-list", "/api/v1/job-types": "job-type-list", "/api/v1/stats": "stat-list",
+      "/api/v1/reports": "report-page",
+      "/api/v1/models": "model-list",
+      "/api/v1/job-types": "job-type-list",
+      "/api/v1/stats": "stat-list",
     };
     for (const path of Object.keys(doc.paths)) {
       if (path.includes("{")) continue;
@@ -298,7 +381,11 @@ describe("documentation", () => {
     const TABLE_TYPES = ["string", "number", "integer", "boolean", "datetime", "array", "object"];
     for (const f of csvResource.schema.fields) expect(TABLE_TYPES).toContain(f.type);
     const inlet = csvResource.schema.fields.find((f: { name: string }) => f.name === "inlet_kpa");
-    expect(inlet).toMatchObject({ type: "number", unit: "kPa", constraints: { required: true, minimum: 0, maximum: 2000 } });
+    expect(inlet).toMatchObject({
+      type: "number",
+      unit: "kPa",
+      constraints: { required: true, minimum: 0, maximum: 2000 },
+    });
     expect(csvResource.schema.primaryKey).toEqual(["id"]);
   });
 
@@ -306,7 +393,18 @@ describe("documentation", () => {
     const res = await get("/data");
     expect(res.status).toBe(200);
     const html = await res.text();
-    for (const text of ["Data dictionary", "SI units", "CC BY 4.0", "curl -s", "Cite it as", "inlet_kpa", "kPa", "evidence_urls", "pressure_adjusted.estimate", "rp_"]) {
+    for (const text of [
+      "Data dictionary",
+      "SI units",
+      "CC BY 4.0",
+      "curl -s",
+      "Cite it as",
+      "inlet_kpa",
+      "kPa",
+      "evidence_urls",
+      "pressure_adjusted.estimate",
+      "rp_",
+    ]) {
       expect(html, text).toContain(text);
     }
   });
@@ -315,9 +413,16 @@ describe("documentation", () => {
 describe("the published contract", () => {
   it("documents 400, 401 and 429 with the error schema on every operation", async () => {
     const doc = await json("/api/v1/openapi.json");
-    for (const [path, item] of Object.entries(doc.paths as Record<string, { get: { responses: Record<string, { content?: Record<string, { schema: unknown }> }> } }>)) {
+    for (const [path, item] of Object.entries(
+      doc.paths as Record<
+        string,
+        { get: { responses: Record<string, { content?: Record<string, { schema: unknown }> }> } }
+      >,
+    )) {
       for (const status of ["400", "401", "429"]) {
-        expect(item.get.responses[status]?.content?.["application/json"]?.schema, `${path} ${status}`).toEqual({ $ref: "#/components/schemas/error" });
+        expect(item.get.responses[status]?.content?.["application/json"]?.schema, `${path} ${status}`).toEqual({
+          $ref: "#/components/schemas/error",
+        });
       }
     }
   });
@@ -339,7 +444,9 @@ describe("the published contract", () => {
       }
       for (const value of ["last tuesday", "2026-13-01", "2026-12-01T08:00:00"]) {
         expect(validate(value), value).toBe(false);
-        expect((await json(`/api/v1/reports?${name}=${encodeURIComponent(value)}`, 400)).error.parameter, value).toBe(name);
+        expect((await json(`/api/v1/reports?${name}=${encodeURIComponent(value)}`, 400)).error.parameter, value).toBe(
+          name,
+        );
       }
     }
   });

@@ -12,14 +12,20 @@ afterAll(() => db.destroy());
 
 beforeAll(async () => {
   const email = `refusals-${process.pid}-${Date.now()}@demo.bayproof.test`;
-  await db.insertInto("users").values({ email, handle: `refusals-${Date.now() % 1e8}` }).execute();
+  await db
+    .insertInto("users")
+    .values({ email, handle: `refusals-${Date.now() % 1e8}` })
+    .execute();
   reporter = await signedInAs(db, email);
   admin = await signedInAs(db, "admin@demo.bayproof.test");
 });
 
 const post = (path: string, body: BodyInit, type?: string, extra: RequestInit = {}) =>
   fetch(new URL(path, baseUrl()), {
-    method: "POST", redirect: "manual", body, ...extra,
+    method: "POST",
+    redirect: "manual",
+    body,
+    ...extra,
     headers: { origin: baseUrl(), ...(type ? { "content-type": type } : {}) },
   });
 
@@ -45,7 +51,11 @@ describe("request body limits", () => {
   });
 
   it("answers JSON under /api/", async () => {
-    const res = await post("/api/evidence/1/publish", JSON.stringify({ public: "x".repeat(20 * 1024) }), "application/json");
+    const res = await post(
+      "/api/evidence/1/publish",
+      JSON.stringify({ public: "x".repeat(20 * 1024) }),
+      "application/json",
+    );
     expect(res.status).toBe(413);
     expect((await res.json()).error.code).toBe("body_too_large");
   });
@@ -62,7 +72,11 @@ describe("request body limits", () => {
 
 describe("bodies that are not forms", () => {
   it("refuses JSON and plain text on a form route with 415 and a reason", async () => {
-    for (const [body, type] of [[JSON.stringify({ email: "a@b.example" }), "application/json"], ["email=a@b.example", "text/plain"], ["email=x", undefined]] as const) {
+    for (const [body, type] of [
+      [JSON.stringify({ email: "a@b.example" }), "application/json"],
+      ["email=a@b.example", "text/plain"],
+      ["email=x", undefined],
+    ] as const) {
       const res = await post("/sign-in", body, type);
       expect(res.status, String(type)).toBe(415);
       expect(await res.text()).toMatch(/application\/x-www-form-urlencoded or multipart\/form-data/);
@@ -70,7 +84,11 @@ describe("bodies that are not forms", () => {
   });
 
   it("refuses a malformed multipart body with 400", async () => {
-    const res = await post("/sign-in", "--cut\r\nContent-Disposition: form-data; name=\"email\"\r\n\r\nno end", "multipart/form-data; boundary=cut");
+    const res = await post(
+      "/sign-in",
+      '--cut\r\nContent-Disposition: form-data; name="email"\r\n\r\nno end',
+      "multipart/form-data; boundary=cut",
+    );
     expect(res.status).toBe(400);
   });
 
@@ -91,7 +109,12 @@ describe("ids", () => {
   });
 
   it("refuses a loose id in a field or search param with 400", async () => {
-    const target = await db.selectFrom("users").select("id").where("email", "like", "refusals-%").orderBy("id", "desc").executeTakeFirstOrThrow();
+    const target = await db
+      .selectFrom("users")
+      .select("id")
+      .where("email", "like", "refusals-%")
+      .orderBy("id", "desc")
+      .executeTakeFirstOrThrow();
     for (const userId of ["0x10", "2147483648", "1e1", ` ${target.id}`]) {
       const res = await admin.post("/admin/users", { intent: "grant", userId, role: "moderator" });
       expect(res.status, userId).toBe(400);
@@ -105,7 +128,11 @@ describe("ids", () => {
 
 describe("control characters", () => {
   it("refuses NUL in the report form with a field message, keeping what was typed", async () => {
-    const res = await reporter.post("/reports/new", { ...validReport(), notes: "Soaked\u0000 overnight", attachment: "fork\u0007" });
+    const res = await reporter.post("/reports/new", {
+      ...validReport(),
+      notes: "Soaked\u0000 overnight",
+      attachment: "fork\u0007",
+    });
     expect(res.status).toBe(400);
     const html = await res.text();
     expect(html).toMatch(/Leave out invisible control characters/);
@@ -116,9 +143,19 @@ describe("control characters", () => {
     const key = await reporter.post("/account", { intent: "create-key", name: "bench\u0000key" });
     expect(key.status).toBe(400);
     expect(await key.text()).toMatch(/Leave out invisible control characters/);
-    const signIn = await post("/sign-in", new URLSearchParams({ email: "a\u0000@b.example" }).toString(), "application/x-www-form-urlencoded");
+    const signIn = await post(
+      "/sign-in",
+      new URLSearchParams({ email: "a\u0000@b.example" }).toString(),
+      "application/x-www-form-urlencoded",
+    );
     expect(signIn.status).toBe(400);
-    const review = await admin.post("/review/1", { action: "return", reasonCode: "gauge_unreadable", note: "look\u0000", version: "1", seenDecisions: "0" });
+    const review = await admin.post("/review/1", {
+      action: "return",
+      reasonCode: "gauge_unreadable",
+      note: "look\u0000",
+      version: "1",
+      seenDecisions: "0",
+    });
     expect(review.status).toBe(400);
     expect(await review.text()).toMatch(/Leave out invisible control characters/);
   });
@@ -130,7 +167,9 @@ describe("control characters", () => {
     const suggest = await fetch(new URL("/api/models/suggest?q=%00", baseUrl()));
     expect(suggest.status).toBe(400);
     expect((await suggest.json()).error.code).toBe("invalid_parameter");
-    const feed = await fetch(new URL("/api/v1/reports?model=%00", baseUrl()), { headers: { "x-forwarded-for": "203.0.113.250" } });
+    const feed = await fetch(new URL("/api/v1/reports?model=%00", baseUrl()), {
+      headers: { "x-forwarded-for": "203.0.113.250" },
+    });
     expect(feed.status).toBe(400);
     expect((await feed.json()).error.parameter).toBe("model");
   });

@@ -21,7 +21,13 @@ let admin: Browserish;
 const flags: string[] = [];
 
 beforeAll(async () => {
-  boss = new PgBoss({ connectionString: inject("databaseUrl"), schema: "pgboss", supervise: false, schedule: false, max: 2 });
+  boss = new PgBoss({
+    connectionString: inject("databaseUrl"),
+    schema: "pgboss",
+    supervise: false,
+    schedule: false,
+    max: 2,
+  });
   await boss.start();
   moderator = await signedInAs(db, "moderator@demo.bayproof.test");
   admin = await signedInAs(db, "admin@demo.bayproof.test");
@@ -63,15 +69,22 @@ interface JobRow {
   output: { message?: string } | null;
 }
 const jobsOf = async (decisionId: number) =>
-  (await sql<JobRow>`select id, state::text as state, retry_limit, retry_delay, retry_backoff, retry_count, output,
+  (
+    await sql<JobRow>`select id, state::text as state, retry_limit, retry_delay, retry_backoff, retry_count, output,
       extract(epoch from expire_in)::int as expire_seconds, extract(epoch from keep_until - created_on)::int as retention_seconds
-    from pgboss.job where name = 'decision-mail' and data->>'decisionId' = ${String(decisionId)} order by created_on`.execute(db)).rows;
+    from pgboss.job where name = 'decision-mail' and data->>'decisionId' = ${String(decisionId)} order by created_on`.execute(
+      db,
+    )
+  ).rows;
 
 /** A new reporter's report, returned by a moderator: the decision whose mail we follow. */
 async function returnedReport() {
   const stamp = `${Date.now()}${Math.floor(Math.random() * 1000)}`;
   const email = `mail-test-${stamp}@demo.bayproof.test`;
-  await db.insertInto("users").values({ email, handle: `mailtest-${stamp.slice(-9)}` }).execute();
+  await db
+    .insertInto("users")
+    .values({ email, handle: `mailtest-${stamp.slice(-9)}` })
+    .execute();
   const reporter = await signedInAs(db, email);
   const filed = await reporter.post("/reports/new", validReport());
   const reportId = Number(filed.headers.get("location")!.match(/submitted=(\d+)/)![1]);
@@ -81,10 +94,19 @@ async function returnedReport() {
 async function decideReturn(reportId: number) {
   const r = await db.selectFrom("reports").select("version").where("id", "=", reportId).executeTakeFirstOrThrow();
   const res = await moderator.post(`/review/${reportId}`, {
-    version: String(r.version), seenDecisions: "0", action: "return", reasonCode: "gauge_unreadable", note: "Film the inlet gauge.",
+    version: String(r.version),
+    seenDecisions: "0",
+    action: "return",
+    reasonCode: "gauge_unreadable",
+    note: "Film the inlet gauge.",
   });
   expect(res.status).toBe(200);
-  const d = await db.selectFrom("decisions").select("id").where("report_id", "=", reportId).where("action", "=", "return").executeTakeFirstOrThrow();
+  const d = await db
+    .selectFrom("decisions")
+    .select("id")
+    .where("report_id", "=", reportId)
+    .where("action", "=", "return")
+    .executeTakeFirstOrThrow();
   return d.id;
 }
 
@@ -93,12 +115,22 @@ describe("decision mail with the relay down", () => {
     const { email, reportId } = await returnedReport();
     relayDownFor(email);
     const decisionId = await decideReturn(reportId);
-    const job = await until("a failed first attempt", async () => (await jobsOf(decisionId)).find((j) => j.state === "retry" && j.output?.message));
+    const job = await until("a failed first attempt", async () =>
+      (await jobsOf(decisionId)).find((j) => j.state === "retry" && j.output?.message),
+    );
     expect(job.output!.message).toMatch(/451|Try again later/);
     // The options pg-boss stored on the job (app/jobs/queue.server.ts MAIL_RETRY).
-    expect(job).toMatchObject({ retry_limit: 15, retry_delay: 3, retry_backoff: true, expire_seconds: 300, retention_seconds: 7 * 86400 });
+    expect(job).toMatchObject({
+      retry_limit: 15,
+      retry_delay: 3,
+      retry_backoff: true,
+      expire_seconds: 300,
+      retention_seconds: 7 * 86400,
+    });
     // Retry k waits retry_delay × 2^(k−1) × (1 + random) s (pg-boss 10, failJobs): recomputed.
-    const shortest = Array.from({ length: job.retry_limit }, (_, k) => job.retry_delay * 2 ** k).reduce((a, b) => a + b);
+    const shortest = Array.from({ length: job.retry_limit }, (_, k) => job.retry_delay * 2 ** k).reduce(
+      (a, b) => a + b,
+    );
     expect(shortest).toBeGreaterThanOrEqual(24 * 3600);
     // Nothing expires a waiting job before its last try, even at the longest waits and every attempt timing out.
     expect(job.retention_seconds).toBeGreaterThan(2 * shortest + (job.retry_limit + 1) * job.expire_seconds);
@@ -115,9 +147,13 @@ describe("decision mail with the relay down", () => {
     const decisionId = await decideReturn(reportId);
     // The app's own job would take a day to run out; this one has a short schedule and fails for good.
     await until("the app's job", async () => (await jobsOf(decisionId))[0]);
-    await sql`delete from pgboss.job where name = 'decision-mail' and data->>'decisionId' = ${String(decisionId)}`.execute(db);
+    await sql`delete from pgboss.job where name = 'decision-mail' and data->>'decisionId' = ${String(decisionId)}`.execute(
+      db,
+    );
     const shortId = (await boss.send("decision-mail", { decisionId }, { retryLimit: 1, retryDelay: 1 }))!;
-    const failed = await until("the job to fail", async () => (await jobsOf(decisionId)).find((j) => j.id === shortId && j.state === "failed"));
+    const failed = await until("the job to fail", async () =>
+      (await jobsOf(decisionId)).find((j) => j.id === shortId && j.state === "failed"),
+    );
     expect(failed.retry_count).toBe(1);
 
     const page = await (await admin.get("/admin/jobs")).text();
@@ -137,7 +173,9 @@ describe("decision mail with the relay down", () => {
     expect(again).toMatchObject({ retry_limit: 15, retry_delay: 3, retry_backoff: true, expire_seconds: 300 });
     const mail = await latestMailTo(email, since, 30_000);
     expect(mail.subject).toMatch(new RegExp(`#${reportId} was returned`));
-    await until("the job to complete", async () => (await jobsOf(decisionId)).find((j) => j.id === again.id && j.state === "completed"));
+    await until("the job to complete", async () =>
+      (await jobsOf(decisionId)).find((j) => j.id === again.id && j.state === "completed"),
+    );
     expect((await jobsOf(decisionId)).map((j) => j.id)).not.toContain(shortId);
 
     const twice = await admin.post("/admin/jobs", { intent: "send-again", jobId: shortId });
@@ -149,14 +187,25 @@ describe("decision mail with the relay down", () => {
     process.env.SMTP_URL = `smtp://127.0.0.1:${await freePort()}`; // nothing listens there
     process.env.DATABASE_URL = inject("databaseUrl");
     const { sendDecisionMail } = await import("../../app/moderation/mail.server");
-    const decision = await db.selectFrom("decisions").select("id").where("action", "=", "accept").orderBy("id").executeTakeFirstOrThrow();
+    const decision = await db
+      .selectFrom("decisions")
+      .select("id")
+      .where("action", "=", "accept")
+      .orderBy("id")
+      .executeTakeFirstOrThrow();
     await expect(sendDecisionMail(db, decision.id)).rejects.toThrow(/ECONNREFUSED|connect/i);
   });
 });
 
 describe("sign-in mail with the relay down", () => {
   const linksFor = async (email: string) =>
-    (await db.selectFrom("sign_in_links").select(sql<number>`count(*)::int`.as("n")).where("email", "=", email).executeTakeFirstOrThrow()).n;
+    (
+      await db
+        .selectFrom("sign_in_links")
+        .select(sql<number>`count(*)::int`.as("n"))
+        .where("email", "=", email)
+        .executeTakeFirstOrThrow()
+    ).n;
 
   it("answers 503 with a clear message and does not count the failed link toward the limit", async () => {
     const email = `relay-down-${Date.now()}@demo.bayproof.test`;
@@ -184,7 +233,9 @@ describe("sign-in mail with the relay down", () => {
     const { db, pool } = await import("../../app/db.server");
     const email = `relay-closed-${Date.now()}@demo.bayproof.test`;
     for (let i = 0; i < 4; i++) {
-      expect(await requestSignInLink(db, email, new Request("http://127.0.0.1/sign-in", { method: "POST" }), "/")).toEqual({ ok: false, reason: "mail_failed" });
+      expect(
+        await requestSignInLink(db, email, new Request("http://127.0.0.1/sign-in", { method: "POST" }), "/"),
+      ).toEqual({ ok: false, reason: "mail_failed" });
     }
     expect(await linksFor(email)).toBe(0);
     await pool.end();

@@ -6,7 +6,15 @@ import { Browserish } from "../support/http";
 const db = testDb();
 afterAll(() => db.destroy());
 
-type Row = { slug: string; fitting: string; weight_kg: number; street_price_cents: number; reports: number; job_lower: number | null; category_slug: string };
+type Row = {
+  slug: string;
+  fitting: string;
+  weight_kg: number;
+  street_price_cents: number;
+  reports: number;
+  job_lower: number | null;
+  category_slug: string;
+};
 const rows = async (qs: string) => {
   const res = await new Browserish().get(`/api/models?${qs}`);
   expect(res.status).toBe(200);

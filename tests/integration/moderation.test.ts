@@ -13,13 +13,21 @@ let mod1: Browserish;
 let mod2: Browserish;
 afterAll(() => db.destroy());
 
-const CHECKS = { check_job_visible: "on", check_tool_identifiable: "on", check_gauge_readable: "on", check_matches_outcome: "on" };
+const CHECKS = {
+  check_job_visible: "on",
+  check_tool_identifiable: "on",
+  check_gauge_readable: "on",
+  check_matches_outcome: "on",
+};
 
 /** A new reporter files a report; it comes back flagged (first report, no evidence). */
 async function freshReport() {
   const stamp = `${Date.now()}${Math.floor(Math.random() * 1000)}`;
   const email = `mod-test-${stamp}@demo.bayproof.test`;
-  await db.insertInto("users").values({ email, handle: `modtest-${stamp.slice(-9)}` }).execute();
+  await db
+    .insertInto("users")
+    .values({ email, handle: `modtest-${stamp.slice(-9)}` })
+    .execute();
   const reporter = await signedInAs(db, email);
   const res = await reporter.post("/reports/new", validReport());
   const id = Number(res.headers.get("location")!.match(/submitted=(\d+)/)![1]);
@@ -28,7 +36,12 @@ async function freshReport() {
 
 async function state(id: number) {
   const r = await db.selectFrom("reports").select(["status", "version"]).where("id", "=", id).executeTakeFirstOrThrow();
-  const seen = await db.selectFrom("decisions").select("id").where("report_id", "=", id).where("action", "in", ["accept", "return", "reject"]).execute();
+  const seen = await db
+    .selectFrom("decisions")
+    .select("id")
+    .where("report_id", "=", id)
+    .where("action", "in", ["accept", "return", "reject"])
+    .execute();
   return { ...r, seen: seen.length };
 }
 
@@ -51,7 +64,16 @@ describe("who may decide", () => {
   it("refuses reporters and sends visitors to sign in", async () => {
     const { id, reporter } = await freshReport();
     expect((await reporter.get(`/review/${id}`)).status).toBe(403);
-    expect((await reporter.post(`/review/${id}`, { action: "reject", reasonCode: "duplicate", version: "1", seenDecisions: "0" })).status).toBe(403);
+    expect(
+      (
+        await reporter.post(`/review/${id}`, {
+          action: "reject",
+          reasonCode: "duplicate",
+          version: "1",
+          seenDecisions: "0",
+        })
+      ).status,
+    ).toBe(403);
     expect((await new Browserish().get("/review")).status).toBe(302);
     expect((await state(id)).status).toBe("submitted");
   });
@@ -78,7 +100,11 @@ describe("who may decide", () => {
   });
 
   it("refuses a decision on a report that is not waiting", async () => {
-    const accepted = await db.selectFrom("reports").select("id").where("status", "=", "accepted").executeTakeFirstOrThrow();
+    const accepted = await db
+      .selectFrom("reports")
+      .select("id")
+      .where("status", "=", "accepted")
+      .executeTakeFirstOrThrow();
     const res = await decideAs(mod1, accepted.id, { action: "reject", reasonCode: "duplicate" });
     expect(res.status).toBe(409);
   });
@@ -97,7 +123,9 @@ describe("what moderators never see", () => {
     expect(await page.text()).not.toContain(secret);
     expect((await decideAs(mod1, id, { action: "reject", reasonCode: "duplicate" })).status).toBe(404);
     expect((await mod1.get(`/reports/${id}/history`)).status).toBe(404);
-    expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
+    expect(
+      await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst(),
+    ).toBeUndefined();
     expect(await db.selectFrom("decisions").select("id").where("report_id", "=", id).execute()).toHaveLength(0);
     expect((await reporter.get(`/reports/${id}/history`)).status).toBe(200); // still the reporter's own
   });
@@ -116,11 +144,18 @@ describe("claims and concurrency", () => {
     const { id } = await freshReport();
     expect((await mod1.get(`/review/${id}`)).status).toBe(200);
     // Opening the page only reads: the claim is taken by starting the review (a POST).
-    expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
+    expect(
+      await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst(),
+    ).toBeUndefined();
     expect((await startReview(mod1, id)).status).toBe(200);
     const other = await (await mod2.get(`/review/${id}`)).text();
     expect(other).toMatch(/mod-harriet<!-- --> has this report open|mod-harriet has this report open/);
-    const claims = await db.selectFrom("decisions").select("action").where("report_id", "=", id).where("action", "=", "claim").execute();
+    const claims = await db
+      .selectFrom("decisions")
+      .select("action")
+      .where("report_id", "=", id)
+      .where("action", "=", "claim")
+      .execute();
     expect(claims).toHaveLength(1);
   });
 
@@ -130,10 +165,13 @@ describe("claims and concurrency", () => {
     const blocked = await decideAs(mod2, id, { action: "reject", reasonCode: "job_not_shown" });
     expect(blocked.status).toBe(409);
     expect(await blocked.text()).toMatch(/mod-harriet has this report open until/);
-    expect((await state(id))).toMatchObject({ status: "submitted", seen: 0 });
+    expect(await state(id)).toMatchObject({ status: "submitted", seen: 0 });
 
-    await db.updateTable("report_claims").set({ claimed_at: new Date(Date.now() - 20 * 60_000), expires_at: new Date(Date.now() - 5 * 60_000) })
-      .where("report_id", "=", id).execute();
+    await db
+      .updateTable("report_claims")
+      .set({ claimed_at: new Date(Date.now() - 20 * 60_000), expires_at: new Date(Date.now() - 5 * 60_000) })
+      .where("report_id", "=", id)
+      .execute();
     const late = await decideAs(mod2, id, { action: "return", reasonCode: "gauge_unreadable", note: "Show the gauge" });
     expect(late.status).toBe(200);
     expect((await state(id)).status).toBe("returned");
@@ -144,7 +182,9 @@ describe("claims and concurrency", () => {
     expect((await startReview(mod1, id)).status).toBe(200);
     expect((await decideAs(mod1, id, { action: "reject", reasonCode: "job_not_shown" })).status).toBe(200);
     expect((await state(id)).status).toBe("rejected");
-    expect(await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst()).toBeUndefined();
+    expect(
+      await db.selectFrom("report_claims").select("report_id").where("report_id", "=", id).executeTakeFirst(),
+    ).toBeUndefined();
   });
 
   it("refuses to start a review another moderator holds, or one not waiting, and writes nothing", async () => {
@@ -154,9 +194,18 @@ describe("claims and concurrency", () => {
     const taken = await startReview(mod2, id);
     expect(taken.status).toBe(409);
     expect(await taken.text()).toMatch(/mod-harriet has this report open until/);
-    const claims = await db.selectFrom("decisions").select("moderator_id").where("report_id", "=", id).where("action", "=", "claim").execute();
+    const claims = await db
+      .selectFrom("decisions")
+      .select("moderator_id")
+      .where("report_id", "=", id)
+      .where("action", "=", "claim")
+      .execute();
     expect(claims).toHaveLength(1);
-    const accepted = await db.selectFrom("reports").select("id").where("status", "=", "accepted").executeTakeFirstOrThrow();
+    const accepted = await db
+      .selectFrom("reports")
+      .select("id")
+      .where("status", "=", "accepted")
+      .executeTakeFirstOrThrow();
     expect((await startReview(mod1, accepted.id)).status).toBe(409);
     expect((await mod1.post(`/review/${id}`, { intent: "take-over" })).status).toBe(400);
   });
@@ -164,7 +213,13 @@ describe("claims and concurrency", () => {
   it("lets one of two simultaneous decisions win and tells the other", async () => {
     const { id } = await freshReport();
     const s = await state(id);
-    const form = (action: string, reasonCode: string, note = "") => ({ version: String(s.version), seenDecisions: String(s.seen), action, reasonCode, note });
+    const form = (action: string, reasonCode: string, note = "") => ({
+      version: String(s.version),
+      seenDecisions: String(s.seen),
+      action,
+      reasonCode,
+      note,
+    });
     const [a, b] = await Promise.all([
       mod1.post(`/review/${id}`, form("reject", "job_not_shown")),
       mod2.post(`/review/${id}`, form("return", "gauge_unreadable", "Show the gauge")),
@@ -193,11 +248,20 @@ describe("the second look", () => {
     expect((await state(id)).status).toBe("accepted");
 
     // The accept asked the worker to refresh the report's stats cell.
-    const report = await db.selectFrom("reports").select(["tool_model_id", "job_type_id", "accepted_at"]).where("id", "=", id).executeTakeFirstOrThrow();
+    const report = await db
+      .selectFrom("reports")
+      .select(["tool_model_id", "job_type_id", "accepted_at"])
+      .where("id", "=", id)
+      .executeTakeFirstOrThrow();
     const deadline = Date.now() + 60_000;
     let cell: { computed_at: Date } | undefined;
     do {
-      cell = await db.selectFrom("stats_cells").select("computed_at").where("tool_model_id", "=", report.tool_model_id).where("job_type_id", "=", report.job_type_id).executeTakeFirst();
+      cell = await db
+        .selectFrom("stats_cells")
+        .select("computed_at")
+        .where("tool_model_id", "=", report.tool_model_id)
+        .where("job_type_id", "=", report.job_type_id)
+        .executeTakeFirst();
       if (cell && new Date(cell.computed_at) >= new Date(report.accepted_at!)) break;
       await new Promise((r) => setTimeout(r, 250));
     } while (Date.now() < deadline);
@@ -214,13 +278,32 @@ describe("the second look", () => {
   it("refuses to accept without the checklist, or with failed evidence", async () => {
     const { id } = await freshReport();
     expect((await decideAs(mod1, id, { action: "accept", reasonCode: "evidence_clear" })).status).toBe(400);
-    const evidence = await db.insertInto("evidence").values({
-      report_id: id, object_key: `reports/${id}/test-failed-${Date.now()}`, kind: "photo", content_type: "image/png", size_bytes: 10, sha256: "a".repeat(64), status: "uploaded",
-    }).returning("id").executeTakeFirstOrThrow();
-    const res = await decideAs(mod1, id, { action: "accept", reasonCode: "evidence_clear", ...CHECKS, [`evidence_${evidence.id}`]: "failed" });
+    const evidence = await db
+      .insertInto("evidence")
+      .values({
+        report_id: id,
+        object_key: `reports/${id}/test-failed-${Date.now()}`,
+        kind: "photo",
+        content_type: "image/png",
+        size_bytes: 10,
+        sha256: "a".repeat(64),
+        status: "uploaded",
+      })
+      .returning("id")
+      .executeTakeFirstOrThrow();
+    const res = await decideAs(mod1, id, {
+      action: "accept",
+      reasonCode: "evidence_clear",
+      ...CHECKS,
+      [`evidence_${evidence.id}`]: "failed",
+    });
     expect(res.status).toBe(409);
     expect(await res.text()).toMatch(/failed evidence cannot be accepted/);
-    const item = await db.selectFrom("evidence").select("status").where("id", "=", evidence.id).executeTakeFirstOrThrow();
+    const item = await db
+      .selectFrom("evidence")
+      .select("status")
+      .where("id", "=", evidence.id)
+      .executeTakeFirstOrThrow();
     expect(item.status).toBe("uploaded"); // the whole decision rolled back
   });
 });
@@ -230,7 +313,11 @@ describe("the reporter hears of it", () => {
     const { id, email, reporter } = await freshReport();
     writeFileSync(path.join(inject("mailDir"), `.reject-next-${email}`), "");
     const since = Date.now();
-    const res = await decideAs(mod1, id, { action: "return", reasonCode: "gauge_unreadable", note: "Film the inlet gauge while the hammer runs." });
+    const res = await decideAs(mod1, id, {
+      action: "return",
+      reasonCode: "gauge_unreadable",
+      note: "Film the inlet gauge while the hammer runs.",
+    });
     expect(res.status).toBe(200);
     const mail = await latestMailTo(email, since, 30_000);
     expect(mail.subject).toMatch(new RegExp(`#${id} was returned`));

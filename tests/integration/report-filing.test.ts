@@ -12,13 +12,20 @@ let reporterId: number;
 
 beforeAll(async () => {
   const email = `filer-${Date.now()}@demo.bayproof.test`;
-  reporterId = (await db.insertInto("users").values({ email, handle: `filer-${Date.now() % 1e8}` }).returning("id").executeTakeFirstOrThrow()).id;
+  reporterId = (
+    await db
+      .insertInto("users")
+      .values({ email, handle: `filer-${Date.now() % 1e8}` })
+      .returning("id")
+      .executeTakeFirstOrThrow()
+  ).id;
   reporter = await signedInAs(db, email);
 });
 afterAll(() => db.destroy());
 
 const countOwn = async () =>
-  (await sql<{ n: number }>`select count(*)::int n from reports where reporter_id = ${reporterId}`.execute(db)).rows[0]!.n;
+  (await sql<{ n: number }>`select count(*)::int n from reports where reporter_id = ${reporterId}`.execute(db)).rows[0]!
+    .n;
 
 describe("the filing action refuses bad input and stores nothing", () => {
   const table: [string, Record<string, string>, RegExp][] = [
@@ -53,18 +60,41 @@ describe("the filing action refuses bad input and stores nothing", () => {
   }
 
   it("refuses to touch someone else's report", async () => {
-    const other = await db.selectFrom("reports").select(["id", "status", "updated_at"]).where("reporter_id", "!=", reporterId).where("status", "=", "draft").executeTakeFirst()
-      ?? await db.selectFrom("reports").select(["id", "status", "updated_at"]).where("reporter_id", "!=", reporterId).where("status", "=", "returned").executeTakeFirstOrThrow();
+    const other =
+      (await db
+        .selectFrom("reports")
+        .select(["id", "status", "updated_at"])
+        .where("reporter_id", "!=", reporterId)
+        .where("status", "=", "draft")
+        .executeTakeFirst()) ??
+      (await db
+        .selectFrom("reports")
+        .select(["id", "status", "updated_at"])
+        .where("reporter_id", "!=", reporterId)
+        .where("status", "=", "returned")
+        .executeTakeFirstOrThrow());
     const res = await reporter.post(`/reports/${other.id}/edit`, { ...validReport(), reportId: String(other.id) });
     expect(res.status).toBe(404);
-    const after = await db.selectFrom("reports").select(["status", "updated_at"]).where("id", "=", other.id).executeTakeFirstOrThrow();
+    const after = await db
+      .selectFrom("reports")
+      .select(["status", "updated_at"])
+      .where("id", "=", other.id)
+      .executeTakeFirstOrThrow();
     expect(after).toEqual({ status: other.status, updated_at: other.updated_at });
   });
 });
 
 describe("drafts and submission", () => {
   it("saves a draft as soon as it has a tool and a job, keeping only valid fields", async () => {
-    const res = await reporter.post("/reports/new", { intent: "save-draft", pu: "psi", lu: "in", toolModel: "brackwater-bh-150", jobType: "tie-rod-end-release", inlet: "abc", regulator: "95" });
+    const res = await reporter.post("/reports/new", {
+      intent: "save-draft",
+      pu: "psi",
+      lu: "in",
+      toolModel: "brackwater-bh-150",
+      jobType: "tie-rod-end-release",
+      inlet: "abc",
+      regulator: "95",
+    });
     expect(res.status).toBe(302);
     const id = Number(res.headers.get("location")!.match(/\/reports\/(\d+)\/edit/)![1]);
     const row = await db.selectFrom("reports").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
@@ -83,7 +113,12 @@ describe("drafts and submission", () => {
   });
 
   it("refuses a draft without a tool", async () => {
-    const res = await reporter.post("/reports/new", { intent: "autosave", pu: "psi", lu: "in", jobType: "tie-rod-end-release" });
+    const res = await reporter.post("/reports/new", {
+      intent: "autosave",
+      pu: "psi",
+      lu: "in",
+      jobType: "tie-rod-end-release",
+    });
     expect(res.status).toBe(400);
   });
 
@@ -101,7 +136,11 @@ describe("drafts and submission", () => {
     expect(row.tank_l).toBe(227.1);
     expect(row.time_to_result_s).toBe(45);
     expect(row.flags).toEqual(expect.arrayContaining(["no_evidence"]));
-    const snapshot = await db.selectFrom("report_versions").select(["version", "snapshot"]).where("report_id", "=", id).executeTakeFirstOrThrow();
+    const snapshot = await db
+      .selectFrom("report_versions")
+      .select(["version", "snapshot"])
+      .where("report_id", "=", id)
+      .executeTakeFirstOrThrow();
     expect(snapshot.version).toBe(1);
     expect((snapshot.snapshot as { inlet_kpa: number }).inlet_kpa).toBe(634.3);
     const mine = await (await reporter.get("/me/reports")).text();
@@ -111,29 +150,56 @@ describe("drafts and submission", () => {
 
   it("flags a reporter's first report, running above the tool's rating, shop-air limits and outlying times", async () => {
     const email = `flags-${Date.now()}@demo.bayproof.test`;
-    await db.insertInto("users").values({ email, handle: `flags-${Date.now() % 1e8}` }).execute();
+    await db
+      .insertInto("users")
+      .values({ email, handle: `flags-${Date.now() % 1e8}` })
+      .execute();
     const fresh = await signedInAs(db, email);
     const res = await fresh.post("/reports/new", { ...validReport(), regulator: "250", inlet: "240", time: "8 h" });
     expect(res.status).toBe(302);
     const id = Number(res.headers.get("location")!.match(/submitted=(\d+)/)![1]);
     const row = await db.selectFrom("reports").select("flags").where("id", "=", id).executeTakeFirstOrThrow();
-    expect(row.flags).toEqual(expect.arrayContaining(["first_report", "above_rated_inlet", "pressure_above_limit", "time_outlier", "no_evidence"]));
+    expect(row.flags).toEqual(
+      expect.arrayContaining([
+        "first_report",
+        "above_rated_inlet",
+        "pressure_above_limit",
+        "time_outlier",
+        "no_evidence",
+      ]),
+    );
     expect(row.flags).not.toContain("inlet_above_regulator");
   });
 
   it("withdraws an incomplete draft, from the form and from the reports list", async () => {
     for (const from of ["form", "list"] as const) {
-      const saved = await reporter.post("/reports/new", { toolModel: "brackwater-bh-150", jobType: "ball-joint-separation", intent: "save-draft" });
+      const saved = await reporter.post("/reports/new", {
+        toolModel: "brackwater-bh-150",
+        jobType: "ball-joint-separation",
+        intent: "save-draft",
+      });
       expect(saved.status).toBe(302);
       const id = Number(saved.headers.get("location")!.match(/\/reports\/(\d+)\/edit/)![1]);
       // The report form posts every field it has (here: almost none); the list posts only the id.
-      const body: Record<string, string> = from === "list"
-        ? { intent: "withdraw", reportId: String(id) }
-        : { intent: "withdraw", reportId: String(id), toolModel: "brackwater-bh-150", jobType: "ball-joint-separation", notes: "", inlet: "" };
+      const body: Record<string, string> =
+        from === "list"
+          ? { intent: "withdraw", reportId: String(id) }
+          : {
+              intent: "withdraw",
+              reportId: String(id),
+              toolModel: "brackwater-bh-150",
+              jobType: "ball-joint-separation",
+              notes: "",
+              inlet: "",
+            };
       const res = await reporter.post(`/reports/${id}/edit`, body);
       expect(res.status).toBe(302);
       expect(res.headers.get("location")).toBe("/me/reports?withdrawn=1");
-      const row = await db.selectFrom("reports").select(["status", "outcome", "submitted_at"]).where("id", "=", id).executeTakeFirstOrThrow();
+      const row = await db
+        .selectFrom("reports")
+        .select(["status", "outcome", "submitted_at"])
+        .where("id", "=", id)
+        .executeTakeFirstOrThrow();
       expect(row).toEqual({ status: "withdrawn", outcome: null, submitted_at: null });
     }
   });
@@ -142,27 +208,60 @@ describe("drafts and submission", () => {
     const res = await reporter.post("/reports/new", validReport());
     const id = Number(res.headers.get("location")!.match(/submitted=(\d+)/)![1]);
     expect((await reporter.post(`/reports/${id}/edit`, { intent: "withdraw", reportId: String(id) })).status).toBe(302);
-    expect((await db.selectFrom("reports").select("status").where("id", "=", id).executeTakeFirstOrThrow()).status).toBe("withdrawn");
+    expect(
+      (await db.selectFrom("reports").select("status").where("id", "=", id).executeTakeFirstOrThrow()).status,
+    ).toBe("withdrawn");
 
-    const accepted = await db.selectFrom("reports").innerJoin("users", "users.id", "reports.reporter_id").select(["reports.id", "users.email"])
-      .where("reports.status", "=", "accepted").executeTakeFirstOrThrow();
+    const accepted = await db
+      .selectFrom("reports")
+      .innerJoin("users", "users.id", "reports.reporter_id")
+      .select(["reports.id", "users.email"])
+      .where("reports.status", "=", "accepted")
+      .executeTakeFirstOrThrow();
     const owner = await signedInAs(db, accepted.email);
-    const refused = await owner.post(`/reports/${accepted.id}/edit`, { intent: "withdraw", reportId: String(accepted.id) });
+    const refused = await owner.post(`/reports/${accepted.id}/edit`, {
+      intent: "withdraw",
+      reportId: String(accepted.id),
+    });
     expect(refused.status).toBe(409);
   });
 
   it("resubmits a returned report as a new version, keeping the earlier one", async () => {
-    const returned = await db.selectFrom("reports").innerJoin("users", "users.id", "reports.reporter_id")
-      .select(["reports.id", "reports.version", "reports.inlet_kpa", "users.email"]).where("reports.status", "=", "returned").orderBy("reports.id", "desc").executeTakeFirstOrThrow();
+    const returned = await db
+      .selectFrom("reports")
+      .innerJoin("users", "users.id", "reports.reporter_id")
+      .select(["reports.id", "reports.version", "reports.inlet_kpa", "users.email"])
+      .where("reports.status", "=", "returned")
+      .orderBy("reports.id", "desc")
+      .executeTakeFirstOrThrow();
     const owner = await signedInAs(db, returned.email);
     expect((await owner.get(`/reports/${returned.id}/edit`)).status).toBe(200);
-    const job = await db.selectFrom("job_types").innerJoin("reports", "reports.job_type_id", "job_types.id").innerJoin("tool_models", "tool_models.id", "reports.tool_model_id")
-      .select(["job_types.slug as job", "tool_models.slug as tool"]).where("reports.id", "=", returned.id).executeTakeFirstOrThrow();
-    const res = await owner.post(`/reports/${returned.id}/edit`, { ...validReport(), toolModel: job.tool, jobType: job.job, reportId: String(returned.id), inlet: "88" });
+    const job = await db
+      .selectFrom("job_types")
+      .innerJoin("reports", "reports.job_type_id", "job_types.id")
+      .innerJoin("tool_models", "tool_models.id", "reports.tool_model_id")
+      .select(["job_types.slug as job", "tool_models.slug as tool"])
+      .where("reports.id", "=", returned.id)
+      .executeTakeFirstOrThrow();
+    const res = await owner.post(`/reports/${returned.id}/edit`, {
+      ...validReport(),
+      toolModel: job.tool,
+      jobType: job.job,
+      reportId: String(returned.id),
+      inlet: "88",
+    });
     expect(res.status).toBe(302);
-    const row = await db.selectFrom("reports").select(["status", "version"]).where("id", "=", returned.id).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom("reports")
+      .select(["status", "version"])
+      .where("id", "=", returned.id)
+      .executeTakeFirstOrThrow();
     expect(row).toEqual({ status: "submitted", version: returned.version + 1 });
-    const versions = await db.selectFrom("report_versions").select("version").where("report_id", "=", returned.id).execute();
+    const versions = await db
+      .selectFrom("report_versions")
+      .select("version")
+      .where("report_id", "=", returned.id)
+      .execute();
     expect(versions.map((v) => v.version)).toContain(returned.version + 1);
   });
 });

@@ -11,7 +11,11 @@ afterAll(() => db.destroy());
 const sessionToken = (client: Browserish) =>
   JSON.parse(Buffer.from(decodeURIComponent(client.cookies.get("bayproof_session")!), "base64").toString()) as string;
 const sessionExists = async (client: Browserish) =>
-  !!(await db.selectFrom("sessions").select("id_hash").where("id_hash", "=", sha256Hex(sessionToken(client))).executeTakeFirst());
+  !!(await db
+    .selectFrom("sessions")
+    .select("id_hash")
+    .where("id_hash", "=", sha256Hex(sessionToken(client)))
+    .executeTakeFirst());
 
 describe("cross-site request protection", () => {
   it("refuses a POST from another origin and changes nothing", async () => {
@@ -25,7 +29,12 @@ describe("cross-site request protection", () => {
   it("refuses a cross-site POST to a page with 403 and a reason, and logs no stack trace", async () => {
     const client = await signedInAs(db, "reporter@demo.bayproof.test");
     const log = await serverLogDuring(async () => {
-      for (const [path, origin] of [["/account", "http://evil.example"], ["/account.data", "http://evil.example"], ["/reports/new", "not a url"], ["/account", "null"]] as const) {
+      for (const [path, origin] of [
+        ["/account", "http://evil.example"],
+        ["/account.data", "http://evil.example"],
+        ["/reports/new", "not a url"],
+        ["/account", "null"],
+      ] as const) {
         const res = await client.post(path, { intent: "create-key", name: "forged" }, { origin });
         expect(res.status, `${path} from ${origin}`).toBe(403);
         expect(await res.text()).toMatch(/Cross-site request refused/);
@@ -33,16 +42,38 @@ describe("cross-site request protection", () => {
     });
     // React Router's own check would have refused first, with a bare 400 and this in the log.
     expect(log).not.toMatch(/Aborting the action|origin` header/);
-    const me = await db.selectFrom("users").select("id").where("email", "=", "reporter@demo.bayproof.test").executeTakeFirstOrThrow();
-    expect(await db.selectFrom("api_keys").select("id").where("user_id", "=", me.id).where("name", "=", "forged").executeTakeFirst()).toBeUndefined();
+    const me = await db
+      .selectFrom("users")
+      .select("id")
+      .where("email", "=", "reporter@demo.bayproof.test")
+      .executeTakeFirstOrThrow();
+    expect(
+      await db
+        .selectFrom("api_keys")
+        .select("id")
+        .where("user_id", "=", me.id)
+        .where("name", "=", "forged")
+        .executeTakeFirst(),
+    ).toBeUndefined();
   });
 
   it("refuses a POST that carries neither Origin nor Sec-Fetch-Site", async () => {
     const client = await signedInAs(db, "reporter@demo.bayproof.test");
     const res = await client.post("/account", { intent: "create-key", name: "forged" }, {});
     expect(res.status).toBe(403);
-    const me = await db.selectFrom("users").select("id").where("email", "=", "reporter@demo.bayproof.test").executeTakeFirstOrThrow();
-    expect(await db.selectFrom("api_keys").select("id").where("user_id", "=", me.id).where("name", "=", "forged").executeTakeFirst()).toBeUndefined();
+    const me = await db
+      .selectFrom("users")
+      .select("id")
+      .where("email", "=", "reporter@demo.bayproof.test")
+      .executeTakeFirstOrThrow();
+    expect(
+      await db
+        .selectFrom("api_keys")
+        .select("id")
+        .where("user_id", "=", me.id)
+        .where("name", "=", "forged")
+        .executeTakeFirst(),
+    ).toBeUndefined();
   });
 
   it("signs out on a same-origin POST and deletes the session", async () => {
@@ -50,7 +81,9 @@ describe("cross-site request protection", () => {
     const token = sessionToken(client);
     const res = await client.post("/sign-out", {});
     expect(res.status).toBe(302);
-    expect(await db.selectFrom("sessions").select("id_hash").where("id_hash", "=", sha256Hex(token)).executeTakeFirst()).toBeUndefined();
+    expect(
+      await db.selectFrom("sessions").select("id_hash").where("id_hash", "=", sha256Hex(token)).executeTakeFirst(),
+    ).toBeUndefined();
     expect((await client.get("/account")).status).toBe(302);
   });
 });
@@ -81,8 +114,11 @@ describe("cookies", () => {
 
   it("ends a session that has been idle past the timeout", async () => {
     const client = await signedInAs(db, "reporter@demo.bayproof.test");
-    await db.updateTable("sessions").set({ last_seen_at: new Date(Date.now() - 15 * 24 * 3600_000) })
-      .where("id_hash", "=", sha256Hex(sessionToken(client))).execute();
+    await db
+      .updateTable("sessions")
+      .set({ last_seen_at: new Date(Date.now() - 15 * 24 * 3600_000) })
+      .where("id_hash", "=", sha256Hex(sessionToken(client)))
+      .execute();
     expect((await client.get("/account")).status).toBe(302);
   });
 });
@@ -114,7 +150,9 @@ describe("static files", () => {
       const res = await new Browserish().get(path);
       expect(res.status, path).toBe(200);
       expect(res.headers.get("x-content-type-options"), path).toBe("nosniff");
-      expect(res.headers.get("content-security-policy"), path).toBe("default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'");
+      expect(res.headers.get("content-security-policy"), path).toBe(
+        "default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'",
+      );
       await res.body?.cancel();
     }
     expect((await new Browserish().get(font!)).headers.get("content-type")).toMatch(/font\/woff2/);
@@ -128,20 +166,32 @@ describe("API keys", () => {
     expect(res.status).toBe(200);
     const key = (await res.text()).match(/bpk_[A-Za-z0-9_-]{43}/)?.[0];
     expect(key).toBeTruthy();
-    const row = await db.selectFrom("api_keys").selectAll().where("key_hash", "=", sha256Hex(key!)).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom("api_keys")
+      .selectAll()
+      .where("key_hash", "=", sha256Hex(key!))
+      .executeTakeFirstOrThrow();
     expect(row.name).toBe("trade school project");
     expect(JSON.stringify(row)).not.toContain(key!);
     const page = await (await client.get("/account")).text();
     expect(page).not.toContain(key!);
     expect((await client.post("/account", { intent: "revoke-key", keyId: String(row.id) })).status).toBe(200);
-    const revoked = await db.selectFrom("api_keys").select("revoked_at").where("id", "=", row.id).executeTakeFirstOrThrow();
+    const revoked = await db
+      .selectFrom("api_keys")
+      .select("revoked_at")
+      .where("id", "=", row.id)
+      .executeTakeFirstOrThrow();
     expect(revoked.revoked_at).not.toBeNull();
   });
 
   it("will not revoke someone else's key", async () => {
     const owner = await signedInAs(db, "moderator@demo.bayproof.test");
     await owner.post("/account", { intent: "create-key", name: "mine" });
-    const me = await db.selectFrom("users").select("id").where("email", "=", "moderator@demo.bayproof.test").executeTakeFirstOrThrow();
+    const me = await db
+      .selectFrom("users")
+      .select("id")
+      .where("email", "=", "moderator@demo.bayproof.test")
+      .executeTakeFirstOrThrow();
     const key = await db.selectFrom("api_keys").select("id").where("user_id", "=", me.id).executeTakeFirstOrThrow();
     const other = await signedInAs(db, "reporter@demo.bayproof.test");
     expect((await other.post("/account", { intent: "revoke-key", keyId: String(key.id) })).status).toBe(404);
@@ -150,7 +200,11 @@ describe("API keys", () => {
 
 describe("an /api address that does not exist", () => {
   it("answers a JSON 404, for reads and writes alike, never the HTML page", async () => {
-    for (const res of [await new Browserish().get("/api/nope"), await new Browserish().get("/api/"), await new Browserish().post("/api/nope", { a: "1" })]) {
+    for (const res of [
+      await new Browserish().get("/api/nope"),
+      await new Browserish().get("/api/"),
+      await new Browserish().post("/api/nope", { a: "1" }),
+    ]) {
       expect(res.status).toBe(404);
       expect(res.headers.get("content-type")).toMatch(/application\/json/);
       expect((await res.json()).error.code).toBe("not_found");

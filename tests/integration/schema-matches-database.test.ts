@@ -20,14 +20,29 @@ const committed = path.join(root, "db/generated.ts");
 
 async function generate(outFile: string) {
   // Only the app's tables: not pg-boss's schema, not the migrator's bookkeeping.
-  await run(process.execPath, [
-    path.join(root, "node_modules/kysely-codegen/dist/cli/bin.js"),
-    "--dialect", "postgres", "--url", inject("databaseUrl"), "--out-file", outFile,
-    "--include-pattern", "public.*", "--exclude-pattern", "public.kysely_migration*", "--log-level", "error",
-    // JSON columns as `object`: kysely-codegen's own Json type admits null, which would hide whether
-    // the column does.
-    "--type-mapping", JSON.stringify({ json: "object", jsonb: "object" }),
-  ], { cwd: root, timeout: 120_000 });
+  await run(
+    process.execPath,
+    [
+      path.join(root, "node_modules/kysely-codegen/dist/cli/bin.js"),
+      "--dialect",
+      "postgres",
+      "--url",
+      inject("databaseUrl"),
+      "--out-file",
+      outFile,
+      "--include-pattern",
+      "public.*",
+      "--exclude-pattern",
+      "public.kysely_migration*",
+      "--log-level",
+      "error",
+      // JSON columns as `object`: kysely-codegen's own Json type admits null, which would hide whether
+      // the column does.
+      "--type-mapping",
+      JSON.stringify({ json: "object", jsonb: "object" }),
+    ],
+    { cwd: root, timeout: 120_000 },
+  );
 }
 
 it("db/generated.ts is what kysely-codegen makes of the migrated database", { timeout: 180_000 }, async () => {
@@ -47,8 +62,13 @@ it("db/generated.ts is what kysely-codegen makes of the migrated database", { ti
 it("the hand-written Database agrees with the generated types, table by table", { timeout: 120_000 }, async () => {
   const file = path.join(root, "db/schema-check.ts");
   const program = ts.createProgram([file], {
-    strict: true, noEmit: true, skipLibCheck: true, target: ts.ScriptTarget.ES2022,
-    module: ts.ModuleKind.ES2022, moduleResolution: ts.ModuleResolutionKind.Bundler, types: [],
+    strict: true,
+    noEmit: true,
+    skipLibCheck: true,
+    target: ts.ScriptTarget.ES2022,
+    module: ts.ModuleKind.ES2022,
+    moduleResolution: ts.ModuleResolutionKind.Bundler,
+    types: [],
   });
   const problems = ts.getPreEmitDiagnostics(program).map((d) => ts.flattenDiagnosticMessageText(d.messageText, "\n"));
   expect(problems).toEqual([]);

@@ -8,14 +8,35 @@ const db = testDb();
 let valid: NewReport;
 
 beforeAll(async () => {
-  const model = await db.selectFrom("tool_models").select(["id", "category_id"]).orderBy("id").executeTakeFirstOrThrow();
-  const job = await db.selectFrom("job_types").select("id").where("category_id", "=", model.category_id).executeTakeFirstOrThrow();
+  const model = await db
+    .selectFrom("tool_models")
+    .select(["id", "category_id"])
+    .orderBy("id")
+    .executeTakeFirstOrThrow();
+  const job = await db
+    .selectFrom("job_types")
+    .select("id")
+    .where("category_id", "=", model.category_id)
+    .executeTakeFirstOrThrow();
   const user = await db.selectFrom("users").select("id").orderBy("id").executeTakeFirstOrThrow();
   valid = {
-    reporter_id: user.id, tool_model_id: model.id, category_id: model.category_id, job_type_id: job.id,
-    status: "submitted", vehicle_class: "passenger_car", corrosion_level: "heavy",
-    regulator_kpa: 650, inlet_kpa: 600, inlet_source: "measured_at_inlet", hose_id_mm: 9.5, hose_length_m: 10,
-    coupler_profile: "industrial_m", coupler_count: 2, outcome: "freed", time_to_result_s: 30, attempts: 1,
+    reporter_id: user.id,
+    tool_model_id: model.id,
+    category_id: model.category_id,
+    job_type_id: job.id,
+    status: "submitted",
+    vehicle_class: "passenger_car",
+    corrosion_level: "heavy",
+    regulator_kpa: 650,
+    inlet_kpa: 600,
+    inlet_source: "measured_at_inlet",
+    hose_id_mm: 9.5,
+    hose_length_m: 10,
+    coupler_profile: "industrial_m",
+    coupler_count: 2,
+    outcome: "freed",
+    time_to_result_s: 30,
+    attempts: 1,
     submitted_at: new Date(),
   };
 });
@@ -55,25 +76,43 @@ describe("reports table rules", () => {
   });
 
   it("refuses a job type from another tool category", async () => {
-    const other = await db.selectFrom("job_types").select("id").where("category_id", "!=", valid.category_id).executeTakeFirstOrThrow();
+    const other = await db
+      .selectFrom("job_types")
+      .select("id")
+      .where("category_id", "!=", valid.category_id)
+      .executeTakeFirstOrThrow();
     const error = await tryInsert({ ...valid, job_type_id: other.id });
     expect(error?.message).toMatch(/foreign key/);
   });
 
   it("lets a draft be incomplete but not a submitted report", async () => {
-    const draft: NewReport = { reporter_id: valid.reporter_id, tool_model_id: valid.tool_model_id, category_id: valid.category_id, job_type_id: valid.job_type_id };
+    const draft: NewReport = {
+      reporter_id: valid.reporter_id,
+      tool_model_id: valid.tool_model_id,
+      category_id: valid.category_id,
+      job_type_id: valid.job_type_id,
+    };
     expect(await tryInsert(draft)).toBeNull();
     const error = await tryInsert({ ...draft, status: "submitted" });
     expect(error?.message).toMatch(/reports_complete_unless_draft/);
   });
 
   it("lets a draft withdrawn as it stood stay incomplete, but nothing that was ever submitted", async () => {
-    const draft: NewReport = { reporter_id: valid.reporter_id, tool_model_id: valid.tool_model_id, category_id: valid.category_id, job_type_id: valid.job_type_id };
+    const draft: NewReport = {
+      reporter_id: valid.reporter_id,
+      tool_model_id: valid.tool_model_id,
+      category_id: valid.category_id,
+      job_type_id: valid.job_type_id,
+    };
     expect(await tryInsert({ ...draft, status: "withdrawn" })).toBeNull();
-    expect((await tryInsert({ ...draft, status: "withdrawn", submitted_at: new Date() }))?.message).toMatch(/reports_complete_unless_draft/);
+    expect((await tryInsert({ ...draft, status: "withdrawn", submitted_at: new Date() }))?.message).toMatch(
+      /reports_complete_unless_draft/,
+    );
     for (const status of ["submitted", "returned", "accepted", "rejected"] as const) {
       const accepted_at = status === "accepted" ? new Date() : null;
-      expect((await tryInsert({ ...draft, status, submitted_at: new Date(), accepted_at }))?.message, status).toMatch(/reports_complete_unless_draft/);
+      expect((await tryInsert({ ...draft, status, submitted_at: new Date(), accepted_at }))?.message, status).toMatch(
+        /reports_complete_unless_draft/,
+      );
     }
     expect(await tryInsert({ ...valid, status: "withdrawn" })).toBeNull();
   });
@@ -87,7 +126,12 @@ describe("catalogue rules", () => {
   it("keeps model codes unique per maker", async () => {
     const m = await db.selectFrom("tool_models").selectAll().orderBy("id").executeTakeFirstOrThrow();
     const { id: _id, created_at: _c, ...copy } = m;
-    await expect(db.insertInto("tool_models").values({ ...copy, slug: "copy-of-first" }).execute()).rejects.toThrow(/tool_models_maker_code_key/);
+    await expect(
+      db
+        .insertInto("tool_models")
+        .values({ ...copy, slug: "copy-of-first" })
+        .execute(),
+    ).rejects.toThrow(/tool_models_maker_code_key/);
   });
 });
 
@@ -120,15 +164,26 @@ describe("ban log", () => {
 
   it("refuses a ban without a reason, or with a blank one", async () => {
     for (const reason of ["", "   ", "no"]) {
-      const error = await tryBanLog((trx) => trx.insertInto("ban_changes").values({ ...row(), reason }).execute());
+      const error = await tryBanLog((trx) =>
+        trx
+          .insertInto("ban_changes")
+          .values({ ...row(), reason })
+          .execute(),
+      );
       expect(error?.message).toMatch(/ban_changes_reason_check/);
     }
-    const missing = await tryBanLog((trx) => sql`insert into ban_changes (user_id, change) values (${valid.reporter_id}, 'ban')`.execute(trx));
+    const missing = await tryBanLog((trx) =>
+      sql`insert into ban_changes (user_id, change) values (${valid.reporter_id}, 'ban')`.execute(trx),
+    );
     expect(missing?.message).toMatch(/null value in column "reason"/);
   });
 
   it("refuses a change other than ban or unban", async () => {
-    const error = await tryBanLog((trx) => sql`insert into ban_changes (user_id, change, reason) values (${valid.reporter_id}, 'suspend', 'Spam')`.execute(trx));
+    const error = await tryBanLog((trx) =>
+      sql`insert into ban_changes (user_id, change, reason) values (${valid.reporter_id}, 'suspend', 'Spam')`.execute(
+        trx,
+      ),
+    );
     expect(error?.message).toMatch(/ban_changes_change_check/);
   });
 
@@ -138,6 +193,9 @@ describe("ban log", () => {
       await trx.updateTable("ban_changes").set({ reason: "rewritten" }).execute();
     });
     expect(rewrite?.message).toMatch(/append-only/);
-    expect(await tryBanLog((trx) => sql`truncate ban_changes`.execute(trx))).toHaveProperty("message", expect.stringMatching(/append-only/));
+    expect(await tryBanLog((trx) => sql`truncate ban_changes`.execute(trx))).toHaveProperty(
+      "message",
+      expect.stringMatching(/append-only/),
+    );
   });
 });

@@ -16,7 +16,9 @@ describe("the search service fake, through the SDK", () => {
     expect((await client.health()).status).toBe("available");
     const r = await search(db, "quilon", { kind: "model" }, 10, client);
     expect(r.source).toBe("search");
-    expect(r.hits.map((h) => h.title)).toEqual(expect.arrayContaining(["Quillon Air Tools QH-3", "Quillon Air Tools QI-1200"]));
+    expect(r.hits.map((h) => h.title)).toEqual(
+      expect.arrayContaining(["Quillon Air Tools QH-3", "Quillon Air Tools QI-1200"]),
+    );
     expect(Object.keys(r.facets)).toEqual(expect.arrayContaining(["category", "job", "shank"]));
     const reports = await search(db, "tie rod", { kind: "report" }, 5, client);
     expect(reports.hits.every((h) => h.kind === "report" && h.job_name === "Tie rod end release")).toBe(true);
@@ -45,7 +47,10 @@ describe("when the search service is down", () => {
 async function fakeService(handler: RequestListener) {
   const server = createServer(handler);
   await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
-  return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`, close: () => new Promise((r) => server.close(r)) };
+  return {
+    url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`,
+    close: () => new Promise((r) => server.close(r)),
+  };
 }
 
 describe("when the search service is slow or failing", () => {
@@ -54,7 +59,13 @@ describe("when the search service is slow or failing", () => {
       // Slower than the 800 ms the client used to allow, well inside the present timeout.
       setTimeout(() => {
         res.setHeader("Content-Type", "application/json");
-        res.end(JSON.stringify({ hits: [{ id: "model-slow", kind: "model", title: "Slow answer", url: "/models/slow" }], estimatedTotalHits: 1, facetDistribution: {} }));
+        res.end(
+          JSON.stringify({
+            hits: [{ id: "model-slow", kind: "model", title: "Slow answer", url: "/models/slow" }],
+            estimatedTotalHits: 1,
+            facetDistribution: {},
+          }),
+        );
       }, 1500);
     });
     try {
@@ -104,14 +115,32 @@ describe("the search pages", () => {
 describe("indexing after an accept", () => {
   it("puts a newly accepted report in the index through the worker", async () => {
     // The newest report accepted by a moderator's decision (the feed tests add accepted rows directly).
-    const accepted = await db.selectFrom("reports as r").select("r.id").where("r.status", "=", "accepted")
-      .where((eb) => eb.exists(eb.selectFrom("decisions as d").select("d.id").whereRef("d.report_id", "=", "r.id").where("d.action", "=", "accept")))
-      .orderBy("r.accepted_at", "desc").executeTakeFirstOrThrow();
+    const accepted = await db
+      .selectFrom("reports as r")
+      .select("r.id")
+      .where("r.status", "=", "accepted")
+      .where((eb) =>
+        eb.exists(
+          eb
+            .selectFrom("decisions as d")
+            .select("d.id")
+            .whereRef("d.report_id", "=", "r.id")
+            .where("d.action", "=", "accept"),
+        ),
+      )
+      .orderBy("r.accepted_at", "desc")
+      .executeTakeFirstOrThrow();
     // Fresh accepts from the moderation tests enqueue indexing; the demo's own were indexed at start.
     const deadline = Date.now() + 60_000;
     let found = false;
     while (!found && Date.now() < deadline) {
-      found = await client.index(INDEX).getDocument(`report-${accepted.id}`).then(() => true, () => false);
+      found = await client
+        .index(INDEX)
+        .getDocument(`report-${accepted.id}`)
+        .then(
+          () => true,
+          () => false,
+        );
       if (!found) await new Promise((r) => setTimeout(r, 300));
     }
     expect(found).toBe(true);

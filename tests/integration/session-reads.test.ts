@@ -1,6 +1,12 @@
 // The signed-in user is read once per GET however many loaders ask (root and route), and afresh
 // on a POST, whose action may change it (docs/decisions/011-database-access.md).
-import type { KyselyPlugin, PluginTransformQueryArgs, PluginTransformResultArgs, QueryResult, UnknownRow } from "kysely";
+import type {
+  KyselyPlugin,
+  PluginTransformQueryArgs,
+  PluginTransformResultArgs,
+  QueryResult,
+  UnknownRow,
+} from "kysely";
 import { afterAll, expect, it } from "vitest";
 import { getUser, withSessions } from "../../app/auth/session.server";
 import { testDb } from "../support/db";
@@ -23,18 +29,33 @@ class SessionReads implements KyselyPlugin {
 }
 
 async function signedInRequest(method: string) {
-  const user = await db.selectFrom("users").select("id").where("email", "=", "reporter@demo.bayproof.test").executeTakeFirstOrThrow();
+  const user = await db
+    .selectFrom("users")
+    .select("id")
+    .where("email", "=", "reporter@demo.bayproof.test")
+    .executeTakeFirstOrThrow();
   const token = randomToken();
-  await db.insertInto("sessions").values({
-    id_hash: sha256Hex(token), user_id: user.id, expires_at: new Date(Date.now() + 3600_000), sign_in_method: "email_link",
-  }).execute();
-  return new Request("http://127.0.0.1/me/reports", { method, headers: { cookie: `bayproof_session=${cookieValue(token)}` } });
+  await db
+    .insertInto("sessions")
+    .values({
+      id_hash: sha256Hex(token),
+      user_id: user.id,
+      expires_at: new Date(Date.now() + 3600_000),
+      sign_in_method: "email_link",
+    })
+    .execute();
+  return new Request("http://127.0.0.1/me/reports", {
+    method,
+    headers: { cookie: `bayproof_session=${cookieValue(token)}` },
+  });
 }
 
 it("reads the session once for every loader of a GET", async () => {
   const reads = new SessionReads();
   const request = await signedInRequest("GET");
-  const users = await withSessions(db.withPlugin(reads), () => Promise.all([getUser(request), getUser(request), getUser(request)]));
+  const users = await withSessions(db.withPlugin(reads), () =>
+    Promise.all([getUser(request), getUser(request), getUser(request)]),
+  );
   expect(users.map((u) => u?.handle)).toEqual(Array(3).fill(users[0]!.handle));
   expect(users[0]).not.toBeNull();
   expect(reads.count).toBe(1);

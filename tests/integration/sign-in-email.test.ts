@@ -25,9 +25,15 @@ describe("sign-in by e-mail link", () => {
     const link = new URL(linkIn(mail.text ?? "")!);
     const token = link.searchParams.get("token")!;
     expect(Buffer.from(token, "base64url").length).toBeGreaterThanOrEqual(16); // ≥ 128 bits
-    const stored = await db.selectFrom("sign_in_links").selectAll().where("token_hash", "=", sha256Hex(token)).executeTakeFirstOrThrow();
+    const stored = await db
+      .selectFrom("sign_in_links")
+      .selectAll()
+      .where("token_hash", "=", sha256Hex(token))
+      .executeTakeFirstOrThrow();
     expect(stored.email).toBe("moderator2@demo.bayproof.test");
-    expect(new Date(stored.expires_at).getTime() - new Date(stored.created_at).getTime()).toBeLessThanOrEqual(10 * 60_000 + 1000);
+    expect(new Date(stored.expires_at).getTime() - new Date(stored.created_at).getTime()).toBeLessThanOrEqual(
+      10 * 60_000 + 1000,
+    );
 
     const confirm = await client.get(link.pathname + link.search);
     expect(confirm.status).toBe(200); // opening the link spends nothing
@@ -43,10 +49,16 @@ describe("sign-in by e-mail link", () => {
 
   it("refuses an expired link", async () => {
     const token = randomToken();
-    await db.insertInto("sign_in_links").values({
-      token_hash: sha256Hex(token), email: "reporter@demo.bayproof.test", client_key: "test",
-      created_at: new Date(Date.now() - 20 * 60_000), expires_at: new Date(Date.now() - 10 * 60_000),
-    }).execute();
+    await db
+      .insertInto("sign_in_links")
+      .values({
+        token_hash: sha256Hex(token),
+        email: "reporter@demo.bayproof.test",
+        client_key: "test",
+        created_at: new Date(Date.now() - 20 * 60_000),
+        expires_at: new Date(Date.now() - 10 * 60_000),
+      })
+      .execute();
     const res = await new Browserish().post("/sign-in/link", { token });
     expect(res.status).toBe(400);
     expect(await res.text()).toMatch(/expired/);
@@ -93,7 +105,10 @@ describe("sign-in by e-mail link", () => {
     // The hostile path is dropped: the link carries none, and the new technician lands on a new report.
     expect(link.searchParams.get("redirectTo")).toBe("");
     // A forged confirmation form carrying the hostile path itself is refused the same way.
-    const done = await client.post("/sign-in/link", { token: link.searchParams.get("token")!, redirectTo: "/\t/evil.example/" });
+    const done = await client.post("/sign-in/link", {
+      token: link.searchParams.get("token")!,
+      redirectTo: "/\t/evil.example/",
+    });
     expect(done.status).toBe(302);
     expect(done.headers.get("location")).toBe("/reports/new");
   });

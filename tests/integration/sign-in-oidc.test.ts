@@ -51,7 +51,11 @@ describe("sign-in through the OpenID provider", () => {
     const page = await (await client.get("/account")).text();
     const email = page.match(/new-[0-9a-f]{8}@demo\.bayproof\.test/)?.[0];
     expect(email).toBeTruthy();
-    const link = await db.selectFrom("oauth_accounts").selectAll().where("email_at_link", "=", email!).executeTakeFirst();
+    const link = await db
+      .selectFrom("oauth_accounts")
+      .selectAll()
+      .where("email_at_link", "=", email!)
+      .executeTakeFirst();
     expect(link?.provider).toBe("local");
     expect(link?.subject).toMatch(/^new-/);
   });

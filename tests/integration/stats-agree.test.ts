@@ -12,23 +12,36 @@ afterAll(() => db.destroy());
 
 /** The job page's tools in page order, with the mark printed beside each. */
 function pageRows(html: string) {
-  return [...html.matchAll(/data-testid="cell-row" data-slug="([^"]+)" data-mark="([^"]*)"/g)].map((m) => ({ slug: m[1]!, mark: m[2]!.replace(/&#x27;|&#39;/g, "'") }));
+  return [...html.matchAll(/data-testid="cell-row" data-slug="([^"]+)" data-mark="([^"]*)"/g)].map((m) => ({
+    slug: m[1]!,
+    mark: m[2]!.replace(/&#x27;|&#39;/g, "'"),
+  }));
 }
 
 describe("the job page, the compare page and the feed agree", () => {
   it("on the order and on every tool's mark against the top tool, on every demo job", async () => {
-    const jobs = await db.selectFrom("job_types as j").select(["j.id", "j.slug"])
-      .where((eb) => eb.exists(eb.selectFrom("stats_cells").select("job_type_id").whereRef("job_type_id", "=", "j.id"))).orderBy("j.id").execute();
+    const jobs = await db
+      .selectFrom("job_types as j")
+      .select(["j.id", "j.slug"])
+      .where((eb) => eb.exists(eb.selectFrom("stats_cells").select("job_type_id").whereRef("job_type_id", "=", "j.id")))
+      .orderBy("j.id")
+      .execute();
     expect(jobs.length).toBeGreaterThanOrEqual(11);
     const get = feedClient();
-    let pairs = 0, toldApart = 0;
+    let pairs = 0,
+      toldApart = 0;
     for (const job of jobs) {
       const rows = pageRows(await (await new Browserish().get(`/jobs/${job.slug}`)).text());
       expect(rows.length, job.slug).toBeGreaterThan(1);
-      const feed = (await (await get(`/api/v1/stats?job=${job.slug}`)).json()).data as { model: string; order: { position: number; mark: Mark } }[];
+      const feed = (await (await get(`/api/v1/stats?job=${job.slug}`)).json()).data as {
+        model: string;
+        order: { position: number; mark: Mark };
+      }[];
       // Same order, same marks (the feed's mark in the page's words).
-      expect(feed.sort((a, b) => a.order.position - b.order.position).map((r) => [r.model, MARK_LABELS[r.order.mark]]), job.slug)
-        .toEqual(rows.map((r) => [r.slug, r.mark]));
+      expect(
+        feed.sort((a, b) => a.order.position - b.order.position).map((r) => [r.model, MARK_LABELS[r.order.mark]]),
+        job.slug,
+      ).toEqual(rows.map((r) => [r.slug, r.mark]));
       const top = rows.find((r) => r.mark === MARK_LABELS.top)?.slug;
       // Every pair of tools on the job: compare's marks are the job page's, and where one of the pair
       // is the top tool, compare's verdict on the pair is the other's mark.
@@ -43,7 +56,9 @@ describe("the job page, the compare page and the feed agree", () => {
           pairs++;
           const other = a === top ? b : b === top ? a : null;
           if (other && markOf.get(other) !== MARK_LABELS.too_few) {
-            expect(pair.distinguishable, `${job.slug}: ${a} vs ${b}`).toBe(markOf.get(other) !== MARK_LABELS.not_told_apart);
+            expect(pair.distinguishable, `${job.slug}: ${a} vs ${b}`).toBe(
+              markOf.get(other) !== MARK_LABELS.not_told_apart,
+            );
           }
         }
       }

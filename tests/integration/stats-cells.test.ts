@@ -11,8 +11,15 @@ describe("stats cells", () => {
   it("hold the same counts as a GROUP BY over accepted reports, less those set aside (issue 16 item 7)", async () => {
     const raw = await sql<{ m: number; j: number; n: number; s: number }>`
       select tool_model_id m, job_type_id j, count(*)::int n, (count(*) filter (where outcome = 'freed'))::int s
-      from reports where status = 'accepted' and not flags @> array['above_rated_inlet'] group by 1, 2 order by 1, 2`.execute(db);
-    const cells = await db.selectFrom("stats_cells").select(["tool_model_id as m", "job_type_id as j", "n", "successes as s"]).orderBy("m").orderBy("j").execute();
+      from reports where status = 'accepted' and not flags @> array['above_rated_inlet'] group by 1, 2 order by 1, 2`.execute(
+      db,
+    );
+    const cells = await db
+      .selectFrom("stats_cells")
+      .select(["tool_model_id as m", "job_type_id as j", "n", "successes as s"])
+      .orderBy("m")
+      .orderBy("j")
+      .execute();
     // Other test files accept reports while this runs; compare the demo's cells, which they rarely touch.
     const key = (r: { m: number; j: number }) => `${r.m}:${r.j}`;
     const stored = new Map(cells.map((c) => [key(c), c]));
@@ -25,7 +32,9 @@ describe("stats cells", () => {
   it("are shown with their intervals on the job and model pages", async () => {
     const job = await (await new Browserish().get("/jobs/ball-joint-separation")).text();
     // Issue 16: the order says its basis, and the method sits in the "How this is worked out" fold.
-    expect(job).toMatch(/Ordered by the lower end of each tool&#x27;s 95 % (interval at 90 psi inlet|success-rate interval)/);
+    expect(job).toMatch(
+      /Ordered by the lower end of each tool&#x27;s 95 % (interval at 90 psi inlet|success-rate interval)/,
+    );
     expect(job).toMatch(/<summary[^>]*>How this is worked out<\/summary>/);
     expect(job).toMatch(/95 % Wilson score interval at the effective sample size/);
     expect(job).not.toMatch(/Where two ranges overlap/);
@@ -36,15 +45,21 @@ describe("stats cells", () => {
   });
 
   it("answer the cell API, with 400 for bad input and 404 for an empty cell", async () => {
-    const ok = await new Browserish().get("/api/stats/cell?model=brackwater-bh-260l&job=ball-joint-separation&inlet_kpa=700");
+    const ok = await new Browserish().get(
+      "/api/stats/cell?model=brackwater-bh-260l&job=ball-joint-separation&inlet_kpa=700",
+    );
     expect(ok.status).toBe(200);
     const body = await ok.json();
     expect(body.lower).toBeLessThanOrEqual(body.estimate);
     expect(body.method).toBe("Wilson score");
     expect(body.design_effect).toBeGreaterThanOrEqual(1);
     expect((await new Browserish().get("/api/stats/cell?model=Bad!&job=x")).status).toBe(400);
-    expect((await new Browserish().get("/api/stats/cell?model=brackwater-bh-260l&job=lug-nut-breakaway")).status).toBe(404);
-    expect((await new Browserish().get("/compare?job=ball-joint-separation&models=brackwater-bh-260l")).status).toBe(400);
+    expect((await new Browserish().get("/api/stats/cell?model=brackwater-bh-260l&job=lug-nut-breakaway")).status).toBe(
+      404,
+    );
+    expect((await new Browserish().get("/compare?job=ball-joint-separation&models=brackwater-bh-260l")).status).toBe(
+      400,
+    );
     // Without parameters: a chooser, not a 400 (issue 16).
     const chooser = await new Browserish().get("/compare");
     expect(chooser.status).toBe(200);
@@ -57,7 +72,9 @@ describe("stats cells", () => {
 
 describe("which tool on my air", () => {
   it("shows what reaches each tool and its fitted chance, and what else it needs", async () => {
-    const html = await (await new Browserish().get("/jobs/ball-joint-separation?reg=100&hid=3%2F8&hlen=50&cc=2&bits=shank-0.401")).text();
+    const html = await (
+      await new Browserish().get("/jobs/ball-joint-separation?reg=100&hid=3%2F8&hlen=50&cc=2&bits=shank-0.401")
+    ).text();
     expect(html).toContain("Reaches the tool");
     expect(html).toMatch(/0\.498 in shank bits \(yours will not fit; never use a shank adapter\)/);
   });
@@ -66,7 +83,9 @@ describe("which tool on my air", () => {
     const res = await new Browserish().get("/jobs/ball-joint-separation?reg=abc&hid=9&hlen=-1&bits=zzz");
     expect(res.status).toBe(200);
     const html = await res.text();
-    expect(html).toMatch(/Could not use your supply: Regulator: a number of psi; Hose ID: 5\/32–1 in; Hose length: up to 330 ft/);
+    expect(html).toMatch(
+      /Could not use your supply: Regulator: a number of psi; Hose ID: 5\/32–1 in; Hose length: up to 330 ft/,
+    );
     expect((await new Browserish().get(`/jobs/ball-joint-separation?reg=${"9".repeat(1000)}`)).status).toBe(200);
     expect((await new Browserish().get("/jobs/no-such-job?reg=100")).status).toBe(404);
   });

@@ -38,8 +38,12 @@ interface Ports {
 
 async function freePorts(): Promise<Ports> {
   return {
-    PORT: await freePort(), BAYPROOF_PGPORT: await freePort(), BAYPROOF_OIDC_PORT: await freePort(),
-    BAYPROOF_SMTP_PORT: await freePort(), BAYPROOF_S3_PORT: await freePort(), BAYPROOF_SEARCH_PORT: await freePort(),
+    PORT: await freePort(),
+    BAYPROOF_PGPORT: await freePort(),
+    BAYPROOF_OIDC_PORT: await freePort(),
+    BAYPROOF_SMTP_PORT: await freePort(),
+    BAYPROOF_S3_PORT: await freePort(),
+    BAYPROOF_SEARCH_PORT: await freePort(),
   };
 }
 
@@ -47,7 +51,8 @@ async function freePorts(): Promise<Ports> {
 function cleanEnv(ports: Ports) {
   const env: NodeJS.ProcessEnv = {};
   for (const [k, v] of Object.entries(process.env)) {
-    if (!/^(BAYPROOF_|S3_|OIDC_|SMTP_|SEARCH_|DATABASE_URL$|APP_ORIGIN$|HOST$|PORT$|NODE_ENV$|VITEST)/.test(k)) env[k] = v;
+    if (!/^(BAYPROOF_|S3_|OIDC_|SMTP_|SEARCH_|DATABASE_URL$|APP_ORIGIN$|HOST$|PORT$|NODE_ENV$|VITEST)/.test(k))
+      env[k] = v;
   }
   for (const [k, v] of Object.entries(ports)) env[k] = String(v);
   return env;
@@ -55,7 +60,12 @@ function cleanEnv(ports: Ports) {
 
 /** `npm start` in its own process group, as a terminal runs it; resolves once it says where it serves. */
 async function start(dir: string, ports: Ports) {
-  const child = spawn("npm", ["start"], { cwd: dir, env: cleanEnv(ports), detached: true, stdio: ["ignore", "pipe", "pipe"] });
+  const child = spawn("npm", ["start"], {
+    cwd: dir,
+    env: cleanEnv(ports),
+    detached: true,
+    stdio: ["ignore", "pipe", "pipe"],
+  });
   let output = "";
   child.stdout.on("data", (d) => (output += d));
   child.stderr.on("data", (d) => (output += d));
@@ -85,7 +95,10 @@ function startedProcesses(leader: ChildProcess, dataDir: string, clusterDir: str
     const [pid, pgid] = entry.trim().split(/\s+/).map(Number);
     if (pgid === leader.pid) pids.add(pid!);
   }
-  const state = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as { startPid: number; children: Record<string, number> };
+  const state = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as {
+    startPid: number;
+    children: Record<string, number>;
+  };
   for (const pid of [state.startPid, ...Object.values(state.children)]) pids.add(pid);
   pids.add(Number(readFileSync(path.join(clusterDir, "postmaster.pid"), "utf8").split("\n")[0]));
   return [...pids].map((pid) => ({ pid, started: startTime(pid) })).filter((p) => p.started !== null);
@@ -156,16 +169,28 @@ describe("npm start from a fresh clone", () => {
     expect(second.output()).toMatch(/The build is up to date/);
     await browse(ports);
     // A server that dies on its own is started again alone; the database and fakes stay up.
-    const before = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as { children: Record<string, number> };
+    const before = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as {
+      children: Record<string, number>;
+    };
     process.kill(before.children.server!, "SIGKILL");
-    await until("the server to be started again", () => /The server stopped \(SIGKILL\); starting it again/.test(second.output()));
-    await until("the new server to answer", () => fetch(`http://127.0.0.1:${ports.PORT}/jobs`).then((r) => r.ok, () => false));
+    await until("the server to be started again", () =>
+      /The server stopped \(SIGKILL\); starting it again/.test(second.output()),
+    );
+    await until("the new server to answer", () =>
+      fetch(`http://127.0.0.1:${ports.PORT}/jobs`).then(
+        (r) => r.ok,
+        () => false,
+      ),
+    );
     expect(second.output()).not.toMatch(/PostgreSQL stopped/);
     await browse(ports);
     const secondPids = startedProcesses(second.child, dataDir, clusterDir);
 
     // kill -9 of the start command itself leaves its server, worker and PostgreSQL behind.
-    const state = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as { startPid: number; children: Record<string, number> };
+    const state = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as {
+      startPid: number;
+      children: Record<string, number>;
+    };
     process.kill(state.startPid, "SIGKILL");
     await until("the killed start command to be gone", () => !isAlive(state.startPid));
     expect(isAlive(state.children.server!)).toBe(true);
@@ -192,7 +217,7 @@ describe("npm start from a fresh clone", () => {
       expect(clusterDir).not.toContain(parent);
       expect(first.output()).toMatch(/The postgres user cannot reach/);
     }
-    expect((spawnSync("stat", ["-c", "%a", parent], { encoding: "utf8" }).stdout.trim())).toBe("700");
+    expect(spawnSync("stat", ["-c", "%a", parent], { encoding: "utf8" }).stdout.trim()).toBe("700");
     await browse(ports);
     await stopWithCtrlC(first, startedProcesses(first.child, dataDir, clusterDir), ports);
 

@@ -32,7 +32,12 @@ export async function upload(client: Browserish, reportId: number, bytes: Buffer
   const { url, key, evidenceId, headers } = await signed.json();
   const put = await fetch(url, { method: "PUT", headers, body: new Uint8Array(bytes) });
   if (put.status !== 200) throw new Error(`storage answered ${put.status}`);
-  return { key: key as string, url: url as string, evidenceId: evidenceId as number, check: await complete(client, evidenceId) };
+  return {
+    key: key as string,
+    url: url as string,
+    evidenceId: evidenceId as number,
+    check: await complete(client, evidenceId),
+  };
 }
 
 export async function newDraft(client: Browserish, toolModel = "brackwater-bh-150", jobType = "ball-joint-separation") {

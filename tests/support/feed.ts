@@ -17,7 +17,17 @@ export function feedClient(address = newClientAddress(), key?: string) {
     });
 }
 
-export const SCHEMAS = ["report", "model", "job-type", "stat", "report-page", "model-list", "job-type-list", "stat-list", "error"] as const;
+export const SCHEMAS = [
+  "report",
+  "model",
+  "job-type",
+  "stat",
+  "report-page",
+  "model-list",
+  "job-type-list",
+  "stat-list",
+  "error",
+] as const;
 
 /** An ajv (draft 2020-12) loaded with every schema the feed publishes, fetched from it. */
 export async function publishedSchemas() {

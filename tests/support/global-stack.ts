@@ -39,7 +39,10 @@ export default async function setup(project: TestProject) {
     {
       // As `npm start` does (scripts/services.ts): the search index, and a file behind every demo evidence row.
       const db = createDb(database.url, 2);
-      await Promise.all([reindexAll(db, searchClient(fakes.env.SEARCH_URL)), ensureDemoEvidence(db, fakes.env)]).finally(() => db.destroy());
+      await Promise.all([
+        reindexAll(db, searchClient(fakes.env.SEARCH_URL)),
+        ensureDemoEvidence(db, fakes.env),
+      ]).finally(() => db.destroy());
     }
     const build = buildApp(root, () => {}, { inheritOutput: false });
     if (!build.ok) throw new Error(`react-router build failed:\n${build.output}`);
@@ -56,10 +59,16 @@ export default async function setup(project: TestProject) {
     const server = spawn(process.execPath, ["server.js"], {
       cwd: root,
       env: {
-        ...process.env, ...fakes.env, DATABASE_URL: database.url, HOST: "127.0.0.1", PORT: String(port),
-        APP_ORIGIN: baseUrl, NODE_ENV: "production",
+        ...process.env,
+        ...fakes.env,
+        DATABASE_URL: database.url,
+        HOST: "127.0.0.1",
+        PORT: String(port),
+        APP_ORIGIN: baseUrl,
+        NODE_ENV: "production",
         // Tests that count requests per client (the feed's rate limits) name their own client.
-        BAYPROOF_TRUST_PROXY: "1", AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
+        BAYPROOF_TRUST_PROXY: "1",
+        AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
       },
       stdio: ["ignore", "ignore", logFd],
     });
@@ -67,7 +76,13 @@ export default async function setup(project: TestProject) {
     await waitForHttp(baseUrl, server);
     const worker = spawn(path.join(root, "node_modules/.bin/tsx"), ["scripts/worker.ts"], {
       cwd: root,
-      env: { ...process.env, ...fakes.env, DATABASE_URL: database.url, APP_ORIGIN: baseUrl, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true" },
+      env: {
+        ...process.env,
+        ...fakes.env,
+        DATABASE_URL: database.url,
+        APP_ORIGIN: baseUrl,
+        AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
+      },
       stdio: ["ignore", "ignore", "inherit"],
     });
     cleanups.push(() => stopChild(worker));

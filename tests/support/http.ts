@@ -27,7 +27,10 @@ export class Browserish {
   }
 
   async get(url: string, headers: Record<string, string> = {}) {
-    const res = await fetch(new URL(url, this.origin), { redirect: "manual", headers: { cookie: this.cookieHeader(), ...headers } });
+    const res = await fetch(new URL(url, this.origin), {
+      redirect: "manual",
+      headers: { cookie: this.cookieHeader(), ...headers },
+    });
     this.keep(res);
     return res;
   }
@@ -51,9 +54,15 @@ export const cookieValue = (token: string) => encodeURIComponent(Buffer.from(JSO
 export async function signedInAs(db: Kysely<Database>, email: string) {
   const user = await db.selectFrom("users").select("id").where("email", "=", email).executeTakeFirstOrThrow();
   const token = randomToken();
-  await db.insertInto("sessions").values({
-    id_hash: sha256Hex(token), user_id: user.id, expires_at: new Date(Date.now() + 3600_000), sign_in_method: "email_link",
-  }).execute();
+  await db
+    .insertInto("sessions")
+    .values({
+      id_hash: sha256Hex(token),
+      user_id: user.id,
+      expires_at: new Date(Date.now() + 3600_000),
+      sign_in_method: "email_link",
+    })
+    .execute();
   const client = new Browserish();
   client.cookies.set("bayproof_session", cookieValue(token));
   return client;

@@ -8,7 +8,10 @@ export async function latestMailTo(address: string, after = 0, timeoutMs = 60_00
   const dir = inject("mailDir");
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    const files = (await readdir(dir)).filter((f) => f.endsWith(".eml") && Number(f.split("-")[0]) >= after).sort().reverse();
+    const files = (await readdir(dir))
+      .filter((f) => f.endsWith(".eml") && Number(f.split("-")[0]) >= after)
+      .sort()
+      .reverse();
     for (const f of files) {
       const mail = await simpleParser(await readFile(path.join(dir, f)));
       const to = mail.to && !Array.isArray(mail.to) ? mail.to.text : "";

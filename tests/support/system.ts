@@ -57,6 +57,9 @@ export function ensureChromium() {
     throw new Error("Chromium is missing. Install Debian's package first: sudo apt-get install -y chromium");
   }
   spawnSync("apt-get", ["update", "-qq"], { stdio: "inherit" });
-  const r = spawnSync("apt-get", ["install", "-y", "-qq", "chromium"], { stdio: "inherit", env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
+  const r = spawnSync("apt-get", ["install", "-y", "-qq", "chromium"], {
+    stdio: "inherit",
+    env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" },
+  });
   if (r.status !== 0 || !existsSync(CHROMIUM)) throw new Error("apt-get could not install chromium");
 }

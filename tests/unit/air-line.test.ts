@@ -2,8 +2,28 @@
 // the running air figure and the operating-point solver.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { COUPLER_THROATS, LINE_LOSS_K, boreOutletAbsBar, demandAt, lineOutletPressure, operatingPoint, runningAir, type Segment } from "../../app/air/index";
-import { ATMOSPHERE_KPA, KPA_PER_PSI, LPS_PER_SCFM, L_PER_US_GAL, ftToM, galToL, inToMm, kpaToPsi, psiToKpa, scfmToLps } from "../../app/domain";
+import {
+  COUPLER_THROATS,
+  LINE_LOSS_K,
+  boreOutletAbsBar,
+  demandAt,
+  lineOutletPressure,
+  operatingPoint,
+  runningAir,
+  type Segment,
+} from "../../app/air/index";
+import {
+  ATMOSPHERE_KPA,
+  KPA_PER_PSI,
+  LPS_PER_SCFM,
+  L_PER_US_GAL,
+  ftToM,
+  galToL,
+  inToMm,
+  kpaToPsi,
+  psiToKpa,
+  scfmToLps,
+} from "../../app/domain";
 
 const SEED = { seed: 170017, numRuns: 200 };
 const linearDropBar = (q: number, l: number, d: number, p: number) => (LINE_LOSS_K * q ** 1.85 * l) / (d ** 5 * p);
@@ -27,8 +47,10 @@ describe("the integrated hose formula", () => {
   it("reduces to the linear form for small drops (property)", () => {
     fc.assert(
       fc.property(
-        fc.double({ min: 2, max: 14, noNaN: true }), fc.double({ min: 0.1, max: 20, noNaN: true }),
-        fc.double({ min: 4, max: 25, noNaN: true }), fc.double({ min: 1e-6, max: 0.01, noNaN: true }),
+        fc.double({ min: 2, max: 14, noNaN: true }),
+        fc.double({ min: 0.1, max: 20, noNaN: true }),
+        fc.double({ min: 4, max: 25, noNaN: true }),
+        fc.double({ min: 1e-6, max: 0.01, noNaN: true }),
         (p1, q, d, share) => {
           // The length that makes the linear drop the given share of the inlet pressure.
           const l = (share * p1 * p1 * d ** 5) / (LINE_LOSS_K * q ** 1.85);
@@ -45,8 +67,10 @@ describe("the integrated hose formula", () => {
   it("matches an independent numerical integration of dp/dx within 0.1 % (property)", () => {
     fc.assert(
       fc.property(
-        fc.double({ min: 2, max: 14, noNaN: true }), fc.double({ min: 0.2, max: 10, noNaN: true }),
-        fc.double({ min: 5, max: 13, noNaN: true }), fc.double({ min: 1, max: 30, noNaN: true }),
+        fc.double({ min: 2, max: 14, noNaN: true }),
+        fc.double({ min: 0.2, max: 10, noNaN: true }),
+        fc.double({ min: 5, max: 13, noNaN: true }),
+        fc.double({ min: 1, max: 30, noNaN: true }),
         (p1, q, d, l) => {
           const p2 = boreOutletAbsBar(p1, q, l, d);
           fc.pre(p2 > 0.3 * p1); // the stepped check loses accuracy as the line nears stalling
@@ -59,7 +83,12 @@ describe("the integrated hose formula", () => {
   });
 
   it("gives issue 17's figures: 1/4 in hose at 10 SCFM from 90 psi loses 27.0 psi over 50 ft and 71.6 psi over 100 ft", () => {
-    const drop = (ft: number) => kpaToPsi(psiToKpa(90) - lineOutletPressure(psiToKpa(90), [{ kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(ft) }], scfmToLps(10)).outletKpa);
+    const drop = (ft: number) =>
+      kpaToPsi(
+        psiToKpa(90) -
+          lineOutletPressure(psiToKpa(90), [{ kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(ft) }], scfmToLps(10))
+            .outletKpa,
+      );
     expect(drop(50)).toBeCloseTo(27.0, 1); // recomputed (REFERENCES.md "Hose and line flow"; issue 17)
     expect(drop(100)).toBeCloseTo(71.6, 1); // recomputed (issue 17)
   });
@@ -78,7 +107,11 @@ describe("the integrated hose formula", () => {
   it("puts 1/4 and 3/8 in hose drops at 25–100 ft and 4–15 SCFM inside a hose friction-loss chart's range (from memory)", () => {
     for (const { idIn, ft, ranges } of CHART) {
       for (const scfm of [4, 10, 15] as const) {
-        const r = lineOutletPressure(psiToKpa(90), [{ kind: "hose", idMm: inToMm(idIn), lengthM: ftToM(ft) }], scfmToLps(scfm));
+        const r = lineOutletPressure(
+          psiToKpa(90),
+          [{ kind: "hose", idMm: inToMm(idIn), lengthM: ftToM(ft) }],
+          scfmToLps(scfm),
+        );
         const [lo, hi] = ranges[scfm];
         if (r.stalled) {
           // 1/4 in × 100 ft cannot pass 15 SCFM from 90 psi: the chart's "more than 50 psi" (from memory).
@@ -115,13 +148,26 @@ describe("the line as segments in order", () => {
   });
 
   it("holds the regulator's setting (no droop) and names the last of several hoses the whip hose", () => {
-    const r = lineOutletPressure(psiToKpa(150), [{ kind: "regulator", setKpa: psiToKpa(110) }, hose, coupler, { kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(3) }], scfmToLps(5));
+    const r = lineOutletPressure(
+      psiToKpa(150),
+      [
+        { kind: "regulator", setKpa: psiToKpa(110) },
+        hose,
+        coupler,
+        { kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(3) },
+      ],
+      scfmToLps(5),
+    );
     expect(r.segments[0]!.outletKpa).toBeCloseTo(psiToKpa(110), 9);
     expect(r.segments[3]!.label).toBe("Whip hose");
   });
 
   it("says when the line cannot pass the flow", () => {
-    const r = lineOutletPressure(psiToKpa(90), [{ kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(100) }, coupler], scfmToLps(15));
+    const r = lineOutletPressure(
+      psiToKpa(90),
+      [{ kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(100) }, coupler],
+      scfmToLps(15),
+    );
     expect(r.stalled).toBe(true);
     expect(r.outletKpa).toBe(0);
   });
@@ -137,7 +183,11 @@ describe("the line as segments in order", () => {
 
 describe("the tool's two air figures", () => {
   it("uses the catalogue's running figure, or the average times a stated factor", () => {
-    expect(runningAir({ ratedLps: 2, runningLps: 5.5, runningSource: "measured" })).toEqual({ lps: 5.5, source: "measured", factor: null });
+    expect(runningAir({ ratedLps: 2, runningLps: 5.5, runningSource: "measured" })).toEqual({
+      lps: 5.5,
+      source: "measured",
+      factor: null,
+    });
     expect(runningAir({ ratedLps: 2 })).toEqual({ lps: 5, source: "estimated", factor: 2.5 });
     expect(runningAir({ ratedLps: 2, runningLps: 6, runningSource: "estimated", runningFactor: 3 }).factor).toBe(3);
   });
@@ -160,20 +210,25 @@ describe("the operating inlet pressure", () => {
 
   it("converges in fewer than 60 iterations to a pressure that satisfies the line's equations (property)", () => {
     fc.assert(
-      fc.property(fc.double({ min: 150, max: 1400, noNaN: true }), fc.double({ min: 0.5, max: 12, noNaN: true }), lineArb, (supply, rated, l) => {
-        const segments: Segment[] = [
-          { kind: "hose", idMm: inToMm(l.idIn), lengthM: ftToM(l.ft) },
-          { kind: "coupler", profile: l.profile, count: l.count },
-          ...(l.whip ? [{ kind: "hose" as const, idMm: inToMm(0.25), lengthM: ftToM(3) }] : []),
-        ];
-        const point = operatingPoint(supply, segments, { ratedLps: rated });
-        expect(point.iterations).toBeLessThan(60);
-        expect(point.converged).toBe(true);
-        const delivered = lineOutletPressure(supply, segments, demandAt(point.running.lps, point.inletKpa)).outletKpa;
-        if (point.stalled) expect(delivered).toBe(0);
-        else expect(Math.abs(delivered - point.inletKpa)).toBeLessThan(1e-3);
-        expect(point.demandLps).toBeCloseTo(demandAt(point.running.lps, point.inletKpa), 12);
-      }),
+      fc.property(
+        fc.double({ min: 150, max: 1400, noNaN: true }),
+        fc.double({ min: 0.5, max: 12, noNaN: true }),
+        lineArb,
+        (supply, rated, l) => {
+          const segments: Segment[] = [
+            { kind: "hose", idMm: inToMm(l.idIn), lengthM: ftToM(l.ft) },
+            { kind: "coupler", profile: l.profile, count: l.count },
+            ...(l.whip ? [{ kind: "hose" as const, idMm: inToMm(0.25), lengthM: ftToM(3) }] : []),
+          ];
+          const point = operatingPoint(supply, segments, { ratedLps: rated });
+          expect(point.iterations).toBeLessThan(60);
+          expect(point.converged).toBe(true);
+          const delivered = lineOutletPressure(supply, segments, demandAt(point.running.lps, point.inletKpa)).outletKpa;
+          if (point.stalled) expect(delivered).toBe(0);
+          else expect(Math.abs(delivered - point.inletKpa)).toBeLessThan(1e-3);
+          expect(point.demandLps).toBeCloseTo(demandAt(point.running.lps, point.inletKpa), 12);
+        },
+      ),
       SEED,
     );
   });

@@ -43,28 +43,34 @@ describe("operating inlet pressure (first edition)", () => {
   const ratings = fc.double({ min: 0.5, max: 10, noNaN: true });
 
   it("never rises with a longer hose (property)", () => {
-    fc.assert(fc.property(supplies, ratings, bores, lengths, lengths, (s, q, d, l1, l2) => {
-      const [short, long] = l1 < l2 ? [l1, l2] : [l2, l1];
-      const a = operatingInletPressure(s, q, { ...line, hoseIdMm: d, hoseLengthM: short }).inletKpa;
-      const b = operatingInletPressure(s, q, { ...line, hoseIdMm: d, hoseLengthM: long }).inletKpa;
-      return b <= a + 1e-5;
-    }));
+    fc.assert(
+      fc.property(supplies, ratings, bores, lengths, lengths, (s, q, d, l1, l2) => {
+        const [short, long] = l1 < l2 ? [l1, l2] : [l2, l1];
+        const a = operatingInletPressure(s, q, { ...line, hoseIdMm: d, hoseLengthM: short }).inletKpa;
+        const b = operatingInletPressure(s, q, { ...line, hoseIdMm: d, hoseLengthM: long }).inletKpa;
+        return b <= a + 1e-5;
+      }),
+    );
   });
 
   it("never rises with a narrower hose (property)", () => {
-    fc.assert(fc.property(supplies, ratings, bores, bores, lengths, (s, q, d1, d2, l) => {
-      const [narrow, wide] = d1 < d2 ? [d1, d2] : [d2, d1];
-      const a = operatingInletPressure(s, q, { ...line, hoseIdMm: wide, hoseLengthM: l }).inletKpa;
-      const b = operatingInletPressure(s, q, { ...line, hoseIdMm: narrow, hoseLengthM: l }).inletKpa;
-      return b <= a + 1e-5;
-    }));
+    fc.assert(
+      fc.property(supplies, ratings, bores, bores, lengths, (s, q, d1, d2, l) => {
+        const [narrow, wide] = d1 < d2 ? [d1, d2] : [d2, d1];
+        const a = operatingInletPressure(s, q, { ...line, hoseIdMm: wide, hoseLengthM: l }).inletKpa;
+        const b = operatingInletPressure(s, q, { ...line, hoseIdMm: narrow, hoseLengthM: l }).inletKpa;
+        return b <= a + 1e-5;
+      }),
+    );
   });
 
   it("stays between zero and the supply pressure (property)", () => {
-    fc.assert(fc.property(supplies, ratings, bores, lengths, (s, q, d, l) => {
-      const p = operatingInletPressure(s, q, { ...line, hoseIdMm: d, hoseLengthM: l }).inletKpa;
-      return p >= 0 && p <= s;
-    }));
+    fc.assert(
+      fc.property(supplies, ratings, bores, lengths, (s, q, d, l) => {
+        const p = operatingInletPressure(s, q, { ...line, hoseIdMm: d, hoseLengthM: l }).inletKpa;
+        return p >= 0 && p <= s;
+      }),
+    );
   });
 
   it("finds the supply that puts the rating at the running tool (second edition)", () => {
@@ -85,7 +91,9 @@ describe("tank run time at a held inlet", () => {
     const floor = psiToKpa(130);
     const q = demandAt(3, floor);
     const expected = (200 * (tank.cutOutKpa - floor)) / ATMOSPHERE_KPA / q;
-    const r = tankRunTime(tank, { deliveryLps: 1 }, [{ kind: "regulator", setKpa: floor }], tool, { minInletKpa: floor });
+    const r = tankRunTime(tank, { deliveryLps: 1 }, [{ kind: "regulator", setKpa: floor }], tool, {
+      minInletKpa: floor,
+    });
     expect(r.seconds).toBeCloseTo(expected, 1);
   });
 
@@ -101,18 +109,29 @@ describe("tank run time at a held inlet", () => {
   });
 
   it("refuses an inverted pressure band", () => {
-    expect(() => tankRunTime({ ...tank, cutInKpa: tank.cutOutKpa + 1 }, { deliveryLps: 1 }, [], tool)).toThrow(/cut-out/);
+    expect(() => tankRunTime({ ...tank, cutInKpa: tank.cutOutKpa + 1 }, { deliveryLps: 1 }, [], tool)).toThrow(
+      /cut-out/,
+    );
   });
 });
 
 describe("the /air analysis", () => {
   it("chains the segments from the regulator to the inlet, couplers where they sit", () => {
     const r = analyseAir({
-      supplyKpa: psiToKpa(110), tool: { ratedLps: scfmToLps(4) },
+      supplyKpa: psiToKpa(110),
+      tool: { ratedLps: scfmToLps(4) },
       line: { ...line, couplerCount: 3, whip: { idMm: 6.35, lengthM: 1 } },
-      tank: { volumeL: galToL(60), cutOutKpa: psiToKpa(150), cutInKpa: psiToKpa(120) }, compressorLps: scfmToLps(10),
+      tank: { volumeL: galToL(60), cutOutKpa: psiToKpa(150), cutInKpa: psiToKpa(120) },
+      compressorLps: scfmToLps(10),
     });
-    expect(r.segments.map((s) => s.label)).toEqual(["Regulator", "Coupler 1 (at the regulator)", "Hose", "Coupler 2 (hose to whip)", "Whip hose", "Coupler 3 (at the tool)"]);
+    expect(r.segments.map((s) => s.label)).toEqual([
+      "Regulator",
+      "Coupler 1 (at the regulator)",
+      "Hose",
+      "Coupler 2 (hose to whip)",
+      "Whip hose",
+      "Coupler 3 (at the tool)",
+    ]);
     r.segments.slice(1).forEach((s, i) => expect(s.inletKpa).toBe(r.segments[i]!.outletKpa));
     expect(r.segments.at(-1)!.outletKpa).toBeCloseTo(r.point.inletKpa, 6);
     expect(r.loss.total).toBeCloseTo(psiToKpa(110) - r.point.inletKpa, 6);

@@ -21,8 +21,16 @@ function integrateOverPressure(line: Segment[], tool: ToolAir, floorKpa: number,
     for (let i = 1; i < n; i++) s += (i % 2 ? 4 : 2) * f(a + i * h);
     return (s * h) / 3;
   };
-  const off = simpson(Math.max(floorKpa, tank60.cutInKpa), tank60.cutOutKpa, (p) => tank60.volumeL / (ATMOSPHERE_KPA * q(p)));
-  const on = simpson(floorKpa, tank60.cutInKpa, (p) => tank60.volumeL / (ATMOSPHERE_KPA * (q(p) - compressor2.deliveryLps)));
+  const off = simpson(
+    Math.max(floorKpa, tank60.cutInKpa),
+    tank60.cutOutKpa,
+    (p) => tank60.volumeL / (ATMOSPHERE_KPA * q(p)),
+  );
+  const on = simpson(
+    floorKpa,
+    tank60.cutInKpa,
+    (p) => tank60.volumeL / (ATMOSPHERE_KPA * (q(p) - compressor2.deliveryLps)),
+  );
   return off + on;
 }
 
@@ -45,12 +53,23 @@ describe("tank run time", () => {
   ];
 
   it("agrees with an integration over pressure within 0.2 % (issue 17's case and a long 1/4 in line)", () => {
-    const lines: Segment[][] = [issueLine, [{ kind: "regulator", setKpa: psiToKpa(125) }, { kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(50) }, { kind: "coupler", profile: "automotive_t", count: 1 }]];
+    const lines: Segment[][] = [
+      issueLine,
+      [
+        { kind: "regulator", setKpa: psiToKpa(125) },
+        { kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(50) },
+        { kind: "coupler", profile: "automotive_t", count: 1 },
+      ],
+    ];
     for (const line of lines) {
       const r = tankRunTime(tank60, compressor2, line, { ratedLps: scfmToLps(2.4) });
       expect(Number.isFinite(r.seconds)).toBe(true);
-      expect(r.seconds / integrateOverPressure(line, { ratedLps: scfmToLps(2.4) }, r.floorTankKpa) - 1).toBeLessThan(2e-3);
-      expect(r.seconds / integrateOverPressure(line, { ratedLps: scfmToLps(2.4) }, r.floorTankKpa) - 1).toBeGreaterThan(-2e-3);
+      expect(r.seconds / integrateOverPressure(line, { ratedLps: scfmToLps(2.4) }, r.floorTankKpa) - 1).toBeLessThan(
+        2e-3,
+      );
+      expect(r.seconds / integrateOverPressure(line, { ratedLps: scfmToLps(2.4) }, r.floorTankKpa) - 1).toBeGreaterThan(
+        -2e-3,
+      );
     }
   });
 
@@ -69,7 +88,15 @@ describe("tank run time", () => {
     const keeps = tankRunTime(tank60, { deliveryLps: scfmToLps(12) }, issueLine, eightScfm);
     expect(keeps.seconds).toBe(Infinity);
     expect(keeps.ending).toBe("compressor_keeps_up");
-    const starved = tankRunTime(tank60, compressor2, [{ kind: "regulator", setKpa: psiToKpa(95) }, { kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(100) }], eightScfm);
+    const starved = tankRunTime(
+      tank60,
+      compressor2,
+      [
+        { kind: "regulator", setKpa: psiToKpa(95) },
+        { kind: "hose", idMm: inToMm(0.25), lengthM: ftToM(100) },
+      ],
+      eightScfm,
+    );
     expect(starved.seconds).toBe(0);
     expect(starved.ending).toBe("below_minimum_from_start");
   });

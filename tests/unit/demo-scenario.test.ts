@@ -24,7 +24,12 @@ describe("the demo scenario", () => {
 
   it("covers both hammer shanks, 1/2 and 3/4 in impacts and ratchets", () => {
     const fittings = new Set(models.map((m) => `${m.category}:${m.fitting}`));
-    for (const f of ["air-hammer:shank-0.401", "air-hammer:shank-0.498", "impact-wrench:drive-1/2", "impact-wrench:drive-3/4"]) {
+    for (const f of [
+      "air-hammer:shank-0.401",
+      "air-hammer:shank-0.498",
+      "impact-wrench:drive-1/2",
+      "impact-wrench:drive-3/4",
+    ]) {
       expect(fittings).toContain(f);
     }
     expect(models.some((m) => m.category === "air-ratchet")).toBe(true);
@@ -36,7 +41,8 @@ describe("the demo scenario", () => {
 
   it("spreads reports unevenly: popular pairs with 40–100, a tail with a handful", () => {
     const counts = new Map<string, number>();
-    for (const r of reports) counts.set(`${r.modelIndex}:${r.jobIndex}`, (counts.get(`${r.modelIndex}:${r.jobIndex}`) ?? 0) + 1);
+    for (const r of reports)
+      counts.set(`${r.modelIndex}:${r.jobIndex}`, (counts.get(`${r.modelIndex}:${r.jobIndex}`) ?? 0) + 1);
     const values = [...counts.values()];
     expect(Math.max(...values)).toBeLessThanOrEqual(110);
     expect(values.filter((n) => n >= 40).length).toBeGreaterThanOrEqual(10);

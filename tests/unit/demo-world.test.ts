@@ -49,13 +49,16 @@ describe("the demo world", () => {
   it("puts each job on the vehicles it is done on", () => {
     const king = reports.filter((r) => jobTypes[r.jobIndex]!.slug === "king-pin-drive-out");
     expect(new Set(king.map((r) => r.vehicleClass))).toEqual(new Set(["heavy_truck", "bus"]));
-    const car = reports.filter((r) => ["ball-joint-separation", "crank-bolt-breakaway", "axle-nut-breakaway"].includes(jobTypes[r.jobIndex]!.slug));
+    const car = reports.filter((r) =>
+      ["ball-joint-separation", "crank-bolt-breakaway", "axle-nut-breakaway"].includes(jobTypes[r.jobIndex]!.slug),
+    );
     for (const r of car) expect(["passenger_car", "light_truck"]).toContain(r.vehicleClass);
   });
 
   it("keeps every reporter to about 10 % of a cell of 10 reports or more", () => {
     const cells = new Map<string, GeneratedReport[]>();
-    for (const r of reports) cells.set(`${r.modelIndex}:${r.jobIndex}`, [...(cells.get(`${r.modelIndex}:${r.jobIndex}`) ?? []), r]);
+    for (const r of reports)
+      cells.set(`${r.modelIndex}:${r.jobIndex}`, [...(cells.get(`${r.modelIndex}:${r.jobIndex}`) ?? []), r]);
     for (const rows of cells.values()) {
       if (rows.length < 10) continue;
       const per = new Map<number, number>();
@@ -82,8 +85,10 @@ describe("the product's line model against the demo world (issue 17, item 4)", (
   // What the product knows of each report: the reading at the regulator, the hose and couplers as
   // reported, and the catalogue's air figures (a running figure that may be an estimate).
   const tool = (mi: number) => ({
-    ratedLps: models[mi]!.ratedLps, runningLps: runningAir[mi]!.catalogue.lps,
-    runningSource: runningAir[mi]!.catalogue.source, runningFactor: runningAir[mi]!.catalogue.factor,
+    ratedLps: models[mi]!.ratedLps,
+    runningLps: runningAir[mi]!.catalogue.lps,
+    runningSource: runningAir[mi]!.catalogue.source,
+    runningFactor: runningAir[mi]!.catalogue.factor,
   });
   /** The product's line with its hose law scaled by `a` and its coupler equivalent length by `b`. */
   const line = (r: GeneratedReport, a: number, b: number): Segment[] => [
@@ -96,18 +101,20 @@ describe("the product's line model against the demo world (issue 17, item 4)", (
   it("once fitted to the reports measured at the inlet, predicts the world's drops within 1 psi on average and 3 psi per report (mean)", () => {
     const measured = accepted.filter((r) => r.inletSource === "measured_at_inlet");
     expect(measured.length).toBeGreaterThan(500);
-    const sse = (a: number, b: number) => measured.reduce((s, r) => s + (r.regulatorKpa - r.inletKpa - predictedDrop(r, r.regulatorKpa, a, b)) ** 2, 0);
+    const sse = (a: number, b: number) =>
+      measured.reduce((s, r) => s + (r.regulatorKpa - r.inletKpa - predictedDrop(r, r.regulatorKpa, a, b)) ** 2, 0);
     // Least squares over the two factors: a coarse grid in steps of √2, then a finer one around the best.
     let best = { a: 1, b: 1, e: sse(1, 1) };
     const unfitted = best.e;
     for (const step of [0.5, 0.125]) {
       const { a: a0, b: b0 } = best;
-      for (let i = -4; i <= 4; i++) for (let j = -4; j <= 4; j++) {
-        const a = a0 * 2 ** (i * step);
-        const b = b0 * 2 ** (j * step);
-        const e = sse(a, b);
-        if (e < best.e) best = { a, b, e };
-      }
+      for (let i = -4; i <= 4; i++)
+        for (let j = -4; j <= 4; j++) {
+          const a = a0 * 2 ** (i * step);
+          const b = b0 * 2 ** (j * step);
+          const e = sse(a, b);
+          if (e < best.e) best = { a, b, e };
+        }
     }
     expect(best.e).toBeLessThan(unfitted);
     // The smooth-hose Darcy–Weisbach world loses about half what the steel-pipe formula says; hose
@@ -118,7 +125,9 @@ describe("the product's line model against the demo world (issue 17, item 4)", (
     expect(best.b).toBeLessThan(2);
 
     // Held out: every accepted report, at the regulator's true setting, against the world's true drop.
-    const diff = accepted.map((r) => predictedDrop(r, r.world.regulatorSetKpa, best.a, best.b) - (r.world.regulatorSetKpa - r.world.inletKpa));
+    const diff = accepted.map(
+      (r) => predictedDrop(r, r.world.regulatorSetKpa, best.a, best.b) - (r.world.regulatorSetKpa - r.world.inletKpa),
+    );
     const bias = diff.reduce((s, d) => s + d, 0) / diff.length / KPA_PER_PSI;
     const meanAbs = diff.reduce((s, d) => s + Math.abs(d), 0) / diff.length / KPA_PER_PSI;
     // Stated tolerance: |mean difference| ≤ 1 psi and mean absolute difference ≤ 3 psi (against a mean

@@ -5,30 +5,79 @@ import { describe, expect, it } from "vitest";
 import { CALCULATOR_DEFAULTS, calculatorSchema } from "~/air/calculator-form";
 import { supplySchema } from "~/air/supply-form";
 import {
-  barToKpa, CORROSION_LEVELS, COUPLER_PROFILES, formatPressure, ftToM, galToL, inToMm, INLET_SOURCES, isSlug, OUTCOMES, parseMeasure,
-  psiToKpa, RANGES, rangeMessage, rangeShort, scfmToLps, toolName, VEHICLE_CLASSES,
+  barToKpa,
+  CORROSION_LEVELS,
+  COUPLER_PROFILES,
+  formatPressure,
+  ftToM,
+  galToL,
+  inToMm,
+  INLET_SOURCES,
+  isSlug,
+  OUTCOMES,
+  parseMeasure,
+  psiToKpa,
+  RANGES,
+  rangeMessage,
+  rangeShort,
+  scfmToLps,
+  toolName,
+  VEHICLE_CLASSES,
 } from "~/domain";
 import { REPORT_FIELDS } from "~/feed/fields";
 import { jsonSchema } from "~/feed/schemas";
 import { reportFields, reportSchema, toColumns } from "~/reports/form-schema";
 import { roundDecimals, STORED_DECIMALS } from "~/domain";
 
-type Json = { minimum?: number; exclusiveMinimum?: number; maximum?: number; enum?: unknown[]; pattern?: string; type: unknown };
-const published = (jsonSchema("report", "https://bayproof.test").properties as Record<string, Json>);
+type Json = {
+  minimum?: number;
+  exclusiveMinimum?: number;
+  maximum?: number;
+  enum?: unknown[];
+  pattern?: string;
+  type: unknown;
+};
+const published = jsonSchema("report", "https://bayproof.test").properties as Record<string, Json>;
 
 /** A whole, valid report in SI units (lu=mm, pu=kPa), so each field can be moved alone. */
 const base: Record<string, string> = {
-  pu: "kPa", lu: "mm", toolModel: "brackwater-bh-150", jobType: "ball-joint-separation", vehicleClass: "light_truck", componentAge: "9",
-  corrosion: "heavy", attachmentLength: "150", regulator: "2000", inlet: "600", inletSource: "measured_at_inlet", hoseId: "9.5",
-  hoseLength: "15", couplerProfile: "industrial_m", couplerCount: "2", compressor: "5", tank: "200", outcome: "freed", time: "45",
-  attempts: "1", triggerControl: "4",
+  pu: "kPa",
+  lu: "mm",
+  toolModel: "brackwater-bh-150",
+  jobType: "ball-joint-separation",
+  vehicleClass: "light_truck",
+  componentAge: "9",
+  corrosion: "heavy",
+  attachmentLength: "150",
+  regulator: "2000",
+  inlet: "600",
+  inletSource: "measured_at_inlet",
+  hoseId: "9.5",
+  hoseLength: "15",
+  couplerProfile: "industrial_m",
+  couplerCount: "2",
+  compressor: "5",
+  tank: "200",
+  outcome: "freed",
+  time: "45",
+  attempts: "1",
+  triggerControl: "4",
 };
 
 /** The feed's field → the report form's field, in SI (the form's metric entry is SI). */
 const FORM_FIELD: Record<string, string> = {
-  component_age_years: "componentAge", attachment_length_mm: "attachmentLength", regulator_kpa: "regulator", inlet_kpa: "inlet",
-  hose_id_mm: "hoseId", hose_length_m: "hoseLength", coupler_count: "couplerCount", compressor_lps: "compressor", tank_l: "tank",
-  time_to_result_s: "time", attempts: "attempts", trigger_control: "triggerControl",
+  component_age_years: "componentAge",
+  attachment_length_mm: "attachmentLength",
+  regulator_kpa: "regulator",
+  inlet_kpa: "inlet",
+  hose_id_mm: "hoseId",
+  hose_length_m: "hoseLength",
+  coupler_count: "couplerCount",
+  compressor_lps: "compressor",
+  tank_l: "tank",
+  time_to_result_s: "time",
+  attempts: "attempts",
+  trigger_control: "triggerControl",
 };
 
 const accepts = (field: string, value: number) => {
@@ -69,12 +118,24 @@ describe("the feed's published report constraints", () => {
     expect(choices("inlet_source")).toEqual(reportFields.inletSource.options);
     expect(choices("coupler_profile")).toEqual(reportFields.couplerProfile.unwrap().options);
     expect(choices("outcome")).toEqual(reportFields.outcome.options);
-    expect([VEHICLE_CLASSES, CORROSION_LEVELS, INLET_SOURCES, COUPLER_PROFILES, OUTCOMES].map((l) => l.length)).toEqual([7, 5, 3, 5, 3]);
+    expect([VEHICLE_CLASSES, CORROSION_LEVELS, INLET_SOURCES, COUPLER_PROFILES, OUTCOMES].map((l) => l.length)).toEqual(
+      [7, 5, 3, 5, 3],
+    );
   });
 
   it("publish the slug pattern the forms and routes accept", () => {
     const pattern = new RegExp(published.model!.pattern!);
-    for (const slug of ["brackwater-bh-150", "air-hammer", "a", "bh-150.2", "Air-hammer", "a--b", "-a", "a-", "drive-1/2"]) {
+    for (const slug of [
+      "brackwater-bh-150",
+      "air-hammer",
+      "a",
+      "bh-150.2",
+      "Air-hammer",
+      "a--b",
+      "-a",
+      "a-",
+      "drive-1/2",
+    ]) {
       const form = reportFields.toolModel.safeParse(slug).success;
       expect([pattern.test(slug), isSlug(slug)], slug).toEqual([form, form]);
     }
@@ -84,8 +145,17 @@ describe("the feed's published report constraints", () => {
 describe("ranges and their words", () => {
   // Each stated bound, back in SI, is within a rounding of the SI bound it explains.
   const toSi: Record<string, (x: number) => number> = {
-    kPa: (x) => x, psi: psiToKpa, bar: barToKpa, mm: (x) => x, in: inToMm, m: (x) => x, ft: ftToM, "l/s": (x) => x, SCFM: scfmToLps,
-    l: (x) => x, gal: galToL,
+    kPa: (x) => x,
+    psi: psiToKpa,
+    bar: barToKpa,
+    mm: (x) => x,
+    in: inToMm,
+    m: (x) => x,
+    ft: ftToM,
+    "l/s": (x) => x,
+    SCFM: scfmToLps,
+    l: (x) => x,
+    gal: galToL,
   };
   it("state each bound honestly in every unit they name (within 10 %, from the SI conversions)", () => {
     for (const [name, range] of Object.entries(RANGES)) {
@@ -142,7 +212,15 @@ describe("stored precision", () => {
   });
 
   it("a report form's SI columns carry no float noise", () => {
-    const columns = toColumns({ pu: "psi", lu: "in", regulator: 96, inlet: 92, hoseId: 0.375, hoseLength: 25, tank: 60 });
+    const columns = toColumns({
+      pu: "psi",
+      lu: "in",
+      regulator: 96,
+      inlet: 92,
+      hoseId: 0.375,
+      hoseLength: 25,
+      tank: 60,
+    });
     expect(columns.regulator_kpa).toBe(661.9);
     expect(columns.inlet_kpa).toBe(634.3);
     expect(columns.hose_id_mm).toBe(9.525);

@@ -14,12 +14,35 @@ for (const name of SCHEMA_NAMES) ajv.addSchema(jsonSchema(name, origin));
 const validate = (name: string, value: unknown) => ajv.validate(`${origin}/api/v1/schema/${name}.json`, value);
 
 const report = {
-  id: 12, model: "brackwater-bh-150", maker: "brackwater", category: "air-hammer", job: "ball-joint-separation",
-  reporter: "rp_0123456789abcdef", accepted_at: "2026-11-30T08:15:02.123456Z", version: 1, vehicle_class: "light_truck",
-  component_age_years: 9, corrosion_level: "heavy", attachment: null, attachment_length_mm: null, regulator_kpa: 758.4,
-  inlet_kpa: 610.2, inlet_source: "measured_at_inlet", hose_id_mm: 9.525, hose_length_m: 15.24, coupler_profile: null,
-  coupler_count: 2, compressor_lps: null, tank_l: null, outcome: "freed", time_to_result_s: 42, attempts: 1,
-  trigger_control: null, notes: null, evidence_count: 2, evidence_urls: [`${origin}/api/v1/evidence/7`],
+  id: 12,
+  model: "brackwater-bh-150",
+  maker: "brackwater",
+  category: "air-hammer",
+  job: "ball-joint-separation",
+  reporter: "rp_0123456789abcdef",
+  accepted_at: "2026-11-30T08:15:02.123456Z",
+  version: 1,
+  vehicle_class: "light_truck",
+  component_age_years: 9,
+  corrosion_level: "heavy",
+  attachment: null,
+  attachment_length_mm: null,
+  regulator_kpa: 758.4,
+  inlet_kpa: 610.2,
+  inlet_source: "measured_at_inlet",
+  hose_id_mm: 9.525,
+  hose_length_m: 15.24,
+  coupler_profile: null,
+  coupler_count: 2,
+  compressor_lps: null,
+  tank_l: null,
+  outcome: "freed",
+  time_to_result_s: 42,
+  attempts: 1,
+  trigger_control: null,
+  notes: null,
+  evidence_count: 2,
+  evidence_urls: [`${origin}/api/v1/evidence/7`],
 };
 
 describe("the feed's JSON Schemas", () => {
@@ -47,7 +70,10 @@ describe("the feed's JSON Schemas", () => {
     const byName = Object.fromEntries(REPORT_FIELDS.map((f) => [f.name, tableField(f)]));
     expect(byName.hose_length_m).toMatchObject({ type: "number", unit: "m" });
     expect(byName.compressor_lps).toMatchObject({ unit: "L/s" });
-    expect(byName.time_to_result_s).toMatchObject({ unit: "s", constraints: { required: true, minimum: 1, maximum: 28800 } });
+    expect(byName.time_to_result_s).toMatchObject({
+      unit: "s",
+      constraints: { required: true, minimum: 1, maximum: 28800 },
+    });
     expect((byName.trigger_control!.constraints as Record<string, unknown>).required).toBeUndefined();
     expect(byName.accepted_at).toMatchObject({ type: "datetime" });
     expect(byName.evidence_urls).toMatchObject({ type: "array" });

@@ -63,7 +63,8 @@ describe("safeRedirectPath", () => {
   });
 
   it("refuses what is not a string and uses the fallback it is given", () => {
-    for (const value of [null, undefined, 42, ["/account"], { path: "/" }]) expect(isSafeRedirectPath(value)).toBe(false);
+    for (const value of [null, undefined, 42, ["/account"], { path: "/" }])
+      expect(isSafeRedirectPath(value)).toBe(false);
     expect(safeRedirectPath("//evil.example", "/")).toBe("/");
     expect(isSafeRedirectPath(`/${"a".repeat(2000)}`)).toBe(false);
   });

@@ -13,7 +13,10 @@ function reports(n: number, fromKpa: number, toKpa: number, reporters = n): Cell
     const u = rng();
     return {
       outcome: u < p ? "freed" : u < p + (1 - p) / 2 ? "freed_with_help" : "not_freed",
-      timeS: 20 + rng() * 60, inletKpa, reporterId: i % reporters, aboveRated: false,
+      timeS: 20 + rng() * 60,
+      inletKpa,
+      reporterId: i % reporters,
+      aboveRated: false,
       inletSource: i % 3 === 0 ? "measured_at_inlet" : "estimated",
     };
   });
@@ -26,14 +29,24 @@ describe("a cell's figures", () => {
     expect(f.n).toBe(40);
     expect(f.reporters).toBe(6);
     const byReporter = [0, 1, 2, 3, 4, 5].map((k) => ({
-      successes: r.filter((x) => x.reporterId === k && x.outcome === "freed").length, trials: r.filter((x) => x.reporterId === k).length,
+      successes: r.filter((x) => x.reporterId === k && x.outcome === "freed").length,
+      trials: r.filter((x) => x.reporterId === k).length,
     }));
     expect(f.lower).toBeCloseTo(clusteredWilson(byReporter).lower, 12); // recomputed by the pure function
     const times = r.filter((x) => x.outcome === "freed").map((x) => x.timeS);
     const m = medianInterval(times)!;
-    expect(f.time).toMatchObject({ n: times.length, median: m.estimate, lower: m.lower, upper: m.upper, coverage: m.coverage });
+    expect(f.time).toMatchObject({
+      n: times.length,
+      median: m.estimate,
+      lower: m.lower,
+      upper: m.upper,
+      coverage: m.coverage,
+    });
     expect(f.time!.coverage).toBeGreaterThanOrEqual(0.95);
-    const km = kaplanMeier(r.map((x) => x.timeS), r.map((x) => x.outcome === "freed"));
+    const km = kaplanMeier(
+      r.map((x) => x.timeS),
+      r.map((x) => x.outcome === "freed"),
+    );
     expect(f.km!.median).toBe(km.median);
     // Give-ups counted: the KM median is no shorter than the median of the successes alone.
     expect(f.km!.median ?? Infinity).toBeGreaterThanOrEqual(f.time!.median);
@@ -41,7 +54,10 @@ describe("a cell's figures", () => {
   });
 
   it("gives no time interval with five times or fewer, and says so with nulls", () => {
-    const r = reports(8, 600, 700).map((x, i) => ({ ...x, outcome: i < 5 ? ("freed" as const) : ("not_freed" as const) }));
+    const r = reports(8, 600, 700).map((x, i) => ({
+      ...x,
+      outcome: i < 5 ? ("freed" as const) : ("not_freed" as const),
+    }));
     const f = cellFigures(r)!;
     expect(f.time!.n).toBe(5);
     expect(f.time!.lower).toBeNull();
@@ -67,7 +83,11 @@ describe("a cell's figures", () => {
 /** A job's inlet-measured reports: three models, success rising with pressure. */
 function jobReports(): FitReport[] {
   const out: FitReport[] = [];
-  for (const [model, from, to, shift] of [[1, 480, 760, 0], [2, 520, 700, -40], [3, 700, 820, 0]] as const) {
+  for (const [model, from, to, shift] of [
+    [1, 480, 760, 0],
+    [2, 520, 700, -40],
+    [3, 700, 820, 0],
+  ] as const) {
     for (let i = 0; i < 40; i++) {
       const inletKpa = from + ((to - from) * i) / 39;
       out.push({ model, inletKpa, freed: rng() < 1 / (1 + Math.exp(-(inletKpa - 600 - shift) / 60)) });
@@ -98,7 +118,10 @@ describe("a job's pooled pressure fit", () => {
     const rows = jobReports();
     const joint = jobPressureFit(rows, [1, 2, 3]);
     const one = joint.perModel.get(1)!.fit!;
-    const alone = modelAtJobSlope(rows.filter((r) => r.model === 1), { slope: one.slope, sigma: one.sigma });
+    const alone = modelAtJobSlope(
+      rows.filter((r) => r.model === 1),
+      { slope: one.slope, sigma: one.sigma },
+    );
     expect(alone.fit!.intercept).toBeCloseTo(one.intercept, 6);
     expect(alone.fit!.d).toBeCloseTo(one.d, 6);
     expect(alone.adjusted!.lower).toBeCloseTo(joint.perModel.get(1)!.adjusted!.lower, 6);
@@ -116,11 +139,17 @@ describe("which tool at my air", () => {
     const { atSupply } = await import("~/stats/which-tool");
     const fit = jobPressureFit(jobReports(), [1]).perModel.get(1)!.fit;
     const line = { hoseIdMm: 6.35, hoseLengthM: 30, couplerProfile: "automotive_t" as const, couplerCount: 3 };
-    const weak = atSupply({ slug: "x", fitting: "shank-0.498", ratedLps: 4.7, fit }, { regulatorKpa: 620, line, bits: "shank-0.401" });
+    const weak = atSupply(
+      { slug: "x", fitting: "shank-0.498", ratedLps: 4.7, fit },
+      { regulatorKpa: 620, line, bits: "shank-0.401" },
+    );
     expect(weak.inletKpa).toBeLessThan(620);
     expect(weak.needs.join(" ")).toMatch(/0.498 in shank bits/);
     expect(weak.needs.join(" ")).toMatch(/bigger air supply/);
-    const strong = atSupply({ slug: "x", fitting: "shank-0.401", ratedLps: 1.9, fit }, { regulatorKpa: 760, line: { ...line, hoseIdMm: 12.7, hoseLengthM: 8 }, bits: "shank-0.401" });
+    const strong = atSupply(
+      { slug: "x", fitting: "shank-0.401", ratedLps: 1.9, fit },
+      { regulatorKpa: 760, line: { ...line, hoseIdMm: 12.7, hoseLengthM: 8 }, bits: "shank-0.401" },
+    );
     expect(strong.needs).toEqual([]);
     expect(strong.predicted!.estimate).toBeGreaterThan(weak.predicted!.estimate);
   });

@@ -4,8 +4,16 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
-  clusteredWilson, differenceInterval, distinguishable, kaplanMeier, logisticFit, medianInterval, pooledLogisticFit,
-  pooledPredict, wilsonInterval, type PooledRow,
+  clusteredWilson,
+  differenceInterval,
+  distinguishable,
+  kaplanMeier,
+  logisticFit,
+  medianInterval,
+  pooledLogisticFit,
+  pooledPredict,
+  wilsonInterval,
+  type PooledRow,
 } from "~/stats";
 
 const near = (actual: number | null | undefined, expected: number, tol: number) => {
@@ -17,7 +25,8 @@ const logit = (p: number) => Math.log(p / (1 - p));
 
 /** P(B ≤ k − 1), B ~ Binomial(n, ½), exactly, in integer arithmetic. */
 function exactTail(n: number, k: number): number {
-  let c = 1n, sum = 0n;
+  let c = 1n,
+    sum = 0n;
   for (let i = 0; i < k; i++) {
     sum += c;
     c = (c * BigInt(n - i)) / BigInt(i + 1);
@@ -50,17 +59,26 @@ describe("medianInterval", () => {
   it("contains its estimate, reaches the level asked, and the next k would not (property; exact integer binomial)", () => {
     const values = fc.array(fc.integer({ min: -1000, max: 1000 }), { minLength: 1, maxLength: 120 });
     const level = fc.constantFrom(0.8, 0.9, 0.95, 0.99);
-    fc.assert(fc.property(values, level, (xs, conf) => {
-      const m = medianInterval(xs, conf);
-      const n = xs.length;
-      const coverage = (k: number) => 1 - 2 * exactTail(n, k);
-      if (m === null) return coverage(1) < conf;
-      const k = [...Array(n).keys()].map((i) => i + 1).find((j) => Math.abs(coverage(j) - m.coverage) < 1e-9);
-      if (k === undefined) return false;
-      const sorted = [...xs].sort((a, b) => a - b);
-      return m.lower === sorted[k - 1] && m.upper === sorted[n - k] && m.lower <= m.estimate && m.estimate <= m.upper &&
-        m.coverage >= conf && coverage(k + 1) < conf;
-    }), { seed, numRuns: 300 });
+    fc.assert(
+      fc.property(values, level, (xs, conf) => {
+        const m = medianInterval(xs, conf);
+        const n = xs.length;
+        const coverage = (k: number) => 1 - 2 * exactTail(n, k);
+        if (m === null) return coverage(1) < conf;
+        const k = [...Array(n).keys()].map((i) => i + 1).find((j) => Math.abs(coverage(j) - m.coverage) < 1e-9);
+        if (k === undefined) return false;
+        const sorted = [...xs].sort((a, b) => a - b);
+        return (
+          m.lower === sorted[k - 1] &&
+          m.upper === sorted[n - k] &&
+          m.lower <= m.estimate &&
+          m.estimate <= m.upper &&
+          m.coverage >= conf &&
+          coverage(k + 1) < conf
+        );
+      }),
+      { seed, numRuns: 300 },
+    );
   });
 });
 
@@ -76,13 +94,26 @@ describe("kaplanMeier", () => {
 
   it("reproduces the product-limit steps (from memory, recomputed)", () => {
     const expected: [number, number, number, number][] = [
-      [6, 21, 3, 18 / 21], [7, 17, 1, (18 / 21) * (16 / 17)], [10, 15, 1, 0.752941], [13, 12, 1, 0.690196],
-      [16, 11, 1, 0.627451], [22, 7, 1, 0.537815], [23, 6, 1, 0.448179],
+      [6, 21, 3, 18 / 21],
+      [7, 17, 1, (18 / 21) * (16 / 17)],
+      [10, 15, 1, 0.752941],
+      [13, 12, 1, 0.690196],
+      [16, 11, 1, 0.627451],
+      [22, 7, 1, 0.537815],
+      [23, 6, 1, 0.448179],
     ];
     expect(km.steps.map((s) => [s.time, s.atRisk, s.events])).toEqual(expected.map(([t, n, d]) => [t, n, d]));
     km.steps.forEach((s, i) => near(s.survival, expected[i]![3], 1e-6));
     // The three-decimal values quoted for this example: .857 .807 .753 .690 .627 .538 .448 (from memory).
-    expect(km.steps.map((s) => s.survival.toFixed(3))).toEqual(["0.857", "0.807", "0.753", "0.690", "0.627", "0.538", "0.448"]);
+    expect(km.steps.map((s) => s.survival.toFixed(3))).toEqual([
+      "0.857",
+      "0.807",
+      "0.753",
+      "0.690",
+      "0.627",
+      "0.538",
+      "0.448",
+    ]);
   });
   it("gives median 23 weeks (from memory: Gehan's 6-MP arm), log-log Brookmeyer–Crowley limits 13 to not reached (recomputed)", () => {
     // Bands S^exp(±z·se), Greenwood: at 13 weeks 0.4316–0.8491 (first lower band ≤ 0.5); the upper
@@ -102,17 +133,23 @@ describe("kaplanMeier", () => {
 
   it("is non-increasing in [0, 1], and lower ≤ median ≤ upper where they exist (property)", () => {
     const job = fc.record({ t: fc.integer({ min: 1, max: 40 }), freed: fc.boolean() });
-    fc.assert(fc.property(fc.array(job, { minLength: 1, maxLength: 80 }), (jobs) => {
-      const r = kaplanMeier(jobs.map((j) => j.t), jobs.map((j) => j.freed));
-      let prev = 1;
-      for (const s of r.steps) {
-        if (!(s.survival >= 0 && s.survival <= prev)) return false;
-        prev = s.survival;
-      }
-      if (r.median !== null && r.lower !== null && r.lower > r.median) return false;
-      if (r.median !== null && r.upper !== null && r.upper < r.median) return false;
-      return true;
-    }), { seed, numRuns: 300 });
+    fc.assert(
+      fc.property(fc.array(job, { minLength: 1, maxLength: 80 }), (jobs) => {
+        const r = kaplanMeier(
+          jobs.map((j) => j.t),
+          jobs.map((j) => j.freed),
+        );
+        let prev = 1;
+        for (const s of r.steps) {
+          if (!(s.survival >= 0 && s.survival <= prev)) return false;
+          prev = s.survival;
+        }
+        if (r.median !== null && r.lower !== null && r.lower > r.median) return false;
+        if (r.median !== null && r.upper !== null && r.upper < r.median) return false;
+        return true;
+      }),
+      { seed, numRuns: 300 },
+    );
   });
 });
 
@@ -154,7 +191,9 @@ describe("pooledLogisticFit", () => {
     // Second group invented for the check; dense Newton–Raphson on the design [dummy a, dummy b, x].
     const xb = [55, 58, 60, 62, 64, 65, 66, 68, 70, 71, 72, 74, 75, 77, 80];
     const yb = [1, 1, 0, 1, 1, 0, 1, 0, 1, 0, 0, 0, 1, 0, 0];
-    const fit = pooledLogisticFit([...challenger, ...xb.map((x, i) => ({ group: "b", x, y: yb[i]! }))], { firth: false });
+    const fit = pooledLogisticFit([...challenger, ...xb.map((x, i) => ({ group: "b", x, y: yb[i]! }))], {
+      firth: false,
+    });
     near(fit.groups[0]!.intercept, 12.6177093681, 1e-6);
     near(fit.groups[1]!.intercept, 13.1474305899, 1e-6);
     near(fit.slope, -0.1964832667, 1e-8);
@@ -191,7 +230,11 @@ describe("pooledLogisticFit", () => {
     const rows = groups.flatMap(([group, xs, ys]) => xs.map((x, i) => ({ group, x, y: ys[i]! })));
     const fit = pooledLogisticFit(rows);
     expect(fit.converged).toBe(true);
-    const expected = [[2.6612801174, 1.6933865809], [-0.294401463, 0.9359933798], [-1.1377285538, 1.1436182923]];
+    const expected = [
+      [2.6612801174, 1.6933865809],
+      [-0.294401463, 0.9359933798],
+      [-1.1377285538, 1.1436182923],
+    ];
     fit.groups.forEach((row, k) => {
       near(row.intercept, expected[k]![0]!, 1e-6);
       near(row.se, expected[k]![1]!, 1e-6);
@@ -216,7 +259,7 @@ describe("pooledLogisticFit", () => {
   it("handles hundreds of groups, and does not depend on their order (property)", () => {
     const rows: PooledRow[] = [];
     let state = 7;
-    const rand = () => ((state = (state * 48271) % 2147483647) / 2147483647);
+    const rand = () => (state = (state * 48271) % 2147483647) / 2147483647;
     for (let g = 0; g < 300; g++) {
       const base = rand() * 3 - 1.5;
       for (let i = 0; i < 8; i++) {
@@ -233,22 +276,34 @@ describe("pooledLogisticFit", () => {
   });
 
   it("gives intervals that contain their estimate on any small data set, separated or not (property)", () => {
-    const row = fc.record({ group: fc.integer({ min: 0, max: 3 }), x: fc.integer({ min: -3, max: 3 }), y: fc.constantFrom(0, 1) });
-    fc.assert(fc.property(fc.array(row, { minLength: 2, maxLength: 40 }), (rows) => {
-      rows.push({ group: 0, x: -2, y: 0 }, { group: 0, x: 2, y: 1 }); // x varies within a group
-      const fit = pooledLogisticFit(rows);
-      if (!fit.converged) return false;
-      return fit.groups.every((r) => {
-        const p = pooledPredict(fit, r.group, 0.5);
-        return Number.isFinite(r.intercept) && p.lower <= p.estimate && p.estimate <= p.upper;
-      });
-    }), { seed, numRuns: 200 });
+    const row = fc.record({
+      group: fc.integer({ min: 0, max: 3 }),
+      x: fc.integer({ min: -3, max: 3 }),
+      y: fc.constantFrom(0, 1),
+    });
+    fc.assert(
+      fc.property(fc.array(row, { minLength: 2, maxLength: 40 }), (rows) => {
+        rows.push({ group: 0, x: -2, y: 0 }, { group: 0, x: 2, y: 1 }); // x varies within a group
+        const fit = pooledLogisticFit(rows);
+        if (!fit.converged) return false;
+        return fit.groups.every((r) => {
+          const p = pooledPredict(fit, r.group, 0.5);
+          return Number.isFinite(r.intercept) && p.lower <= p.estimate && p.estimate <= p.upper;
+        });
+      }),
+      { seed, numRuns: 200 },
+    );
   });
 });
 
 describe("clusteredWilson", () => {
   it("with one report per reporter equals wilsonInterval, design effect 1 (recomputed: the two variances coincide)", () => {
-    for (const [s, n] of [[81, 263], [15, 148], [0, 20], [7, 7]] as const) {
+    for (const [s, n] of [
+      [81, 263],
+      [15, 148],
+      [0, 20],
+      [7, 7],
+    ] as const) {
       const clusters = Array.from({ length: n }, (_, i) => ({ successes: i < s ? 1 : 0, trials: 1 }));
       const c = clusteredWilson(clusters);
       const w = wilsonInterval(s, n);
@@ -265,7 +320,12 @@ describe("clusteredWilson", () => {
     // Binomial variance with the same factor 20/19 · 0.24/20 = 0.24/19.
     // deff = (1/30) / (0.24/19) = 19/7.2 = 2.638889; effective n = 20/deff = 144/19 = 7.578947.
     // Wilson at p = 0.6, n = 7.578947: 0.280252 to 0.852475 (vs 0.386582 to 0.781193 unclustered).
-    const c = clusteredWilson([{ successes: 4, trials: 5 }, { successes: 1, trials: 5 }, { successes: 5, trials: 5 }, { successes: 2, trials: 5 }]);
+    const c = clusteredWilson([
+      { successes: 4, trials: 5 },
+      { successes: 1, trials: 5 },
+      { successes: 5, trials: 5 },
+      { successes: 2, trials: 5 },
+    ]);
     near(c.designEffect, 19 / 7.2, 1e-12);
     near(c.effectiveN, 144 / 19, 1e-12);
     near(c.lower, 0.28025178025, 1e-9);
@@ -274,24 +334,40 @@ describe("clusteredWilson", () => {
   });
 
   it("takes deff = 1 at p = 0 or 1 and with a single reporter", () => {
-    expect(clusteredWilson([{ successes: 0, trials: 4 }, { successes: 0, trials: 9 }]).designEffect).toBe(1);
-    expect(clusteredWilson([{ successes: 4, trials: 4 }, { successes: 9, trials: 9 }])).toMatchObject({ designEffect: 1, upper: 1 });
+    expect(
+      clusteredWilson([
+        { successes: 0, trials: 4 },
+        { successes: 0, trials: 9 },
+      ]).designEffect,
+    ).toBe(1);
+    expect(
+      clusteredWilson([
+        { successes: 4, trials: 4 },
+        { successes: 9, trials: 9 },
+      ]),
+    ).toMatchObject({ designEffect: 1, upper: 1 });
     expect(clusteredWilson([{ successes: 3, trials: 8 }]).designEffect).toBe(1);
   });
 
   it("contains its estimate with deff ≥ 1 (property)", () => {
-    const cluster = fc.integer({ min: 1, max: 12 }).chain((m) => fc.record({ successes: fc.integer({ min: 0, max: m }), trials: fc.constant(m) }));
-    fc.assert(fc.property(fc.array(cluster, { minLength: 1, maxLength: 30 }), (cs) => {
-      const c = clusteredWilson(cs);
-      return c.designEffect >= 1 && c.lower <= c.estimate && c.estimate <= c.upper && c.lower >= 0 && c.upper <= 1;
-    }), { seed, numRuns: 300 });
+    const cluster = fc
+      .integer({ min: 1, max: 12 })
+      .chain((m) => fc.record({ successes: fc.integer({ min: 0, max: m }), trials: fc.constant(m) }));
+    fc.assert(
+      fc.property(fc.array(cluster, { minLength: 1, maxLength: 30 }), (cs) => {
+        const c = clusteredWilson(cs);
+        return c.designEffect >= 1 && c.lower <= c.estimate && c.estimate <= c.upper && c.lower >= 0 && c.upper <= 1;
+      }),
+      { seed, numRuns: 300 },
+    );
   });
 });
 
 describe("distinguishable", () => {
   it("tells apart 60/100 and 45/100 though their 95 % intervals overlap (recomputed, numpy/scipy)", () => {
     // Wilson: 0.5020–0.6906 and 0.3561–0.5476 overlap; Newcombe difference 0.15, 0.0117 to 0.2804.
-    const a = wilsonInterval(60, 100), b = wilsonInterval(45, 100);
+    const a = wilsonInterval(60, 100),
+      b = wilsonInterval(45, 100);
     expect(a.lower).toBeLessThan(b.upper);
     const r = distinguishable(60, 100, 45, 100);
     expect(r.distinguishable).toBe(true);
@@ -323,10 +399,15 @@ describe("distinguishable", () => {
   });
 
   it("gives a difference interval that contains its estimate (property)", () => {
-    const counts = fc.integer({ min: 1, max: 300 }).chain((n) => fc.tuple(fc.integer({ min: 0, max: n }), fc.constant(n)));
-    fc.assert(fc.property(counts, counts, fc.double({ min: 1, max: 5, noNaN: true }), ([s1, n1], [s2, n2], deff) => {
-      const { difference: d } = distinguishable(s1, n1, s2, n2, 0.95, { designEffect1: deff });
-      return d.lower <= d.estimate && d.estimate <= d.upper && d.lower >= -1 && d.upper <= 1;
-    }), { seed, numRuns: 300 });
+    const counts = fc
+      .integer({ min: 1, max: 300 })
+      .chain((n) => fc.tuple(fc.integer({ min: 0, max: n }), fc.constant(n)));
+    fc.assert(
+      fc.property(counts, counts, fc.double({ min: 1, max: 5, noNaN: true }), ([s1, n1], [s2, n2], deff) => {
+        const { difference: d } = distinguishable(s1, n1, s2, n2, 0.95, { designEffect1: deff });
+        return d.lower <= d.estimate && d.estimate <= d.upper && d.lower >= -1 && d.upper <= 1;
+      }),
+      { seed, numRuns: 300 },
+    );
   });
 });

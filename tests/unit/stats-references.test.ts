@@ -4,11 +4,21 @@ import fc from "fast-check";
 import seedrandom from "seedrandom";
 import { describe, expect, it } from "vitest";
 import {
-  bootstrapInterval, correlation, differenceInterval, logisticFit, logisticPredict, meanIntervalFromSummary,
-  probabilityGreater, shrinkProportions, tCritical, wilsonInterval, zCritical,
+  bootstrapInterval,
+  correlation,
+  differenceInterval,
+  logisticFit,
+  logisticPredict,
+  meanIntervalFromSummary,
+  probabilityGreater,
+  shrinkProportions,
+  tCritical,
+  wilsonInterval,
+  zCritical,
 } from "~/stats";
 
-const near = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
+const near = (actual: number, expected: number, tol: number) =>
+  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
 
 describe("Wilson score interval", () => {
   // Newcombe R.G. (1998), Statistics in Medicine 17:857–872, method 3 (published for 81/263 and
@@ -28,19 +38,25 @@ describe("Wilson score interval", () => {
     near(zCritical(0.95), 1.959964, 1e-6);
   });
 
-  const counts = fc.integer({ min: 1, max: 500 }).chain((n) => fc.tuple(fc.integer({ min: 0, max: n }), fc.constant(n)));
+  const counts = fc
+    .integer({ min: 1, max: 500 })
+    .chain((n) => fc.tuple(fc.integer({ min: 0, max: n }), fc.constant(n)));
   it("lies in [0, 1] and contains its estimate (property)", () => {
-    fc.assert(fc.property(counts, ([s, n]) => {
-      const w = wilsonInterval(s, n);
-      return w.lower >= 0 && w.upper <= 1 && w.lower <= w.estimate && w.estimate <= w.upper;
-    }));
+    fc.assert(
+      fc.property(counts, ([s, n]) => {
+        const w = wilsonInterval(s, n);
+        return w.lower >= 0 && w.upper <= 1 && w.lower <= w.estimate && w.estimate <= w.upper;
+      }),
+    );
   });
   it("narrows as n grows with the rate fixed (property)", () => {
-    fc.assert(fc.property(counts, fc.integer({ min: 2, max: 10 }), ([s, n], k) => {
-      const a = wilsonInterval(s, n);
-      const b = wilsonInterval(s * k, n * k);
-      return b.upper - b.lower < a.upper - a.lower;
-    }));
+    fc.assert(
+      fc.property(counts, fc.integer({ min: 2, max: 10 }), ([s, n], k) => {
+        const a = wilsonInterval(s, n);
+        const b = wilsonInterval(s * k, n * k);
+        return b.upper - b.lower < a.upper - a.lower;
+      }),
+    );
   });
 });
 
@@ -113,7 +129,8 @@ describe("difference of two proportions", () => {
     near(d.estimate, 0.2, 1e-12);
     near(d.lower, 0.0524, 5e-5);
     near(d.upper, 0.3339, 5e-5);
-    const a = wilsonInterval(56, 70), b = wilsonInterval(48, 80);
+    const a = wilsonInterval(56, 70),
+      b = wilsonInterval(48, 80);
     near(d.lower, 0.2 - Math.hypot(a.estimate - a.lower, b.upper - b.estimate), 1e-12);
   });
 });
@@ -142,7 +159,11 @@ describe("probability that one rate beats another", () => {
 describe("empirical-Bayes shrinkage", () => {
   it("pulls small groups toward the pooled rate more than large ones", () => {
     const r = shrinkProportions([
-      { successes: 3, trials: 3 }, { successes: 80, trials: 100 }, { successes: 40, trials: 100 }, { successes: 30, trials: 60 }, { successes: 1, trials: 4 },
+      { successes: 3, trials: 3 },
+      { successes: 80, trials: 100 },
+      { successes: 40, trials: 100 },
+      { successes: 30, trials: 60 },
+      { successes: 1, trials: 4 },
     ]);
     const [small, big] = [r.groups[0]!, r.groups[1]!];
     expect(small.estimate).toBeLessThan(small.raw);
@@ -156,21 +177,32 @@ describe("empirical-Bayes shrinkage", () => {
 describe("median", () => {
   it("equals the middle of the sorted values, ties and even counts included (property)", async () => {
     const { median } = await import("~/stats");
-    fc.assert(fc.property(fc.array(fc.integer({ min: 0, max: 30 }), { minLength: 1, maxLength: 60 }), (v) => {
-      const s = [...v].sort((a, b) => a - b);
-      const n = s.length;
-      return median(v) === (n % 2 ? s[n >> 1]! : (s[(n >> 1) - 1]! + s[n >> 1]!) / 2);
-    }));
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: 0, max: 30 }), { minLength: 1, maxLength: 60 }), (v) => {
+        const s = [...v].sort((a, b) => a - b);
+        const n = s.length;
+        return median(v) === (n % 2 ? s[n >> 1]! : (s[(n >> 1) - 1]! + s[n >> 1]!) / 2);
+      }),
+    );
   });
 });
 
 describe("fast bootstrap of the median", () => {
   it("gives exactly what the general bootstrap gives for the same seed (property)", async () => {
     const { bootstrapMedianInterval, median } = await import("~/stats");
-    fc.assert(fc.property(fc.array(fc.integer({ min: 1, max: 500 }), { minLength: 1, maxLength: 40 }), fc.integer(), (v, seed) => {
-      const a = bootstrapInterval(v, median, { resamples: 50, seed });
-      const b = bootstrapMedianInterval(v, { resamples: 50, seed });
-      return a.lower === b.lower && a.upper === b.upper && a.estimate === b.estimate && Math.abs(a.se - b.se) < 1e-9;
-    }), { numRuns: 200 });
+    fc.assert(
+      fc.property(
+        fc.array(fc.integer({ min: 1, max: 500 }), { minLength: 1, maxLength: 40 }),
+        fc.integer(),
+        (v, seed) => {
+          const a = bootstrapInterval(v, median, { resamples: 50, seed });
+          const b = bootstrapMedianInterval(v, { resamples: 50, seed });
+          return (
+            a.lower === b.lower && a.upper === b.upper && a.estimate === b.estimate && Math.abs(a.se - b.se) < 1e-9
+          );
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });

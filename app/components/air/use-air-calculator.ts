@@ -16,7 +16,9 @@ export function useAirCalculator(initial: TypedValues, tools: CalculatorTool[], 
   function onChange(event: React.FormEvent<HTMLFormElement>) {
     const form = new FormData(event.currentTarget);
     setTouched(true);
-    setValues(editedValues(values, Object.fromEntries([...form].map(([k, v]) => [k, typeof v === "string" ? v : v.name]))));
+    setValues(
+      editedValues(values, Object.fromEntries([...form].map(([k, v]) => [k, typeof v === "string" ? v : v.name]))),
+    );
   }
 
   return { values, outcome, errors, onChange, metric: values.lu === "mm", pu: (values.pu ?? "psi") as PressureUnit };

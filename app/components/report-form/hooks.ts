@@ -23,7 +23,11 @@ const AUTOSAVE_DELAY_MS = 1200;
  * form: a field is checked when it is left after a real edit (see useEditedFieldCheck) and every
  * field on submit, then again as it is typed into.
  */
-export function useReportConform(reportId: number | null, values: Record<string, string>, lastResult: SubmissionResult<string[]> | undefined) {
+export function useReportConform(
+  reportId: number | null,
+  values: Record<string, string>,
+  lastResult: SubmissionResult<string[]> | undefined,
+) {
   return useForm<ReportInput>({
     id: `report-${reportId ?? "new"}`,
     lastResult,
@@ -48,7 +52,9 @@ const CHECKED_AS: Record<string, string> = { toolQuery: "toolModel" };
 export function useEditedFieldCheck(validate: (name: string) => void) {
   const edited = useRef(new Set<string>());
   const nameOf = (target: EventTarget) =>
-    target instanceof HTMLInputElement || target instanceof HTMLSelectElement || target instanceof HTMLTextAreaElement ? target.name : "";
+    target instanceof HTMLInputElement || target instanceof HTMLSelectElement || target instanceof HTMLTextAreaElement
+      ? target.name
+      : "";
   return {
     onInputCapture: (event: FormEvent) => {
       const name = nameOf(event.target);
@@ -69,7 +75,8 @@ export function useEditedFieldCheck(validate: (name: string) => void) {
 export const isConformIntent = (event: FormEvent<HTMLFormElement>) =>
   ((event.nativeEvent as SubmitEvent).submitter as HTMLButtonElement | null)?.name === "__intent__";
 
-type AutosaveReply = { autosaved: true; reportId: number; savedAt: string } | { autosaved: false; error: string } | { result: unknown };
+type AutosaveReply =
+  { autosaved: true; reportId: number; savedAt: string } | { autosaved: false; error: string } | { result: unknown };
 
 /** Saves the form as a draft a moment after the last change, once it names the tool and the job. */
 export function useAutosave(initialReportId: number | null, formRef: RefObject<HTMLFormElement | null>) {
@@ -127,7 +134,10 @@ export function useOfflineDraft(reportId: number | null, saved: Record<string, s
     keep: (values: Record<string, string>) => {
       const savedAs = reportId ?? (Number(values.reportId) || null);
       if (savedAs !== reportId) localStorage.removeItem(key);
-      localStorage.setItem(offlineDraftKey(savedAs), JSON.stringify({ at: new Date().toISOString(), values } satisfies OfflineDraft));
+      localStorage.setItem(
+        offlineDraftKey(savedAs),
+        JSON.stringify({ at: new Date().toISOString(), values } satisfies OfflineDraft),
+      );
     },
     discard: () => {
       localStorage.removeItem(key);
@@ -145,8 +155,11 @@ export function formEntries(form: HTMLFormElement): Record<string, string> {
 /** Puts values into the form's fields as if typed (radios and checkboxes by value; hidden and read-only fields kept). */
 export function fillForm(form: HTMLFormElement, values: Record<string, string>) {
   for (const [name, value] of Object.entries(values)) {
-    for (const node of form.querySelectorAll<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>(`[name="${name}"]`)) {
-      if (node instanceof HTMLInputElement && (node.type === "radio" || node.type === "checkbox")) node.checked = node.value === value;
+    for (const node of form.querySelectorAll<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>(
+      `[name="${name}"]`,
+    )) {
+      if (node instanceof HTMLInputElement && (node.type === "radio" || node.type === "checkbox"))
+        node.checked = node.value === value;
       else if (!(node instanceof HTMLInputElement && (node.type === "hidden" || node.readOnly))) node.value = value;
       node.dispatchEvent(new Event("input", { bubbles: true }));
       node.dispatchEvent(new Event("change", { bubbles: true }));
