@@ -1,10 +1,13 @@
 // The compare page's parts: the chooser, the pairs (the same rule as the job page), the tools
 // against the top tool of the job, and the figures at a chosen inlet pressure worked out in the browser.
+import { useState } from "react";
 import { Form, Link } from "react-router";
 import { formatDuration, psiToKpa } from "~/domain";
 import { predictAt, type PooledCellFit } from "~/stats/pressure";
 import { MARK_LABELS, type Mark } from "~/stats/standings";
-import { pct, prob } from "./intervals";
+import { IntervalsExplained, pct, prob } from "./intervals";
+import { PressureCurves, SurvivalCurves } from "./pressure-curves";
+import { buttonClass } from "./ui";
 
 export function ChooseJob({
   jobs,
@@ -207,5 +210,81 @@ export function AtPressureTable({ tools, psi }: { tools: CompareTool[]; psi: num
         );
       })}
     </ul>
+  );
+}
+
+interface ComparisonData {
+  job: { slug: string; name: string };
+  psi: number;
+  tools: CompareTool[];
+  pairs: ComparePair[];
+  topLabel: string | null;
+}
+
+export function Comparison({ job, tools, pairs, topLabel, psi: initialPsi }: ComparisonData) {
+  const [psi, setPsi] = useState(initialPsi);
+  const label = (s: string) => tools.find((t) => t.slug === s)!.label;
+  return (
+    <div className="space-y-5">
+      <header>
+        <p className="text-sm">
+          <Link to={`/jobs/${job.slug}`} className="text-bay-700 underline">
+            ← {job.name}
+          </Link>
+        </p>
+        <h1 className="text-2xl font-bold">Side by side: {job.name}</h1>
+      </header>
+      <IntervalsExplained />
+      <section aria-labelledby="top-heading" className="space-y-2">
+        <h2 id="top-heading" className="text-lg font-semibold">
+          Against the top tool on this job
+        </h2>
+        <AgainstTop tools={tools} topLabel={topLabel} />
+      </section>
+      <PairsTable pairs={pairs} label={label} topLabel={topLabel} />
+
+      <section aria-labelledby="time-heading" className="space-y-2">
+        <h2 id="time-heading" className="text-lg font-semibold">
+          Median time to free it, counting give-ups
+        </h2>
+        <SurvivalCurves
+          tools={tools.map((t) => ({ slug: t.slug, label: t.label, steps: t.steps, colour: t.colour }))}
+        />
+      </section>
+
+      <section aria-labelledby="pressure-heading" className="space-y-2">
+        <h2 id="pressure-heading" className="text-lg font-semibold">
+          Success against inlet pressure
+        </h2>
+        <Form method="get" className="flex flex-wrap items-end gap-2">
+          <input type="hidden" name="job" value={job.slug} />
+          <input type="hidden" name="models" value={tools.map((t) => t.slug).join(",")} />
+          <label className="block text-sm">
+            <span className="font-semibold">Pressure at your tool inlet, psi</span>
+            <select
+              name="psi"
+              value={psi}
+              onChange={(e) => setPsi(Number(e.target.value))}
+              className="mt-1 block rounded border border-stone-300 px-3 py-2"
+            >
+              {[...new Set([70, 80, 90, 100, 110, initialPsi])]
+                .sort((a, b) => a - b)
+                .map((v) => (
+                  <option key={v} value={v}>
+                    {v}
+                  </option>
+                ))}
+            </select>
+          </label>
+          <noscript>
+            <button type="submit" className={buttonClass("primary", "sm")}>
+              Show
+            </button>
+          </noscript>
+        </Form>
+        <AtPressureTable tools={tools} psi={psi} />
+        <PressureCurves tools={tools} psi={psi} />
+      </section>
+    </div>
   );
 }

@@ -1,7 +1,9 @@
 // The parts of the open-data page (/data) that describe the feed itself: the daily snapshot's files
 // and the data dictionary, both made from the feed's own descriptions (app/feed).
+import { Link } from "react-router";
 import type { SnapshotInfo } from "~/feed/documents";
 import { type Field, RECORD_TYPES, type RecordType } from "~/feed/fields";
+import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "~/feed/params";
 import { DataTable } from "./ui";
 
 const TYPE_LABEL: Record<Field["type"], string> = {
@@ -142,5 +144,133 @@ function RecordFields({ type }: { type: RecordType }) {
         ))}
       </DataTable>
     </div>
+  );
+}
+
+const ENDPOINTS = [
+  [
+    "/api/v1/reports",
+    "report-page",
+    "Accepted reports, a page at a time (filters model, job, category, accepted_since, accepted_until; limit, cursor)",
+  ],
+  ["/api/v1/reports/{id}", "report", "One accepted report"],
+  [
+    "/api/v1/snapshots/latest/reports.ndjson.gz",
+    "report",
+    "Daily snapshot: every accepted report, one JSON object per line, gzipped (open to anyone)",
+  ],
+  [
+    "/api/v1/snapshots/latest/reports.csv.gz",
+    "report",
+    "Daily snapshot: every accepted report as CSV, gzipped (open to anyone)",
+  ],
+  ["/api/v1/reports.ndjson", "report", "Every accepted report, one JSON object per line (API key)"],
+  ["/api/v1/reports.csv", "report", "Every accepted report as CSV, RFC 4180 (API key)"],
+  ["/api/v1/models", "model-list", "Tool models and their specs (filter category)"],
+  ["/api/v1/job-types", "job-type-list", "Job types (filter category)"],
+  ["/api/v1/stats", "stat-list", "Stats cells per tool model and job type (filters model, job, category)"],
+] as const;
+
+export function EndpointsSection() {
+  return (
+    <section aria-labelledby="endpoints" className="space-y-2">
+      <h2 id="endpoints" className="text-lg font-semibold">
+        Endpoints
+      </h2>
+      <DataTable
+        label="Endpoints"
+        framed={false}
+        head={
+          <tr className="border-b">
+            <th className="py-1 pr-3">Path</th>
+            <th className="py-1 pr-3">Schema</th>
+            <th className="py-1">What</th>
+          </tr>
+        }
+      >
+        {ENDPOINTS.map(([path, schema, what]) => (
+          <tr key={path} className="border-b border-stone-100 align-top">
+            <td className="py-1 pr-3 font-mono text-xs">{path}</td>
+            <td className="py-1 pr-3">
+              <a className="underline" href={`/api/v1/schema/${schema}.json`}>
+                {schema}.json
+              </a>
+            </td>
+            <td className="py-1">{what}</td>
+          </tr>
+        ))}
+      </DataTable>
+      <p className="text-sm">
+        Machine-readable:{" "}
+        <a className="underline" href="/api/v1/openapi.json">
+          OpenAPI 3.1 document
+        </a>
+        ,{" "}
+        <a className="underline" href="/api/v1/datapackage.json">
+          Data Package descriptor
+        </a>{" "}
+        of the bulk files, and a JSON Schema (2020-12) for every record and response under <code>/api/v1/schema/</code>.
+      </p>
+    </section>
+  );
+}
+
+export function UsingItSection({ origin }: { origin: string }) {
+  return (
+    <section aria-labelledby="use" className="space-y-2">
+      <h2 id="use" className="text-lg font-semibold">
+        Using it
+      </h2>
+      <ul className="list-disc space-y-1 pl-5 text-sm">
+        <li>
+          Pages hold {DEFAULT_LIMIT} reports by default, at most {MAX_LIMIT} (<code>limit</code>). Follow{" "}
+          <code>next_cursor</code> (or the <code>Link: rel="next"</code> header) until it is <code>null</code>. Keep the
+          other parameters the same while you walk; a walk covers the reports accepted up to its <code>as_of</code>, so
+          it returns each one exactly once even while new reports are accepted.
+        </li>
+        <li>
+          Anonymous clients may make {LIMITS.anonymous.points} requests a minute; with an API key, {LIMITS.key.points}.
+          Every answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get{" "}
+          <code>429</code> with <code>Retry-After</code>.
+        </li>
+        <li>
+          The daily snapshot files need nothing: download them, check the SHA-256, and resume a broken download with{" "}
+          <code>Range</code>. The live bulk files (up to the minute) need an API key: sign in, create one on{" "}
+          <Link className="underline" to="/account">
+            your account page
+          </Link>{" "}
+          (it is shown once), and send it as <code>Authorization: Bearer &lt;key&gt;</code>. A revoked key gets{" "}
+          <code>401</code>.
+        </li>
+        <li>
+          JSON answers carry an <code>ETag</code>; send it back in <code>If-None-Match</code> and an unchanged answer is
+          a bodiless <code>304</code>. CORS is open for GET.
+        </li>
+        <li>
+          A parameter the feed cannot read is a <code>400</code> with{" "}
+          <code>{"{ error: { code, message, parameter } }"}</code> — nothing is silently ignored.
+        </li>
+      </ul>
+      <pre
+        tabIndex={0}
+        aria-label="Example requests"
+        className="overflow-x-auto rounded bg-stone-900 p-3 text-xs text-stone-100"
+      >
+        {[
+          `# The first page of ball joint reports, then the next one`,
+          `curl -s '${origin}/api/v1/reports?job=ball-joint-separation&limit=50'`,
+          `curl -s '${origin}/api/v1/reports?job=ball-joint-separation&limit=50&cursor=<next_cursor>'`,
+          ``,
+          `# Every accepted report as of today's snapshot, as CSV, no key needed`,
+          `curl -s -o reports.csv.gz '${origin}/api/v1/snapshots/latest/reports.csv.gz' && gunzip reports.csv.gz`,
+          ``,
+          `# Every accepted report up to the minute, as CSV, with an API key`,
+          `curl -s -H 'Authorization: Bearer <your key>' -o reports.csv '${origin}/api/v1/reports.csv'`,
+          ``,
+          `# The stats of one tool model, only if they changed since last time`,
+          `curl -s -H 'If-None-Match: "<etag>"' '${origin}/api/v1/stats?model=<model slug>'`,
+        ].join("\n")}
+      </pre>
+    </section>
   );
 }

@@ -2,7 +2,8 @@ import { data, Form, useNavigation } from "react-router";
 import { z } from "zod";
 import { requireRole } from "~/auth/session.server";
 import { ErrorPage } from "~/components/error-page";
-import { buttonClass, DataTable } from "~/components/ui";
+import { JobTable } from "~/components/admin/job-table";
+import { buttonClass } from "~/components/ui";
 import { db } from "~/db.server";
 import { sendAgain, stuckJobs } from "~/jobs/stuck.server";
 import { parseForm } from "~/utils/forms";
@@ -88,59 +89,6 @@ export default function AdminJobs({ loaderData, actionData }: Route.ComponentPro
     </div>
   );
 }
-
-type Job = Route.ComponentProps["loaderData"]["failed"][number];
-
-function JobTable({
-  label,
-  jobs,
-  when,
-  action,
-}: {
-  label: string;
-  jobs: Job[];
-  when: string;
-  action?: (id: string) => React.ReactNode;
-}) {
-  return (
-    <DataTable
-      label={label}
-      minWidth="48rem"
-      bodyClassName="align-top"
-      head={
-        <tr>
-          <th className="px-3 py-2">Queue</th>
-          <th className="px-3 py-2">What it was for</th>
-          <th className="px-3 py-2">Last error</th>
-          <th className="px-3 py-2">Tries</th>
-          <th className="px-3 py-2">{when}</th>
-          {action && (
-            <th className="px-3 py-2">
-              <span className="sr-only">Action</span>
-            </th>
-          )}
-        </tr>
-      }
-    >
-      {jobs.map((j) => (
-        <tr key={j.id}>
-          <td className="px-3 py-2 font-mono text-xs">{j.queue}</td>
-          <td className="px-3 py-2">
-            {j.what}
-            <span className="block text-xs text-stone-500">queued {at(j.createdAt)}</span>
-          </td>
-          <td className="px-3 py-2 text-red-900">{j.lastError ?? "—"}</td>
-          <td className="px-3 py-2">{`${j.attempts} of ${j.allowedAttempts}`}</td>
-          <td className="px-3 py-2">{at(j.at)}</td>
-          {action && <td className="px-3 py-2">{j.canSendAgain ? action(j.id) : null}</td>}
-        </tr>
-      ))}
-    </DataTable>
-  );
-}
-
-/** A moment to the minute, in UTC like the job table. */
-const at = (iso: string) => `${iso.slice(0, 16).replace("T", " ")} UTC`;
 
 export function meta() {
   return [{ title: "Stuck work — Bayproof" }];

@@ -1,23 +1,13 @@
 import { toolName } from "~/domain";
-import { useState } from "react";
-import { data, Form, Link } from "react-router";
+import { data } from "react-router";
 import { db } from "~/db.server";
 import { ErrorPage } from "~/components/error-page";
-import { IntervalsExplained } from "~/components/intervals";
-import {
-  AgainstTop,
-  AtPressureTable,
-  ChooseJob,
-  ChooseTools,
-  type CompareTool,
-  PairsTable,
-} from "~/components/compare-view";
-import { CURVE_COLOURS, PressureCurves, SurvivalCurves } from "~/components/pressure-curves";
+import { ChooseJob, ChooseTools, type CompareTool, Comparison } from "~/components/compare-view";
+import { CURVE_COLOURS } from "~/components/pressure-curves";
 import { getJobBySlug, listJobs } from "~/catalogue/queries.server";
 import { compareOnJob } from "~/stats/cells.server";
 import { readCompareQuery } from "~/stats/compare-query";
 import { invariantResponse } from "~/utils/http";
-import { buttonClass } from "~/components/ui";
 import type { Route } from "./+types/compare";
 
 // No job: a chooser of jobs. A job and fewer than two usable tools: a chooser of its tools (400 when
@@ -76,76 +66,6 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
       />
     );
   return <Comparison {...loaderData} />;
-}
-
-type ComparisonData = Extract<Route.ComponentProps["loaderData"], { view: "compare" }>;
-
-function Comparison({ job, tools, pairs, topLabel, psi: initialPsi }: ComparisonData) {
-  const [psi, setPsi] = useState(initialPsi);
-  const label = (s: string) => tools.find((t) => t.slug === s)!.label;
-  return (
-    <div className="space-y-5">
-      <header>
-        <p className="text-sm">
-          <Link to={`/jobs/${job.slug}`} className="text-bay-700 underline">
-            ← {job.name}
-          </Link>
-        </p>
-        <h1 className="text-2xl font-bold">Side by side: {job.name}</h1>
-      </header>
-      <IntervalsExplained />
-      <section aria-labelledby="top-heading" className="space-y-2">
-        <h2 id="top-heading" className="text-lg font-semibold">
-          Against the top tool on this job
-        </h2>
-        <AgainstTop tools={tools} topLabel={topLabel} />
-      </section>
-      <PairsTable pairs={pairs} label={label} topLabel={topLabel} />
-
-      <section aria-labelledby="time-heading" className="space-y-2">
-        <h2 id="time-heading" className="text-lg font-semibold">
-          Median time to free it, counting give-ups
-        </h2>
-        <SurvivalCurves
-          tools={tools.map((t) => ({ slug: t.slug, label: t.label, steps: t.steps, colour: t.colour }))}
-        />
-      </section>
-
-      <section aria-labelledby="pressure-heading" className="space-y-2">
-        <h2 id="pressure-heading" className="text-lg font-semibold">
-          Success against inlet pressure
-        </h2>
-        <Form method="get" className="flex flex-wrap items-end gap-2">
-          <input type="hidden" name="job" value={job.slug} />
-          <input type="hidden" name="models" value={tools.map((t) => t.slug).join(",")} />
-          <label className="block text-sm">
-            <span className="font-semibold">Pressure at your tool inlet, psi</span>
-            <select
-              name="psi"
-              value={psi}
-              onChange={(e) => setPsi(Number(e.target.value))}
-              className="mt-1 block rounded border border-stone-300 px-3 py-2"
-            >
-              {[...new Set([70, 80, 90, 100, 110, initialPsi])]
-                .sort((a, b) => a - b)
-                .map((v) => (
-                  <option key={v} value={v}>
-                    {v}
-                  </option>
-                ))}
-            </select>
-          </label>
-          <noscript>
-            <button type="submit" className={buttonClass("primary", "sm")}>
-              Show
-            </button>
-          </noscript>
-        </Form>
-        <AtPressureTable tools={tools} psi={psi} />
-        <PressureCurves tools={tools} psi={psi} />
-      </section>
-    </div>
-  );
 }
 
 export function meta({ data }: Route.MetaArgs) {
