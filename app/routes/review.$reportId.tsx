@@ -1,21 +1,20 @@
-import { data, Form, Link, useNavigation } from "react-router";
+import { data, useNavigation } from "react-router";
 import { requireRole } from "~/auth/session.server";
-import { formatDate, formatTime, systemOfLength, toolName, unitsOf } from "~/domain";
+import { systemOfLength, unitsOf } from "~/domain";
 import { unitsFor } from "~/auth/units.server";
 import { LogList } from "~/components/decision-log";
 import { ErrorPage } from "~/components/error-page";
 import { DecisionForm } from "~/components/review/decision-form";
 import { EvidenceMedia } from "~/components/review/evidence-media";
 import { ReportFacts } from "~/components/review/report-facts";
-import { SafetyCautions } from "~/components/safety-cautions";
+import { NextReport } from "~/components/review/queue-nav";
+import { ReviewFlags } from "~/components/review/review-flags";
+import { ReviewHeader } from "~/components/review/review-header";
 import { db } from "~/db.server";
 import { DecisionError } from "~/moderation/decision-error";
-import { FLAG_EXPLANATIONS, type FlagCode } from "~/moderation/flags";
 import { readQueueFilter } from "~/moderation/queue-filter";
 import { placeInQueue } from "~/moderation/queue-page.server";
 import { openReview, reviewAction, reviewFormSchema } from "~/moderation/review.server";
-import { reporterRecord } from "~/moderation/trust";
-import { buttonClass } from "~/components/ui";
 import { formValues, readForm } from "~/utils/forms";
 import { invariantResponse } from "~/utils/http";
 import { parseIdParam } from "~/utils/params";
@@ -65,7 +64,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function ReviewReport({ loaderData, actionData }: Route.ComponentProps) {
-  const { report: r, media, history, own, claim, log, seenDecisions, units, queue, duplicateOf } = loaderData;
+  const { report: r, media, own, claim, log, seenDecisions, units, queue, duplicateOf } = loaderData;
   const busy = useNavigation().state !== "idle";
   const fieldError = (name: string) =>
     actionData && !actionData.ok && "field" in actionData && actionData.field === name ? actionData.message : undefined;
@@ -74,57 +73,9 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
   // A free report can be decided at once: the decision takes the claim in its own transaction.
   const canDecide = waiting && !own && (claim?.mine || free);
   const accepts = log.filter((d) => d.action === "accept" && d.report_version === r.version).length;
-  const until = (at: Date | string | null) => (at ? formatTime(at) : "");
   return (
     <div className="space-y-5">
-      <header>
-        <QueueNav queue={queue} />
-        <h1 className="break-words text-2xl font-bold">
-          Report #{r.id} · {toolName(r.maker, r.model_code)} · {r.job}
-        </h1>
-        <p className="text-sm text-stone-600">
-          By {r.reporter} ({reporterRecord(history)}) · submitted {formatDate(r.submitted_at)} · version {r.version} ·
-          status {r.status}
-          {accepts > 0 && waiting ? ` · accepted once, waiting for a second look` : ""}
-        </p>
-        {own && (
-          <p role="alert" className="mt-2 rounded bg-amber-100 px-3 py-2">
-            This is your own report: you cannot decide on it.
-          </p>
-        )}
-        {claim?.holder && (
-          <p role="alert" className="mt-2 rounded bg-amber-100 px-3 py-2">
-            {claim.holder} has this report open until {until(claim.expiresAt)}. You can read it; deciding waits.
-          </p>
-        )}
-        {claim?.mine && <p className="mt-2 text-sm text-stone-600">Held for you until {until(claim.expiresAt)}.</p>}
-        {claim?.alreadyAccepted && waiting && (
-          <p className="mt-2 text-sm text-stone-600">
-            You accepted this version; the second look is another moderator's.
-          </p>
-        )}
-        {canDecide && (
-          <a href="#decide" className="mt-2 inline-flex min-h-11 items-center text-sm text-bay-700 underline lg:hidden">
-            Go to the decision ↓
-          </a>
-        )}
-        {waiting && free && (
-          <Form method="post" className="mt-2 flex flex-wrap items-center gap-3">
-            <button
-              type="submit"
-              name="intent"
-              value="claim"
-              disabled={busy}
-              className={buttonClass("secondary", "md", "min-h-11")}
-            >
-              Start this review
-            </button>
-            <span className="text-sm text-stone-600">
-              Holds the report for you for 15 minutes, so nobody else checks it at the same time.
-            </span>
-          </Form>
-        )}
-      </header>
+      <ReviewHeader review={loaderData} queue={queue} accepts={accepts} canDecide={canDecide} free={free} busy={busy} />
 
       {actionData && (
         <div
@@ -136,24 +87,7 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
         </div>
       )}
 
-      {r.flags.length > 0 && (
-        <section className="rounded-lg border border-amber-300 bg-amber-50 p-3">
-          <h2 className="font-semibold">Flags</h2>
-          <ul className="mt-1 space-y-1 text-sm">
-            {r.flags.map((f) => (
-              <li key={f}>
-                <span className="font-semibold">⚑ {f.replaceAll("_", " ")}</span> —{" "}
-                {FLAG_EXPLANATIONS[f as FlagCode] ?? ""}
-              </li>
-            ))}
-          </ul>
-          {r.flags.includes("above_rated_inlet") && (
-            <div className="mt-2">
-              <SafetyCautions action={r.category_action} />
-            </div>
-          )}
-        </section>
-      )}
+      {r.flags.length > 0 && <ReviewFlags report={r} />}
 
       <div className="grid gap-5 lg:grid-cols-2">
         <EvidenceMedia media={media} />
@@ -183,43 +117,6 @@ export default function ReviewReport({ loaderData, actionData }: Route.Component
         <LogList log={log} />
       </section>
     </div>
-  );
-}
-
-type Queue = Route.ComponentProps["loaderData"]["queue"];
-
-/** Back to the queue it came from, where it stands there, and the next report. */
-function QueueNav({ queue }: { queue: Queue }) {
-  return (
-    <nav aria-label="Queue" className="flex flex-wrap items-center gap-x-4 text-sm">
-      <Link to={queue.back} className="inline-flex min-h-11 items-center text-bay-700 underline">
-        ← Queue
-      </Link>
-      {queue.position && (
-        <span className="text-stone-600">
-          {queue.position} of {queue.total} in this queue
-        </span>
-      )}
-      {queue.next && (
-        <Link to={queue.next} className="inline-flex min-h-11 items-center text-bay-700 underline sm:ml-auto">
-          Skip to the next report →
-        </Link>
-      )}
-    </nav>
-  );
-}
-
-function NextReport({ queue }: { queue: Queue }) {
-  if (!queue.next)
-    return (
-      <Link to={queue.back} className={buttonClass("primary", "md", "min-h-11")}>
-        Nothing further in this queue: back to it
-      </Link>
-    );
-  return (
-    <Link to={queue.next} className={buttonClass("primary", "md", "min-h-11")}>
-      Next report →
-    </Link>
   );
 }
 
