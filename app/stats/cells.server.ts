@@ -2,7 +2,8 @@
 import type { Db } from "../../db/database";
 import { orderCells, tellApart } from "./standings";
 
-const cellColumns = [
+/** The stored figures of a cell, as every reader (pages, compare, the feed) selects them. */
+export const cellColumns = [
   "s.n",
   "s.successes",
   "s.estimate",

@@ -1,6 +1,7 @@
 // The feed's stats records (/api/v1/stats): every figure the job and compare pages show, from the
 // stored cells and the same ordering rule (standings.ts). Field meanings: app/feed/fields.ts STAT_FIELDS.
 import type { Db } from "../../db/database";
+import { cellColumns } from "./cells.server";
 import { REFERENCE_INLET_KPA } from "./pressure";
 import { orderCells } from "./standings";
 
@@ -16,31 +17,7 @@ export async function statRecords(db: Db, f: { modelId?: number; jobId?: number;
       "j.slug as job",
       "s.tool_model_id",
       "s.job_type_id",
-      "s.n",
-      "s.successes",
-      "s.estimate",
-      "s.lower",
-      "s.upper",
-      "s.confidence",
-      "s.reporters",
-      "s.design_effect",
-      "s.effective_n",
-      "s.set_aside",
-      "s.time_n",
-      "s.time_median_s",
-      "s.time_lower_s",
-      "s.time_upper_s",
-      "s.time_coverage",
-      "s.km_n",
-      "s.km_median_s",
-      "s.km_lower_s",
-      "s.km_upper_s",
-      "s.adj_estimate",
-      "s.adj_lower",
-      "s.adj_upper",
-      "s.adj_reason",
-      "s.fit",
-      "s.computed_at",
+      ...cellColumns,
       "sj.fit_n",
       "sj.fit_models",
       "sj.slope",
