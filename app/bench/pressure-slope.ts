@@ -38,8 +38,8 @@ export interface PressureSlope {
 }
 
 /**
- * Ordinary least squares of force on inlet pressure, force = a + b·p (e.g. Draper & Smith, Applied
- * Regression Analysis, ch. 1): b = Sxy/Sxx, a = ȳ − b·p̄, s² = RSS/(n − 2), SE(b) = s/√Sxx,
+ * Ordinary least squares of force on inlet pressure, force = a + b·p (the textbook formulas, e.g. Draper &
+ * Smith, Applied Regression Analysis, ch. 1 — cited from memory): b = Sxy/Sxx, a = ȳ − b·p̄, s² = RSS/(n − 2), SE(b) = s/√Sxx,
  * SE(a) = s·√(1/n + p̄²/Sxx), and the mean at p: a + b·p ± t(n − 2)·s·√(1/n + (p − p̄)²/Sxx).
  * Sums are taken about the means, which keeps them exact enough at pressures near 600 kPa.
  *
