@@ -281,11 +281,12 @@ function computeJob(jobTypeId: number, tallies: readonly ModelTally[], now: Date
 async function storeJobs(trx: Trx, results: readonly JobResult[], scope: Scope) {
   const rows = results.flatMap((r) => r.rows);
   await sql`
-    delete from stats_cells c
-    where true ${scope.job == null ? sql`` : sql`and c.job_type_id = ${scope.job}`}
-      and not exists (
-        select from unnest(${rows.map((r) => r.tool_model_id)}::int[], ${rows.map((r) => r.job_type_id)}::int[]) k (m, j)
-        where k.m = c.tool_model_id and k.j = c.job_type_id)`.execute(trx);
+    delete from stats_cells
+    where true ${scope.job == null ? sql`` : sql`and job_type_id = ${scope.job}`}
+      and (tool_model_id, job_type_id) not in (
+        select * from unnest(${rows.map((r) => r.tool_model_id)}::int[], ${rows.map((r) => r.job_type_id)}::int[]))`.execute(
+    trx,
+  );
   for (let i = 0; i < rows.length; i += 2000) await upsertCells(trx, rows.slice(i, i + 2000));
   await upsertRows(
     trx,
