@@ -1,8 +1,8 @@
 // Keeps stats_cells and stats_jobs in step with accepted reports. An accept refreshes its own cell
 // and its job's pooled pressure fit (every cell of the job gets its new figure at 90 psi); the
 // job's shrinkage prior is kept from the last full refresh (docs/decisions/010). The full refresh
-// recomputes everything, one job type at a time. Each read brings a cell's reports as arrays (one
-// row per cell, not per report), so a million reports cost little more than the rows themselves.
+// recomputes everything from two reads that tally the reports per cell in SQL (counts, reporters,
+// packed times and pressures), then writes one statement per table (docs/decisions/010).
 import { type RawBuilder, sql } from "kysely";
 import type { Db, Trx } from "../../db/database";
 import { operatingInletPressure } from "~/air/supply";
