@@ -51,16 +51,18 @@ await benchCluster(async ({ db, url }) => {
 
   process.env.DATABASE_URL = url;
   const { loader } = await import("../app/routes/jobs.$slug");
+  const { db: appDb } = await import("../app/db.server");
+  const { withSessions } = await import("../app/auth/session.server");
   const jobs = await sql<{ slug: string }>`select slug from job_types order by id limit 10`.execute(db);
   const loads: number[] = [];
   for (let i = 0; i < 50; i++) {
     const slug = jobs.rows[i % jobs.rows.length]!.slug;
     const request = new Request(`http://127.0.0.1/jobs/${slug}`);
     t0 = performance.now();
-    await loader({ request, params: { slug }, context: {} as never } as never);
+    // As the root middleware serves it: the guards read the session through withSessions.
+    await withSessions(appDb, () => loader({ request, params: { slug }, context: {} as never } as never));
     loads.push(ms(t0));
   }
-  const { db: appDb } = await import("../app/db.server");
   await appDb.destroy();
 
   console.log("");

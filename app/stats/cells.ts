@@ -2,9 +2,10 @@
 // (refresh.server.ts) feeds it and stores the result. The pressure-adjusted figure comes from the
 // job's pooled fit (pressure.ts), not from the cell alone.
 import { clusteredWilson } from "./clustered";
-import { medianInterval } from "./median";
+import { medianIntervalOfTally, medianOfTally } from "./median";
 import { REFERENCE_INLET_KPA } from "./pressure";
-import { kaplanMeier } from "./survival";
+import type { Group } from "./proportions";
+import { kaplanMeierOfTally, type SurvivalTally } from "./survival";
 
 /** A stored cell as the pages read it (the `stats_cells` row). */
 export type { StatsCell } from "../../db/schema";
@@ -48,44 +49,94 @@ export interface CellFigures {
   estimatedShare: number;
 }
 
+/**
+ * What a cell's figures need from its reports, without the reports: counts, one cluster per
+ * reporter, and the times as a tally. The full refresh reads this straight from SQL (one row per
+ * cell), so its JavaScript work grows with cells and distinct times, not with reports.
+ */
+export interface CellTally {
+  /** Reports set aside (above the tool's rated inlet): counted, not in the figures. */
+  setAside: number;
+  /** Counted reports by inlet source. */
+  measured: number;
+  estimated: number;
+  /** One per reporter with counted reports, in reporter order: reports, and how many freed the part. */
+  clusters: Group[];
+  /** Counted reports by distinct time, ascending: freed (events) and not freed or freed with help (censored). */
+  times: SurvivalTally;
+}
+
+/** The tally of a list of reports (what the refresh reads from SQL). */
+export function tallyReports(all: readonly CellReport[]): CellTally {
+  const reports = all.filter((r) => !r.aboveRated);
+  const byReporter = new Map<number, Group>();
+  for (const r of reports) {
+    const c = byReporter.get(r.reporterId) ?? { successes: 0, trials: 0 };
+    c.trials++;
+    if (r.outcome === "freed") c.successes++;
+    byReporter.set(r.reporterId, c);
+  }
+  const km = kaplanMeierTally(reports);
+  return {
+    setAside: all.length - reports.length,
+    measured: reports.filter((r) => r.inletSource === "measured_at_inlet").length,
+    estimated: reports.filter((r) => r.inletSource === "estimated").length,
+    clusters: [...byReporter.entries()].sort((a, b) => a[0] - b[0]).map(([, c]) => c),
+    times: km,
+  };
+}
+
+function kaplanMeierTally(reports: readonly CellReport[]): SurvivalTally {
+  const sorted = [...reports].sort((a, b) => a.timeS - b.timeS);
+  const out: SurvivalTally = { times: [], events: [], censored: [] };
+  for (const r of sorted) {
+    const last = out.times.length - 1;
+    if (last < 0 || out.times[last] !== r.timeS) {
+      out.times.push(r.timeS);
+      out.events.push(0);
+      out.censored.push(0);
+    }
+    if (r.outcome === "freed") out.events[out.events.length - 1]!++;
+    else out.censored[out.censored.length - 1]!++;
+  }
+  return out;
+}
+
 /** The cell's figures, or null where every report was set aside. */
 export function cellFigures(all: readonly CellReport[], confidence = 0.95): CellFigures | null {
-  const reports = all.filter((r) => !r.aboveRated);
-  const setAside = all.length - reports.length;
-  const n = reports.length;
-  if (n === 0) return null;
-  const clusters = new Map<number, { successes: number; trials: number }>();
+  return cellFiguresOfTally(tallyReports(all), confidence);
+}
+
+/** cellFigures from a cell's tally. */
+export function cellFiguresOfTally(t: CellTally, confidence = 0.95): CellFigures | null {
+  let n = 0;
   let successes = 0;
-  for (const r of reports) {
-    const c = clusters.get(r.reporterId) ?? { successes: 0, trials: 0 };
-    c.trials++;
-    if (r.outcome === "freed") {
-      c.successes++;
-      successes++;
-    }
-    clusters.set(r.reporterId, c);
+  for (const c of t.clusters) {
+    n += c.trials;
+    successes += c.successes;
   }
-  const w = clusteredWilson([...clusters.values()], confidence);
-  const freedTimes = reports.filter((r) => r.outcome === "freed").map((r) => r.timeS);
+  if (n === 0) return null;
+  const w = clusteredWilson(t.clusters, confidence);
+  // The freed jobs' times, as a tally: the order-statistic median needs no list of them.
+  const freed = { values: [] as number[], counts: [] as number[] };
+  t.times.events.forEach((d, j) => {
+    if (d > 0) {
+      freed.values.push(t.times.times[j]!);
+      freed.counts.push(d);
+    }
+  });
   let time: CellFigures["time"] = null;
-  if (freedTimes.length > 0) {
-    const m = medianInterval(freedTimes, confidence);
-    const sorted = [...freedTimes].sort((a, b) => a - b);
-    const mid = sorted.length >> 1;
-    const median = m?.estimate ?? (sorted.length % 2 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2);
+  if (successes > 0) {
+    const m = medianIntervalOfTally(freed, confidence);
     time = {
-      n: freedTimes.length,
-      median,
+      n: successes,
+      median: m?.estimate ?? medianOfTally(freed)!,
       lower: m?.lower ?? null,
       upper: m?.upper ?? null,
       coverage: m?.coverage ?? null,
     };
   }
-  const k = kaplanMeier(
-    reports.map((r) => r.timeS),
-    reports.map((r) => r.outcome === "freed"),
-    confidence,
-  );
+  const k = kaplanMeierOfTally(t.times, confidence);
   const km = {
     n,
     median: k.median,
@@ -96,7 +147,7 @@ export function cellFigures(all: readonly CellReport[], confidence = 0.95): Cell
   return {
     n,
     successes,
-    setAside,
+    setAside: t.setAside,
     estimate: w.estimate,
     lower: w.lower,
     upper: w.upper,
@@ -105,8 +156,8 @@ export function cellFigures(all: readonly CellReport[], confidence = 0.95): Cell
     effectiveN: w.effectiveN,
     time,
     km,
-    measuredShare: reports.filter((r) => r.inletSource === "measured_at_inlet").length / n,
-    estimatedShare: reports.filter((r) => r.inletSource === "estimated").length / n,
+    measuredShare: t.measured / n,
+    estimatedShare: t.estimated / n,
   };
 }
 

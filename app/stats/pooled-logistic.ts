@@ -63,14 +63,17 @@ export function pooledLogisticFit(
     return k;
   });
   const G = index.size;
-  const x = rows.map((r) => r.x);
-  const y = rows.map((r) => r.y);
+  const N = rows.length;
+  // Typed copies: the loops below run over every row several times per iteration.
+  const gi = Int32Array.from(g);
+  const x = Float64Array.from(rows, (r) => r.x);
+  const y = Float64Array.from(rows, (r) => r.y);
   const n = new Array<number>(G).fill(0);
   const s = new Array<number>(G).fill(0);
   const xMin = new Array<number>(G).fill(Infinity);
   const xMax = new Array<number>(G).fill(-Infinity);
-  for (let i = 0; i < rows.length; i++) {
-    const k = g[i]!;
+  for (let i = 0; i < N; i++) {
+    const k = gi[i]!;
     n[k]!++;
     s[k]! += y[i]!;
     xMin[k] = Math.min(xMin[k]!, x[i]!);
@@ -80,27 +83,73 @@ export function pooledLogisticFit(
 
   // Information at θ = (α, β): d = Σ w per group, c = Σ w·x per group, q = Σ w·x².
   // Its inverse: V_ββ = 1/σ, σ = q − Σ c²/d; V_αβ = −(c/d)/σ; V_αα = diag(1/d) + (c/d)(c/d)ᵀ/σ.
-  const information = (alpha: number[], beta: number) => {
-    const d = new Array<number>(G).fill(0);
-    const c = new Array<number>(G).fill(0);
+  // The same pass gathers the (modified) score at θ, so an accepted trial needs no further pass:
+  // with hᵢ = wᵢ(1/d + (xᵢ − r)²/σ), Σ hᵢ(½ − pᵢ)·xᵢᵐ expands into per-group sums of
+  // wᵢ(½ − pᵢ)·xᵢʲ (j = 0…3) once d, r and σ are known.
+  const information = (alpha: ArrayLike<number>, beta: number) => {
+    const d = new Float64Array(G);
+    const c = new Float64Array(G);
+    const resid = new Float64Array(G); // Σ (y − p) per group
+    const m0 = new Float64Array(G); // Σ w(½ − p)·xʲ per group, j = 0…3
+    const m1 = new Float64Array(G);
+    const m2 = new Float64Array(G);
+    const m3 = new Float64Array(G);
+    let residX = 0;
     let q = 0;
     let loglik = 0;
-    const p = new Array<number>(rows.length);
-    for (let i = 0; i < rows.length; i++) {
-      const eta = alpha[g[i]!]! + beta * x[i]!;
-      const pi = expit(eta);
-      p[i] = pi;
-      // log-likelihood in a form that does not lose precision for large |η|
-      loglik += y[i] === 1 ? -Math.log1p(Math.exp(-eta)) : -Math.log1p(Math.exp(eta));
+    for (let i = 0; i < N; i++) {
+      const k = gi[i]!;
+      const xi = x[i]!;
+      const eta = alpha[k]! + beta * xi;
+      // One exp and one log1p give both p and the log-likelihood, without losing precision for large |η|.
+      const e = Math.exp(-Math.abs(eta));
+      const l1p = Math.log1p(e);
+      const pi = eta >= 0 ? 1 / (1 + e) : e / (1 + e);
+      const yi = y[i]!;
+      loglik -= yi === 1 ? (eta >= 0 ? l1p : l1p - eta) : eta >= 0 ? eta + l1p : l1p;
       const w = pi * (1 - pi);
-      d[g[i]!]! += w;
-      c[g[i]!]! += w * x[i]!;
-      q += w * x[i]! * x[i]!;
+      const wx = w * xi;
+      d[k]! += w;
+      c[k]! += wx;
+      q += wx * xi;
+      const rr = yi - pi;
+      resid[k]! += rr;
+      residX += rr * xi;
+      if (firth) {
+        const v = w * (0.5 - pi);
+        const vx = v * xi;
+        const vxx = vx * xi;
+        m0[k]! += v;
+        m1[k]! += vx;
+        m2[k]! += vxx;
+        m3[k]! += vxx * xi;
+      }
     }
-    const r = c.map((ck, k) => ck / d[k]!);
-    const sigma = q - c.reduce((acc, ck, k) => acc + ck * r[k]!, 0);
-    const logDet = d.reduce((acc, dk) => acc + Math.log(dk), 0) + Math.log(sigma);
-    return { p, d, r, sigma, loglik, penalised: firth ? loglik + 0.5 * logDet : loglik };
+    const r = Array.from(c, (ck, k) => ck / d[k]!);
+    let sigma = q;
+    for (let k = 0; k < G; k++) sigma -= c[k]! * r[k]!;
+    let logDet = 0;
+    for (let k = 0; k < G; k++) logDet += Math.log(d[k]!);
+    logDet += Math.log(sigma);
+    const uA = Array.from(resid);
+    let uB = residX;
+    if (firth) {
+      for (let k = 0; k < G; k++) {
+        const rk = r[k]!;
+        // Σ h(½ − p) = Σ v/d + Σ v(x − r)²/σ, and the same times x for the slope.
+        uA[k]! += m0[k]! / d[k]! + (m2[k]! - 2 * rk * m1[k]! + rk * rk * m0[k]!) / sigma;
+        uB += m1[k]! / d[k]! + (m3[k]! - 2 * rk * m2[k]! + rk * rk * m1[k]!) / sigma;
+      }
+    }
+    return {
+      d: Array.from(d),
+      r,
+      sigma,
+      uA,
+      uB,
+      loglik,
+      penalised: firth ? loglik + 0.5 * logDet : loglik,
+    };
   };
 
   let alpha = s.map((sk, k) => logit((sk + 0.5) / (n[k]! + 1)));
@@ -109,22 +158,8 @@ export function pooledLogisticFit(
   let converged = false;
   let iterations = 0;
   for (; iterations < maxIterations; iterations++) {
-    const { p, d, r, sigma } = state;
-    // Modified score (plain score when firth is off).
-    const uA = new Array<number>(G).fill(0);
-    let uB = 0;
-    for (let i = 0; i < rows.length; i++) {
-      const k = g[i]!;
-      let resid = y[i]! - p[i]!;
-      if (firth) {
-        const w = p[i]! * (1 - p[i]!);
-        const t = x[i]! - r[k]!;
-        const h = w * (1 / d[k]! + (t * t) / sigma); // xᵢᵀVxᵢ·wᵢ, expanded with the Schur complement
-        resid += h * (0.5 - p[i]!);
-      }
-      uA[k]! += resid;
-      uB += resid * x[i]!;
-    }
+    // Modified score (plain score when firth is off), gathered with the information.
+    const { d, r, sigma, uA, uB } = state;
     // Step V·U by the block inverse.
     const stepB = (uB - uA.reduce((acc, u, k) => acc + r[k]! * u, 0)) / sigma;
     const stepA = uA.map((u, k) => u / d[k]! - r[k]! * stepB);

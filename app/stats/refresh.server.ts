@@ -1,113 +1,167 @@
 // Keeps stats_cells and stats_jobs in step with accepted reports. An accept refreshes its own cell
 // and its job's pooled pressure fit (every cell of the job gets its new figure at 90 psi); the
 // job's shrinkage prior is kept from the last full refresh (docs/decisions/010). The full refresh
-// recomputes everything, one job type at a time. Each read brings a cell's reports as arrays (one
-// row per cell, not per report), so a million reports cost little more than the rows themselves.
+// recomputes everything from two reads that tally the reports per cell in SQL (counts, reporters,
+// packed times and pressures), then writes one statement per table (docs/decisions/010).
 import { type RawBuilder, sql } from "kysely";
-import type { Db } from "../../db/database";
+import type { Db, Trx } from "../../db/database";
 import { operatingInletPressure } from "~/air/supply";
 import type { CouplerProfile } from "~/domain";
-import { type CellFigures, type CellReport, cellFigures } from "./cells";
+import { type CellFigures, type CellTally, cellFiguresOfTally } from "./cells";
 import { type FitReport, type JobFit, jobPressureFit, modelAtJobSlope } from "./pressure";
-import { shrinkProportions } from "./proportions";
+import { type Group, shrinkProportions } from "./proportions";
+import type { SurvivalTally } from "./survival";
 
-const OUTCOMES = ["freed", "freed_with_help", "not_freed"] as const;
-const SOURCES = ["measured_at_inlet", "read_at_regulator", "estimated"] as const;
-
-interface CellArrays {
+/** One model's reports on one job, as the figures and the pressure fit need them. */
+interface ModelTally {
   m: number;
-  rep: number[];
-  out: number[];
-  t: number[];
-  p: number[];
-  src: number[];
-  above: boolean[];
-  /** The line, for correcting regulator readings; the model's rated air use. */
-  hid: (number | null)[];
-  hlen: (number | null)[];
-  cp: (CouplerProfile | null)[];
-  cc: (number | null)[];
-  lps: number;
+  tally: CellTally;
+  fit: FitReport[];
 }
 
-/** Every accepted report of a job (or of one model on it), one row of arrays per model. */
-async function reportArrays(db: Db, jobTypeId: number, modelId?: number): Promise<CellArrays[]> {
-  // Each list comes as one comma-joined text (split natively below): several times faster to read
-  // than PostgreSQL arrays, which node-pg parses character by character. NULL is written as "".
-  const list = (e: RawBuilder<unknown>) => sql`array_to_string(array_agg(${e}), ',', '')`;
-  const r = await sql<
-    Record<"rep" | "out" | "t" | "p" | "src" | "above" | "hid" | "hlen" | "cp" | "cc", string> & {
-      m: number;
-      lps: number;
-    }
-  >`
-    select tool_model_id m, ${list(sql`reporter_id`)} rep,
-      ${list(sql`case outcome when 'freed' then 0 when 'freed_with_help' then 1 else 2 end`)} "out",
-      ${list(sql`time_to_result_s::float8`)} t, ${list(sql`inlet_kpa::float8`)} p,
-      ${list(sql`case inlet_source when 'measured_at_inlet' then 0 when 'read_at_regulator' then 1 else 2 end`)} src,
-      ${list(sql`(flags @> array['above_rated_inlet'])::int`)} above,
-      ${list(sql`hose_id_mm::float8`)} hid, ${list(sql`hose_length_m::float8`)} hlen, ${list(sql`coupler_profile`)} cp, ${list(sql`coupler_count`)} cc,
-      (select rated_air_lps::float8 from tool_models where id = tool_model_id) lps
-    from reports where job_type_id = ${jobTypeId} and status = 'accepted' ${modelId == null ? sql`` : sql`and tool_model_id = ${modelId}`}
-    group by tool_model_id`.execute(db);
-  const nums = (t: string) => t.split(",").map(Number);
-  const orNull = (t: string) => t.split(",").map((v) => (v === "" ? null : Number(v)));
-  return r.rows.map((row) => ({
-    m: row.m,
-    lps: row.lps,
-    rep: nums(row.rep),
-    out: nums(row.out),
-    t: nums(row.t),
-    p: nums(row.p),
-    src: nums(row.src),
-    above: row.above.split(",").map((v) => v === "1"),
-    hid: orNull(row.hid),
-    hlen: orNull(row.hlen),
-    cp: row.cp.split(",").map((v) => (v === "" ? null : (v as CouplerProfile))),
-    cc: orNull(row.cc),
-  }));
+interface Scope {
+  job?: number;
+  model?: number;
 }
 
-function toReports(a: CellArrays): CellReport[] {
-  return a.rep.map((reporterId, i) => ({
-    reporterId,
-    outcome: OUTCOMES[a.out[i]!]!,
-    timeS: a.t[i]!,
-    inletKpa: a.p[i]!,
-    inletSource: SOURCES[a.src[i]!]!,
-    aboveRated: a.above[i]!,
-  }));
+const scoped = ({ job, model }: Scope) =>
+  sql`${job == null ? sql`` : sql`and job_type_id = ${job}`} ${model == null ? sql`` : sql`and tool_model_id = ${model}`}`;
+
+/** Doubles packed by float8send (big-endian, 8 bytes each), read back exactly. */
+function doubles(b: Buffer | null): Float64Array {
+  if (!b || b.length === 0) return new Float64Array(0);
+  const copy = Buffer.from(b).swap64();
+  const out = new Float64Array(copy.length / 8);
+  new Uint8Array(out.buffer).set(copy);
+  return out;
 }
 
 /**
- * The reports of a cell that enter the job's pressure fit: measured at the inlet as given; read at
- * the regulator, the pressure app/air predicts at the inlet for the reported hose and couplers at
- * the tool's rated air use (docs/decisions/010: on the demo data this does better than leaving them
- * out); estimated, set aside, or without the line: not at all.
+ * Every accepted report in scope, tallied in SQL, one row per cell: its counts, the times of the
+ * counted reports freed and not freed, and the pressures its pressure fit needs (inlet-measured ones
+ * by outcome; regulator readings with their line). Times and pressures come as packed doubles
+ * (float8send): exact, and far cheaper on both sides than text or PostgreSQL arrays (node-pg parses
+ * those character by character), so a million reports cost little more than a bare count.
  */
-function fitReportsOf(a: Omit<CellArrays, "rep" | "t">): FitReport[] {
-  const out: FitReport[] = [];
-  for (let i = 0; i < a.p.length; i++) {
-    if (a.above[i]) continue;
-    if (a.src[i] === 0) out.push({ model: a.m, inletKpa: a.p[i]!, freed: a.out[i] === 0 });
-    else if (
-      a.src[i] === 1 &&
-      a.hid[i] != null &&
-      a.hlen[i] != null &&
-      a.cp[i] != null &&
-      a.cc[i] != null &&
-      a.lps > 0
-    ) {
-      const at = operatingInletPressure(a.p[i]!, a.lps, {
-        hoseIdMm: a.hid[i]!,
-        hoseLengthM: a.hlen[i]!,
-        couplerProfile: a.cp[i]!,
-        couplerCount: a.cc[i]!,
-      });
-      if (!at.stalled) out.push({ model: a.m, inletKpa: at.inletKpa, freed: a.out[i] === 0 });
-    }
+function readCells(db: Db, scope: Scope) {
+  const counted = (and: RawBuilder<unknown> = sql`true`) => sql`filter (where not aside and ${and})`;
+  const packed = (column: string, and?: RawBuilder<unknown>) =>
+    sql`string_agg(float8send(${sql.ref(column)}), ''::bytea) ${counted(and)}`;
+  const measured = sql`inlet_source = 'measured_at_inlet'`;
+  return sql<{
+    j: number;
+    m: number;
+    lps: number | null;
+    aside: number;
+    measured: number;
+    estimated: number;
+    tf: Buffer | null;
+    tc: Buffer | null;
+    ff: Buffer | null;
+    fl: Buffer | null;
+    lines: string | null;
+  }>`
+    select job_type_id j, tool_model_id m, (select rated_air_lps::float8 from tool_models where id = tool_model_id) lps,
+      count(*) filter (where aside)::int aside,
+      count(*) ${counted(measured)}::int measured,
+      count(*) ${counted(sql`inlet_source = 'estimated'`)}::int estimated,
+      ${packed("time_to_result_s", sql`freed`)} tf,
+      ${packed("time_to_result_s", sql`not freed`)} tc,
+      ${packed("inlet_kpa", sql`freed and ${measured}`)} ff,
+      ${packed("inlet_kpa", sql`not freed and ${measured}`)} fl,
+      string_agg(concat_ws(' ', inlet_kpa, hose_id_mm, hose_length_m, coupler_profile, coupler_count, freed::int), ';')
+        ${counted(sql`inlet_source = 'read_at_regulator' and hose_id_mm is not null and hose_length_m is not null
+          and coupler_profile is not null and coupler_count is not null`)} lines
+    from (
+      select job_type_id, tool_model_id, time_to_result_s, inlet_kpa, inlet_source, hose_id_mm, hose_length_m,
+        coupler_profile, coupler_count, flags @> array['above_rated_inlet'] aside, outcome = 'freed' freed
+      from reports where status = 'accepted' ${scoped(scope)}
+      offset 0 -- each row's flags worked out once, not once per aggregate above
+    ) r
+    group by job_type_id, tool_model_id`.execute(db);
+}
+
+/** One (reports, freed) pair per reporter of each cell in scope, counted reports only. */
+function readClusters(db: Db, scope: Scope) {
+  return sql<{ j: number; m: number; k: number; s: number }>`
+    select job_type_id j, tool_model_id m, count(*)::int k, count(*) filter (where outcome = 'freed')::int s
+    from reports
+    where status = 'accepted' and not flags @> array['above_rated_inlet'] ${scoped(scope)}
+    group by job_type_id, tool_model_id, reporter_id`.execute(db);
+}
+
+/** A cell's times, freed (events) and not (censored), as one ascending tally. */
+function survivalTally(freed: Float64Array, censored: Float64Array): SurvivalTally {
+  freed.sort();
+  censored.sort();
+  const out: SurvivalTally = { times: [], events: [], censored: [] };
+  let i = 0;
+  let j = 0;
+  while (i < freed.length || j < censored.length) {
+    const t = j >= censored.length || (i < freed.length && freed[i]! <= censored[j]!) ? freed[i]! : censored[j]!;
+    let d = 0;
+    let c = 0;
+    for (; i < freed.length && freed[i] === t; i++) d++;
+    for (; j < censored.length && censored[j] === t; j++) c++;
+    out.times.push(t);
+    out.events.push(d);
+    out.censored.push(c);
   }
   return out;
+}
+
+type Reader = <T>(read: (db: Db) => Promise<T>) => Promise<T>;
+
+/**
+ * Every cell in scope, tallied, by job type. `run` runs each read (the full refresh gives each its
+ * own connection and room to hash every cell in memory).
+ */
+async function readTallies(db: Db, scope: Scope, run: Reader = (read) => read(db)): Promise<Map<number, ModelTally[]>> {
+  const [cells, clusters] = await Promise.all([run((q) => readCells(q, scope)), run((q) => readClusters(q, scope))]);
+  const clustersOf = new Map<string, Group[]>();
+  for (const c of clusters.rows) {
+    const key = `${c.j}/${c.m}`;
+    const list = clustersOf.get(key) ?? [];
+    list.push({ trials: c.k, successes: c.s });
+    clustersOf.set(key, list);
+  }
+  const byJob = new Map<number, ModelTally[]>();
+  // The inlet pressure app/air predicts for one regulator reading and line, worked out once.
+  const corrected = new Map<string, number | null>();
+  for (const row of cells.rows) {
+    const fit: FitReport[] = [];
+    for (const p of doubles(row.ff)) fit.push({ model: row.m, inletKpa: p, freed: true });
+    for (const p of doubles(row.fl)) fit.push({ model: row.m, inletKpa: p, freed: false });
+    if (row.lines && row.lps != null && row.lps > 0) {
+      for (const line of row.lines.split(";")) {
+        const [p, hid, hlen, cp, cc, freed] = line.split(" ");
+        const key = `${row.lps} ${line.slice(0, -2)}`;
+        let at = corrected.get(key);
+        if (at === undefined) {
+          const point = operatingInletPressure(Number(p), row.lps, {
+            hoseIdMm: Number(hid),
+            hoseLengthM: Number(hlen),
+            couplerProfile: cp as CouplerProfile,
+            couplerCount: Number(cc),
+          });
+          at = point.stalled ? null : point.inletKpa;
+          corrected.set(key, at);
+        }
+        if (at != null) fit.push({ model: row.m, inletKpa: at, freed: freed === "1" });
+      }
+    }
+    const tally: CellTally = {
+      setAside: row.aside,
+      measured: row.measured,
+      estimated: row.estimated,
+      clusters: clustersOf.get(`${row.j}/${row.m}`) ?? [],
+      times: survivalTally(doubles(row.tf), doubles(row.tc)),
+    };
+    const list = byJob.get(row.j) ?? [];
+    list.push({ m: row.m, tally, fit });
+    byJob.set(row.j, list);
+  }
+  return byJob;
 }
 
 function cellRow(modelId: number, jobTypeId: number, f: CellFigures, now: Date) {
@@ -132,7 +186,7 @@ function cellRow(modelId: number, jobTypeId: number, f: CellFigures, now: Date) 
     km_median_s: f.km?.median ?? null,
     km_lower_s: f.km?.lower ?? null,
     km_upper_s: f.km?.upper ?? null,
-    km_steps: f.km ? JSON.stringify(f.km.steps) : null,
+    km_steps: f.km ? f.km.steps : null,
     measured_share: f.measuredShare,
     estimated_share: f.estimatedShare,
     computed_at: now,
@@ -149,83 +203,105 @@ function withPressure(row: Row, fit: JobFit) {
     adj_lower: m?.adjusted?.lower ?? null,
     adj_upper: m?.adjusted?.upper ?? null,
     adj_reason: m?.adjusted ? null : (m?.reason ?? fit.reason ?? "No pressure fit on this job."),
-    fit: m?.fit ? JSON.stringify(m.fit) : null,
+    fit: m?.fit ?? null,
   };
 }
 
-async function upsertCells(db: Db, rows: (Row & Record<string, unknown>)[]) {
+type CellRow = ReturnType<typeof withPressure> & {
+  shrunk_estimate: number | null;
+  shrunk_lower: number | null;
+  shrunk_upper: number | null;
+};
+
+/**
+ * Writes many rows in one statement: the rows go as one JSON parameter that PostgreSQL turns into
+ * records of the table (json_populate_recordset), then one INSERT … ON CONFLICT. JSON numbers are
+ * the shortest text that reads back as the same double, so every stored figure is exact.
+ */
+async function upsertRows(db: Db, table: "stats_cells" | "stats_jobs", key: string[], rows: Record<string, unknown>[]) {
   if (rows.length === 0) return;
-  const columns = Object.keys(rows[0]!).filter((c) => c !== "tool_model_id" && c !== "job_type_id");
-  for (let i = 0; i < rows.length; i += 500) {
-    await db
-      .insertInto("stats_cells")
-      .values(rows.slice(i, i + 500))
-      .onConflict((oc) =>
-        oc
-          .columns(["tool_model_id", "job_type_id"])
-          .doUpdateSet(Object.fromEntries(columns.map((c) => [c, sql.ref(`excluded.${c}`)]))),
-      )
-      .execute();
-  }
+  const columns = Object.keys(rows[0]!);
+  const list = sql.join(columns.map((c) => sql.ref(c)));
+  const updates = sql.join(
+    columns.filter((c) => !key.includes(c)).map((c) => sql`${sql.ref(c)} = excluded.${sql.ref(c)}`),
+  );
+  await sql`
+    insert into ${sql.table(table)} (${list})
+    select ${list} from json_populate_recordset(null::${sql.table(table)}, ${JSON.stringify(rows)}::json)
+    on conflict (${sql.join(key.map((c) => sql.ref(c)))}) do update set ${updates}`.execute(db);
 }
 
-async function storeJob(
-  db: Db,
-  jobTypeId: number,
-  fit: JobFit,
-  setAside: number,
-  prior: { alpha: number; beta: number } | null,
-  now: Date,
-) {
-  const values = {
-    fit_n: fit.n,
-    fit_models: fit.models,
-    slope: fit.slope,
-    slope_se: fit.slopeSE,
-    converged: fit.converged,
-    fit_reason: fit.reason,
-    set_aside: setAside,
-    prior_alpha: prior?.alpha ?? null,
-    prior_beta: prior?.beta ?? null,
-    computed_at: now,
-  };
-  await db
-    .insertInto("stats_jobs")
-    .values({ job_type_id: jobTypeId, ...values })
-    .onConflict((oc) => oc.column("job_type_id").doUpdateSet(values))
-    .execute();
+const upsertCells = (db: Db, rows: CellRow[]) => upsertRows(db, "stats_cells", ["tool_model_id", "job_type_id"], rows);
+
+interface JobResult {
+  jobTypeId: number;
+  rows: CellRow[];
+  job: Record<string, unknown>;
 }
 
-/** Every cell of one job from one read of its reports. */
-async function refreshJob(db: Db, jobTypeId: number) {
-  const now = new Date();
-  const arrays = await reportArrays(db, jobTypeId);
-  const figures = arrays.map((a) => ({ m: a.m, f: cellFigures(toReports(a)) }));
-  const setAside = figures.reduce((acc, { f }, i) => acc + (f ? f.setAside : arrays[i]!.rep.length), 0);
+/** Every cell of one job from its tallies: figures, the pooled pressure fit and the shrunk rates. */
+function computeJob(jobTypeId: number, tallies: readonly ModelTally[], now: Date): JobResult {
+  const figures = tallies.map((t) => ({ m: t.m, f: cellFiguresOfTally(t.tally) }));
+  const setAside = tallies.reduce((acc, t) => acc + t.tally.setAside, 0);
   const kept = figures.filter((x): x is { m: number; f: CellFigures } => x.f != null);
   const fit = jobPressureFit(
-    arrays.flatMap(fitReportsOf),
+    tallies.flatMap((t) => t.fit),
     kept.map((x) => x.m),
   );
   let prior: { alpha: number; beta: number } | null = null;
-  const rows = kept.map(({ m, f }) => withPressure(cellRow(m, jobTypeId, f, now), fit));
-  let shrunk: { shrunk_estimate: number | null; shrunk_lower: number | null; shrunk_upper: number | null }[] = [];
+  let shrunk: Pick<CellRow, "shrunk_estimate" | "shrunk_lower" | "shrunk_upper">[] = [];
   if (kept.length > 0) {
     const s = shrinkProportions(kept.map(({ f }) => ({ successes: f.successes, trials: f.n })));
     prior = { alpha: s.prior.alpha, beta: s.prior.beta };
     shrunk = s.groups.map((g) => ({ shrunk_estimate: g.estimate, shrunk_lower: g.lower, shrunk_upper: g.upper }));
   }
-  await db
-    .deleteFrom("stats_cells")
-    .where("job_type_id", "=", jobTypeId)
-    .where("tool_model_id", "not in", kept.length ? kept.map((x) => x.m) : [-1])
-    .execute();
-  await upsertCells(
-    db,
-    rows.map((r, i) => ({ ...r, ...shrunk[i]! })),
+  return {
+    jobTypeId,
+    rows: kept.map(({ m, f }, i) => ({ ...withPressure(cellRow(m, jobTypeId, f, now), fit), ...shrunk[i]! })),
+    job: {
+      job_type_id: jobTypeId,
+      fit_n: fit.n,
+      fit_models: fit.models,
+      slope: fit.slope,
+      slope_se: fit.slopeSE,
+      converged: fit.converged,
+      fit_reason: fit.reason,
+      set_aside: setAside,
+      prior_alpha: prior?.alpha ?? null,
+      prior_beta: prior?.beta ?? null,
+      computed_at: now,
+    },
+  };
+}
+
+/**
+ * Stores computed jobs: their cells (one statement), the cells in scope that no longer have
+ * counted reports deleted, and each job's row.
+ */
+async function storeJobs(trx: Trx, results: readonly JobResult[], scope: Scope) {
+  const rows = results.flatMap((r) => r.rows);
+  await sql`
+    delete from stats_cells
+    where true ${scope.job == null ? sql`` : sql`and job_type_id = ${scope.job}`}
+      and (tool_model_id, job_type_id) not in (
+        select * from unnest(${rows.map((r) => r.tool_model_id)}::int[], ${rows.map((r) => r.job_type_id)}::int[]))`.execute(
+    trx,
   );
-  await storeJob(db, jobTypeId, fit, setAside, prior, now);
-  return kept.length;
+  for (let i = 0; i < rows.length; i += 2000) await upsertCells(trx, rows.slice(i, i + 2000));
+  await upsertRows(
+    trx,
+    "stats_jobs",
+    ["job_type_id"],
+    results.map((r) => r.job),
+  );
+}
+
+/** Every cell of one job from one read of its reports. */
+async function refreshJob(trx: Trx, jobTypeId: number) {
+  const tallies = await readTallies(trx, { job: jobTypeId });
+  const result = computeJob(jobTypeId, tallies.get(jobTypeId) ?? [], new Date());
+  await storeJobs(trx, [result], { job: jobTypeId });
+  return result.rows.length;
 }
 
 /** A job whose pooled fit is older than this is refitted whole on its next accept. */
@@ -256,17 +332,15 @@ export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
       await refreshJob(trx, jobTypeId);
       return;
     }
-    const [mine, old] = await Promise.all([
-      reportArrays(trx, jobTypeId, modelId),
-      trx
-        .selectFrom("stats_cells")
-        .select("set_aside")
-        .where("tool_model_id", "=", modelId)
-        .where("job_type_id", "=", jobTypeId)
-        .executeTakeFirst(),
-    ]);
-    const f = mine[0] ? cellFigures(toReports(mine[0])) : null;
-    const setAsideNow = f ? f.setAside : (mine[0]?.rep.length ?? 0);
+    const mine = (await readTallies(trx, { job: jobTypeId, model: modelId })).get(jobTypeId)?.[0];
+    const old = await trx
+      .selectFrom("stats_cells")
+      .select("set_aside")
+      .where("tool_model_id", "=", modelId)
+      .where("job_type_id", "=", jobTypeId)
+      .executeTakeFirst();
+    const f = mine ? cellFiguresOfTally(mine.tally) : null;
+    const setAsideNow = mine?.tally.setAside ?? 0;
     if (!f)
       await trx
         .deleteFrom("stats_cells")
@@ -278,7 +352,7 @@ export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
         alpha: job.prior_alpha!,
         beta: job.prior_beta!,
       });
-      const m = modelAtJobSlope(fitReportsOf(mine[0]!), { slope: job.slope!, sigma: 1 / job.slope_se! ** 2 });
+      const m = modelAtJobSlope(mine!.fit, { slope: job.slope!, sigma: 1 / job.slope_se! ** 2 });
       await upsertCells(trx, [
         {
           ...cellRow(modelId, jobTypeId, f, new Date()),
@@ -286,7 +360,7 @@ export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
           adj_lower: m.adjusted?.lower ?? null,
           adj_upper: m.adjusted?.upper ?? null,
           adj_reason: m.adjusted ? null : m.reason,
-          fit: m.fit ? JSON.stringify(m.fit) : null,
+          fit: m.fit,
           shrunk_estimate: s.groups[0]!.estimate,
           shrunk_lower: s.groups[0]!.lower,
           shrunk_upper: s.groups[0]!.upper,
@@ -304,20 +378,24 @@ export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
 }
 
 /**
- * Every cell, recomputed from the accepted reports: one transaction per job type, up to
- * `concurrency` at once so one job's reading and writing overlaps another's arithmetic.
+ * Every cell, recomputed from the accepted reports. Two reads tally every report at once (they run
+ * side by side on two connections); JavaScript then works per cell and per job (the pooled fit
+ * reads its reports' pressures), and one transaction writes it all, a statement per table.
  */
-export async function refreshAll(db: Db, { concurrency = 4 } = {}) {
-  const jobs = await db.selectFrom("job_types").select("id").orderBy("id").execute();
-  let cells = 0;
-  let next = 0;
-  const worker = async () => {
-    while (next < jobs.length) {
-      const job = jobs[next++]!;
-      const stored = await db.transaction().execute((trx) => refreshJob(trx, job.id));
-      cells += stored;
-    }
-  };
-  await Promise.all(Array.from({ length: Math.min(concurrency, jobs.length) }, worker));
-  return cells;
+export async function refreshAll(db: Db) {
+  const now = new Date();
+  // Hash aggregation over every cell wants more than the default work_mem (else PostgreSQL sorts
+  // every report); set for these reads only.
+  const roomy: Reader = (read) =>
+    db.transaction().execute(async (trx) => {
+      await sql`set local work_mem = '256MB'`.execute(trx);
+      return read(trx);
+    });
+  const [jobs, tallies] = await Promise.all([
+    db.selectFrom("job_types").select("id").orderBy("id").execute(),
+    readTallies(db, {}, roomy),
+  ]);
+  const results = jobs.map((j) => computeJob(j.id, tallies.get(j.id) ?? [], now));
+  await db.transaction().execute((trx) => storeJobs(trx, results, {}));
+  return results.reduce((acc, r) => acc + r.rows.length, 0);
 }

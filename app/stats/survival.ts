@@ -39,22 +39,46 @@ export function kaplanMeier(times: readonly number[], events: readonly boolean[]
   if (times.length !== events.length) throw new RangeError("times and events must have the same length");
   if (times.some((t) => !(Number.isFinite(t) && t >= 0))) throw new RangeError("times must be finite and ≥ 0");
   checkConfidence(confidence);
-  const z = zCritical(confidence);
   const order = times.map((_, i) => i).sort((a, b) => times[a]! - times[b]!);
+  const tallied: SurvivalTally = { times: [], events: [], censored: [] };
+  for (const i of order) {
+    const last = tallied.times.length - 1;
+    if (last < 0 || tallied.times[last] !== times[i]) {
+      tallied.times.push(times[i]!);
+      tallied.events.push(0);
+      tallied.censored.push(0);
+    }
+    if (events[i]) tallied.events[tallied.events.length - 1]!++;
+    else tallied.censored[tallied.censored.length - 1]!++;
+  }
+  return kaplanMeierOfTally(tallied, confidence);
+}
+
+/** Jobs by distinct time, ascending: how many were freed (events) and given up (censored) at each. */
+export interface SurvivalTally {
+  times: number[];
+  events: number[];
+  censored: number[];
+}
+
+/**
+ * kaplanMeier from the times already tallied (the full refresh reads each cell this way, one entry
+ * per distinct time rather than one per report): the same product, step for step.
+ */
+export function kaplanMeierOfTally(tallied: SurvivalTally, confidence = 0.95): KaplanMeier {
+  checkConfidence(confidence);
+  const z = zCritical(confidence);
   const steps: SurvivalStep[] = [];
   const lowerBand: number[] = [];
   const upperBand: number[] = [];
-  let atRisk = times.length;
+  let atRisk = 0;
+  for (let j = 0; j < tallied.times.length; j++) atRisk += tallied.events[j]! + tallied.censored[j]!;
   let survival = 1;
   let greenwood = 0; // Σ d/(n(n−d))
-  for (let i = 0; i < order.length;) {
-    const t = times[order[i]!]!;
-    let d = 0,
-      c = 0;
-    for (; i < order.length && times[order[i]!] === t; i++) {
-      if (events[order[i]!]) d++;
-      else c++;
-    }
+  for (let j = 0; j < tallied.times.length; j++) {
+    const t = tallied.times[j]!;
+    const d = tallied.events[j]!;
+    const c = tallied.censored[j]!;
     if (d > 0) {
       survival *= 1 - d / atRisk;
       greenwood = atRisk > d ? greenwood + d / (atRisk * (atRisk - d)) : Infinity;
