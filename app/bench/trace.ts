@@ -15,7 +15,7 @@ export const NOISE_MULTIPLE = 8;
 /** …and at least this fraction of the median candidate peak, so ring-down and bounces are not blows. */
 export const PEAK_FRACTION = 0.25;
 /** Samples per window from which the quiet level is measured. */
-const WINDOW_SUBSAMPLE = 2048;
+const WINDOW_SUBSAMPLE = 1024;
 
 export interface TraceBlow {
   timeS: number;
@@ -46,7 +46,7 @@ export interface AnalyseTraceOptions {
  *
  * Baseline: the trace is cut into 0.5 s windows; in each, the quiet samples are those within 3 robust
  * SDs (1.4826·MAD) of the window's median, and the window's level is their median (each window
- * measured on an evenly strided subsample of about 2,048 of its samples). The level is
+ * measured on an evenly strided subsample of about 1,024 of its samples). The level is
  * interpolated linearly between window centres and subtracted, which removes a slow drift too.
  * `baseline` reports the median of the window levels. Noise σ: the median over windows of 1.4826·MAD
  * of the quiet samples. Each step is a quickselect, so the whole analysis is linear in the samples.
@@ -55,7 +55,8 @@ export interface AnalyseTraceOptions {
  * (default 60/7200 s; within the spacing the larger peak is kept). Default threshold: above 8σ, and
  * then at least 25 % of the median of those candidate peaks (our rules). Peak height and time are
  * refined by a parabola through the top sample and its neighbours; a flat top (a clipped blow) keeps
- * its level and its middle. clipped: the raw reading reached the capacity.
+ * its level and its middle. clipped: the raw reading reached the capacity; such a peak is the
+ * clipped reading above the baseline, a lower bound, never extrapolated.
  *
  * blowsPerMinute: 60 / the median interval between consecutive blows (after discardBlows when two
  * or more remain), robust to a missed or an extra blow, unlike a count over the trace's length.
@@ -74,23 +75,25 @@ export function analyseTrace(
 
   // One typed array from here on: every loop below then reads the same kind of array.
   const raw = samples instanceof Float64Array ? samples : Float64Array.from(samples);
-  const { detrended, baseline, noise } = removeBaseline(raw, rateHz);
+  const { detrended, baseline, noise, lowest } = removeBaseline(raw, rateHz);
   let found: Peak[];
   if (options.threshold !== undefined) {
-    found = findPeaks(detrended, n, options.threshold, spacing);
+    found = findPeaks(raw, detrended, options.threshold + lowest, options.threshold, spacing);
   } else {
-    const candidates = findPeaks(detrended, n, NOISE_MULTIPLE * noise, spacing);
+    const floor = NOISE_MULTIPLE * noise;
+    const candidates = findPeaks(raw, detrended, floor + lowest, floor, spacing);
     const typical = candidates.length ? peakSummary(candidates.map((c) => c.height)).median : 0;
-    const threshold = Math.max(NOISE_MULTIPLE * noise, PEAK_FRACTION * typical);
+    const threshold = Math.max(floor, PEAK_FRACTION * typical);
     found = candidates.filter((c) => c.height >= threshold);
   }
 
   const capacity = options.capacity;
-  const blows = found.map((p) => ({
-    timeS: p.position / rateHz,
-    peak: p.height,
-    clipped: capacity !== undefined && raw[p.top]! >= capacity,
-  }));
+  // A clipped blow's true peak is unknown (at least the capacity): report the clipped reading, not a
+  // parabola through it.
+  const blows = found.map((p) => {
+    const clipped = capacity !== undefined && raw[p.top]! >= capacity;
+    return { timeS: p.position / rateHz, peak: clipped ? detrended(p.top) : p.height, clipped };
+  });
   const kept = blows.length - discard >= 2 ? blows.slice(discard) : blows;
   const intervals: number[] = [];
   for (let i = 1; i < kept.length; i++) intervals.push(kept[i]!.timeS - kept[i - 1]!.timeS);
@@ -132,6 +135,7 @@ function removeBaseline(samples: Float64Array, rateHz: number) {
 
   return {
     detrended: detrender(samples, centres, levels),
+    lowest: levels.reduce((m, v) => Math.min(m, v), Infinity),
     baseline: medianOf(Float64Array.from(levels), windows),
     noise: medianOf(noises, windows),
   };
@@ -161,24 +165,27 @@ interface Peak {
   top: number;
 }
 
-function findPeaks(d: (i: number) => number, n: number, threshold: number, spacing: number): Peak[] {
+/**
+ * Local maxima of d above the threshold, at least `spacing` samples apart (the larger kept). d(i) is
+ * never above raw[i] − the lowest window level, so a sample at or below `gate` (threshold + that
+ * level) is passed over by one comparison: the scan reads the raw samples, and d is computed only
+ * near the blows.
+ */
+function findPeaks(raw: Float64Array, d: (i: number) => number, gate: number, threshold: number, spacing: number) {
   const peaks: Peak[] = [];
-  let before = d(0);
-  let v = n > 1 ? d(1) : 0;
+  const n = raw.length;
   for (let i = 1; i < n - 1; i++) {
-    const after = d(i + 1);
-    if (!(v > threshold) || !(v > before) || after > v) {
-      before = v;
-      v = after;
-      continue;
-    }
+    if (!(raw[i]! > gate)) continue;
+    const v = d(i);
+    if (!(v > threshold)) continue;
+    const before = d(i - 1);
+    if (!(v > before)) continue;
+    let after = d(i + 1);
+    if (after > v) continue;
     // A flat top: walk to its end; a peak only if the trace falls after it.
     let j = i;
-    let next = after;
-    while (next === v && j + 1 < n - 1) next = d(++j + 1);
-    if (!(next < v)) {
-      before = v;
-      v = next;
+    while (after === v && j + 1 < n - 1) after = d(++j + 1);
+    if (!(after < v)) {
       i = j;
       continue;
     }
@@ -198,8 +205,6 @@ function findPeaks(d: (i: number) => number, n: number, threshold: number, spaci
     } else {
       peaks.push({ position, height, top: i });
     }
-    before = v;
-    v = next;
     i = j;
   }
   return peaks;
