@@ -2,6 +2,7 @@
 // analysis runs in the browser (a preview before submitting) and on the server (the stored figures),
 // so it uses nothing but the language: no Node APIs, no DOM.
 import { peakSummary, type PeakSummary } from "./figures";
+import { medianOf } from "./quickselect";
 
 export { parseTraceCsv, TraceError, type ParseTraceOptions } from "./trace-csv";
 export { synthesizeTrace, type SynthesizeTraceOptions } from "./trace-synthetic";
@@ -80,7 +81,10 @@ export function analyseTrace(
   if (options.threshold !== undefined) {
     found = findPeaks(raw, detrended, options.threshold + lowest, options.threshold, spacing);
   } else {
-    const floor = NOISE_MULTIPLE * noise;
+    // A noiseless trace (σ = 0) still needs a floor above rounding residue: a millionth of its range.
+    let top = -Infinity;
+    for (let i = 0; i < n; i++) if (raw[i]! > top) top = raw[i]!;
+    const floor = Math.max(NOISE_MULTIPLE * noise, 1e-6 * (top - lowest));
     const candidates = findPeaks(raw, detrended, floor + lowest, floor, spacing);
     const typical = candidates.length ? peakSummary(candidates.map((c) => c.height)).median : 0;
     const threshold = Math.max(floor, PEAK_FRACTION * typical);
@@ -208,43 +212,6 @@ function findPeaks(raw: Float64Array, d: (i: number) => number, gate: number, th
     i = j;
   }
   return peaks;
-}
-
-/** Median of the first `len` values of a scratch array (reordered in place); NaN when len is 0. */
-function medianOf(a: Float64Array, len: number): number {
-  if (len === 0) return NaN;
-  const mid = len >> 1;
-  const upper = select(a, len, mid);
-  if (len % 2) return upper;
-  let lower = -Infinity;
-  for (let i = 0; i < mid; i++) if (a[i]! > lower) lower = a[i]!;
-  return (lower + upper) / 2;
-}
-
-/** k-th smallest of a[0..len) by Hoare's quickselect, in place, O(len) expected. */
-function select(a: Float64Array, len: number, k: number): number {
-  let lo = 0;
-  let hi = len - 1;
-  while (lo < hi) {
-    const pivot = a[(lo + hi) >> 1]!;
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (a[i]! < pivot) i++;
-      while (a[j]! > pivot) j--;
-      if (i <= j) {
-        const t = a[i]!;
-        a[i] = a[j]!;
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else return a[k]!;
-  }
-  return a[k]!;
 }
 
 /**

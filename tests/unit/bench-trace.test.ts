@@ -108,6 +108,13 @@ describe("analyseTrace on synthetic traces with known blows", () => {
     expect(result.summary.n).toBe(0);
   });
 
+  it("a noiseless trace: every blow, nothing from rounding residue", () => {
+    const { samples, blows } = synthesizeTrace({ ...base, seconds: 5, peakSD: 0, noiseSD: 0 });
+    const result = analyseTrace(samples, RATE);
+    expect(result.blows).toHaveLength(blows.length);
+    expect(result.summary.p10 / 5000).toBeCloseTo(1, 2);
+  });
+
   it("refuses a bad rate or an empty trace", () => {
     expect(() => analyseTrace([1, 2], 0)).toThrow(RangeError);
     expect(() => analyseTrace([], RATE)).toThrow(RangeError);
