@@ -62,6 +62,8 @@ export interface AnalyseTraceOptions {
  * blowsPerMinute: 60 / the median interval between consecutive blows (after discardBlows when two
  * or more remain), robust to a missed or an extra blow, unlike a count over the trace's length.
  * summary: median, p10 and p90 of the peaks after discardBlows. Times are from the first sample.
+ * Throws RangeError on a bad rate, an empty trace or a non-finite sample (programmer errors: a parsed
+ * trace has none).
  */
 export function analyseTrace(
   samples: ArrayLike<number>,
@@ -76,6 +78,9 @@ export function analyseTrace(
 
   // One typed array from here on: every loop below then reads the same kind of array.
   const raw = samples instanceof Float64Array ? samples : Float64Array.from(samples);
+  for (let i = 0; i < n; i++) {
+    if (raw[i]! - raw[i]! !== 0) throw new RangeError(`sample ${i} is not a finite number`);
+  }
   const { detrended, baseline, noise, lowest } = removeBaseline(raw, rateHz);
   let found: Peak[];
   if (options.threshold !== undefined) {

@@ -118,6 +118,7 @@ describe("analyseTrace on synthetic traces with known blows", () => {
   it("refuses a bad rate or an empty trace", () => {
     expect(() => analyseTrace([1, 2], 0)).toThrow(RangeError);
     expect(() => analyseTrace([], RATE)).toThrow(RangeError);
+    expect(() => analyseTrace([0, 1, NaN, 1, 0], RATE)).toThrow(/sample 2 is not a finite number/);
   });
 });
 
