@@ -32,14 +32,45 @@ export async function declaredFigures(db: Db, modelIds: readonly number[]) {
 }
 export type DeclaredFigures = Awaited<ReturnType<typeof declaredFigures>>[number];
 
-/** Median time to free it with its interval, minutes; null where the cell has no Kaplan–Meier median. */
-function minutesFromCell(cell: { km_median_s: number | null; km_lower_s: number | null; km_upper_s: number | null }) {
-  if (cell.km_median_s == null) return null;
-  return {
-    estimate: cell.km_median_s / 60,
-    lower: cell.km_lower_s == null ? null : cell.km_lower_s / 60,
-    upper: cell.km_upper_s == null ? null : cell.km_upper_s / 60,
-  } satisfies CarriedInterval;
+type TimeCell = {
+  km_median_s: number | null;
+  km_lower_s: number | null;
+  km_upper_s: number | null;
+  time_median_s: number | null;
+  time_lower_s: number | null;
+  time_upper_s: number | null;
+};
+const timeColumns = [
+  "s.km_median_s",
+  "s.km_lower_s",
+  "s.km_upper_s",
+  "s.time_median_s",
+  "s.time_lower_s",
+  "s.time_upper_s",
+] as const;
+
+/**
+ * Minutes per job with the interval: the Kaplan–Meier median time to free it, give-ups counted ("km").
+ * Where most gave up the curve never reaches one half; then the median of the jobs freed ("freed"),
+ * which understates the day (the give-ups took longer) and is labelled so. Null without either.
+ */
+function minutesFromCell(cell: TimeCell): (CarriedInterval & { from: "km" | "freed" }) | null {
+  const minutes = (s: number | null) => (s == null ? null : s / 60);
+  if (cell.km_median_s != null)
+    return {
+      estimate: cell.km_median_s / 60,
+      lower: minutes(cell.km_lower_s),
+      upper: minutes(cell.km_upper_s),
+      from: "km",
+    };
+  if (cell.time_median_s != null)
+    return {
+      estimate: cell.time_median_s / 60,
+      lower: minutes(cell.time_lower_s),
+      upper: minutes(cell.time_upper_s),
+      from: "freed",
+    };
+  return null;
 }
 
 /** One tool doing `perDay` jobs of one kind: the day, or why there is none. */
@@ -78,7 +109,7 @@ export async function modelExposure(db: Db, modelId: number, url: URL) {
     db
       .selectFrom("stats_cells as s")
       .innerJoin("job_types as j", "j.id", "s.job_type_id")
-      .select(["j.slug", "j.name", "s.n", "s.km_n", "s.km_median_s", "s.km_lower_s", "s.km_upper_s"])
+      .select(["j.slug", "j.name", "s.n", ...timeColumns])
       .where("s.tool_model_id", "=", modelId)
       .orderBy("s.n", "desc")
       .execute(),
@@ -104,7 +135,7 @@ export async function compareExposure(
     .leftJoin("stats_cells as s", (join) =>
       join.onRef("s.tool_model_id", "=", "m.id").on("s.job_type_id", "=", jobTypeId),
     )
-    .select(["m.slug", ...declaredColumns, "m.id", "s.km_median_s", "s.km_lower_s", "s.km_upper_s"])
+    .select(["m.slug", ...declaredColumns, "m.id", ...timeColumns])
     .where(
       "m.slug",
       "in",
@@ -163,7 +194,7 @@ export async function dayCalculator(db: Db, url: URL) {
       ? Promise.resolve([])
       : db
           .selectFrom("stats_cells as s")
-          .select(["s.tool_model_id", "s.job_type_id", "s.n", "s.km_median_s", "s.km_lower_s", "s.km_upper_s"])
+          .select(["s.tool_model_id", "s.job_type_id", "s.n", ...timeColumns])
           .where("s.tool_model_id", "in", ids)
           .execute(),
   ]);
@@ -181,6 +212,7 @@ export async function dayCalculator(db: Db, url: URL) {
     const fromReports = cell ? minutesFromCell(cell) : null;
     const minutes: CarriedInterval | null =
       row.minutesPerJob != null ? { estimate: row.minutesPerJob, lower: null, upper: null } : fromReports;
+    const timeFrom = row.minutesPerJob != null ? ("typed" as const) : (fromReports?.from ?? ("km" as const));
     if (!minutes) {
       errors[`min-${row.index}`] = "No median time from reports for this tool on this job yet: give minutes per job";
       return [];
@@ -196,7 +228,7 @@ export async function dayCalculator(db: Db, url: URL) {
         jobSlug: job.slug,
         jobsPerDay: row.jobsPerDay,
         minutes,
-        timeFrom: row.minutesPerJob != null ? ("typed" as const) : ("reports" as const),
+        timeFrom,
         reports: cell?.n ?? 0,
         declared: d,
         item,

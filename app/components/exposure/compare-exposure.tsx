@@ -24,7 +24,7 @@ export function CompareExposurePanel({
   return (
     <section aria-labelledby="exposure-heading" className="space-y-3">
       <h2 id="exposure-heading" className="text-lg font-semibold">
-        Hands and ears: {perDay} × {job.name} a day
+        {`Hands and ears: ${perDay} × ${job.name} a day`}
       </h2>
       <Form method="get" preventScrollReset className="flex flex-wrap items-end gap-4">
         {keep.map(([name, value]) => (
@@ -37,7 +37,7 @@ export function CompareExposurePanel({
         </button>
       </Form>
       <BasisNote basis={basis} />
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Exposure table, scrolls sideways">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">
             Declared vibration and noise of each tool, and the day's exposure for {perDay} jobs
@@ -54,7 +54,7 @@ export function CompareExposurePanel({
                 L_pA
               </th>
               <th scope="col" className="py-1 pr-3">
-                Median time
+                Time per job
               </th>
               <th scope="col" className="py-1 pr-3">
                 Share of action dose
@@ -77,7 +77,9 @@ export function CompareExposurePanel({
                   {pm(t.declared.sound_pressure_db, t.declared.sound_pressure_k_db, formatDecibels, (k) => `${k} dB`)}
                 </td>
                 <td className="py-1 pr-3 tabular-nums">
-                  {t.minutes ? withInterval(t.minutes, (m) => formatDuration(m * 60)) : "no median yet"}
+                  {t.minutes
+                    ? `${withInterval(t.minutes, (m) => formatDuration(m * 60))}${t.minutes.from === "freed" ? " (jobs freed only)" : ""}`
+                    : "no time yet"}
                 </td>
                 <td className="py-1 pr-3 tabular-nums">
                   {t.day ? withInterval(t.day.shareOfActionValue, shareText) : "—"}

@@ -7,7 +7,7 @@ import type { DayCalculator } from "~/exposure/pages.server";
 import { Field, inputClass, Select } from "../field";
 import { BasisChoice, BasisNote } from "./basis-fields";
 import { ExposureCautions } from "./cautions";
-import { DayFigures, shareText, withInterval } from "./figures";
+import { DayFigures, shareText, TIME_FROM, withInterval } from "./figures";
 
 const EXAMPLE =
   "/day?tool=brackwater-bh-150&job=ball-joint-separation&n=6&tool=brackwater-bh-150&job=tie-rod-end-release&n=4";
@@ -112,9 +112,8 @@ export function DayView({ tools, jobs, rows, basis, errors, worked, day }: DayCa
                 </strong>{" "}
                 with {w.toolLabel} ({formatVibration(w.item.ahv)}, {w.item.lpa} dB):{" "}
                 {withInterval(w.minutes, (m) => formatDuration(m * 60))} a job
-                {w.timeFrom === "reports"
-                  ? ` (median of ${w.reports} reports, give-ups counted)`
-                  : " (your figure)"}; {shareText(w.own.shareOfActionValue.estimate)} of the action dose.
+                {` (${TIME_FROM[w.timeFrom]}${w.timeFrom === "typed" ? "" : `; ${w.reports} reports`})`};{" "}
+                {shareText(w.own.shareOfActionValue.estimate)} of the action dose.
               </li>
             ))}
           </ul>

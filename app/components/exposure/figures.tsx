@@ -113,3 +113,10 @@ export function DayFigures({ day }: { day: DayExposure }) {
     </div>
   );
 }
+
+/** Where a time per job came from, in words. */
+export const TIME_FROM = {
+  km: "median time to free it, give-ups counted",
+  freed: "median of the jobs freed only (most gave up, so the day is understated)",
+  typed: "your figure",
+} as const;

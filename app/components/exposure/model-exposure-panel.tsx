@@ -6,7 +6,7 @@ import type { ModelExposure } from "~/exposure/pages.server";
 import { Card } from "../ui";
 import { BasisChoice, BasisNote, PerDayField } from "./basis-fields";
 import { ExposureCautions } from "./cautions";
-import { DayFigures, DeclaredValues, shareText, withInterval } from "./figures";
+import { DayFigures, DeclaredValues, shareText, TIME_FROM, withInterval } from "./figures";
 
 export function ModelExposurePanel({ exposure, modelSlug }: { exposure: ModelExposure; modelSlug: string }) {
   const { declared, perDay, basis, jobs } = exposure;
@@ -30,17 +30,16 @@ export function ModelExposurePanel({ exposure, modelSlug }: { exposure: ModelExp
           <li key={j.slug} className="border-t border-stone-100 pt-3">
             <details open={i === 0} className="space-y-2">
               <summary className="cursor-pointer text-sm font-semibold">
-                {perDay} × {j.name}
+                {`${perDay} × ${j.name}`}
                 {j.day ? ` — ${shareText(j.day.shareOfActionValue.estimate)} of the action dose` : ""}
               </summary>
               {j.minutes ? (
                 <p className="text-xs text-stone-700">
-                  Median time to free it {withInterval(j.minutes, (m) => formatDuration(m * 60))}, from {j.n} reports
+                  {withInterval(j.minutes, (m) => formatDuration(m * 60))} a job: {TIME_FROM[j.minutes.from]}, from{" "}
+                  {j.n} reports
                 </p>
               ) : (
-                <p className="text-xs text-stone-700">
-                  No median time yet: fewer than half of the {j.n} reports freed it, or too few reports.
-                </p>
+                <p className="text-xs text-stone-700">No time per job yet from the {j.n} reports.</p>
               )}
               {j.day ? <DayFigures day={j.day} /> : null}
             </details>
