@@ -21,6 +21,8 @@ import {
 } from "~/domain";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
+import { ModelExposurePanel } from "~/components/exposure/model-exposure-panel";
+import { modelExposure } from "~/exposure/pages.server";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/models.$slug";
@@ -38,7 +40,8 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     countAccepted(db, { modelId: model.id }),
     unitsFor(request),
   ]);
-  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
+  const exposure = await modelExposure(db, model.id, new URL(request.url));
+  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), exposure };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
@@ -122,6 +125,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
         </Link>
       </p>
 
+      <ModelExposurePanel exposure={loaderData.exposure} modelSlug={model.slug} />
       <SafetyCautions action={model.category_action} />
 
       <section aria-labelledby="reports-heading">
