@@ -43,6 +43,7 @@ control = await runStartCommand(
       record("worker", child.pid);
       return child;
     });
+    await services.indexed;
     await waitForHttp(
       `http://${host}:${port}/`,
       {
