@@ -15,13 +15,17 @@
 //     fonts and images, and HSTS when APP_ORIGIN is https.
 //   - request bodies are capped per route before anything parses them (BODY_LIMITS below).
 // Plain JavaScript, run by node itself; HOST and PORT (app/config.server.ts) choose where it listens.
+// With WEB_CONCURRENCY above 1 (one per core by default in production) this process is a cluster
+// primary (server-cluster.js) and each worker runs serve() below on the shared socket.
 import path from "node:path";
 import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { fileURLToPath } from "node:url";
+import cluster from "node:cluster";
 import compression from "compression";
 import express from "express";
 import { createRequestHandler } from "react-router";
+import { runPrimary, workerCount } from "./server-cluster.js";
 
 /** Must equal CLIENT_ADDRESS_HEADER in app/utils/client-address.server.ts (a unit test checks). */
 const CLIENT_ADDRESS_HEADER = "x-bayproof-client-address";
@@ -29,20 +33,6 @@ const CLIENT_ADDRESS_HEADER = "x-bayproof-client-address";
 const HSTS = "max-age=31536000; includeSubDomains";
 
 const root = path.dirname(fileURLToPath(import.meta.url));
-const build = await import(path.join(root, "build/server/index.js"));
-const crossSiteRefusal = build.entry.module.crossSiteRefusal;
-if (typeof crossSiteRefusal !== "function") throw new Error("app/entry.server.tsx must export crossSiteRefusal");
-/** The app's configuration (app/config.server.ts), read once from the environment by the build. */
-const config = build.entry.module.config;
-if (!config?.listen) throw new Error("app/entry.server.tsx must export config");
-const handle = createRequestHandler(build, config.mode);
-
-const STATIC_HEADERS = {
-  "Content-Security-Policy":
-    "default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'",
-  "X-Content-Type-Options": "nosniff",
-  ...(config.appOrigin.startsWith("https://") ? { "Strict-Transport-Security": HSTS } : {}),
-};
 
 /** A 400 with a reason: the feed's JSON error under /api/v1, JSON under /api/, plain text elsewhere. */
 function badPath(req, res) {
@@ -134,74 +124,100 @@ function toRequest(req, res, body) {
   return new Request(new URL(req.originalUrl, `${req.protocol}://${req.get("host") ?? "localhost"}`), init);
 }
 
-const app = express();
-app.disable("x-powered-by");
-app.use(compression());
-app.use((req, res, next) => {
-  try {
-    decodeURIComponent(req.path);
-  } catch {
-    return badPath(req, res);
-  }
-  next();
-});
-const setHeaders = (res) => res.set(STATIC_HEADERS);
-app.use(
-  "/assets",
-  express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y", setHeaders }),
-);
-app.use(express.static(path.join(root, "build/client"), { maxAge: "1h", setHeaders }));
-app.all("*", async (req, res, next) => {
-  let body;
-  if (req.method !== "GET" && req.method !== "HEAD") {
-    const limit = bodyLimit(req.path);
-    const declared = Number(req.get("content-length"));
-    if (declared > limit) return refuseTooLarge(req, res, limit);
-    try {
-      body = await readBody(req, limit);
-    } catch (error) {
-      if (error instanceof BodyTooLarge) return refuseTooLarge(req, res, limit);
-      return res.destroy(); // the client went away mid-body: nobody to answer
-    }
-  }
-  let response;
-  try {
-    const request = toRequest(req, res, body);
-    response = crossSiteRefusal(request) ?? (await handle(request));
-  } catch (error) {
-    return next(error);
-  }
-  res.statusMessage = response.statusText;
-  res.status(response.status);
-  for (const [name, value] of response.headers) res.append(name, value);
-  if (!response.body || req.method === "HEAD") {
-    await response.body?.cancel();
-    return res.end();
-  }
-  try {
-    await pipeline(Readable.fromWeb(response.body), res);
-  } catch (error) {
-    // A client that leaves mid-stream is normal; anything else is worth a line in the log.
-    if (error?.code !== "ERR_STREAM_PREMATURE_CLOSE" && !res.destroyed)
-      console.error("[server] response stream failed:", error);
-  }
-});
+/** One process's server: the build, Express and the listening socket (a cluster worker's, or the only one). */
+async function serve() {
+  const build = await import(path.join(root, "build/server/index.js"));
+  const crossSiteRefusal = build.entry.module.crossSiteRefusal;
+  if (typeof crossSiteRefusal !== "function") throw new Error("app/entry.server.tsx must export crossSiteRefusal");
+  /** The app's configuration (app/config.server.ts), read once from the environment by the build. */
+  const config = build.entry.module.config;
+  if (!config?.listen) throw new Error("app/entry.server.tsx must export config");
+  const handle = createRequestHandler(build, config.mode);
 
-const { host, port } = config.listen;
-const server = app.listen(port, host, () => console.log(`[server] http://${host}:${port}`));
-// Requests node's parser refuses before any route sees them (an address or headers over 16 KiB,
-// a malformed request line) get a reason too, in JSON since the path is not known.
-server.on("clientError", (error, socket) => {
-  if (error.code === "ECONNRESET" || !socket.writable) return socket.destroy();
-  const tooLarge = error.code === "HPE_HEADER_OVERFLOW";
-  const body = JSON.stringify({
-    error: tooLarge
-      ? { code: "request_too_large", message: "The address and headers together are larger than 16 KiB." }
-      : { code: "bad_request", message: "The request could not be read." },
+  const STATIC_HEADERS = {
+    "Content-Security-Policy":
+      "default-src 'none'; style-src 'self'; font-src 'self'; img-src 'self'; frame-ancestors 'none'",
+    "X-Content-Type-Options": "nosniff",
+    ...(config.appOrigin.startsWith("https://") ? { "Strict-Transport-Security": HSTS } : {}),
+  };
+
+  const app = express();
+  app.disable("x-powered-by");
+  app.use(compression());
+  app.use((req, res, next) => {
+    try {
+      decodeURIComponent(req.path);
+    } catch {
+      return badPath(req, res);
+    }
+    next();
   });
-  socket.end(
-    `HTTP/1.1 ${tooLarge ? "431 Request Header Fields Too Large" : "400 Bad Request"}\r\nContent-Type: application/json; charset=utf-8\r\n` +
-      `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`,
+  const setHeaders = (res) => res.set(STATIC_HEADERS);
+  app.use(
+    "/assets",
+    express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y", setHeaders }),
   );
-});
-for (const signal of ["SIGTERM", "SIGINT"]) process.once(signal, () => server.close(() => process.exit(0)));
+  app.use(express.static(path.join(root, "build/client"), { maxAge: "1h", setHeaders }));
+  app.all("*", async (req, res, next) => {
+    let body;
+    if (req.method !== "GET" && req.method !== "HEAD") {
+      const limit = bodyLimit(req.path);
+      const declared = Number(req.get("content-length"));
+      if (declared > limit) return refuseTooLarge(req, res, limit);
+      try {
+        body = await readBody(req, limit);
+      } catch (error) {
+        if (error instanceof BodyTooLarge) return refuseTooLarge(req, res, limit);
+        return res.destroy(); // the client went away mid-body: nobody to answer
+      }
+    }
+    let response;
+    try {
+      const request = toRequest(req, res, body);
+      response = crossSiteRefusal(request) ?? (await handle(request));
+    } catch (error) {
+      return next(error);
+    }
+    res.statusMessage = response.statusText;
+    res.status(response.status);
+    for (const [name, value] of response.headers) res.append(name, value);
+    if (!response.body || req.method === "HEAD") {
+      await response.body?.cancel();
+      return res.end();
+    }
+    try {
+      await pipeline(Readable.fromWeb(response.body), res);
+    } catch (error) {
+      // A client that leaves mid-stream is normal; anything else is worth a line in the log.
+      if (error?.code !== "ERR_STREAM_PREMATURE_CLOSE" && !res.destroyed)
+        console.error("[server] response stream failed:", error);
+    }
+  });
+
+  const { host, port } = config.listen;
+  const server = app.listen(port, host, () => console.log(`[server] http://${host}:${port}`));
+  // Requests node's parser refuses before any route sees them (an address or headers over 16 KiB,
+  // a malformed request line) get a reason too, in JSON since the path is not known.
+  server.on("clientError", (error, socket) => {
+    if (error.code === "ECONNRESET" || !socket.writable) return socket.destroy();
+    const tooLarge = error.code === "HPE_HEADER_OVERFLOW";
+    const body = JSON.stringify({
+      error: tooLarge
+        ? { code: "request_too_large", message: "The address and headers together are larger than 16 KiB." }
+        : { code: "bad_request", message: "The request could not be read." },
+    });
+    socket.end(
+      `HTTP/1.1 ${tooLarge ? "431 Request Header Fields Too Large" : "400 Bad Request"}\r\nContent-Type: application/json; charset=utf-8\r\n` +
+        `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`,
+    );
+  });
+  for (const signal of ["SIGTERM", "SIGINT"]) process.once(signal, () => server.close(() => process.exit(0)));
+}
+
+// How many processes serve (docs/decisions/012-worker-processes.md). WEB_CONCURRENCY is read here
+// and not in app/config.server.ts because the primary decides before any build is loaded: it loads
+// none, so nothing of the app (pools, queues) runs twice. Default: one worker per core in
+// production (npm start), one process elsewhere. 1 serves from this process, without a primary.
+const workers = workerCount(process.env);
+if (workers > 1 && cluster.isPrimary) runPrimary(workers);
+else await serve();

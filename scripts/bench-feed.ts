@@ -74,6 +74,8 @@ try {
         HOST: "127.0.0.1",
         APP_ORIGIN: origin,
         NODE_ENV: "production",
+        // One process: the figures below are this process's memory and CPU.
+        WEB_CONCURRENCY: "1",
       },
     },
   );

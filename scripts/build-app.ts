@@ -21,6 +21,8 @@ function listFiles(dir: string): string[] {
 
 export function sourceHash(root: string) {
   const hash = createHash("sha256");
+  // Builds made before NODE_ENV was fixed to production (below) could hold React's development build.
+  hash.update("NODE_ENV=production\0");
   const files = [
     ...SOURCE_DIRS.flatMap((d) => listFiles(path.join(root, d))),
     ...SOURCE_FILES.map((f) => path.join(root, f)).filter((f) => existsSync(f)),
@@ -44,6 +46,9 @@ export function buildApp(root: string, log: (s: string) => void, { inheritOutput
   log("Building the app…");
   const r = spawnSync(path.join(root, "node_modules/.bin/react-router"), ["build"], {
     cwd: root,
+    // Always the production bundle: under vitest NODE_ENV is "test", which would ship React's
+    // development build (three times the size, and not what is served).
+    env: { ...process.env, NODE_ENV: "production" },
     stdio: inheritOutput ? "inherit" : "pipe",
     encoding: "utf8",
   });

@@ -1,7 +1,8 @@
 // The /models filters and sort, read leniently from the URL: whatever parses is applied, the rest
 // is named in a note. Shared by the page, its resource route and the browser.
 import { z } from "zod";
-import { FITTINGS, slugField } from "~/domain";
+import { FITTINGS } from "~/domain";
+import { slugField } from "~/domain/slug-field";
 
 export const SORTABLE = ["tool", "price", "weight", "length", "reports", "success"] as const;
 export type SortKey = (typeof SORTABLE)[number];

@@ -1,6 +1,7 @@
 import { Link } from "react-router";
 import { formatDuration } from "~/domain";
-import { FEW_REPORTS, type StatsCell } from "~/stats/cells";
+import type { StatsCell } from "~/stats/cells";
+import { FEW_REPORTS } from "~/stats/marks";
 import { IntervalBar, pct, plainLine } from "./intervals";
 
 export type CellRow = Pick<

@@ -3,8 +3,8 @@
 import { useState } from "react";
 import { Form, Link } from "react-router";
 import { formatDuration, psiToKpa } from "~/domain";
-import { predictAt, type PooledCellFit } from "~/stats/pressure";
-import { MARK_LABELS, type Mark } from "~/stats/standings";
+import { predictAt, type PooledCellFit } from "~/stats/predict";
+import { MARK_LABELS, type Mark } from "~/stats/marks";
 import { IntervalsExplained, pct, prob } from "./intervals";
 import { PressureCurves, SurvivalCurves } from "./pressure-curves";
 import { buttonClass } from "./ui";

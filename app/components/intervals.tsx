@@ -1,7 +1,9 @@
 // Interval pictures, drawn as SVG on the server so they work without JavaScript. Every figure is
 // also given as text beside or under the picture.
-import { scaleLinear } from "d3-scale";
 import { formatChance as prob, formatShare as pct } from "~/domain";
+
+/** 0–1 onto [from, to]: all these pictures need of a scale, without shipping one to the browser. */
+const shareAxis = (from: number, to: number) => (p: number) => from + p * (to - from);
 
 /** A small 0–100 % bar with the interval as a band and the estimate as a tick. */
 export function IntervalBar({
@@ -15,7 +17,7 @@ export function IntervalBar({
   upper: number;
   muted?: boolean;
 }) {
-  const x = scaleLinear().domain([0, 1]).range([2, 118]);
+  const x = shareAxis(2, 118);
   return (
     <svg viewBox="0 0 120 14" width="120" height="14" aria-hidden className="inline-block align-middle">
       <rect x="2" y="6" width="116" height="2" fill="#e7e5e4" />
@@ -63,9 +65,7 @@ export function IntervalChart({ rows, title }: { rows: ChartRow[]; title: string
     top = 24,
     W = 320;
   const H = top + rows.length * rowH + 6;
-  const x = scaleLinear()
-    .domain([0, 1])
-    .range([left, W - right]);
+  const x = shareAxis(left, W - right);
   return (
     <figure className="max-w-xl">
       <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="interval-chart-title" className="h-auto w-full">

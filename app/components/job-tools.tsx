@@ -2,8 +2,8 @@
 // top tool, the interval chart and the cards with their "How this is worked out" folds.
 import { Link } from "react-router";
 import { FITTING_LABELS, formatPrice, formatWeight, toolName, type Units } from "~/domain";
-import { FEW_REPORTS } from "~/stats/cells";
-import { MARK_LABELS, type OrderBasis, type Standing } from "~/stats/standings";
+import { FEW_REPORTS, MARK_LABELS } from "~/stats/marks";
+import type { OrderBasis, Standing } from "~/stats/standings";
 import type { JobCell } from "~/stats/cells.server";
 import { CellTable } from "./cell-table";
 import { IntervalChart, IntervalsExplained } from "./intervals";

@@ -4,7 +4,7 @@
 import { scaleLinear } from "d3-scale";
 import { area, line } from "d3-shape";
 import { kpaToPsi, psiToKpa } from "~/domain";
-import { predictAt, type PooledCellFit } from "~/stats/pressure";
+import { predictAt, type PooledCellFit } from "~/stats/predict";
 
 export const CURVE_COLOURS = ["#2f6b5f", "#b45309", "#1d4ed8", "#7c3aed"];
 

@@ -1,5 +1,6 @@
 import { useLocation } from "react-router";
-import { UNIT_SYSTEM_LABELS, UNIT_SYSTEMS, type UnitSystem } from "~/domain";
+// The units module alone: the domain barrel brings zod (slug.ts), which the root of every page does not run.
+import { UNIT_SYSTEM_LABELS, UNIT_SYSTEMS, type UnitSystem } from "~/domain/units";
 
 /**
  * The footer's unit switch: a plain POST to /units that works without JavaScript and comes back to

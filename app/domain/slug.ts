@@ -1,5 +1,3 @@
-import { z } from "zod";
-
 /**
  * A slug names a maker, tool category, tool model or job type in URLs, filters and the feed.
  * The one pattern is the database's: the CHECK on every slug column (migration
@@ -11,11 +9,7 @@ import { z } from "zod";
  */
 export const SLUG_PATTERN = "^[a-z0-9]+(-[a-z0-9]+)*$";
 export const SLUG_MAX_LENGTH = 80;
-const SLUG_RE = new RegExp(SLUG_PATTERN);
+export const SLUG_RE = new RegExp(SLUG_PATTERN);
 
 export const isSlug = (value: unknown): value is string =>
   typeof value === "string" && value.length <= SLUG_MAX_LENGTH && SLUG_RE.test(value);
-
-/** A slug field with the message its form shows when the value is not one. */
-export const slugField = (message = "Not a slug") =>
-  z.string({ error: message }).max(SLUG_MAX_LENGTH, message).regex(SLUG_RE, message);

@@ -2,7 +2,7 @@
 // filtered queue can be shared, reloaded and walked back through. Pure: the queue page, the
 // review page ("next report") and their tests read the same schema.
 import { z } from "zod";
-import { slugField } from "~/domain";
+import { slugField } from "~/domain/slug-field";
 import { FLAG_EXPLANATIONS, type FlagCode } from "./flags";
 import { TRUST_LEVELS, type TrustLevel } from "./trust";
 

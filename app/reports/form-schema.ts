@@ -19,7 +19,6 @@ import {
   type LengthUnit,
   type PressureUnit,
   rangeMessage,
-  slugField,
   SYSTEM_UNITS,
   fromSi,
   toSi,
@@ -28,6 +27,7 @@ import {
   roundDecimals,
   STORED_DECIMALS,
 } from "~/domain";
+import { slugField } from "~/domain/slug-field";
 import { GAUGE_ERROR_KPA } from "~/moderation/flags";
 import { plainText } from "~/utils/text";
 import type { Report } from "../../db/schema";

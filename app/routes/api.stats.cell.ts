@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { db } from "~/db.server";
-import { RANGES, slugField } from "~/domain";
+import { RANGES } from "~/domain";
+import { slugField } from "~/domain/slug-field";
 import { adjustedAtReference, predictAt } from "~/stats/cells";
 import { cellBySlugs } from "~/stats/cells.server";
 import type { Route } from "./+types/api.stats.cell";

@@ -3,36 +3,19 @@
 // figure at the rating point where its own reports reach it. Pure.
 import { zCritical } from "./distributions";
 import { pooledLogisticFit } from "./pooled-logistic";
+import { type PooledCellFit, pressureX, predictWith, REFERENCE_INLET_KPA, Z_95 } from "./predict";
 import type { Interval } from "./proportions";
 
-export const REFERENCE_INLET_KPA = 620.5; // 90 psi, the trade's rating point (common practice)
+export { predictAt, pressureX, REFERENCE_INLET_KPA, type PooledCellFit } from "./predict";
+
 /** Fewest reports with a known inlet pressure on a job for its pooled fit. */
 export const MIN_FIT_REPORTS = 20;
 const KPA_PER_PSI = 6.894757; // 1 psi = 6.894757 kPa (from the exact pound and inch)
-
-/** x of the fit: inlet bar gauge − 6.205, so an intercept is the model's logit at 90 psi. */
-export const pressureX = (kpa: number) => (kpa - REFERENCE_INLET_KPA) / 100;
 
 export interface FitReport {
   model: number;
   inletKpa: number;
   freed: boolean;
-}
-
-/** A model's share of its job's pooled fit: all the browser needs to predict at any pressure. */
-export interface PooledCellFit {
-  intercept: number;
-  slope: number;
-  /** Arrowhead inverse of the information (pooledLogisticFit().inverse): d of the model, its r, and σ. */
-  d: number;
-  r: number;
-  sigma: number;
-  /** The model's reports with a known inlet pressure in the fit, and their pressures (10th, 90th percentile, range). */
-  n: number;
-  p10Kpa: number;
-  p90Kpa: number;
-  minKpa: number;
-  maxKpa: number;
 }
 
 export interface JobFit {
@@ -195,26 +178,5 @@ export function modelAtJobSlope(
   );
 }
 
-function predictWith(fit: PooledCellFit, inletKpa: number, z: number): Interval {
-  const x = pressureX(inletKpa);
-  const eta = fit.intercept + fit.slope * x;
-  // Var(α + βx) in the arrowhead form: 1/d + (x − r)²/σ (pooled-logistic.ts).
-  const se = Math.sqrt(1 / fit.d + (x - fit.r) ** 2 / fit.sigma);
-  const expit = (e: number) => 1 / (1 + Math.exp(-e));
-  return { estimate: expit(eta), lower: expit(eta - z * se), upper: expit(eta + z * se) };
-}
-
-/**
- * A model's predicted success at an inlet pressure from its stored share of the pooled fit (Wald on
- * the logit scale), and whether that pressure is outside the 10th–90th percentile of its reports.
- * Pure and small: the compare page runs it in the browser as the shopper moves the pressure.
- */
-export function predictAt(fit: PooledCellFit, inletKpa: number, confidence = 0.95) {
-  return {
-    ...predictWith(fit, inletKpa, zFor(confidence)),
-    extrapolating: inletKpa < fit.p10Kpa || inletKpa > fit.p90Kpa,
-  };
-}
-
 // 1.959964 for 95 % (published normal quantile); other levels from the library.
-const zFor = (confidence: number) => (confidence === 0.95 ? 1.959963984540054 : zCritical(confidence));
+const zFor = (confidence: number) => (confidence === 0.95 ? Z_95 : zCritical(confidence));

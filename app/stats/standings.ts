@@ -2,8 +2,9 @@
 // page, the compare page and the feed all call it, so they can never disagree. Pure.
 import { type Interval, probabilityGreater } from "./proportions";
 import { distinguishable } from "./clustered";
+import { FEW_REPORTS, type Mark } from "./marks";
 
-export const FEW_REPORTS = 10;
+export { FEW_REPORTS, MARK_LABELS, type Mark } from "./marks";
 
 export interface StandingInput {
   model_slug: string;
@@ -16,16 +17,6 @@ export interface StandingInput {
 
 /** What a list is ordered by: the pressure-adjusted figure's lower bound, or the rate's. */
 export type OrderBasis = "pressure_adjusted" | "rate";
-
-export type Mark = "top" | "not_told_apart" | "behind" | "ahead" | "too_few";
-
-export const MARK_LABELS: Record<Mark, string> = {
-  top: "top tool",
-  not_told_apart: "can't be told apart from the top tool yet",
-  behind: "behind the top tool",
-  ahead: "frees it more often than the top tool, though ordered below it",
-  too_few: "too few to compare",
-};
 
 export interface Standing<T> {
   cell: T;

@@ -5,7 +5,7 @@
 // user cannot enter (a clone inside a 0700 folder, as in root's home).
 import { type ChildProcess, spawn, spawnSync } from "node:child_process";
 import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync, symlinkSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { availableParallelism, tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { freePort } from "../../scripts/free-port";
@@ -157,6 +157,9 @@ describe("npm start from a fresh clone", () => {
 
     const first = await start(dir, ports);
     expect(first.output()).toMatch(/Loaded the demo scenario: \d+ reports/);
+    // One server worker per core (server-cluster.js), all in the start command's process group.
+    if (availableParallelism() > 1)
+      expect(first.output()).toMatch(new RegExp(`\\[server\\] ${availableParallelism()} workers`));
     const clusterDir = clusterDirFrom(first.output(), dataDir);
     expect(clusterDir).toBe(path.join(dataDir, "postgres"));
     await browse(ports);
@@ -167,6 +170,8 @@ describe("npm start from a fresh clone", () => {
     expect(second.output()).toMatch(/Demo scenario already present/);
     expect(second.output()).not.toMatch(/Loaded the demo scenario/);
     expect(second.output()).toMatch(/The build is up to date/);
+    // The second start's figure (no build, no demo load), for the log; speed is a benchmark's business.
+    console.info(/Bayproof is serving on .*\(ready in [\d.]+ s\)/.exec(second.output())?.[0]);
     await browse(ports);
     // A server that dies on its own is started again alone; the database and fakes stay up.
     const before = JSON.parse(readFileSync(path.join(dataDir, "run.json"), "utf8")) as {
