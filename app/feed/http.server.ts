@@ -3,6 +3,7 @@
 import { createHash } from "node:crypto";
 import type { z } from "zod";
 import { AppError, failureAnswer } from "~/utils/errors";
+import { matchesIfNoneMatch } from "~/utils/http";
 import { hasControlCharacters } from "~/utils/text";
 
 /** The feed's expected failures: an AppError with the code its JSON answer carries. */
@@ -71,15 +72,7 @@ export const CACHE = {
 
 const etagOf = (body: string) => `"${createHash("sha256").update(body).digest("base64url").slice(0, 32)}"`;
 
-/** True when If-None-Match names `etag` (weak comparison, as RFC 9110 §13.1.2 asks for GET). */
-export function matchesIfNoneMatch(header: string | null, etag: string) {
-  if (!header) return false;
-  if (header.trim() === "*") return true;
-  return header
-    .split(",")
-    .map((t) => t.trim().replace(/^W\//, ""))
-    .includes(etag);
-}
+export { matchesIfNoneMatch };
 
 /** A JSON answer with a strong ETag over its exact bytes, or a 304 when the client has them. */
 export function jsonResponse(

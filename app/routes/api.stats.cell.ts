@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { RANGES, slugField } from "~/domain";
 import { adjustedAtReference, predictAt } from "~/stats/cells";
 import { cellBySlugs } from "~/stats/cells.server";
@@ -21,7 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       },
       { status: 400 },
     );
-  const cell = await cellBySlugs(db, parsed.data.model, parsed.data.job);
+  const cell = await cellBySlugs(readDb, parsed.data.model, parsed.data.job);
   if (!cell) return Response.json({ error: "No accepted reports for this tool on this job" }, { status: 404 });
   const at = parsed.data.inlet_kpa;
   return Response.json(

@@ -7,6 +7,7 @@ import { type RawBuilder, sql } from "kysely";
 import type { Db } from "../../db/database";
 import { operatingInletPressure } from "~/air/supply";
 import type { CouplerProfile } from "~/domain";
+import { notifyPagesChanged } from "~/http-cache/notify.server";
 import { type CellFigures, type CellReport, cellFigures } from "./cells";
 import { type FitReport, type JobFit, jobPressureFit, modelAtJobSlope } from "./pressure";
 import { shrinkProportions } from "./proportions";
@@ -300,6 +301,7 @@ export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
         .set((eb) => ({ set_aside: eb("set_aside", "+", delta) }))
         .where("job_type_id", "=", jobTypeId)
         .execute();
+    await notifyPagesChanged(trx, "stats");
   });
 }
 
@@ -319,5 +321,6 @@ export async function refreshAll(db: Db, { concurrency = 4 } = {}) {
     }
   };
   await Promise.all(Array.from({ length: Math.min(concurrency, jobs.length) }, worker));
+  await notifyPagesChanged(db, "stats");
   return cells;
 }

@@ -62,6 +62,8 @@ export default async function setup(project: TestProject) {
         ...process.env,
         ...fakes.env,
         DATABASE_URL: database.url,
+        // The read instance is the same database here; the code path is the one a replica takes.
+        DATABASE_READ_URL: database.url,
         HOST: "127.0.0.1",
         PORT: String(port),
         APP_ORIGIN: baseUrl,
