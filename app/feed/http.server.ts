@@ -62,8 +62,11 @@ export function readParams<S extends Record<string, z.ZodType>>(
 }
 
 export const CACHE = {
-  /** Lists that grow as reports are accepted. */
-  live: "public, max-age=60",
+  /**
+   * Lists that grow as reports are accepted, and the stats: a client revalidates every time (a 304 when
+   * nothing changed), so no one keeps a rate an accept has changed; a CDN keeps them as it keeps pages.
+   */
+  live: "public, max-age=0, s-maxage=30, stale-while-revalidate=30",
   /** One accepted report, a model, a job type: they change rarely. */
   record: "public, max-age=300",
   /** Schemas and documents describing the feed. */
@@ -83,7 +86,9 @@ export function jsonResponse(
 ): Response {
   const body = JSON.stringify(value);
   const etag = etagOf(body);
-  const common = { ETag: etag, "Cache-Control": cacheControl, ...headers };
+  // The body is the same for every caller; the RateLimit headers are not, so a shared cache keeps
+  // one answer per API key (and one for anonymous callers).
+  const common = { ETag: etag, "Cache-Control": cacheControl, Vary: "Authorization", ...headers };
   if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag))
     return new Response(null, { status: 304, headers: common });
   return new Response(body, { status: 200, headers: { "Content-Type": "application/json; charset=utf-8", ...common } });
