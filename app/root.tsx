@@ -46,7 +46,9 @@ export const middleware: Route.MiddlewareFunction[] = [
   },
   // Public pages for anonymous visitors: from the page cache before any loader runs (app/http-cache).
   pageCacheStep({
-    enabled: !import.meta.env.DEV,
+    // Off under the dev server (hot reload changes pages without a notification); import.meta.env.DEV
+    // would not do, since a build made with NODE_ENV=test (the test stack's) says DEV too.
+    enabled: !import.meta.hot,
     isAnonymous: (request) => !mayHoldSession(request),
     variant: visitorSystem,
   }),

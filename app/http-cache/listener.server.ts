@@ -77,7 +77,8 @@ export function listenForPageChanges(connectionString: string, events: ListenerE
       events.listening(false);
       current?.removeAllListeners();
       current?.on("error", () => {});
-      await current?.end().catch(() => {});
+      // Not awaited: with its socket unreferenced, the end may never be reported.
+      void current?.end().catch(() => {});
     },
   };
 }
