@@ -1,6 +1,7 @@
 // Anonymous renders of public pages, kept in this process: a stand-in for a CDN in front of the app,
 // and the headers that let a real one do the same (docs/decisions/012-page-caching.md).
 import { createHash } from "node:crypto";
+import { gzipSync } from "node:zlib";
 import { createContext, type MiddlewareFunction } from "react-router";
 import { matchesIfNoneMatch } from "~/utils/http";
 import { ByteLru } from "./byte-lru";
@@ -9,6 +10,8 @@ import { isPublicPage, PRIVATE_CACHE_CONTROL, PUBLIC_CACHE_CONTROL, PUBLIC_VARY 
 
 interface CachedPage {
   body: Uint8Array;
+  /** The same bytes gzipped once when stored, so a hit costs no compression (its own ETag: RFC 9110 §8.8.3). */
+  gzipped: Uint8Array;
   headers: [string, string][];
   etag: string;
   /** CSP sources for the page's inline scripts (their hashes); null for data requests. */
@@ -54,7 +57,10 @@ export class PageCache {
   misses = 0;
 
   constructor(maxBytes: number) {
-    this.pages = new ByteLru(maxBytes, (page, key) => page.body.byteLength + key.length * 2 + 512);
+    this.pages = new ByteLru(
+      maxBytes,
+      (page, key) => page.body.byteLength + page.gzipped.byteLength + key.length * 2 + 512,
+    );
   }
 
   /** Usable only while changes are heard and the replica has caught up with the last one. */
@@ -115,14 +121,30 @@ export class PageCache {
   }
 }
 
+const gzipEtag = (etag: string) => `${etag.slice(0, -1)}-gz"`;
+/** Accept-Encoding names gzip without q=0 (RFC 9110 §12.5.3). */
+function acceptsGzip(request: Request): boolean {
+  return (request.headers.get("accept-encoding") ?? "").split(",").some((part) => {
+    const [coding, ...params] = part.split(";").map((x) => x.trim().toLowerCase());
+    const q = params.find((p) => p.startsWith("q="));
+    return coding === "gzip" && (!q || Number(q.slice(2)) > 0);
+  });
+}
+
 function answer(request: Request, page: CachedPage): Response {
   const headers = new Headers(page.headers);
-  if (matchesIfNoneMatch(request.headers.get("if-none-match"), page.etag)) {
+  const gzip = acceptsGzip(request);
+  const etag = gzip ? gzipEtag(page.etag) : page.etag;
+  headers.set("ETag", etag);
+  if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag)) {
     const notModified = new Headers();
     for (const name of ["ETag", "Cache-Control", "Vary"]) notModified.set(name, headers.get(name)!);
     return new Response(null, { status: 304, headers: notModified });
   }
-  return new Response(request.method.toUpperCase() === "HEAD" ? null : page.body.slice(), { status: 200, headers });
+  if (gzip) headers.set("Content-Encoding", "gzip");
+  const body = gzip ? page.gzipped : page.body;
+  headers.set("Content-Length", String(body.byteLength));
+  return new Response(request.method.toUpperCase() === "HEAD" ? null : body.slice(), { status: 200, headers });
 }
 
 const refusesStorage = (response: Response) =>
@@ -137,12 +159,12 @@ async function toPage(response: Response): Promise<CachedPage | null> {
   const body = new Uint8Array(await response.arrayBuffer());
   const headers = new Headers(response.headers);
   headers.set("Cache-Control", PUBLIC_CACHE_CONTROL);
-  headers.set("Vary", PUBLIC_VARY);
+  headers.set("Vary", `${PUBLIC_VARY}, Accept-Encoding`);
   const etag = etagOf(body);
   headers.set("ETag", etag);
   const html = (headers.get("Content-Type") ?? "").startsWith("text/html");
   const scriptSources = html ? inlineScriptSources(new TextDecoder().decode(body)) : null;
-  return { body, headers: [...headers], etag, scriptSources };
+  return { body, gzipped: gzipSync(body), headers: [...headers], etag, scriptSources };
 }
 
 /**
