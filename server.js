@@ -214,7 +214,7 @@ async function serve() {
   for (const signal of ["SIGTERM", "SIGINT"]) process.once(signal, () => server.close(() => process.exit(0)));
 }
 
-// How many processes serve (docs/decisions/012-worker-processes.md). WEB_CONCURRENCY is read here
+// How many processes serve (docs/decisions/013-worker-processes.md). WEB_CONCURRENCY is read here
 // and not in app/config.server.ts because the primary decides before any build is loaded: it loads
 // none, so nothing of the app (pools, queues) runs twice. Default: one worker per core in
 // production (npm start), one process elsewhere. 1 serves from this process, without a primary.

@@ -17,6 +17,13 @@ export const config = {
   /** Trust the first X-Forwarded-For hop (only behind a load balancer that sets it). */
   trustProxy: env.BAYPROOF_TRUST_PROXY === "1",
   databaseUrl: env.DATABASE_URL ?? DEFAULT_DATABASE_URL,
+  /**
+   * A read replica for the feed, stats and catalogue reads (writes and sessions stay on the primary);
+   * unset, those reads go to the primary too.
+   */
+  databaseReadUrl: env.DATABASE_READ_URL || null,
+  /** The in-process cache of anonymous public pages, in MB (0 turns it off; docs/decisions/012). */
+  pageCacheMb: Number(env.BAYPROOF_PAGE_CACHE_MB ?? "64"),
   oidc: {
     id: env.OIDC_PROVIDER_ID ?? "local",
     name: env.OIDC_PROVIDER_NAME ?? "Bayproof demo ID (local)",

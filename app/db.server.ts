@@ -36,4 +36,12 @@ function unavailable(error: unknown): unknown {
     : data(UNAVAILABLE, { status: 503, headers });
 }
 
-export const db = createDb(pool, 10, { mayRetryRead: () => currentRequest.getStore()?.read === true, unavailable });
+const policy = { mayRetryRead: () => currentRequest.getStore()?.read === true, unavailable };
+export const db = createDb(pool, 10, policy);
+
+/**
+ * Reads that may lag the primary by a replica's delay: the feed, stats and catalogue. Writes, the
+ * session and anything read to decide a write use `db`. Without DATABASE_READ_URL it is `db`.
+ */
+export const readPool = config.databaseReadUrl ? createPool(config.databaseReadUrl, 10, "bayproof-web-read") : pool;
+export const readDb = readPool === pool ? db : createDb(readPool, 10, policy);

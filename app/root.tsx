@@ -11,11 +11,13 @@ import {
   useLocation,
   useRouteLoaderData,
 } from "react-router";
-import { getUser, hasRole, withSessions } from "~/auth/session.server";
-import { unitsFor } from "~/auth/units.server";
+import { getUser, hasRole, mayHoldSession, withSessions } from "~/auth/session.server";
+import { unitsFor, visitorSystem } from "~/auth/units.server";
 import { UnitsSwitch } from "~/components/units-switch";
 import { ErrorPage } from "~/components/error-page";
 import { db, RETRY_AFTER_SECONDS, servingRequest } from "~/db.server";
+import { scriptSourcesContext } from "~/http-cache/page-cache.server";
+import { pageCacheStep } from "~/http-cache/serve.server";
 import { SearchBox } from "~/components/search-box";
 import { applySecurityHeaders, crossSiteRefusal, newNonce } from "~/security.server";
 import { nonceContext, useNonce } from "~/utils/nonce";
@@ -33,9 +35,23 @@ export const middleware: Route.MiddlewareFunction[] = [
       (await servingRequest(request, () => withSessions(db, next)));
     if (response.status === 503 && !response.headers.has("Retry-After"))
       response.headers.set("Retry-After", RETRY_AFTER_SECONDS);
-    applySecurityHeaders(response.headers, nonce, import.meta.env.DEV);
+    applySecurityHeaders(
+      response.headers,
+      nonce,
+      import.meta.env.DEV,
+      undefined,
+      response.status === 304 ? null : context.get(scriptSourcesContext),
+    );
     return response;
   },
+  // Public pages for anonymous visitors: from the page cache before any loader runs (app/http-cache).
+  pageCacheStep({
+    // Off under the dev server (hot reload changes pages without a notification); import.meta.env.DEV
+    // would not do, since a build made with NODE_ENV=test (the test stack's) says DEV too.
+    enabled: !import.meta.hot,
+    isAnonymous: (request) => !mayHoldSession(request),
+    variant: visitorSystem,
+  }),
 ];
 
 export async function loader({ request }: Route.LoaderArgs) {

@@ -43,10 +43,14 @@ export const strictTransportSecurity = (appOrigin: string) => (appOrigin.startsW
 
 export const newNonce = () => randomBytes(16).toString("base64");
 
-export function contentSecurityPolicy(nonce: string, dev: boolean): string {
+/**
+ * `scriptSources`, when given, replaces the nonce: a page kept in a shared cache allows its inline
+ * scripts by their hashes (app/http-cache), since one nonce would otherwise serve many visitors.
+ */
+export function contentSecurityPolicy(nonce: string, dev: boolean, scriptSources?: string[] | null): string {
   const directives: Record<string, string[]> = {
     "default-src": ["'self'"],
-    "script-src": ["'self'", `'nonce-${nonce}'`, ...(dev ? ["'unsafe-inline'"] : [])],
+    "script-src": ["'self'", ...(scriptSources ?? [`'nonce-${nonce}'`]), ...(dev ? ["'unsafe-inline'"] : [])],
     "style-src": ["'self'", "'unsafe-inline'"],
     "img-src": ["'self'", "data:", "blob:", storageOrigin],
     "media-src": ["'self'", "blob:", storageOrigin],
@@ -63,10 +67,16 @@ export function contentSecurityPolicy(nonce: string, dev: boolean): string {
     .join("; ");
 }
 
-export function applySecurityHeaders(headers: Headers, nonce: string, dev: boolean, appOrigin = config.appOrigin) {
+export function applySecurityHeaders(
+  headers: Headers,
+  nonce: string,
+  dev: boolean,
+  appOrigin = config.appOrigin,
+  scriptSources: string[] | null = null,
+) {
   const hsts = strictTransportSecurity(appOrigin);
   if (hsts) headers.set("Strict-Transport-Security", hsts);
-  headers.set("Content-Security-Policy", contentSecurityPolicy(nonce, dev));
+  headers.set("Content-Security-Policy", contentSecurityPolicy(nonce, dev, scriptSources));
   headers.set("X-Content-Type-Options", "nosniff");
   headers.set("Referrer-Policy", "strict-origin-when-cross-origin");
   headers.set("X-Frame-Options", "DENY");

@@ -12,6 +12,7 @@ import { indexReport } from "~/search/search.server";
 import { latestSnapshot, writeSnapshot } from "~/feed/snapshot.server";
 import { defaultStore } from "~/storage/s3.server";
 import { config } from "~/config.server";
+import { notifyPagesChanged } from "~/http-cache/notify.server";
 import { createQueues, JOB_OPTIONS, QUEUES, work, WORKER_OPTIONS } from "~/jobs/queue.server";
 
 export async function startWorker(connectionString: string, db: Db, pool: pg.Pool, log: (s: string) => void) {
@@ -34,11 +35,13 @@ export async function startWorker(connectionString: string, db: Db, pool: pg.Poo
   });
   await work(boss, QUEUES.searchIndex, async ({ reportId }) => {
     await indexReport(db, reportId);
+    await notifyPagesChanged(db, "search");
   });
   // Daily at 03:15 UTC, and once now when there is none yet: the open data's bulk files.
   await boss.schedule(QUEUES.feedSnapshot, "15 3 * * *", {}, { ...JOB_OPTIONS[QUEUES.feedSnapshot], tz: "UTC" });
   await work(boss, QUEUES.feedSnapshot, async () => {
     const s = await writeSnapshot(db, pool, defaultStore, config.appOrigin);
+    await notifyPagesChanged(db, "snapshot");
     log(`wrote open-data snapshot ${s.id} (${s.reportCount} reports)`);
   });
   if (!(await latestSnapshot(db))) await boss.send(QUEUES.feedSnapshot, {}, JOB_OPTIONS[QUEUES.feedSnapshot]);

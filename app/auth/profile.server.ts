@@ -2,6 +2,7 @@
 import type { z } from "zod";
 import type { Db } from "../../db/database";
 import { unitsOf } from "~/domain";
+import { notifyPagesChanged } from "~/http-cache/notify.server";
 import type { profileSchema } from "./forms";
 
 export type Profile = Omit<z.output<typeof profileSchema>, "intent">;
@@ -27,6 +28,8 @@ export async function saveProfile(db: Db, userId: number, p: Profile): Promise<"
       .set({ handle: p.handle, pressure_unit: u.pressure, length_unit: u.length, force_unit: u.force })
       .where("id", "=", userId)
       .execute();
+    // Public pages name reporters by handle.
+    await notifyPagesChanged(db, "reporter");
     return "saved";
   } catch (error) {
     if ((error as { code?: string }).code === "23505") return "handle-taken";

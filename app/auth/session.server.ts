@@ -54,6 +54,19 @@ async function readToken(request: Request): Promise<string | null> {
   return typeof value === "string" && /^[A-Za-z0-9_-]{43}$/.test(value) ? value : null;
 }
 
+/**
+ * Whether the request carries a session cookie at all (valid or not), without reading the database:
+ * a request without one is an anonymous visitor's, whose public pages may come from a shared cache.
+ */
+export function mayHoldSession(request: Request): boolean {
+  const header = request.headers.get("cookie");
+  if (!header) return false;
+  return header.split(";").some((pair) => {
+    const eq = pair.indexOf("=");
+    return eq > 0 && pair.slice(0, eq).trim() === sessionCookie.name && pair.slice(eq + 1).trim() !== "";
+  });
+}
+
 /** The session's user, read from the database. Pages and guards use `getUser`, read once per request. */
 async function readSessionUser(db: Db, request: Request): Promise<SessionUser | null> {
   const token = await readToken(request);

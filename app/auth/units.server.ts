@@ -32,11 +32,16 @@ async function cookieSystem(request: Request): Promise<UnitSystem | null> {
   return isSystem(value) ? value : null;
 }
 
+/** A visitor's system (not signed in): their remembered choice, else their browser's language's. */
+export async function visitorSystem(request: Request): Promise<UnitSystem> {
+  return (await cookieSystem(request)) ?? systemForLocale(request.headers.get("accept-language"));
+}
+
 /** The units every figure on the page is shown in, for whoever is asking. */
 export async function unitsFor(request: Request): Promise<Units> {
   const user = await getUser(request);
   if (user) return unitsOf(systemOfLength(user.lengthUnit), user.pressureUnit);
-  return unitsOf((await cookieSystem(request)) ?? systemForLocale(request.headers.get("accept-language")));
+  return unitsOf(await visitorSystem(request));
 }
 
 /** A signed-in user's system; `pressure` picks bar or kPa for metric readers (kPa unless asked). */

@@ -3,6 +3,7 @@
 import { createHash } from "node:crypto";
 import type { z } from "zod";
 import { AppError, failureAnswer } from "~/utils/errors";
+import { matchesIfNoneMatch } from "~/utils/http";
 import { hasControlCharacters } from "~/utils/text";
 
 /** The feed's expected failures: an AppError with the code its JSON answer carries. */
@@ -61,8 +62,11 @@ export function readParams<S extends Record<string, z.ZodType>>(
 }
 
 export const CACHE = {
-  /** Lists that grow as reports are accepted. */
-  live: "public, max-age=60",
+  /**
+   * Lists that grow as reports are accepted, and the stats: a client revalidates every time (a 304 when
+   * nothing changed), so no one keeps a rate an accept has changed; a CDN keeps them as it keeps pages.
+   */
+  live: "public, max-age=0, s-maxage=30, stale-while-revalidate=30",
   /** One accepted report, a model, a job type: they change rarely. */
   record: "public, max-age=300",
   /** Schemas and documents describing the feed. */
@@ -71,15 +75,7 @@ export const CACHE = {
 
 const etagOf = (body: string) => `"${createHash("sha256").update(body).digest("base64url").slice(0, 32)}"`;
 
-/** True when If-None-Match names `etag` (weak comparison, as RFC 9110 §13.1.2 asks for GET). */
-export function matchesIfNoneMatch(header: string | null, etag: string) {
-  if (!header) return false;
-  if (header.trim() === "*") return true;
-  return header
-    .split(",")
-    .map((t) => t.trim().replace(/^W\//, ""))
-    .includes(etag);
-}
+export { matchesIfNoneMatch };
 
 /** A JSON answer with a strong ETag over its exact bytes, or a 304 when the client has them. */
 export function jsonResponse(
@@ -90,7 +86,9 @@ export function jsonResponse(
 ): Response {
   const body = JSON.stringify(value);
   const etag = etagOf(body);
-  const common = { ETag: etag, "Cache-Control": cacheControl, ...headers };
+  // The body is the same for every caller; the RateLimit headers are not, so a shared cache keeps
+  // one answer per API key (and one for anonymous callers).
+  const common = { ETag: etag, "Cache-Control": cacheControl, Vary: "Authorization", ...headers };
   if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag))
     return new Response(null, { status: 304, headers: common });
   return new Response(body, { status: 200, headers: { "Content-Type": "application/json; charset=utf-8", ...common } });

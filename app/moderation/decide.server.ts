@@ -3,6 +3,7 @@
 // a row to the append-only decisions log.
 import { sql } from "kysely";
 import type { Db } from "../../db/database";
+import { notifyPagesChanged } from "~/http-cache/notify.server";
 import { enqueue, MAIL_RETRY, QUEUES } from "~/jobs/queue.server";
 import { holdClaimToDecide } from "./claims.server";
 import { DecisionError } from "./decision-error";
@@ -173,6 +174,7 @@ export async function decide(db: Db, moderatorId: number, reportId: number, inpu
     if (status === "accepted") {
       await enqueue(trx, QUEUES.statsRefresh, { modelId: report.tool_model_id, jobTypeId: report.job_type_id });
       await enqueue(trx, QUEUES.searchIndex, { reportId });
+      await notifyPagesChanged(trx, "report");
     }
     return { outcome: status, decisionId: logged.id };
   });

@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import { groupBy } from "~/utils/group";
 import { unitsFor } from "~/auth/units.server";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { ReportList } from "~/components/report-table";
 import { Audiences } from "~/components/home/audiences";
 import { Card } from "~/components/ui";
@@ -10,9 +10,9 @@ import type { Route } from "./+types/_index";
 
 export async function loader({ request }: Route.LoaderArgs) {
   const [recent, jobs, accepted, units] = await Promise.all([
-    acceptedReports(db, { limit: 8 }),
-    listJobs(db),
-    countAccepted(db),
+    acceptedReports(readDb, { limit: 8 }),
+    listJobs(readDb),
+    countAccepted(readDb),
     unitsFor(request),
   ]);
   return { recent, jobs, accepted, units };

@@ -6,11 +6,11 @@ import { CalculatorFields } from "~/components/air/calculator-fields";
 import { AirSafetyNotes, CalculatorResults } from "~/components/air/calculator-results";
 import { useAirCalculator } from "~/components/air/use-air-calculator";
 import { ErrorPage } from "~/components/error-page";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import type { Route } from "./+types/air";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const [units, models] = await Promise.all([unitsFor(request), listModels(db)]);
+  const [units, models] = await Promise.all([unitsFor(request), listModels(readDb)]);
   const tools = calculatorTools(models);
   const params = Object.fromEntries(new URL(request.url).searchParams);
   const values = startingValues(params, { pressureUnit: units.pressure, lengthUnit: units.length });

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { toolName } from "~/domain";
 import { suggestModels } from "~/reports/reports.server";
 import type { Route } from "./+types/api.models.suggest";
@@ -10,7 +10,7 @@ const query = z.object({ q: z.string().trim().max(80).default("") });
 export async function loader({ request }: Route.LoaderArgs) {
   const parsed = query.safeParse(Object.fromEntries(new URL(request.url).searchParams));
   if (!parsed.success) return Response.json({ error: "q must be at most 80 characters" }, { status: 400 });
-  const models = parsed.data.q.length < 1 ? [] : await suggestModels(db, parsed.data.q);
+  const models = parsed.data.q.length < 1 ? [] : await suggestModels(readDb, parsed.data.q);
   return Response.json({
     suggestions: models.map((m) => ({
       slug: m.slug,

@@ -1,4 +1,4 @@
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { parseSearch } from "~/search/query";
 import { search } from "~/search/search.server";
 import type { Route } from "./+types/api.search";
@@ -7,7 +7,7 @@ import type { Route } from "./+types/api.search";
 export async function loader({ request }: Route.LoaderArgs) {
   const { q, filters } = parseSearch(new URL(request.url).searchParams);
   if (!q) return Response.json({ source: "search", hits: [] });
-  const r = await search(db, q, filters, 20, undefined, { facets: false });
+  const r = await search(readDb, q, filters, 20, undefined, { facets: false });
   // Many reports of one tool on one job read alike: suggest each destination once.
   const seen = new Set<string>();
   const place = (h: { title: string; url: string }) => h.title + h.url.split("#")[0];

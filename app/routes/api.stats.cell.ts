@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { RANGES } from "~/domain";
 import { slugField } from "~/domain/slug-field";
 import { adjustedAtReference, predictAt } from "~/stats/cells";
@@ -22,7 +22,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       },
       { status: 400 },
     );
-  const cell = await cellBySlugs(db, parsed.data.model, parsed.data.job);
+  const cell = await cellBySlugs(readDb, parsed.data.model, parsed.data.job);
   if (!cell) return Response.json({ error: "No accepted reports for this tool on this job" }, { status: 404 });
   const at = parsed.data.inlet_kpa;
   return Response.json(

@@ -1,5 +1,5 @@
 import { config } from "~/config.server";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { dataPackage } from "~/feed/documents";
 import { answer, CACHE, jsonResponse, readParams } from "~/feed/http.server";
 import { latestSnapshot } from "~/feed/snapshot.server";
@@ -9,7 +9,7 @@ import type { Route } from "./+types/api.v1.datapackage";
 export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     readParams(new URL(request.url), {});
-    const snapshot = await latestSnapshot(db);
+    const snapshot = await latestSnapshot(readDb);
     return jsonResponse(
       request,
       dataPackage(config.appOrigin, new Date().toISOString().slice(0, 10), snapshot),

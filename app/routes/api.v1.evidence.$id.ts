@@ -1,5 +1,5 @@
 import { redirect } from "react-router";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { answer, feedError, readParams } from "~/feed/http.server";
 import { idParam } from "~/feed/params";
 import { presignGet } from "~/storage/s3.server";
@@ -18,7 +18,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         `"id" ${id.error.issues[0]?.message ?? "cannot be read"}: give an evidence file number.`,
         "id",
       );
-    const file = await db
+    const file = await readDb
       .selectFrom("evidence as e")
       .innerJoin("reports as r", "r.id", "e.report_id")
       .select("e.object_key")

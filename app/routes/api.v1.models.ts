@@ -1,4 +1,4 @@
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { answer, CACHE, jsonResponse, readParams } from "~/feed/http.server";
 import { slugParam } from "~/feed/params";
 import { modelRecords, resolveSlugs } from "~/feed/queries.server";
@@ -8,7 +8,7 @@ import type { Route } from "./+types/api.v1.models";
 export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     const { category } = readParams(new URL(request.url), { category: slugParam });
-    const { categoryId } = await resolveSlugs(db, { category });
-    return jsonResponse(request, { data: await modelRecords(db, categoryId) }, CACHE.record);
+    const { categoryId } = await resolveSlugs(readDb, { category });
+    return jsonResponse(request, { data: await modelRecords(readDb, categoryId) }, CACHE.record);
   });
 }

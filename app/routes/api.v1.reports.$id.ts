@@ -1,5 +1,5 @@
 import { config } from "~/config.server";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { answer, CACHE, feedError, jsonResponse, readParams } from "~/feed/http.server";
 import { idParam } from "~/feed/params";
 import { reportById } from "~/feed/queries.server";
@@ -17,7 +17,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         `"id" ${id.error.issues[0]?.message ?? "cannot be read"}: give a report number.`,
         "id",
       );
-    const record = await reportById(db, config.appOrigin, id.data);
+    const record = await reportById(readDb, config.appOrigin, id.data);
     if (!record) throw feedError(404, "not_found", `No accepted report has the number ${id.data}.`, "id");
     return jsonResponse(request, record, CACHE.record);
   });

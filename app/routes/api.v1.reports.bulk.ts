@@ -1,5 +1,5 @@
 import { config } from "~/config.server";
-import { db, pool } from "~/db.server";
+import { readDb, readPool } from "~/db.server";
 import { bulkResponse } from "~/feed/bulk.server";
 import { callerContext } from "~/feed/context";
 import { answer, feedError, readParams } from "~/feed/http.server";
@@ -21,6 +21,6 @@ export async function loader({ request, context }: Route.LoaderArgs) {
       );
     }
     const format = url.pathname.endsWith(".csv") ? "csv" : "ndjson";
-    return bulkResponse(db, pool, request, format, config.appOrigin, new Date().toISOString().slice(0, 10));
+    return bulkResponse(readDb, readPool, request, format, config.appOrigin, new Date().toISOString().slice(0, 10));
   });
 }

@@ -1,5 +1,5 @@
 import { config } from "~/config.server";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { decodeCursor, encodeCursor, filtersDigest } from "~/feed/cursor.server";
 import { answer, CACHE, feedError, jsonResponse, readParams } from "~/feed/http.server";
 import { cursorParam, instantParam, limitParam, slugParam } from "~/feed/params";
@@ -30,16 +30,16 @@ export async function loader({ request }: Route.LoaderArgs) {
         "accepted_until",
       );
     }
-    const ids = await resolveSlugs(db, filters);
+    const ids = await resolveSlugs(readDb, filters);
     const digest = filtersDigest({
       ...filters,
       accepted_since: filters.accepted_since?.toISOString(),
       accepted_until: filters.accepted_until?.toISOString(),
     });
-    const state = cursor ? await decodeCursor(db, cursor, digest) : null;
-    const asOf = state?.asOfMicros ?? (await newHorizon(db));
+    const state = cursor ? await decodeCursor(readDb, cursor, digest) : null;
+    const asOf = state?.asOfMicros ?? (await newHorizon(readDb));
     const page = await reportPage(
-      db,
+      readDb,
       config.appOrigin,
       { ...ids, accepted_since: filters.accepted_since, accepted_until: filters.accepted_until },
       limit,
@@ -47,7 +47,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       state ? { micros: state.afterMicros, id: state.afterId } : undefined,
     );
     const nextCursor = page.next
-      ? await encodeCursor(db, {
+      ? await encodeCursor(readDb, {
           afterMicros: page.next.micros,
           afterId: page.next.id,
           asOfMicros: asOf,

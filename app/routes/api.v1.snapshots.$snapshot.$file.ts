@@ -1,5 +1,5 @@
 import { Readable } from "node:stream";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { answer, feedError, matchesIfNoneMatch, readParams } from "~/feed/http.server";
 import { findSnapshot, readSnapshotObject } from "~/feed/snapshot.server";
 import { defaultStore } from "~/storage/s3.server";
@@ -22,7 +22,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         "not_found",
         "No such file: use /api/v1/snapshots/latest/reports.ndjson.gz or reports.csv.gz.",
       );
-    const snapshot = await findSnapshot(db, which);
+    const snapshot = await findSnapshot(readDb, which);
     if (!snapshot) {
       throw feedError(
         404,

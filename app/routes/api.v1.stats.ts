@@ -1,4 +1,4 @@
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { answer, CACHE, jsonResponse, readParams } from "~/feed/http.server";
 import { slugParam } from "~/feed/params";
 import { resolveSlugs, statRecords } from "~/feed/queries.server";
@@ -8,6 +8,6 @@ import type { Route } from "./+types/api.v1.stats";
 export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     const filters = readParams(new URL(request.url), { model: slugParam, job: slugParam, category: slugParam });
-    return jsonResponse(request, { data: await statRecords(db, await resolveSlugs(db, filters)) }, CACHE.live);
+    return jsonResponse(request, { data: await statRecords(readDb, await resolveSlugs(readDb, filters)) }, CACHE.live);
   });
 }

@@ -1,6 +1,6 @@
 import { toolName } from "~/domain";
 import { data } from "react-router";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { ErrorPage } from "~/components/error-page";
 import { ChooseJob, ChooseTools, type CompareTool, Comparison } from "~/components/compare-view";
 import { CURVE_COLOURS } from "~/components/pressure-curves";
@@ -17,12 +17,12 @@ import type { Route } from "./+types/compare";
 export async function loader({ request }: Route.LoaderArgs) {
   const q = readCompareQuery(new URL(request.url).searchParams);
   if (!q.job) {
-    const jobs = await listJobs(db);
+    const jobs = await listJobs(readDb);
     return data({ view: "jobs" as const, jobs, problem: q.problem }, { status: q.problem ? 400 : 200 });
   }
-  const job = await getJobBySlug(db, q.job);
+  const job = await getJobBySlug(readDb, q.job);
   invariantResponse(job, "No such job type", 404);
-  const c = await compareOnJob(db, job.id, q.models);
+  const c = await compareOnJob(readDb, job.id, q.models);
   const label = (cell: { maker_name: string; model_code: string }) => toolName(cell.maker_name, cell.model_code);
   if (q.problem || c.chosen.length < 2) {
     const problem =

@@ -1,13 +1,17 @@
 import { DataDictionary, EndpointsSection, SnapshotSection, UsingItSection } from "~/components/open-data";
 import { config } from "~/config.server";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { latestSnapshot } from "~/feed/snapshot.server";
 import { citation, LICENCE } from "~/feed/documents";
 import type { Route } from "./+types/data";
 
 export async function loader() {
   const day = new Date().toISOString().slice(0, 10);
-  return { origin: config.appOrigin, citation: citation(config.appOrigin, day), snapshot: await latestSnapshot(db) };
+  return {
+    origin: config.appOrigin,
+    citation: citation(config.appOrigin, day),
+    snapshot: await latestSnapshot(readDb),
+  };
 }
 
 export default function Data({ loaderData }: Route.ComponentProps) {

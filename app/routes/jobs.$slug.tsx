@@ -1,4 +1,4 @@
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { unitsFor } from "~/auth/units.server";
 import { WhichToolPanel } from "~/components/which-tool-panel";
 import { JobTools } from "~/components/job-tools";
@@ -20,12 +20,12 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const slug = parseSlug(params.slug);
   const page = parsePage(request);
   const search = Object.fromEntries(new URL(request.url).searchParams);
-  const job = await getJobBySlug(db, slug);
+  const job = await getJobBySlug(readDb, slug);
   invariantResponse(job, "No such job type", 404);
   const [standings, reports, total, units] = await Promise.all([
-    jobStandings(db, job.id),
-    acceptedReports(db, { jobId: job.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
-    countAccepted(db, { jobId: job.id }),
+    jobStandings(readDb, job.id),
+    acceptedReports(readDb, { jobId: job.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
+    countAccepted(readDb, { jobId: job.id }),
     unitsFor(request),
   ]);
   // The shopper's supply: read what parses, and say what did not rather than fail the page.

@@ -1,12 +1,12 @@
 import { Link } from "react-router";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { listJobs } from "~/catalogue/queries.server";
 import { cardClass } from "~/components/ui";
 import { groupBy } from "~/utils/group";
 import type { Route } from "./+types/jobs._index";
 
 export async function loader() {
-  return { jobs: await listJobs(db) };
+  return { jobs: await listJobs(readDb) };
 }
 
 export default function Jobs({ loaderData }: Route.ComponentProps) {

@@ -1,5 +1,5 @@
 import { Link } from "react-router";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { ErrorPage } from "~/components/error-page";
 import { CellTable } from "~/components/cell-table";
 import { IntervalsExplained } from "~/components/intervals";
@@ -32,12 +32,12 @@ const PER_PAGE = 20;
 export async function loader({ params, request }: Route.LoaderArgs) {
   const slug = parseSlug(params.slug);
   const page = parsePage(request);
-  const model = await getModelBySlug(db, slug);
+  const model = await getModelBySlug(readDb, slug);
   invariantResponse(model, "No such tool model", 404);
   const [jobs, reports, total, units] = await Promise.all([
-    cellsForModel(db, model.id),
-    acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
-    countAccepted(db, { modelId: model.id }),
+    cellsForModel(readDb, model.id),
+    acceptedReports(readDb, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
+    countAccepted(readDb, { modelId: model.id }),
     unitsFor(request),
   ]);
   const exposure = await modelExposure(db, model.id, new URL(request.url));

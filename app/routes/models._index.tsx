@@ -7,12 +7,12 @@ import { COLUMN_SORT, useModelColumns } from "~/components/catalogue/model-colum
 import { ModelFilterForm } from "~/components/catalogue/model-filter-form";
 import { ModelsDataTable } from "~/components/catalogue/models-data-table";
 import { ErrorPage } from "~/components/error-page";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import type { Route } from "./+types/models._index";
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { filters, ignored } = parseModelFilters(new URL(request.url).searchParams);
-  const [rows, options] = await Promise.all([modelsTable(db, filters), filterOptions(db)]);
+  const [rows, options] = await Promise.all([modelsTable(readDb, filters), filterOptions(readDb)]);
   return { rows, filters, ignored, options };
 }
 

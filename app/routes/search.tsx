@@ -3,7 +3,7 @@ import { ErrorPage } from "~/components/error-page";
 import { SearchFacets } from "~/components/search/search-facets";
 import { SearchResults } from "~/components/search/search-results";
 import { buttonClass } from "~/components/ui";
-import { db } from "~/db.server";
+import { readDb } from "~/db.server";
 import { parseSearch } from "~/search/query";
 import { parsePage, searchResults } from "~/search/results.server";
 import type { Route } from "./+types/search";
@@ -13,7 +13,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const parsed = parseSearch(params);
   const page = parsePage(params.get("page"));
   const result =
-    parsed.q || Object.keys(parsed.filters).length ? await searchResults(db, parsed.q, parsed.filters, page) : null;
+    parsed.q || Object.keys(parsed.filters).length ? await searchResults(readDb, parsed.q, parsed.filters, page) : null;
   return { ...parsed, result };
 }
 

@@ -7,6 +7,7 @@ import { type RawBuilder, sql } from "kysely";
 import type { Db, Trx } from "../../db/database";
 import { operatingInletPressure } from "~/air/supply";
 import type { CouplerProfile } from "~/domain";
+import { notifyPagesChanged } from "~/http-cache/notify.server";
 import { type CellFigures, type CellTally, cellFiguresOfTally } from "./cells";
 import { type FitReport, type JobFit, jobPressureFit, modelAtJobSlope } from "./pressure";
 import { type Group, shrinkProportions } from "./proportions";
@@ -374,6 +375,7 @@ export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
         .set((eb) => ({ set_aside: eb("set_aside", "+", delta) }))
         .where("job_type_id", "=", jobTypeId)
         .execute();
+    await notifyPagesChanged(trx, "stats");
   });
 }
 
@@ -397,5 +399,6 @@ export async function refreshAll(db: Db) {
   ]);
   const results = jobs.map((j) => computeJob(j.id, tallies.get(j.id) ?? [], now));
   await db.transaction().execute((trx) => storeJobs(trx, results, {}));
+  await notifyPagesChanged(db, "stats");
   return results.reduce((acc, r) => acc + r.rows.length, 0);
 }

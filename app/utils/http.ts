@@ -21,3 +21,13 @@ export function refuse(message: string, status = 400): never {
  */
 export const postOnly = (hint: string) => () =>
   Response.json({ error: hint }, { status: 405, headers: { Allow: "POST" } });
+
+/** True when If-None-Match names `etag` (weak comparison, as RFC 9110 §13.1.2 asks for GET). */
+export function matchesIfNoneMatch(header: string | null, etag: string) {
+  if (!header) return false;
+  if (header.trim() === "*") return true;
+  return header
+    .split(",")
+    .map((t) => t.trim().replace(/^W\//, ""))
+    .includes(etag);
+}

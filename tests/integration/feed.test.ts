@@ -210,7 +210,10 @@ describe("HTTP", () => {
       const first = await get(path);
       const etag = first.headers.get("etag");
       expect(etag, path).toMatch(/^"[A-Za-z0-9_-]{32}"$/);
-      expect(first.headers.get("cache-control"), path).toMatch(/^public, max-age=\d+$/);
+      expect(first.headers.get("cache-control"), path).toMatch(
+        /^public, max-age=\d+(, s-maxage=\d+, stale-while-revalidate=\d+)?$/,
+      );
+      expect(first.headers.get("vary"), path).toMatch(/Authorization/);
       const again = await get(path, { "if-none-match": etag! });
       expect(again.status, path).toBe(304);
       expect(await again.text()).toBe("");

@@ -125,7 +125,12 @@ describe("cookies", () => {
 
 describe("security headers", () => {
   it("sends an enforced CSP and the usual headers on pages", async () => {
-    const res = await new Browserish().get("/");
+    // A page only this visitor sees carries a nonce; a shared (cached) one hashes its inline scripts
+    // instead (docs/decisions/012, tests/integration/page-cache.test.ts).
+    const shared = (await new Browserish().get("/")).headers.get("content-security-policy")!;
+    expect(shared).toMatch(/script-src 'self' 'sha256-[A-Za-z0-9+/=]+'/);
+    expect(shared).not.toMatch(/'nonce-/);
+    const res = await new Browserish().get("/sign-in");
     const csp = res.headers.get("content-security-policy")!;
     expect(csp).toMatch(/default-src 'self'/);
     expect(csp).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+'/);

@@ -56,20 +56,23 @@ export default async function setup(project: TestProject) {
       closeSync(logFd);
       process.stderr.write(readFileSync(serverLog));
     });
+    // What the app server is started with; a test that starts a second one (page-cache) takes the same.
+    const appEnv: Record<string, string> = {
+      ...fakes.env,
+      DATABASE_URL: database.url,
+      // The read instance is the same database here; the code path is the one a replica takes.
+      DATABASE_READ_URL: database.url,
+      HOST: "127.0.0.1",
+      PORT: String(port),
+      APP_ORIGIN: baseUrl,
+      NODE_ENV: "production",
+      // Tests that count requests per client (the feed's rate limits) name their own client.
+      BAYPROOF_TRUST_PROXY: "1",
+      AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
+    };
     const server = spawn(process.execPath, ["server.js"], {
       cwd: root,
-      env: {
-        ...process.env,
-        ...fakes.env,
-        DATABASE_URL: database.url,
-        HOST: "127.0.0.1",
-        PORT: String(port),
-        APP_ORIGIN: baseUrl,
-        NODE_ENV: "production",
-        // Tests that count requests per client (the feed's rate limits) name their own client.
-        BAYPROOF_TRUST_PROXY: "1",
-        AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
-      },
+      env: { ...process.env, ...appEnv },
       stdio: ["ignore", "ignore", logFd],
     });
     cleanups.push(() => stopChild(server));
@@ -94,6 +97,7 @@ export default async function setup(project: TestProject) {
     project.provide("s3", { endpoint: fakes.env.S3_ENDPOINT, bucket: fakes.env.S3_BUCKET });
     project.provide("searchUrl", fakes.env.SEARCH_URL);
     project.provide("serverLog", serverLog);
+    project.provide("appEnv", appEnv);
   } catch (error) {
     await teardown();
     throw error;

@@ -8,6 +8,8 @@ declare module "vitest" {
     s3: { endpoint: string; bucket: string };
     searchUrl: string;
     serverLog: string;
+    /** The environment the app server was started with (fakes, database, origin). */
+    appEnv: Record<string, string>;
   }
 }
 export {};

@@ -1,0 +1,216 @@
+// Anonymous renders of public pages, kept in this process: a stand-in for a CDN in front of the app,
+// and the headers that let a real one do the same (docs/decisions/012-page-caching.md).
+import { createHash } from "node:crypto";
+import { gzipSync } from "node:zlib";
+import { createContext, type MiddlewareFunction } from "react-router";
+import { matchesIfNoneMatch } from "~/utils/http";
+import { ByteLru } from "./byte-lru";
+import type { ListenerEvents } from "./listener.server";
+import { isPublicPage, PRIVATE_CACHE_CONTROL, PUBLIC_CACHE_CONTROL, PUBLIC_VARY } from "./policy";
+
+interface CachedPage {
+  body: Uint8Array;
+  /** The same bytes gzipped once when stored, so a hit costs no compression (its own ETag: RFC 9110 §8.8.3). */
+  gzipped: Uint8Array;
+  headers: [string, string][];
+  etag: string;
+  /** CSP sources for the page's inline scripts (their hashes); null for data requests. */
+  scriptSources: string[] | null;
+}
+
+/**
+ * The CSP script sources a cacheable page was sent with. A stored page is sent to many visitors, so
+ * its inline scripts are allowed by their hashes, not by a per-request nonce that would be shared.
+ * The root middleware reads it when it writes the CSP.
+ */
+export const scriptSourcesContext = createContext<string[] | null>(null);
+
+export interface PageCacheOptions {
+  /** No session cookie: the render is the same as any other anonymous visitor's with the same units. */
+  isAnonymous(request: Request): boolean;
+  /** What else changes an anonymous render (the unit system). */
+  variant(request: Request): Promise<string> | string;
+}
+
+const etagOf = (body: Uint8Array) => `"${createHash("sha256").update(body).digest("base64url").slice(0, 32)}"`;
+
+const INLINE_SCRIPT = /<script\b([^>]*)>([\s\S]*?)<\/script>/gi;
+/** The 'sha256-…' source of every inline script, as CSP Level 2 hashes them (the text between the tags). */
+export function inlineScriptSources(html: string): string[] {
+  const sources = new Set<string>();
+  for (const [, attributes, text] of html.matchAll(INLINE_SCRIPT)) {
+    if (/\bsrc\s*=/i.test(attributes!)) continue;
+    sources.add(`'sha256-${createHash("sha256").update(text!).digest("base64")}'`);
+  }
+  return [...sources];
+}
+
+export class PageCache {
+  private readonly pages: ByteLru<CachedPage>;
+  private readonly filling = new Map<string, Promise<CachedPage | null>>();
+  /** Bumped by every invalidation: a render begun before it is not stored. */
+  private generation = 0;
+  private listening = false;
+  /** Invalidations still waiting for the read replica to catch up; no fills meanwhile. */
+  private settling = 0;
+  hits = 0;
+  misses = 0;
+
+  constructor(maxBytes: number) {
+    this.pages = new ByteLru(
+      maxBytes,
+      (page, key) => page.body.byteLength + page.gzipped.byteLength + key.length * 2 + 512,
+    );
+  }
+
+  /** Usable only while changes are heard and the replica has caught up with the last one. */
+  get usable() {
+    return this.listening && this.settling === 0;
+  }
+
+  get bytes() {
+    return this.pages.bytes;
+  }
+
+  clear() {
+    this.generation++;
+    this.pages.clear();
+    this.filling.clear();
+  }
+
+  /**
+   * The listener's events. `caughtUp` resolves once the read replica has applied what the primary
+   * had committed when the notification arrived; fills wait for it, and the cache is emptied again
+   * afterwards, so a render from a lagging replica is never kept.
+   */
+  events(caughtUp: () => Promise<void>): ListenerEvents {
+    return {
+      changed: () => {
+        this.clear();
+        this.settling++;
+        caughtUp()
+          .catch((error: unknown) => console.warn(`[page-cache] replica position unknown: ${String(error)}`))
+          .finally(() => {
+            this.settling--;
+            this.clear();
+          });
+      },
+      listening: (on) => {
+        this.listening = on;
+        this.clear();
+      },
+    };
+  }
+
+  lookup(key: string) {
+    return this.usable ? this.pages.get(key) : undefined;
+  }
+
+  /** Renders once per key however many ask at the same moment; stores the page unless something changed meanwhile. */
+  async fill(key: string, render: () => Promise<CachedPage | null>): Promise<CachedPage | null> {
+    const pending = this.filling.get(key);
+    if (pending) return pending;
+    const generation = this.generation;
+    const work = render().finally(() => {
+      if (this.filling.get(key) === work) this.filling.delete(key);
+    });
+    this.filling.set(key, work);
+    const page = await work;
+    if (page && this.usable && generation === this.generation) this.pages.set(key, page);
+    return page;
+  }
+}
+
+const gzipEtag = (etag: string) => `${etag.slice(0, -1)}-gz"`;
+/** Accept-Encoding names gzip without q=0 (RFC 9110 §12.5.3). */
+function acceptsGzip(request: Request): boolean {
+  return (request.headers.get("accept-encoding") ?? "").split(",").some((part) => {
+    const [coding, ...params] = part.split(";").map((x) => x.trim().toLowerCase());
+    const q = params.find((p) => p.startsWith("q="));
+    return coding === "gzip" && (!q || Number(q.slice(2)) > 0);
+  });
+}
+
+function answer(request: Request, page: CachedPage): Response {
+  const headers = new Headers(page.headers);
+  const gzip = acceptsGzip(request);
+  const etag = gzip ? gzipEtag(page.etag) : page.etag;
+  headers.set("ETag", etag);
+  if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag)) {
+    const notModified = new Headers();
+    for (const name of ["ETag", "Cache-Control", "Vary"]) notModified.set(name, headers.get(name)!);
+    return new Response(null, { status: 304, headers: notModified });
+  }
+  if (gzip) headers.set("Content-Encoding", "gzip");
+  const body = gzip ? page.gzipped : page.body;
+  headers.set("Content-Length", String(body.byteLength));
+  return new Response(request.method.toUpperCase() === "HEAD" ? null : body.slice(), { status: 200, headers });
+}
+
+const refusesStorage = (response: Response) =>
+  response.status !== 200 ||
+  response.headers.has("Set-Cookie") ||
+  /no-store|private/i.test(response.headers.get("Cache-Control") ?? "") ||
+  !response.body;
+
+/** Buffers a fresh render into a page to keep, or null when it may not be kept. */
+async function toPage(response: Response): Promise<CachedPage | null> {
+  if (refusesStorage(response)) return null;
+  const body = new Uint8Array(await response.arrayBuffer());
+  const headers = new Headers(response.headers);
+  headers.set("Cache-Control", PUBLIC_CACHE_CONTROL);
+  headers.set("Vary", `${PUBLIC_VARY}, Accept-Encoding`);
+  const etag = etagOf(body);
+  headers.set("ETag", etag);
+  const html = (headers.get("Content-Type") ?? "").startsWith("text/html");
+  const scriptSources = html ? inlineScriptSources(new TextDecoder().decode(body)) : null;
+  return { body, gzipped: gzipSync(body), headers: [...headers], etag, scriptSources };
+}
+
+/**
+ * The root middleware's cache step. Public pages for anonymous visitors: served from the cache
+ * (304 on a matching If-None-Match) before any loader runs, else rendered, stored and served the
+ * same way. Everything else: `private, no-store` unless the route chose its own Cache-Control.
+ */
+export function pageCacheMiddleware(cache: PageCache, options: PageCacheOptions): MiddlewareFunction<Response> {
+  return async ({ request, context }, next) => {
+    const method = request.method.toUpperCase();
+    const url = new URL(request.url);
+    const shared =
+      (method === "GET" || method === "HEAD") && isPublicPage(url.pathname) && options.isAnonymous(request);
+    if (!shared) {
+      const response = await next();
+      if (!response.headers.has("Cache-Control")) response.headers.set("Cache-Control", PRIVATE_CACHE_CONTROL);
+      return response;
+    }
+    const key = `${await options.variant(request)} ${url.pathname}${url.search}`;
+    const hit = cache.lookup(key);
+    if (hit) {
+      cache.hits++;
+      context.set(scriptSourcesContext, hit.scriptSources);
+      return answer(request, hit);
+    }
+    cache.misses++;
+    let own: Response | null = null;
+    const page =
+      method === "GET"
+        ? await cache.fill(key, async () => {
+            own = await next();
+            return toPage(own);
+          })
+        : null;
+    if (page) {
+      context.set(scriptSourcesContext, page.scriptSources);
+      return answer(request, page);
+    }
+    // Not kept: a HEAD, an error, a redirect — or another request's render that turned out not to be keepable.
+    const response: Response = own ?? (await next());
+    if (response.status === 200 && !response.headers.has("Cache-Control") && !response.headers.has("Set-Cookie")) {
+      response.headers.set("Cache-Control", PUBLIC_CACHE_CONTROL);
+      response.headers.set("Vary", PUBLIC_VARY);
+    } else if (!response.headers.has("Cache-Control")) {
+      response.headers.set("Cache-Control", PRIVATE_CACHE_CONTROL);
+    }
+    return response;
+  };
+}
