@@ -60,6 +60,7 @@ export default function BenchRunEditor({ loaderData, actionData }: Route.Compone
         </p>
       ) : (
         <BenchRunForm
+          runId={loaderData.runId}
           rig={rig}
           protocol={protocol}
           models={loaderData.models}

@@ -54,7 +54,7 @@ export default function BenchReview({ loaderData, actionData }: Route.ComponentP
     <div className="space-y-6">
       <header>
         <p className="text-sm">
-          <Link to="/review" className="text-bay-700 underline">
+          <Link to="/review" className="inline-flex min-h-11 items-center text-bay-700 underline">
             Review queue
           </Link>
         </p>

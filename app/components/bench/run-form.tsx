@@ -48,7 +48,9 @@ export function BenchRunForm({
   values,
   errors,
   formError,
+  runId,
 }: {
+  runId: number | null;
   rig: NonNullable<BenchEditorData["rig"]>;
   protocol: NonNullable<BenchEditorData["protocol"]>;
   models: BenchEditorData["models"];
@@ -59,6 +61,10 @@ export function BenchRunForm({
 }) {
   const err = (name: string) => errors[name]?.[0];
   const { label: unit } = benchUnit(protocol.quantity, units);
+  const ref = `${protocol.slug}@${protocol.version}`;
+  // Spelled out so the server and the browser write the same address (the query keeps a 400 on this form).
+  const action =
+    runId != null ? `/bench/runs/${runId}/edit` : `/bench/runs/new?rig=${rig.id}&protocol=${encodeURIComponent(ref)}`;
   const text = (name: string, label: string, hint?: string, type = "text") => (
     <Field id={name} label={label} hint={hint} error={err(name)}>
       {(control) => (
@@ -67,9 +73,9 @@ export function BenchRunForm({
     </Field>
   );
   return (
-    <Form method="post" className="space-y-6" noValidate>
+    <Form method="post" action={action} className="space-y-6" noValidate>
       <input type="hidden" name="rig" value={rig.id} />
-      <input type="hidden" name="protocol" value={`${protocol.slug}@${protocol.version}`} />
+      <input type="hidden" name="protocol" value={ref} />
       {formError && (
         <p role="alert" className="rounded border border-red-700 bg-red-50 p-3 text-red-900">
           {formError}
