@@ -23,6 +23,8 @@ import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/quer
 import { cellsForModel } from "~/stats/cells.server";
 import { ModelExposurePanel } from "~/components/exposure/model-exposure-panel";
 import { modelExposure } from "~/exposure/pages.server";
+import { runsForModel } from "~/bench/runs.server";
+import { ModelBenchPanel } from "~/components/bench/model-panel";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/models.$slug";
@@ -34,18 +36,19 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const page = parsePage(request);
   const model = await getModelBySlug(readDb, slug);
   invariantResponse(model, "No such tool model", 404);
-  const [jobs, reports, total, units] = await Promise.all([
+  const [jobs, reports, total, units, bench] = await Promise.all([
     cellsForModel(readDb, model.id),
     acceptedReports(readDb, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(readDb, { modelId: model.id }),
     unitsFor(request),
+    runsForModel(readDb, model.id),
   ]);
   const exposure = await modelExposure(db, model.id, new URL(request.url));
-  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), exposure };
+  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), exposure, bench };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
-  const { model, jobs, reports, units, page, pages } = loaderData;
+  const { model, jobs, reports, units, bench, page, pages } = loaderData;
   const measured = new Set(model.measured_specs);
   const spec = (label: string, field: string, value: string | null) =>
     value == null ? null : { label, value, source: measured.has(field) ? "measured" : "maker sheet" };
@@ -126,6 +129,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
       </p>
 
       <ModelExposurePanel exposure={loaderData.exposure} modelSlug={model.slug} />
+      <ModelBenchPanel runs={bench} units={units} />
       <SafetyCautions action={model.category_action} />
 
       <section aria-labelledby="reports-heading">
