@@ -1,0 +1,31 @@
+// The public face of the exposure module (issue 21): a day's hand-arm vibration and noise from declared
+// values and trigger time. Plain functions; no framework or database imports. Methods and sources are
+// in each function's comment and in tests/unit/exposure.test.ts.
+export {
+  REFERENCE_DAY_HOURS,
+  VIBRATION_ACTION_VALUE,
+  VIBRATION_LIMIT_VALUE,
+  shareOfActionValue,
+  vibrationA8,
+  type VibrationDay,
+  type VibrationExposure,
+} from "./vibration";
+export {
+  NIOSH_NOISE,
+  OSHA_NOISE,
+  nioshPermissibleHours,
+  noiseDose,
+  oshaPermissibleHours,
+  type NoiseDay,
+  type NoiseExposure,
+} from "./noise";
+export {
+  DECLARED_SOURCE,
+  IN_USE_FACTOR,
+  IN_USE_SOURCE,
+  VIBRATION_BASES,
+  inUseValue,
+  type InUseValue,
+  type VibrationBasis,
+} from "./in-use";
+export { dayExposure, type CarriedInterval, type DayExposure, type DayItem } from "./day";
