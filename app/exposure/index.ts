@@ -29,3 +29,13 @@ export {
   type VibrationBasis,
 } from "./in-use";
 export { dayExposure, type CarriedInterval, type DayExposure, type DayItem } from "./day";
+export {
+  bestPickChances,
+  mulberry32,
+  sampleDraw,
+  type BestPick,
+  type BestPickCandidate,
+  type Criterion,
+  type Draw,
+} from "./best-pick";
+export { dominates, nonDominated, type TradeOffCriterion, type TradeOffItem } from "./trade-offs";
