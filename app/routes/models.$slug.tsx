@@ -21,6 +21,8 @@ import {
 } from "~/domain";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
+import { EvidenceGallery } from "~/components/evidence-gallery";
+import { publishedEvidenceForModel } from "~/reports/public.server";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/models.$slug";
@@ -32,13 +34,14 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const page = parsePage(request);
   const model = await getModelBySlug(db, slug);
   invariantResponse(model, "No such tool model", 404);
-  const [jobs, reports, total, units] = await Promise.all([
+  const [jobs, reports, total, units, published] = await Promise.all([
     cellsForModel(db, model.id),
     acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { modelId: model.id }),
     unitsFor(request),
+    publishedEvidenceForModel(db, model.id),
   ]);
-  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
+  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), published };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
@@ -123,6 +126,8 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
       </p>
 
       <SafetyCautions action={model.category_action} />
+
+      <EvidenceGallery files={loaderData.published} />
 
       <section aria-labelledby="reports-heading">
         <h2 id="reports-heading" className="mb-2 text-lg font-semibold">
