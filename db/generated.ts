@@ -268,6 +268,7 @@ export interface ToolCategories {
 
 export interface ToolModels {
   air_inlet: string;
+  bit_retainer: string | null;
   blows_per_minute: number | null;
   bore_mm: number | null;
   category_id: number;
@@ -287,9 +288,21 @@ export interface ToolModels {
   running_air_lps: number | null;
   running_air_source: string | null;
   slug: string;
+  sound_power_db: number | null;
+  sound_power_k_db: number | null;
+  sound_power_source: string | null;
+  sound_pressure_db: number | null;
+  sound_pressure_k_db: number | null;
+  sound_pressure_source: string | null;
   street_price_cents: number | null;
   stroke_mm: number | null;
+  vibration_ahv_ms2: number | null;
+  vibration_iso28927_part: number | null;
+  vibration_k_ms2: number | null;
+  vibration_source: string | null;
   weight_kg: number;
+  weight_with_whip_kg: number | null;
+  weight_with_whip_source: string | null;
 }
 
 export interface UserRoles {

@@ -15,6 +15,8 @@ export type VehicleClass =
 export type CorrosionLevel = "none" | "light" | "moderate" | "heavy" | "severe";
 export type InletSource = "measured_at_inlet" | "read_at_regulator" | "estimated";
 export type CouplerProfile = "industrial_m" | "automotive_t" | "high_flow_v" | "iso_6150_b" | "other";
+export type SpecSource = "maker_sheet" | "measured" | "estimated";
+export type BitRetainer = "beehive_spring" | "quick_change" | "friction_ring" | "detent_pin" | "none";
 export type Outcome = "freed" | "freed_with_help" | "not_freed";
 export type EvidenceStatus = "pending" | "uploaded" | "verified" | "failed_verification";
 export type DecisionAction = "accept" | "return" | "reject" | "claim" | "verify_evidence" | "fail_evidence";
@@ -95,6 +97,26 @@ export interface ToolModelsTable {
   /** Set only when the source is "estimated": running = rated × factor. */
   running_air_factor: number | null;
   created_at: Timestamp;
+  /**
+   * Declared exposure figures (migration 2026-12-02T19.00), each with its source; null: not known yet.
+   * Vibration total value a_hv and K in m/s², with the ISO 28927 part (required of a maker's sheet).
+   */
+  vibration_ahv_ms2: number | null;
+  vibration_k_ms2: number | null;
+  vibration_iso28927_part: number | null;
+  vibration_source: SpecSource | null;
+  /** A-weighted emission sound pressure level L_pA and its K, dB (ISO 15744). */
+  sound_pressure_db: number | null;
+  sound_pressure_k_db: number | null;
+  sound_pressure_source: SpecSource | null;
+  /** A-weighted sound power level L_WA and its K, dB (ISO 15744). */
+  sound_power_db: number | null;
+  sound_power_k_db: number | null;
+  sound_power_source: SpecSource | null;
+  bit_retainer: BitRetainer | null;
+  /** Never below weight_kg (CHECK tool_models_weight_with_whip_sourced). */
+  weight_with_whip_kg: number | null;
+  weight_with_whip_source: SpecSource | null;
 }
 
 export interface JobTypesTable {

@@ -1,5 +1,5 @@
 // The demo catalogue: invented makers and tool models. None of these is a real brand or product.
-import type { Fitting } from "../db/schema";
+import type { BitRetainer, Fitting, SpecSource } from "../db/schema";
 
 export const makers = [
   { slug: "brackwater", name: "Brackwater Pneumatics", country: "Invented" },
@@ -635,4 +635,60 @@ export const runningAir = models.map((m, i) => {
         ? Math.round(trueLps * (0.95 + 0.1 * ((i * 0.61) % 1)) * 100) / 100
         : Math.round(m.ratedLps * factor * 100) / 100;
   return { trueLps, catalogue: { lps, source, factor: source === "estimated" ? factor : null } };
+});
+
+const round1 = (x: number) => Math.round(x * 10) / 10;
+const between = (lo: number, hi: number, t: number) => lo + (hi - lo) * Math.min(1, Math.max(0, t));
+
+/**
+ * Demo only: each model's declared exposure figures, invented but plausible for its class ("common
+ * practice" ranges from memory, not any real tool's sheet): air hammers a_hv 8–20 m/s² (K 1.5–4) under
+ * ISO 28927-10 and L_pA 95–105 dB; impact wrenches a_hv 3–10 m/s² (K 1–2.5) under ISO 28927-2 and L_pA
+ * 90–100 dB, more with the drive size; ratchets a_hv 2.5–5 m/s² and L_pA 82–90 dB. L_WA is L_pA plus
+ * 10–12 dB, K 3 dB. The hose whip adds 0.2–0.4 kg. Most come from the maker's sheet; a few were measured
+ * by a shop or estimated (an estimate names no test part and no K). Deterministic: no random draws.
+ */
+export const declaredExposure = models.map((m, i) => {
+  const spread = (i * 0.618) % 1;
+  const drive = { "drive-1/4": 0, "drive-3/8": 0.15, "drive-1/2": 0.4, "drive-3/4": 0.7, "drive-1": 1 } as const;
+  let ahv: number, k: number, part: number, lpa: number, retainer: BitRetainer;
+  if (m.category === "air-hammer") {
+    const size = ((m.strokeMm ?? 50) - 40) / 60 + (m.fitting === "shank-0.498" ? 0.3 : 0);
+    ahv = round1(between(8, 20, 0.5 * size + 0.5 * spread));
+    k = round1(between(1.5, 4, ahv / 20));
+    part = 10;
+    lpa = Math.round(between(95, 105, 0.5 * size + 0.5 * ((i * 0.37) % 1)));
+    retainer = i % 3 === 0 ? "quick_change" : i % 7 === 5 ? "none" : "beehive_spring";
+  } else if (m.category === "impact-wrench") {
+    const size = m.fitting in drive ? drive[m.fitting as keyof typeof drive] : 0.5;
+    ahv = round1(between(3, 10, 0.7 * size + 0.3 * spread));
+    k = round1(between(1, 2.5, ahv / 10));
+    part = 2;
+    lpa = Math.round(between(90, 100, 0.6 * size + 0.4 * ((i * 0.37) % 1)));
+    retainer = m.fitting === "drive-1" || m.fitting === "drive-3/4" ? "detent_pin" : "friction_ring";
+  } else {
+    ahv = round1(between(2.5, 5, spread));
+    k = 1.5;
+    part = 2;
+    lpa = Math.round(between(82, 90, (i * 0.37) % 1));
+    retainer = "detent_pin";
+  }
+  const vibrationSource: SpecSource = i % 9 === 4 ? "estimated" : i % 7 === 3 ? "measured" : "maker_sheet";
+  const noiseSource: SpecSource = i % 8 === 5 ? "measured" : "maker_sheet";
+  return {
+    vibration_ahv_ms2: ahv,
+    vibration_k_ms2: vibrationSource === "estimated" ? null : k,
+    vibration_iso28927_part: vibrationSource === "estimated" ? null : part,
+    vibration_source: vibrationSource,
+    sound_pressure_db: lpa,
+    sound_pressure_k_db: 3,
+    sound_pressure_source: noiseSource,
+    // A shop's meter gives L_pA at the ear; sound power needs a test room, so only the sheet gives it.
+    sound_power_db: noiseSource === "maker_sheet" ? lpa + 10 + (i % 3) : null,
+    sound_power_k_db: noiseSource === "maker_sheet" ? 3 : null,
+    sound_power_source: noiseSource === "maker_sheet" ? ("maker_sheet" as const) : null,
+    bit_retainer: retainer,
+    weight_with_whip_kg: Math.round((m.weightKg + between(0.2, 0.4, (i * 0.29) % 1)) * 100) / 100,
+    weight_with_whip_source: i % 3 === 1 ? ("measured" as const) : ("maker_sheet" as const),
+  };
 });

@@ -2,7 +2,7 @@
 // Loading into a database that already has a catalogue does nothing.
 import { type Kysely, sql } from "kysely";
 import type { Database, NewDecision, NewReport } from "../db/schema";
-import { categories, jobTypes, makers, models, runningAir } from "./catalogue";
+import { categories, declaredExposure, jobTypes, makers, models, runningAir } from "./catalogue";
 import { DEMO_OIDC_PROVIDER, demoSubject, people, shops } from "./people";
 import { generateReports, makeRng } from "./reports";
 
@@ -96,6 +96,7 @@ export async function loadDemoScenario(db: Kysely<Database>): Promise<{ loaded: 
           running_air_lps: runningAir[i]!.catalogue.lps,
           running_air_source: runningAir[i]!.catalogue.source,
           running_air_factor: runningAir[i]!.catalogue.factor,
+          ...declaredExposure[i]!,
         })),
       )
       .returning(["id", "category_id"])

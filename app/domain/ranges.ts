@@ -42,6 +42,16 @@ export const RANGES = {
   timeToResult: { unit: "s", min: 1, max: 28800, stated: {} },
   attempts: { min: 1, max: 50, stated: {} },
   triggerControl: { min: 1, max: 5, stated: {} },
+  /** Catalogue (tool_models, migration 2026-12-02T19.00): declared vibration total value a_hv and its K. */
+  vibrationTotal: { unit: "m/s²", min: 0, aboveMin: true, max: 100, stated: { "m/s²": ["0", "100"] } },
+  vibrationK: { unit: "m/s²", min: 0, max: 50, stated: { "m/s²": ["0", "50"] } },
+  iso28927Part: { min: 1, max: 13, stated: {} },
+  /** Declared A-weighted emission sound pressure level L_pA, sound power level L_WA, and their K. */
+  soundPressure: { unit: "dB", min: 40, max: 140, stated: { dB: ["40", "140"] } },
+  soundPower: { unit: "dB", min: 50, max: 160, stated: { dB: ["50", "160"] } },
+  soundK: { unit: "dB", min: 0, max: 10, stated: { dB: ["0", "10"] } },
+  /** A tool's weight with its hose whip fitted (never below its own weight). 50 kg ≈ 110 lb. */
+  weightWithWhip: { unit: "kg", min: 0, aboveMin: true, max: 50, stated: { kg: ["0", "50"], lb: ["0", "110"] } },
 } as const satisfies Record<string, Range>;
 
 /** Whether an SI value lies within the range. */

@@ -108,6 +108,49 @@ export const HOSE_BORES = [
   { in: 0.5, inText: "1/2", mmText: "12.7" },
 ] as const;
 
+/** Where a catalogue figure came from (tool_models' *_source columns; running_air_source the same). */
+export const SPEC_SOURCES = ["maker_sheet", "measured", "estimated"] as const;
+export type SpecSource = (typeof SPEC_SOURCES)[number];
+export const SPEC_SOURCE_LABELS: Labels<SpecSource> = {
+  maker_sheet: "maker's sheet",
+  measured: "measured",
+  estimated: "estimate",
+};
+
+/** What holds the bit in a hammer (or the socket on a drive) as the tool comes. */
+export const BIT_RETAINERS = ["beehive_spring", "quick_change", "friction_ring", "detent_pin", "none"] as const;
+export type BitRetainer = (typeof BIT_RETAINERS)[number];
+export const BIT_RETAINER_LABELS: Labels<BitRetainer> = {
+  beehive_spring: "Beehive spring retainer",
+  quick_change: "Quick-change retainer",
+  friction_ring: "Friction ring",
+  detent_pin: "Detent pin",
+  none: "No retainer",
+};
+
+/**
+ * The parts of ISO 28927 (vibration test codes for hand-held portable power tools) a declared a_hv
+ * names; titles abridged (from memory; part 10 as in REFERENCES.md). Noise is declared under ISO 15744.
+ */
+export const ISO_28927_PARTS: Readonly<Record<number, string>> = {
+  1: "angle and vertical grinders",
+  2: "wrenches, nutrunners and screwdrivers",
+  3: "polishers and sanders",
+  4: "straight grinders",
+  5: "drills and impact drills",
+  6: "rammers",
+  7: "nibblers and shears",
+  8: "reciprocating saws and files",
+  9: "scaling hammers and needle scalers",
+  10: "percussive drills, hammers and breakers",
+  11: "stone hammers",
+  12: "die grinders",
+  13: "fastener driving tools",
+};
+/** "ISO 28927-10 (percussive drills, hammers and breakers)". */
+export const iso28927Label = (part: number) =>
+  `ISO 28927-${part}${ISO_28927_PARTS[part] ? ` (${ISO_28927_PARTS[part]})` : ""}`;
+
 /** Evidence files a report carries. */
 export const EVIDENCE_KINDS = ["video", "photo"] as const;
 export type EvidenceKind = (typeof EVIDENCE_KINDS)[number];

@@ -58,6 +58,54 @@ describe("running air figures in the catalogue", () => {
   });
 });
 
+describe("declared exposure figures in the catalogue", () => {
+  it("are there for every demo model, each with its source", async () => {
+    const rows = await db
+      .selectFrom("tool_models")
+      .select(["vibration_ahv_ms2", "vibration_source", "sound_pressure_db", "sound_pressure_source", "bit_retainer"])
+      .execute();
+    for (const r of rows) {
+      expect(r.vibration_ahv_ms2).not.toBeNull();
+      expect(r.vibration_source).not.toBeNull();
+      expect(r.sound_pressure_db).not.toBeNull();
+      expect(r.sound_pressure_source).not.toBeNull();
+      expect(r.bit_retainer).not.toBeNull();
+    }
+  });
+
+  it("are refused by the database without a source, out of range, or a whip weight below the tool's", async () => {
+    const model = await db
+      .selectFrom("tool_models")
+      .select(["id", "weight_kg"])
+      .orderBy("id")
+      .executeTakeFirstOrThrow();
+    const set = (values: Record<string, unknown>) =>
+      rolledBack((trx) => trx.updateTable("tool_models").set(values).where("id", "=", model.id).execute());
+    const vibration = { vibration_k_ms2: 2, vibration_iso28927_part: 10, vibration_source: "maker_sheet" };
+    expect(await set({ vibration_ahv_ms2: 12, ...vibration })).toBeNull();
+    expect((await set({ vibration_ahv_ms2: 12, ...vibration, vibration_source: null }))?.message).toMatch(
+      /tool_models_vibration_sourced/,
+    );
+    expect((await set({ vibration_ahv_ms2: 12, ...vibration, vibration_iso28927_part: null }))?.message).toMatch(
+      /tool_models_vibration_sourced/,
+    );
+    expect((await set({ vibration_ahv_ms2: null, ...vibration }))?.message).toMatch(/tool_models_vibration_sourced/);
+    expect((await set({ vibration_ahv_ms2: 120, ...vibration }))?.message).toMatch(/check/);
+    expect((await set({ vibration_ahv_ms2: 12, ...vibration, vibration_iso28927_part: 14 }))?.message).toMatch(/check/);
+    expect((await set({ sound_pressure_db: 98, sound_pressure_source: null }))?.message).toMatch(
+      /tool_models_sound_pressure_sourced/,
+    );
+    expect((await set({ sound_pressure_db: 150, sound_pressure_source: "measured" }))?.message).toMatch(/check/);
+    expect((await set({ sound_power_db: null, sound_power_k_db: 3, sound_power_source: null }))?.message).toMatch(
+      /tool_models_sound_power_sourced/,
+    );
+    expect((await set({ bit_retainer: "tape" }))?.message).toMatch(/check/);
+    expect(
+      (await set({ weight_with_whip_kg: model.weight_kg - 0.1, weight_with_whip_source: "measured" }))?.message,
+    ).toMatch(/tool_models_weight_with_whip_sourced/);
+  });
+});
+
 describe("report values", () => {
   it("are stored at entry precision in the demo", async () => {
     const noisy = await sql<{ n: number }>`select count(*)::int n from reports r where ${DEMO} and (

@@ -2,7 +2,7 @@
 // product's line model (app/air) against data it did not produce (seeds/air-world.ts).
 import { describe, expect, it } from "vitest";
 import { operatingPoint, type Segment } from "../../app/air/index";
-import { jobTypes, models, runningAir } from "../../seeds/catalogue";
+import { declaredExposure, jobTypes, models, runningAir } from "../../seeds/catalogue";
 import { haalandSmooth } from "../../seeds/air-world";
 import { generateReports, type GeneratedReport } from "../../seeds/reports";
 
@@ -136,4 +136,29 @@ describe("the product's line model against the demo world (issue 17, item 4)", (
     expect(Math.abs(bias)).toBeLessThanOrEqual(1);
     expect(meanAbs).toBeLessThanOrEqual(3);
   }, 120_000);
+
+  it("declares vibration and noise for every model, within its class's common range (invented demo values)", () => {
+    // Common practice, from memory: hammers 8–20 m/s² and 95–105 dB(A); impact wrenches 3–10 m/s² and
+    // 90–100 dB(A); ratchets 2.5–5 m/s² and 80–90 dB(A). L_WA lies about 10–12 dB above L_pA.
+    const range = {
+      "air-hammer": { ahv: [8, 20], lpa: [95, 105], part: 10 },
+      "impact-wrench": { ahv: [3, 10], lpa: [90, 100], part: 2 },
+      "air-ratchet": { ahv: [2.5, 5], lpa: [80, 90], part: 2 },
+    } as const;
+    models.forEach((m, i) => {
+      const d = declaredExposure[i]!;
+      const r = range[m.category as keyof typeof range];
+      expect(d.vibration_ahv_ms2, m.code).toBeGreaterThanOrEqual(r.ahv[0]);
+      expect(d.vibration_ahv_ms2, m.code).toBeLessThanOrEqual(r.ahv[1]);
+      expect(d.sound_pressure_db, m.code).toBeGreaterThanOrEqual(r.lpa[0]);
+      expect(d.sound_pressure_db, m.code).toBeLessThanOrEqual(r.lpa[1]);
+      if (d.vibration_source !== "estimated") expect(d.vibration_iso28927_part, m.code).toBe(r.part);
+      if (d.sound_power_db !== null) expect(d.sound_power_db - d.sound_pressure_db).toBeGreaterThanOrEqual(10);
+      expect(d.weight_with_whip_kg).toBeGreaterThan(m.weightKg);
+      expect(decimals(d.vibration_ahv_ms2)).toBeLessThanOrEqual(1);
+    });
+    expect(new Set(declaredExposure.map((d) => d.vibration_source))).toEqual(
+      new Set(["maker_sheet", "measured", "estimated"]),
+    );
+  });
 });

@@ -13,6 +13,7 @@ import {
   galToL,
   inToMm,
   INLET_SOURCES,
+  KG_PER_LB,
   isSlug,
   OUTCOMES,
   parseMeasure,
@@ -156,6 +157,10 @@ describe("ranges and their words", () => {
     SCFM: scfmToLps,
     l: (x) => x,
     gal: galToL,
+    kg: (x) => x,
+    lb: (x) => x * KG_PER_LB,
+    "m/s²": (x) => x,
+    dB: (x) => x,
   };
   it("state each bound honestly in every unit they name (within 10 %, from the SI conversions)", () => {
     for (const [name, range] of Object.entries(RANGES)) {
