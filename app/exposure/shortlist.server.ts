@@ -7,12 +7,33 @@ import { readSupply } from "~/stats/supply-query";
 import { buildShortlist, type ShortlistTool } from "./shortlist";
 import { readShortlist } from "./shortlist-form";
 
+interface ModelFigures {
+  lengthMm: number;
+  ahv: number | null;
+  ahvK: number | null;
+  lpa: number | null;
+  lpaK: number | null;
+}
+
 /** The catalogue figures of the job's tools that the cells do not carry. */
 async function modelFigures(db: Db, slugs: readonly string[]) {
-  if (slugs.length === 0) return new Map<string, { lengthMm: number; ahv: number | null; lpa: number | null }>();
-  const rows = await db.selectFrom("tool_models").select(["slug", "length_mm"]).where("slug", "in", slugs).execute();
-  return new Map(
-    rows.map((r) => [r.slug, { lengthMm: r.length_mm, ahv: null as number | null, lpa: null as number | null }]),
+  if (slugs.length === 0) return new Map<string, ModelFigures>();
+  const rows = await db
+    .selectFrom("tool_models")
+    .select(["slug", "length_mm", "vibration_ahv_ms2", "vibration_k_ms2", "sound_pressure_db", "sound_pressure_k_db"])
+    .where("slug", "in", slugs)
+    .execute();
+  return new Map<string, ModelFigures>(
+    rows.map((r) => [
+      r.slug,
+      {
+        lengthMm: r.length_mm,
+        ahv: r.vibration_ahv_ms2,
+        ahvK: r.vibration_k_ms2,
+        lpa: r.sound_pressure_db,
+        lpaK: r.sound_pressure_k_db,
+      },
+    ]),
   );
 }
 
@@ -51,7 +72,9 @@ export async function jobShortlist(db: Db, standings: JobStandings, search: Reco
       rate: { estimate: c.estimate, lower: c.lower, upper: c.upper },
       km: { median: c.km_median_s, lower: c.km_lower_s, upper: c.km_upper_s },
       ahv: f?.ahv ?? null,
+      ahvK: f?.ahvK ?? null,
       lpa: f?.lpa ?? null,
+      lpaK: f?.lpaK ?? null,
     };
   });
   const supply = asked?.supply ?? null;

@@ -35,7 +35,10 @@ export interface ShortlistTool {
   km: { median: number | null; lower: number | null; upper: number | null };
   /** Declared vibration total value a_hv (m/s²) and A-weighted sound pressure level L_pA (dB), when the catalogue has them. */
   ahv: number | null;
+  /** The declared uncertainties K of a_hv (m/s²) and L_pA (dB). */
+  ahvK: number | null;
   lpa: number | null;
+  lpaK: number | null;
 }
 
 export interface Candidate {
@@ -49,8 +52,11 @@ export interface Candidate {
   chance: { estimate: number; lower: number; upper: number; basis: "at-your-air" | "rate"; extrapolating: boolean };
   chanceNote: string | null;
   time: { median: number; lower: number | null; upper: number | null } | null;
+  /** The a_hv used (declared, or the in-use estimate) and the declared K, scaled alike. */
   ahv: number | null;
+  ahvK: number | null;
   lpa: number | null;
+  lpaK: number | null;
   day: DayExposure | null;
   needs: string[];
 }
@@ -78,7 +84,8 @@ function candidateOf(tool: ShortlistTool, ask: ShortlistAsk, supply: Supply | nu
   const predicted = at?.predicted ?? null;
   const minutes = (s: number | null) => (s == null ? null : s / 60);
   const time = tool.km.median == null ? null : { median: tool.km.median, lower: tool.km.lower, upper: tool.km.upper };
-  const ahv = tool.ahv == null ? null : inUseValue(tool.ahv, ask.basis).value;
+  const factor = inUseValue(1, ask.basis).factor;
+  const ahv = tool.ahv == null ? null : tool.ahv * factor;
   const day =
     time && ahv != null && tool.lpa != null
       ? dayExposure([
@@ -102,7 +109,9 @@ function candidateOf(tool: ShortlistTool, ask: ShortlistAsk, supply: Supply | nu
     chanceNote: supply && !predicted ? tool.adjReason : null,
     time,
     ahv,
+    ahvK: tool.ahvK == null ? null : tool.ahvK * factor,
     lpa: tool.lpa,
+    lpaK: tool.lpaK,
     day,
     needs: at?.needs ?? [],
   };

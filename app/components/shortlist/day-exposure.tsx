@@ -49,13 +49,20 @@ export function DayExposure({
                   {c.day ? band(c.day.shareOfActionValue, share) : "—"}
                   {c.ahv != null && (
                     <div className="text-xs text-stone-600">
-                      a_hv {c.ahv.toFixed(1)} m/s² ({basis === "in-use" ? "in-use estimate" : "declared"})
+                      a_hv {c.ahv.toFixed(1)}
+                      {c.ahvK != null && ` ± ${c.ahvK.toFixed(1)}`} m/s² (
+                      {basis === "in-use" ? "in-use estimate" : "declared"})
                     </div>
                   )}
                 </td>
                 <td className="px-3 py-2">
                   {c.day ? `${band(c.day.nioshDosePercent, pct)} · ${band(c.day.oshaDosePercent, pct)}` : "—"}
-                  {c.lpa != null && <div className="text-xs text-stone-600">L_pA {c.lpa.toFixed(0)} dB (declared)</div>}
+                  {c.lpa != null && (
+                    <div className="text-xs text-stone-600">
+                      L_pA {c.lpa.toFixed(0)}
+                      {c.lpaK != null && ` ± ${c.lpaK.toFixed(0)}`} dB (declared)
+                    </div>
+                  )}
                 </td>
               </tr>
             ))}
