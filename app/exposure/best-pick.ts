@@ -122,42 +122,47 @@ export function sampleDraw(draw: Draw, rand: () => number): number {
   }
 }
 
-/** Ranks (1 = best) of one criterion's values in a draw; ties share the mean of their ranks. */
-function ranks(values: readonly number[], better: Criterion["better"]): number[] {
-  const order = values.map((v, i) => ({ v: better === "higher" ? -v : v, i })).sort((a, b) => a.v - b.v);
-  const out = new Array<number>(values.length);
-  for (let k = 0; k < order.length;) {
-    let j = k;
-    while (j + 1 < order.length && order[j + 1]!.v === order[k]!.v) j++;
-    const mean = (k + j) / 2 + 1;
-    for (let m = k; m <= j; m++) out[order[m]!.i] = mean;
-    k = j + 1;
+/**
+ * Indices of the candidates first in one draw: `sampled[c][k]` is candidate c's value on criterion k,
+ * already signed so that larger is better. Weighted: the rank of c on k is 1 + (how many are better)
+ * + ½·(how many others tie), so ties share the mean of their ranks; the lowest weighted sum wins.
+ */
+function winners(sampled: Float64Array[], weights: readonly number[] | null, out: number[]): number[] {
+  out.length = 0;
+  const n = sampled.length;
+  const K = sampled[0]!.length;
+  if (weights) {
+    let best = Infinity;
+    for (let i = 0; i < n; i++) {
+      let score = 0;
+      for (let k = 0; k < K; k++) {
+        const v = sampled[i]![k]!;
+        let rank = 1;
+        for (let j = 0; j < n; j++) {
+          if (j === i) continue;
+          const w = sampled[j]![k]!;
+          if (w > v) rank += 1;
+          else if (w === v) rank += 0.5;
+        }
+        score += weights[k]! * rank;
+      }
+      if (score < best) {
+        best = score;
+        out.length = 0;
+      }
+      if (score === best) out.push(i);
+    }
+    return out;
+  }
+  for (let i = 0; i < n; i++) out.push(i);
+  for (let k = 0; k < K && out.length > 1; k++) {
+    let best = -Infinity;
+    for (const i of out) best = Math.max(best, sampled[i]![k]!);
+    let m = 0;
+    for (const i of out) if (sampled[i]![k] === best) out[m++] = i;
+    out.length = m;
   }
   return out;
-}
-
-/** Indices of the candidates first in one draw: `sampled[c][k]` is candidate c's value on criterion k. */
-function winners(sampled: number[][], order: readonly Criterion[], weighted: boolean): number[] {
-  let alive = sampled.map((_, i) => i);
-  if (weighted) {
-    const score = new Array<number>(sampled.length).fill(0);
-    order.forEach((c, k) => {
-      const r = ranks(
-        sampled.map((s) => s[k]!),
-        c.better,
-      );
-      r.forEach((rank, i) => (score[i]! += (c.weight ?? 1) * rank));
-    });
-    const best = Math.min(...score);
-    return alive.filter((i) => score[i] === best);
-  }
-  order.forEach((c, k) => {
-    if (alive.length < 2) return;
-    const vals = alive.map((i) => sampled[i]![k]!);
-    const best = c.better === "higher" ? Math.max(...vals) : Math.min(...vals);
-    alive = alive.filter((i) => sampled[i]![k] === best);
-  });
-  return alive;
 }
 
 /**
@@ -180,9 +185,15 @@ export function bestPickChances(
   if (candidates.length === 0) return { chances: [], draws, seed, rule };
   const rand = mulberry32(seed);
   const wins = new Array<number>(candidates.length).fill(0);
+  const plan = candidates.map((cand) => order.map((c) => cand.criteria[c.key]!));
+  const sign = order.map((c) => (c.better === "higher" ? 1 : -1));
+  const weights = weighted ? order.map((c) => c.weight ?? 1) : null;
+  const sampled = candidates.map(() => new Float64Array(order.length));
+  const first: number[] = [];
   for (let d = 0; d < draws; d++) {
-    const sampled = candidates.map((cand) => order.map((c) => sampleDraw(cand.criteria[c.key]!, rand)));
-    const first = winners(sampled, order, weighted);
+    for (let i = 0; i < plan.length; i++)
+      for (let k = 0; k < order.length; k++) sampled[i]![k] = sign[k]! * sampleDraw(plan[i]![k]!, rand);
+    winners(sampled, weights, first);
     for (const i of first) wins[i]! += 1 / first.length;
   }
   return {
