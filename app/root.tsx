@@ -131,6 +131,9 @@ function SiteHeader() {
           <NavLink to="/air" className={link}>
             Air
           </NavLink>
+          <NavLink to="/day" className={link}>
+            Day on the tools
+          </NavLink>
           {user?.isModerator && (
             <NavLink to="/review" className={link}>
               Review

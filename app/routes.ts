@@ -7,6 +7,7 @@ export default [
   route("jobs", "routes/jobs._index.tsx"),
   route("jobs/:slug", "routes/jobs.$slug.tsx"),
   route("air", "routes/air.tsx"),
+  route("day", "routes/day.tsx"),
   route("compare", "routes/compare.tsx"),
   route("search", "routes/search.tsx"),
   route("api/search", "routes/api.search.ts"),

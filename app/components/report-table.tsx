@@ -15,6 +15,8 @@ import {
 import type { AcceptedReportRow } from "~/catalogue/queries.server";
 import { Card } from "./ui";
 
+export { EvidenceGallery } from "./evidence-gallery";
+
 const OUTCOME_STYLES: Labels<Outcome> = {
   freed: "bg-bay-100 text-bay-900",
   freed_with_help: "bg-amber-100 text-amber-900",

@@ -163,3 +163,15 @@ export const formatShare = (x: number) => {
 
 /** A modelled probability (a chance, a prediction): never 100 % or 0 %, even when it rounds there. */
 export const formatChance = (x: number) => (x >= 0.995 ? ">99 %" : x < 0.005 ? "<1 %" : `${Math.round(x * 100)} %`);
+
+// Exposure figures (issue 21): the same in every unit system.
+/** A vibration value or A(8): m/s² to a tenth ("8.1 m/s²"). */
+export const formatVibration = (ms2: number | null | undefined) => (ms2 == null ? "—" : `${ms2.toFixed(1)} m/s²`);
+/** A sound level: whole decibels ("98 dB"); no exposure at all has no level. */
+export const formatDecibels = (db: number | null | undefined) =>
+  db == null || !Number.isFinite(db) ? "—" : `${Math.round(db)} dB`;
+/** A dose or a share of an exposure value, in percent of it: whole percent, "<1 %" for a trace. */
+export const formatDose = (percent: number | null | undefined) =>
+  percent == null ? "—" : percent > 0 && percent < 0.5 ? "<1 %" : `${Math.round(percent).toLocaleString("en-US")} %`;
+/** Hours on the tools: through formatDuration ("45 min", "2.5 h"). */
+export const formatHours = (hours: number | null | undefined) => formatDuration(hours == null ? null : hours * 3600);

@@ -30,6 +30,18 @@ export {
 } from "./in-use";
 export { dayExposure, type CarriedInterval, type DayExposure, type DayItem } from "./day";
 export {
+  JOBS_PER_DAY,
+  MAX_DAY_ROWS,
+  MINUTES_PER_JOB,
+  readBasis,
+  readDayQuery,
+  readJobsPerDay,
+  type DayChoices,
+  type DayQuery,
+  type DayRow,
+  type DayRowInput,
+} from "./day-query";
+export {
   bestPickChances,
   mulberry32,
   sampleDraw,

@@ -6,6 +6,8 @@ import { ChooseJob, ChooseTools, type CompareTool, Comparison } from "~/componen
 import { CURVE_COLOURS } from "~/components/pressure-curves";
 import { getJobBySlug, listJobs } from "~/catalogue/queries.server";
 import { compareOnJob } from "~/stats/cells.server";
+import { CompareExposurePanel } from "~/components/exposure/compare-exposure";
+import { compareExposure } from "~/exposure/pages.server";
 import { readCompareQuery } from "~/stats/compare-query";
 import { invariantResponse } from "~/utils/http";
 import type { Route } from "./+types/compare";
@@ -51,6 +53,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     pairs: c.pairs,
     topLabel: c.top ? label(c.top) : null,
     basis: c.basis,
+    exposure: await compareExposure(db, job.id, tools, new URL(request.url)),
   };
 }
 
@@ -65,7 +68,13 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
         problem={loaderData.problem}
       />
     );
-  return <Comparison {...loaderData} />;
+  const { exposure, ...comparison } = loaderData;
+  return (
+    <div className="space-y-6">
+      <Comparison {...comparison} />
+      <CompareExposurePanel exposure={exposure} job={comparison.job} psi={comparison.psi} />
+    </div>
+  );
 }
 
 export function meta({ data }: Route.MetaArgs) {

@@ -4,7 +4,7 @@ import { ErrorPage } from "~/components/error-page";
 import { CellTable } from "~/components/cell-table";
 import { IntervalsExplained } from "~/components/intervals";
 import { Pager } from "~/components/pager";
-import { ReportList } from "~/components/report-table";
+import { EvidenceGallery, ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { buttonClass, Card } from "~/components/ui";
 import { unitsFor } from "~/auth/units.server";
@@ -19,10 +19,10 @@ import {
   RATED_INLET_KPA,
   toolName,
 } from "~/domain";
-import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
+import { acceptedReports, countAccepted, getModelBySlug, publishedEvidenceForModel } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
-import { EvidenceGallery } from "~/components/evidence-gallery";
-import { publishedEvidenceForModel } from "~/reports/public.server";
+import { ModelExposurePanel } from "~/components/exposure/model-exposure-panel";
+import { modelExposure } from "~/exposure/pages.server";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/models.$slug";
@@ -30,18 +30,18 @@ import type { Route } from "./+types/models.$slug";
 const PER_PAGE = 20;
 
 export async function loader({ params, request }: Route.LoaderArgs) {
-  const slug = parseSlug(params.slug);
   const page = parsePage(request);
-  const model = await getModelBySlug(db, slug);
+  const model = await getModelBySlug(db, parseSlug(params.slug));
   invariantResponse(model, "No such tool model", 404);
-  const [jobs, reports, total, units, published] = await Promise.all([
+  const [jobs, reports, total, units, published, exposure] = await Promise.all([
     cellsForModel(db, model.id),
     acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { modelId: model.id }),
     unitsFor(request),
     publishedEvidenceForModel(db, model.id),
+    modelExposure(db, model.id, new URL(request.url)),
   ]);
-  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), published };
+  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), exposure, published };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
@@ -125,8 +125,8 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
         </Link>
       </p>
 
+      <ModelExposurePanel exposure={loaderData.exposure} modelSlug={model.slug} />
       <SafetyCautions action={model.category_action} />
-
       <EvidenceGallery files={loaderData.published} />
 
       <section aria-labelledby="reports-heading">

@@ -97,6 +97,7 @@ const matrix: [string, string, (() => Record<string, string>) | null, Record<Who
     { visitor: 303, reporter: 303, moderator: 303, admin: 303 },
   ],
   ["GET", "/air", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
+  ["GET", "/day", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/models", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/sign-in", null, { visitor: 200, reporter: 302, moderator: 302, admin: 302 }],

@@ -1,0 +1,48 @@
+// The two settings every exposure view takes from the URL: jobs per day and declared or in-use vibration.
+import { IN_USE_FACTOR, JOBS_PER_DAY, type VibrationBasis } from "~/exposure";
+
+export function BasisChoice({ basis }: { basis: VibrationBasis }) {
+  return (
+    <fieldset className="space-y-1">
+      <legend className="text-sm font-semibold">Vibration figures</legend>
+      <label className="flex items-center gap-2 text-sm">
+        <input type="radio" name="vib" value="declared" defaultChecked={basis === "declared"} className="h-5 w-5" />
+        Declared (the maker's test)
+      </label>
+      <label className="flex items-center gap-2 text-sm">
+        <input type="radio" name="vib" value="in-use" defaultChecked={basis === "in-use"} className="h-5 w-5" />
+        In use (declared × {IN_USE_FACTOR})
+      </label>
+    </fieldset>
+  );
+}
+
+export function PerDayField({ perDay, id }: { perDay: number; id: string }) {
+  return (
+    <label htmlFor={id} className="block text-sm font-semibold">
+      Jobs a day
+      <input
+        id={id}
+        name="perday"
+        type="number"
+        inputMode="numeric"
+        min={JOBS_PER_DAY.min}
+        max={JOBS_PER_DAY.max}
+        step={1}
+        defaultValue={perDay}
+        className="mt-1 block w-24 rounded border border-stone-300 px-2 py-1.5 font-normal"
+      />
+    </label>
+  );
+}
+
+export function BasisNote({ basis }: { basis: VibrationBasis }) {
+  return (
+    <p className="text-xs text-stone-600">
+      {basis === "declared"
+        ? "Using the declared vibration values as they are."
+        : `Using the declared vibration values × ${IN_USE_FACTOR}, for tasks rougher than the standard test (CEN/TR 15350's factors; the figure ${IN_USE_FACTOR} from memory).`}{" "}
+      Time on the trigger is taken as the median time to free it, counting give-ups as the time spent before giving up.
+    </p>
+  );
+}
