@@ -33,6 +33,7 @@ export default [
   route("reports/:id/edit", "routes/reports.edit.tsx", { id: "reports-edit" }),
   route("me/reports", "routes/me.reports.tsx"),
   route("reports/:id/history", "routes/reports.$id.history.tsx"),
+  route("reports/:id", "routes/reports.$id.tsx"),
   route("review", "routes/review._index.tsx"),
   route("review/stats", "routes/review.stats.tsx"),
   route("review/:reportId", "routes/review.$reportId.tsx"),

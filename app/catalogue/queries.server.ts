@@ -149,3 +149,6 @@ export async function countAccepted(db: Db, { modelId, jobId }: { modelId?: numb
 }
 
 export type AcceptedReportRow = Awaited<ReturnType<typeof acceptedReports>>[number];
+
+/** Published evidence of a model's accepted reports (app/reports/public.server.ts), beside the model's other reads. */
+export { publishedEvidenceForModel } from "~/reports/public.server";

@@ -15,6 +15,8 @@ import {
 import type { AcceptedReportRow } from "~/catalogue/queries.server";
 import { Card } from "./ui";
 
+export { EvidenceGallery } from "./evidence-gallery";
+
 const OUTCOME_STYLES: Labels<Outcome> = {
   freed: "bg-bay-100 text-bay-900",
   freed_with_help: "bg-amber-100 text-amber-900",
@@ -64,7 +66,10 @@ export function ReportList({
             </div>
             <p className="text-sm text-stone-600">
               {VEHICLE_LABELS[r.vehicle_class ?? ""] ?? "—"} · {r.corrosion_level} corrosion · by {r.reporter_handle} ·{" "}
-              {formatDate(r.accepted_at)}
+              {formatDate(r.accepted_at)} ·{" "}
+              <Link to={`/reports/${r.id}`} className="text-bay-700 underline">
+                report {r.id}
+              </Link>
             </p>
           </div>
           <dl className="grid grid-cols-3 gap-3 text-sm sm:w-80">

@@ -1,44 +1,60 @@
-import { Form, Link } from "react-router";
+import { Form, useSubmit } from "react-router";
+import { useRef } from "react";
+import { COUPLER_LABELS, COUPLER_PROFILES, DEFAULT_COUPLER_PROFILE, type Units } from "~/domain";
 import {
-  COUPLER_LABELS,
-  COUPLER_PROFILES,
-  DEFAULT_COUPLER_PROFILE,
-  formatFlow,
-  formatPressure,
-  formatPrice,
-} from "~/domain";
-import { prob } from "./intervals";
+  CRITERION_LABELS,
+  DEFAULT_WEIGHTS,
+  SHORTLIST_CRITERIA,
+  shortlistUnits,
+  WEIGHT_CHOICES,
+  weightParam,
+} from "~/exposure/shortlist-form";
+import type { JobShortlist } from "~/exposure/shortlist.server";
+import { controlProps, FieldError } from "./field";
+import { ShortlistResults } from "./shortlist/shortlist-results";
+import { buttonClass } from "./ui";
 
-export interface WhichToolRow {
-  slug: string;
-  label: string;
-  price: number | null;
-  weightKg: number;
-  inletKpa: number;
-  /** The air it draws while running: the catalogue's figure, or its average times a stated factor. */
-  running: { lps: number; source: "maker_sheet" | "measured" | "estimated"; factor: number | null };
-  predicted: { estimate: number; lower: number; upper: number; extrapolating: boolean } | null;
-  reason: string | null;
-  needs: string[];
-}
+const input = "mt-1 block w-full rounded border border-stone-300 px-3 py-2 aria-[invalid]:border-red-600";
 
-/** The shopper's supply in, per tool: what reaches it, the fitted chance there, what else it needs. */
+/**
+ * "Which tool, on your air?": the shopper's supply, limits, day and priorities in one GET form (the
+ * shortlist lives in the address, so it works without JavaScript and can be shared); with JavaScript it
+ * updates as the shopper changes a choice. Then the tools that pass and what they trade off.
+ */
 export function WhichToolPanel({
   jobSlug,
   percussive,
   values,
-  note,
-  rows,
-  pu,
+  data,
+  units,
 }: {
   jobSlug: string;
   percussive: boolean;
   values: Record<string, string>;
-  note: string | null;
-  rows: WhichToolRow[] | null;
-  pu: "psi" | "bar" | "kPa";
+  data: JobShortlist;
+  units: Units;
 }) {
-  const input = "mt-1 block w-full rounded border border-stone-300 px-3 py-2";
+  const submit = useSubmit();
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const u = shortlistUnits(data.ask.system);
+  const errors: Record<string, string> = data.errors;
+  // A number field: label, the typed text kept, its message tied to it.
+  const num = (name: string, label: string, placeholder = "") => (
+    <div className="text-sm">
+      <label htmlFor={`sl-${name}`} className="font-semibold">
+        {label}
+      </label>
+      <input
+        name={name}
+        defaultValue={values[name] ?? ""}
+        placeholder={placeholder}
+        inputMode="decimal"
+        className={input}
+        {...controlProps(`sl-${name}`, errors[name])}
+      />
+      <FieldError id={`sl-${name}`} message={errors[name]} />
+    </div>
+  );
   return (
     <section aria-labelledby="which-heading" className="space-y-3 rounded-lg border border-bay-600 bg-white p-4">
       <h2 id="which-heading" className="text-lg font-semibold">
@@ -47,126 +63,117 @@ export function WhichToolPanel({
       <Form
         method="get"
         action={`/jobs/${jobSlug}`}
-        className="grid grid-cols-2 gap-3 sm:grid-cols-6"
         preventScrollReset
+        className="space-y-3"
+        onChange={(e) => {
+          // Live with JavaScript: a choice re-asks the page after a short pause in typing.
+          const form = e.currentTarget;
+          if (timer.current) clearTimeout(timer.current);
+          timer.current = setTimeout(() => void submit(form, { replace: true, preventScrollReset: true }), 600);
+        }}
       >
-        <label className="text-sm">
-          <span className="font-semibold">Regulator, psi</span>
-          <input name="reg" defaultValue={values.reg ?? ""} placeholder="100" inputMode="decimal" className={input} />
-        </label>
-        <label className="text-sm">
-          <span className="font-semibold">Hose ID, in</span>
-          <input name="hid" defaultValue={values.hid ?? ""} placeholder="3/8" className={input} />
-        </label>
-        <label className="text-sm">
-          <span className="font-semibold">Hose length, ft</span>
-          <input name="hlen" defaultValue={values.hlen ?? ""} placeholder="50" inputMode="decimal" className={input} />
-        </label>
-        <label className="text-sm">
-          <span className="font-semibold">Couplers</span>
-          <input name="cc" defaultValue={values.cc ?? "2"} inputMode="numeric" className={input} />
-        </label>
-        <label className="text-sm">
-          <span className="font-semibold">Coupler style</span>
-          <select name="cp" defaultValue={values.cp ?? DEFAULT_COUPLER_PROFILE} className={input}>
-            {COUPLER_PROFILES.map((code) => (
-              <option key={code} value={code}>
-                {COUPLER_LABELS[code]}
-              </option>
-            ))}
-          </select>
-        </label>
-        {percussive ? (
-          <label className="text-sm">
-            <span className="font-semibold">Bits you own</span>
-            <select name="bits" defaultValue={values.bits ?? ""} className={input}>
-              <option value="">none yet</option>
-              <option value="shank-0.401">0.401 in shank</option>
-              <option value="shank-0.498">0.498 in shank</option>
+        <input type="hidden" name="u" value={data.ask.system} />
+        <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-6">
+          <legend className="mb-1 text-sm font-semibold text-stone-700">Your air</legend>
+          {num("reg", "Regulator, psi", "100")}
+          {num("hid", "Hose ID, in", "3/8")}
+          {num("hlen", "Hose length, ft", "50")}
+          {num("cc", "Couplers", "2")}
+          <div className="text-sm">
+            <label htmlFor="sl-cp" className="font-semibold">
+              Coupler style
+            </label>
+            <select id="sl-cp" name="cp" defaultValue={values.cp ?? DEFAULT_COUPLER_PROFILE} className={input}>
+              {COUPLER_PROFILES.map((code) => (
+                <option key={code} value={code}>
+                  {COUPLER_LABELS[code]}
+                </option>
+              ))}
             </select>
-          </label>
-        ) : (
-          <span />
-        )}
-        <button
-          type="submit"
-          className="col-span-2 rounded bg-bay-700 px-4 py-2 font-semibold text-white sm:col-span-6 sm:justify-self-start"
-        >
+          </div>
+          {num("comp", `Compressor delivers, ${u.flow}`)}
+        </fieldset>
+        <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-6">
+          <legend className="mb-1 text-sm font-semibold text-stone-700">Your limits</legend>
+          {percussive && (
+            <div className="text-sm">
+              <label htmlFor="sl-bits" className="font-semibold">
+                Bits you own
+              </label>
+              <select
+                name="bits"
+                defaultValue={values.bits ?? ""}
+                className={input}
+                {...controlProps("sl-bits", errors.bits)}
+              >
+                <option value="">none yet</option>
+                <option value="shank-0.401">0.401 in shank</option>
+                <option value="shank-0.498">0.498 in shank</option>
+              </select>
+              <FieldError id="sl-bits" message={errors.bits} />
+            </div>
+          )}
+          {num("maxw", `Most weight, ${u.weight}`)}
+          {num("maxl", `Most length, ${u.length}`)}
+          {num("maxp", "Most price, $")}
+          {num("minc", "Least chance at your air, %")}
+        </fieldset>
+        <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-6">
+          <legend className="mb-1 text-sm font-semibold text-stone-700">Your day</legend>
+          {num("jobs", "Jobs a day", "1")}
+          {num("maxv", "Most of the vibration action value, %")}
+          <div className="col-span-2 text-sm">
+            <label htmlFor="sl-vb" className="font-semibold">
+              Vibration figure
+            </label>
+            <select id="sl-vb" name="vb" defaultValue={values.vb ?? "declared"} className={input}>
+              <option value="declared">maker's declared value</option>
+              <option value="in-use">in-use estimate (declared × factor)</option>
+            </select>
+          </div>
+        </fieldset>
+        <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-5">
+          <legend className="mb-1 text-sm font-semibold text-stone-700">How much each counts for your best pick</legend>
+          {SHORTLIST_CRITERIA.map((c) => (
+            <div key={c} className="text-sm">
+              <label htmlFor={`sl-${weightParam(c)}`} className="font-semibold">
+                {CRITERION_LABELS[c]}
+              </label>
+              <select
+                name={weightParam(c)}
+                defaultValue={values[weightParam(c)] ?? String(DEFAULT_WEIGHTS[c])}
+                className={input}
+                {...controlProps(`sl-${weightParam(c)}`, errors[weightParam(c)])}
+              >
+                {WEIGHT_CHOICES.map((w) => (
+                  <option key={w.value} value={w.value}>
+                    {w.label}
+                  </option>
+                ))}
+              </select>
+              <FieldError id={`sl-${weightParam(c)}`} message={errors[weightParam(c)]} />
+            </div>
+          ))}
+        </fieldset>
+        <details className="text-sm">
+          <summary className="cursor-pointer text-stone-700">Simulation seed</summary>
+          <div className="mt-2 max-w-xs">{num("seed", "Seed (a whole number)", "1")}</div>
+        </details>
+        <button type="submit" className={buttonClass("primary", "md", "w-full sm:w-auto")}>
           Show tools at my air
         </button>
       </Form>
-      {note && (
+      {data.supplyNote && (
         <p role="alert" className="text-sm text-amber-800">
-          {note}
+          {data.supplyNote}
         </p>
       )}
-      {rows && (
-        <div className="which-tool-stack sm:overflow-x-auto">
-          <table className="w-full text-left text-sm sm:min-w-[40rem]">
-            <thead className="bg-stone-100 text-xs uppercase text-stone-600">
-              <tr>
-                <th className="px-3 py-2">Tool</th>
-                <th className="px-3 py-2">Reaches the tool</th>
-                <th className="px-3 py-2">Chance it frees the job there</th>
-                <th className="px-3 py-2">Price · weight</th>
-                <th className="px-3 py-2">Would also need</th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-stone-100 align-top">
-              {rows.map((r) => (
-                <tr key={r.slug}>
-                  <td className="px-3 py-2">
-                    <Link to={`/models/${r.slug}`} className="font-semibold text-bay-700 hover:underline">
-                      {r.label}
-                    </Link>
-                  </td>
-                  <td className="px-3 py-2">
-                    {formatPressure(r.inletKpa, pu)}
-                    <div className="text-xs text-stone-600">{runningNote(r.running)}</div>
-                  </td>
-                  <td className="px-3 py-2">
-                    {r.predicted ? (
-                      <>
-                        {prob(r.predicted.estimate)}{" "}
-                        <span className="text-stone-500">
-                          ({prob(r.predicted.lower)}–{prob(r.predicted.upper)})
-                        </span>
-                        {r.predicted.extrapolating && (
-                          <div className="text-xs text-amber-700">
-                            outside the pressures reported for it — an extrapolation
-                          </div>
-                        )}
-                      </>
-                    ) : (
-                      <span className="text-xs text-stone-500">{r.reason}</span>
-                    )}
-                  </td>
-                  <td className="px-3 py-2">
-                    {formatPrice(r.price)} · {r.weightKg} kg
-                  </td>
-                  <td className="px-3 py-2 text-xs">{r.needs.length ? r.needs.join("; ") : "—"}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-          <p className="mt-1 text-xs text-stone-600">
-            Pressure at the tool while it runs, from the air it draws hammering or impacting (the catalogue's figure
-            where it has one, otherwise an estimate: its rated average times the factor shown) through your regulator,
-            couplers and hose, each solved at its own pressure (estimate); chance from the job's pooled logistic fit on
-            inlet pressure (one slope for every tool on the job), with 95 % bands. Ordered by the lower end of that
-            band. Tools without enough reports across pressures say so.
-          </p>
-        </div>
+      {Object.keys(errors).length > 0 && (
+        <p role="alert" className="text-sm text-amber-800">
+          Left out of the shortlist: {Object.values(errors).join("; ")}.
+        </p>
       )}
+      <ShortlistResults jobSlug={jobSlug} data={data} units={units} />
     </section>
   );
-}
-
-const RUNNING_FROM = { maker_sheet: "maker's sheet", measured: "measured", estimated: "estimate" } as const;
-
-/** "draws 10.0 SCFM running (estimate: 2.5× rated)" */
-function runningNote(r: WhichToolRow["running"]) {
-  const from =
-    r.source === "estimated" && r.factor != null ? `estimate: ${r.factor.toFixed(1)}× rated` : RUNNING_FROM[r.source];
-  return `draws ${formatFlow(r.lps)} running (${from})`;
 }

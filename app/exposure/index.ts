@@ -41,3 +41,13 @@ export {
   type DayRow,
   type DayRowInput,
 } from "./day-query";
+export {
+  bestPickChances,
+  mulberry32,
+  sampleDraw,
+  type BestPick,
+  type BestPickCandidate,
+  type Criterion,
+  type Draw,
+} from "./best-pick";
+export { dominates, nonDominated, type TradeOffCriterion, type TradeOffItem } from "./trade-offs";

@@ -7,9 +7,8 @@ import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { acceptedReports, countAccepted, getJobBySlug } from "~/catalogue/queries.server";
+import { jobShortlist } from "~/exposure/shortlist.server";
 import { jobStandings } from "~/stats/cells.server";
-import { readSupply } from "~/stats/supply-query";
-import { rankAtSupply } from "~/stats/which-tool";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/jobs.$slug";
@@ -28,25 +27,17 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     countAccepted(readDb, { jobId: job.id }),
     unitsFor(request),
   ]);
-  // The shopper's supply: read what parses, and say what did not rather than fail the page.
-  const asked = readSupply(search);
-  const which = asked?.supply
-    ? rankAtSupply(
-        standings.rows.map((r) => r.cell),
-        asked.supply,
-      )
-    : null;
+  // The shopper's supply and shortlist: read what parses, and say what did not rather than fail the page.
+  const shortlist = await jobShortlist(db, standings, search, units);
   return {
     job,
     standings,
     reports,
     page,
     pages: Math.max(1, Math.ceil(total / PER_PAGE)),
-    which,
-    note: asked?.note ?? null,
+    shortlist,
     search,
     units,
-    pu: units.pressure,
   };
 }
 
@@ -66,9 +57,8 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
         jobSlug={job.slug}
         percussive={job.category_action === "percussive"}
         values={loaderData.search}
-        note={loaderData.note}
-        rows={loaderData.which}
-        pu={loaderData.pu}
+        data={loaderData.shortlist}
+        units={loaderData.units}
       />
 
       <JobTools

@@ -1,25 +1,16 @@
 import { Link } from "react-router";
-import { readDb } from "~/db.server";
+import { readDb as db } from "~/db.server";
 import { ErrorPage } from "~/components/error-page";
 import { CellTable } from "~/components/cell-table";
 import { IntervalsExplained } from "~/components/intervals";
 import { Pager } from "~/components/pager";
-import { ReportList } from "~/components/report-table";
+import { ModelSpecs } from "~/components/catalogue/model-specs";
+import { EvidenceGallery, ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
-import { buttonClass, Card } from "~/components/ui";
+import { buttonClass } from "~/components/ui";
 import { unitsFor } from "~/auth/units.server";
-import {
-  FITTING_LABELS,
-  formatFlow,
-  formatLength,
-  formatPressure,
-  formatPrice,
-  formatTorque,
-  formatWeight,
-  RATED_INLET_KPA,
-  toolName,
-} from "~/domain";
-import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
+import { toolName } from "~/domain";
+import { acceptedReports, countAccepted, getModelBySlug, publishedEvidenceForModel } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
 import { ModelExposurePanel } from "~/components/exposure/model-exposure-panel";
 import { modelExposure } from "~/exposure/pages.server";
@@ -32,52 +23,33 @@ import type { Route } from "./+types/models.$slug";
 const PER_PAGE = 20;
 
 export async function loader({ params, request }: Route.LoaderArgs) {
-  const slug = parseSlug(params.slug);
   const page = parsePage(request);
-  const model = await getModelBySlug(readDb, slug);
+  const model = await getModelBySlug(db, parseSlug(params.slug));
   invariantResponse(model, "No such tool model", 404);
-  const [jobs, reports, total, units, bench] = await Promise.all([
-    cellsForModel(readDb, model.id),
-    acceptedReports(readDb, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
-    countAccepted(readDb, { modelId: model.id }),
+  const [jobs, reports, total, units, published, exposure, bench] = await Promise.all([
+    cellsForModel(db, model.id),
+    acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
+    countAccepted(db, { modelId: model.id }),
     unitsFor(request),
-    runsForModel(readDb, model.id),
+    publishedEvidenceForModel(db, model.id),
+    modelExposure(db, model.id, new URL(request.url)),
+    runsForModel(db, model.id),
   ]);
-  const exposure = await modelExposure(db, model.id, new URL(request.url));
-  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)), exposure, bench };
+  return {
+    model,
+    jobs,
+    reports,
+    units,
+    page,
+    pages: Math.max(1, Math.ceil(total / PER_PAGE)),
+    exposure,
+    published,
+    bench,
+  };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
-  const { model, jobs, reports, units, bench, page, pages } = loaderData;
-  const measured = new Set(model.measured_specs);
-  const spec = (label: string, field: string, value: string | null) =>
-    value == null ? null : { label, value, source: measured.has(field) ? "measured" : "maker sheet" };
-  const specs = [
-    { label: "Fitting", value: FITTING_LABELS[model.fitting] ?? model.fitting, source: "maker sheet" },
-    spec("Bore", "bore_mm", model.bore_mm == null ? null : formatLength(model.bore_mm, units)),
-    spec("Stroke", "stroke_mm", model.stroke_mm == null ? null : formatLength(model.stroke_mm, units)),
-    spec("Blows per minute", "blows_per_minute", model.blows_per_minute?.toLocaleString("en-US") ?? null),
-    spec(
-      "Free speed",
-      "free_speed_rpm",
-      model.free_speed_rpm == null ? null : `${model.free_speed_rpm.toLocaleString("en-US")} rpm`,
-    ),
-    spec(
-      "Maker's max torque",
-      "max_torque_nm",
-      model.max_torque_nm == null ? null : formatTorque(model.max_torque_nm, units),
-    ),
-    spec("Weight", "weight_kg", formatWeight(model.weight_kg, units)),
-    spec("Length", "length_mm", formatLength(model.length_mm, units)),
-    spec(
-      "Rated air use",
-      "rated_air_lps",
-      `${formatFlow(model.rated_air_lps, units)} at ${formatPressure(RATED_INLET_KPA, units)}`,
-    ),
-    { label: "Air inlet", value: model.air_inlet, source: "maker sheet" },
-    { label: "Maximum inlet pressure", value: formatPressure(model.max_inlet_kpa, units), source: "maker sheet" },
-    { label: "Street price", value: formatPrice(model.street_price_cents), source: "typical" },
-  ].filter((s) => s != null);
+  const { model, jobs, reports, units, page, pages } = loaderData;
 
   return (
     <div className="space-y-6">
@@ -89,21 +61,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
         <p className="text-stone-700">{model.name}</p>
       </header>
 
-      <Card as="section" aria-labelledby="specs-heading">
-        <h2 id="specs-heading" className="mb-2 font-semibold">
-          Specifications
-        </h2>
-        <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-2">
-          {specs.map((s) => (
-            <div key={s.label} className="flex justify-between gap-3 border-b border-stone-100 py-1 text-sm">
-              <dt className="text-stone-600">{s.label}</dt>
-              <dd className="text-right">
-                {s.value} <span className="text-xs text-stone-600">({s.source})</span>
-              </dd>
-            </div>
-          ))}
-        </dl>
-      </Card>
+      <ModelSpecs model={model} units={units} />
 
       <section aria-labelledby="jobs-heading">
         <h2 id="jobs-heading" className="mb-1 text-lg font-semibold">
@@ -128,9 +86,10 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
         </Link>
       </p>
 
+      <ModelBenchPanel runs={loaderData.bench} units={units} />
       <ModelExposurePanel exposure={loaderData.exposure} modelSlug={model.slug} />
-      <ModelBenchPanel runs={bench} units={units} />
       <SafetyCautions action={model.category_action} />
+      <EvidenceGallery files={loaderData.published} />
 
       <section aria-labelledby="reports-heading">
         <h2 id="reports-heading" className="mb-2 text-lg font-semibold">
