@@ -1,11 +1,8 @@
 // What anyone may see of the reports: an accepted report's own page, and the evidence files reporters
 // published with the open data (only of accepted reports, only files that passed their checks). The
-// objects stay private in storage: each page gets short-lived signed links to the published ones.
+// objects stay private in storage: pages link to the feed's stable address of each file, which
+// redirects to a fresh ten-minute signed link, so a page kept in a cache never holds an expired one.
 import type { Db } from "../../db/database";
-import { presignGet } from "~/storage/s3.server";
-
-/** How long a page's links to published files last (s). */
-const LINK_SECONDS = 600;
 
 export interface PublishedFile {
   id: number;
@@ -27,7 +24,7 @@ function publishedFiles(db: Db) {
     .where("r.status", "=", "accepted");
 }
 
-async function signed(
+function linked(
   rows: {
     id: number;
     report_id: number;
@@ -36,17 +33,15 @@ async function signed(
     object_key: string;
     job_name: string;
   }[],
-): Promise<PublishedFile[]> {
-  return Promise.all(
-    rows.map(async (e) => ({
-      id: e.id,
-      reportId: e.report_id,
-      kind: e.kind,
-      contentType: e.content_type,
-      jobName: e.job_name,
-      url: await presignGet(e.object_key, LINK_SECONDS),
-    })),
-  );
+): PublishedFile[] {
+  return rows.map((e) => ({
+    id: e.id,
+    reportId: e.report_id,
+    kind: e.kind,
+    contentType: e.content_type,
+    jobName: e.job_name,
+    url: `/api/v1/evidence/${e.id}`,
+  }));
 }
 
 /** The newest published files of a tool model's accepted reports. */
@@ -57,7 +52,7 @@ export async function publishedEvidenceForModel(db: Db, modelId: number, limit =
     .orderBy("e.id")
     .limit(limit)
     .execute();
-  return signed(rows);
+  return linked(rows);
 }
 
 /** An accepted report as its public page shows it, with its published files; null for any other report. */
@@ -104,7 +99,7 @@ export async function publicReport(db: Db, id: number) {
     .where("r.status", "=", "accepted")
     .executeTakeFirst();
   if (!report) return null;
-  const files = await signed(await publishedFiles(db).where("r.id", "=", id).orderBy("e.id").execute());
+  const files = linked(await publishedFiles(db).where("r.id", "=", id).orderBy("e.id").execute());
   return { report, files };
 }
 

@@ -53,7 +53,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     pairs: c.pairs,
     topLabel: c.top ? label(c.top) : null,
     basis: c.basis,
-    exposure: await compareExposure(db, job.id, tools, new URL(request.url)),
+    exposure: await compareExposure(readDb, job.id, tools, new URL(request.url)),
   };
 }
 

@@ -28,7 +28,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     unitsFor(request),
   ]);
   // The shopper's supply and shortlist: read what parses, and say what did not rather than fail the page.
-  const shortlist = await jobShortlist(db, standings, search, units);
+  const shortlist = await jobShortlist(readDb, standings, search, units);
   return {
     job,
     standings,
