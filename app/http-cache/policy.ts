@@ -17,6 +17,7 @@ export const PUBLIC_PAGES = [
   "/air",
   "/search",
   "/data",
+  "/day",
 ] as const;
 
 /**
