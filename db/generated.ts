@@ -39,6 +39,94 @@ export interface BanChanges {
   user_id: number;
 }
 
+export interface BenchDecisions {
+  action: string;
+  checklist: object | null;
+  created_at: Generated<Timestamp>;
+  id: Generated<number>;
+  moderator_id: number;
+  note: string | null;
+  reason_code: string;
+  run_id: number;
+  run_version: number;
+}
+
+export interface BenchProtocols {
+  attachment: string;
+  blows_discarded: Generated<number>;
+  blows_per_trial: number | null;
+  category_id: number;
+  created_at: Generated<Timestamp>;
+  frozen_at: Timestamp | null;
+  id: Generated<number>;
+  oiling: string;
+  quantity: string;
+  seconds_per_trial: number | null;
+  slug: string;
+  summary: string;
+  title: string;
+  trials_per_series: number;
+  version: number;
+  warm_up: string;
+}
+
+export interface BenchProtocolSeries {
+  coupler_count: number | null;
+  coupler_profile: string | null;
+  hose_id_mm: number | null;
+  hose_length_m: number | null;
+  id: Generated<number>;
+  inlet: string;
+  inlet_kpa: number;
+  label: string;
+  position: number;
+  protocol_id: number;
+  trigger: string;
+}
+
+export interface BenchRuns {
+  accepted_at: Timestamp | null;
+  ambient_c: number;
+  created_at: Generated<Timestamp>;
+  decided_at: Timestamp | null;
+  filed_by: number;
+  flags: Generated<string[]>;
+  id: Generated<number>;
+  notes: string | null;
+  operator: string;
+  protocol_id: number;
+  rig_id: number;
+  run_on: Timestamp;
+  status: Generated<string>;
+  submitted_at: Timestamp | null;
+  tool_model_id: number;
+  unit_condition: string;
+  unit_hours: number | null;
+  unit_serial: string;
+  updated_at: Generated<Timestamp>;
+  version: Generated<number>;
+  video_key: string | null;
+}
+
+export interface BenchRunSeries {
+  id: Generated<number>;
+  protocol_id: number;
+  run_id: number;
+  running_inlet_kpa: number;
+  series_id: number;
+  static_inlet_kpa: number;
+}
+
+export interface BenchTrials {
+  blows_per_minute: number | null;
+  id: Generated<number>;
+  peaks: number[];
+  rate_hz: number | null;
+  run_series_id: number;
+  trace_key: string | null;
+  trial_number: number;
+}
+
 export interface Decisions {
   action: string;
   checklist: object | null;
@@ -165,6 +253,45 @@ export interface ReportVersions {
   report_id: number;
   snapshot: object;
   version: number;
+}
+
+export interface RigCalibrations {
+  calibrated_on: Timestamp;
+  certificate_key: string | null;
+  coefficients: number[];
+  created_at: Generated<Timestamp>;
+  degree: number;
+  id: Generated<number>;
+  points: object;
+  r_squared: number | null;
+  residual_sd: number;
+  rig_id: number;
+  verified_at: Timestamp | null;
+  verified_by: number | null;
+}
+
+export interface RigCheckReadings {
+  created_at: Generated<Timestamp>;
+  id: Generated<number>;
+  in_control: boolean;
+  rig_id: number;
+  session_on: Timestamp;
+  value: number;
+}
+
+export interface Rigs {
+  check_interval_months: Generated<number>;
+  check_tool_model_id: number | null;
+  created_at: Generated<Timestamp>;
+  fixture: string;
+  id: Generated<number>;
+  kind: string;
+  name: string;
+  owner_id: number;
+  sample_rate_hz: number;
+  sensor_capacity: number;
+  sensor_kind: string;
+  shop_id: number | null;
 }
 
 export interface RoleChanges {
@@ -316,6 +443,12 @@ export interface DB {
   api_keys: ApiKeys;
   app_secrets: AppSecrets;
   ban_changes: BanChanges;
+  bench_decisions: BenchDecisions;
+  bench_protocol_series: BenchProtocolSeries;
+  bench_protocols: BenchProtocols;
+  bench_run_series: BenchRunSeries;
+  bench_runs: BenchRuns;
+  bench_trials: BenchTrials;
   decisions: Decisions;
   evidence: Evidence;
   feed_rate_limits: FeedRateLimits;
@@ -327,6 +460,9 @@ export interface DB {
   report_claims: ReportClaims;
   report_versions: ReportVersions;
   reports: Reports;
+  rig_calibrations: RigCalibrations;
+  rig_check_readings: RigCheckReadings;
+  rigs: Rigs;
   role_changes: RoleChanges;
   roles: Roles;
   sessions: Sessions;

@@ -216,6 +216,15 @@ export interface Database {
   stats_jobs: StatsJobsTable;
   app_secrets: AppSecretsTable;
   feed_snapshots: FeedSnapshotsTable;
+  rigs: RigsTable;
+  rig_calibrations: RigCalibrationsTable;
+  rig_check_readings: RigCheckReadingsTable;
+  bench_protocols: BenchProtocolsTable;
+  bench_protocol_series: BenchProtocolSeriesTable;
+  bench_runs: BenchRunsTable;
+  bench_run_series: BenchRunSeriesTable;
+  bench_trials: BenchTrialsTable;
+  bench_decisions: BenchDecisionsTable;
 }
 
 // The open feed (migration 2026-12-02T00.00); feed_rate_limits belongs to rate-limiter-flexible.
@@ -375,4 +384,152 @@ export interface StatsJobsTable {
   prior_alpha: number | null;
   prior_beta: number | null;
   computed_at: Timestamp;
+}
+
+// Bench runs (migration 2026-12-02T18.00). Forces in N, torques in N·m, pressures in kPa gauge.
+type DateOnly = ColumnType<Date, Date | string, Date | string>;
+type Json<T> = ColumnType<T, string, string>;
+
+export type RigKind = "percussive_force" | "impact_torque";
+export type BenchQuantity = "peak_force_n" | "peak_torque_nm";
+export type BenchTrigger = "full" | "lightest_steady";
+export type BenchInlet = "regulated_at_tool" | "open_line";
+
+export interface RigsTable {
+  id: Generated<number>;
+  owner_id: number;
+  shop_id: number | null;
+  name: string;
+  kind: RigKind;
+  /** CHECK rigs_sensor_fits_kind: a force rig reads a load cell, a torque fixture a transducer. */
+  sensor_kind: "load_cell" | "torque_transducer";
+  /** N for a load cell, N·m for a torque transducer. */
+  sensor_capacity: number;
+  sample_rate_hz: number;
+  fixture: string;
+  check_tool_model_id: number | null;
+  /** How long a verified calibration counts (12 months by default). */
+  check_interval_months: ColumnType<number, number | undefined, number>;
+  created_at: Timestamp;
+}
+
+/** One calibration point: the reference load (or torque) applied and what the rig read. */
+export interface CalibrationPoint {
+  reference: number;
+  reading: number;
+}
+
+export interface RigCalibrationsTable {
+  id: Generated<number>;
+  rig_id: number;
+  calibrated_on: DateOnly;
+  points: Json<CalibrationPoint[]>;
+  degree: 1 | 2;
+  coefficients: ColumnType<number[], number[], number[]>;
+  residual_sd: number;
+  r_squared: number | null;
+  certificate_key: string | null;
+  verified_by: number | null;
+  verified_at: Date | string | null;
+  created_at: Timestamp;
+}
+
+export interface RigCheckReadingsTable {
+  id: Generated<number>;
+  rig_id: number;
+  session_on: DateOnly;
+  value: number;
+  in_control: boolean;
+  created_at: Timestamp;
+}
+
+export interface BenchProtocolsTable {
+  id: Generated<number>;
+  slug: string;
+  version: number;
+  title: string;
+  category_id: number;
+  quantity: BenchQuantity;
+  trials_per_series: number;
+  /** CHECK bench_protocols_one_trial_length: blows or seconds, never both. */
+  blows_per_trial: number | null;
+  seconds_per_trial: number | null;
+  blows_discarded: ColumnType<number, number | undefined, number>;
+  attachment: string;
+  warm_up: string;
+  oiling: string;
+  summary: string;
+  /** Set by the first run that uses this version; a change after that is a new version. */
+  frozen_at: Date | string | null;
+  created_at: Timestamp;
+}
+
+export interface BenchProtocolSeriesTable {
+  id: Generated<number>;
+  protocol_id: number;
+  position: number;
+  label: string;
+  trigger: BenchTrigger;
+  inlet: BenchInlet;
+  /** Regulated: the pressure at the tool inlet. Open line: the regulator setting. */
+  inlet_kpa: number;
+  hose_length_m: number | null;
+  hose_id_mm: number | null;
+  coupler_count: number | null;
+  coupler_profile: CouplerProfile | null;
+}
+
+export interface BenchRunsTable {
+  id: Generated<number>;
+  rig_id: number;
+  protocol_id: number;
+  tool_model_id: number;
+  filed_by: number;
+  status: ColumnType<ReportStatus, ReportStatus | undefined, ReportStatus>;
+  version: ColumnType<number, number | undefined, number>;
+  unit_serial: string;
+  unit_condition: "new" | "used";
+  unit_hours: number | null;
+  run_on: DateOnly;
+  operator: string;
+  ambient_c: number;
+  video_key: string | null;
+  notes: string | null;
+  flags: TextArray;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+  submitted_at: Date | string | null;
+  decided_at: Date | string | null;
+  accepted_at: Date | string | null;
+}
+
+export interface BenchRunSeriesTable {
+  id: Generated<number>;
+  run_id: number;
+  protocol_id: number;
+  series_id: number;
+  static_inlet_kpa: number;
+  running_inlet_kpa: number;
+}
+
+export interface BenchTrialsTable {
+  id: Generated<number>;
+  run_series_id: number;
+  trial_number: number;
+  peaks: ColumnType<number[], number[], number[]>;
+  trace_key: string | null;
+  rate_hz: number | null;
+  blows_per_minute: number | null;
+}
+
+export interface BenchDecisionsTable {
+  id: Generated<number>;
+  run_id: number;
+  moderator_id: number;
+  action: "accept" | "return" | "reject";
+  reason_code: string;
+  note: string | null;
+  checklist: ColumnType<Record<string, boolean> | null, string | null | undefined, never>;
+  run_version: number;
+  created_at: Timestamp;
 }
