@@ -128,6 +128,9 @@ function SiteHeader() {
           <NavLink to="/jobs" className={link}>
             Jobs
           </NavLink>
+          <NavLink to="/bench" className={link}>
+            Bench
+          </NavLink>
           <NavLink to="/air" className={link}>
             Air
           </NavLink>

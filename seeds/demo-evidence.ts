@@ -9,6 +9,7 @@ import path from "node:path";
 import { ListObjectsCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import type { Kysely } from "kysely";
 import type { Database } from "../db/schema";
+import { demoTraceCsv, demoTraces } from "./bench";
 
 const media = (name: string) => readFileSync(path.join(import.meta.dirname, "media", name));
 
@@ -74,6 +75,18 @@ export async function ensureDemoEvidence(db: Kysely<Database>, env: Record<strin
               ContentType: file.type,
             }),
           );
+        }),
+      );
+    }
+    // The demo bench runs' raw traces, made again from the same seed as the peaks stored from them.
+    for (const { trace, unit } of demoTraces()) {
+      if (present.has(trace.key)) continue;
+      await s3.send(
+        new PutObjectCommand({
+          Bucket: env.S3_BUCKET,
+          Key: trace.key,
+          Body: demoTraceCsv(trace, unit),
+          ContentType: "text/csv",
         }),
       );
     }

@@ -4,6 +4,7 @@ import { type Kysely, sql } from "kysely";
 import type { Database, NewDecision, NewReport } from "../db/schema";
 import { categories, jobTypes, makers, models, runningAir } from "./catalogue";
 import { DEMO_OIDC_PROVIDER, demoSubject, people, shops } from "./people";
+import { loadBench } from "./bench";
 import { generateReports, makeRng } from "./reports";
 
 const slugify = (s: string) =>
@@ -245,6 +246,13 @@ export async function loadDemoScenario(db: Kysely<Database>): Promise<{ loaded: 
       await trx.insertInto("evidence").values(evidence).execute();
       total += ids.length;
     }
+    await loadBench(trx, {
+      shops: shopRows.map((s) => s.id),
+      users: userRows.map((u) => u.id),
+      models: modelRows.map((m) => m.id),
+      categories: categoryId,
+      moderators: moderatorIdx.map((i) => userRows[i]!.id),
+    });
     return { loaded: true, reports: total };
   });
 }

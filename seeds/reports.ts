@@ -73,8 +73,11 @@ export interface GeneratedReport {
   world: { regulatorSetKpa: number; inletKpa: number; demandLps: number };
 }
 
-/** How much work a tool can do relative to others in its category (demo only). */
-function toolPower(m: ModelSeed): number {
+/**
+ * How much work a tool can do relative to others in its category (demo only): the latent size that
+ * drives its field success here and its bench force in seeds/bench.ts alike.
+ */
+export function toolPower(m: ModelSeed): number {
   if (m.category === "air-hammer") return ((m.boreMm ?? 19) ** 2 * (m.strokeMm ?? 60)) / (19 ** 2 * 67);
   return (m.torqueNm ?? 800) / (m.category === "impact-wrench" ? 1200 : 80);
 }

@@ -21,6 +21,8 @@ import {
 } from "~/domain";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
+import { runsForModel } from "~/bench/runs.server";
+import { ModelBenchPanel } from "~/components/bench/model-panel";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/models.$slug";
@@ -32,17 +34,18 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const page = parsePage(request);
   const model = await getModelBySlug(db, slug);
   invariantResponse(model, "No such tool model", 404);
-  const [jobs, reports, total, units] = await Promise.all([
+  const [jobs, reports, total, units, bench] = await Promise.all([
     cellsForModel(db, model.id),
     acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { modelId: model.id }),
     unitsFor(request),
+    runsForModel(db, model.id),
   ]);
-  return { model, jobs, reports, units, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
+  return { model, jobs, reports, units, bench, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
-  const { model, jobs, reports, units, page, pages } = loaderData;
+  const { model, jobs, reports, units, bench, page, pages } = loaderData;
   const measured = new Set(model.measured_specs);
   const spec = (label: string, field: string, value: string | null) =>
     value == null ? null : { label, value, source: measured.has(field) ? "measured" : "maker sheet" };
@@ -121,6 +124,8 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
           Will my air supply feed this tool? →
         </Link>
       </p>
+
+      <ModelBenchPanel runs={bench} units={units} />
 
       <SafetyCautions action={model.category_action} />
 
