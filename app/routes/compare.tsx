@@ -4,6 +4,9 @@ import { db } from "~/db.server";
 import { ErrorPage } from "~/components/error-page";
 import { ChooseJob, ChooseTools, type CompareTool, Comparison } from "~/components/compare-view";
 import { CURVE_COLOURS } from "~/components/pressure-curves";
+import { compareBench } from "~/bench/figures-read.server";
+import { CompareBench } from "~/components/bench-figures/compare-bench";
+import { unitsFor } from "~/auth/units.server";
 import { getJobBySlug, listJobs } from "~/catalogue/queries.server";
 import { compareOnJob } from "~/stats/cells.server";
 import { readCompareQuery } from "~/stats/compare-query";
@@ -43,8 +46,17 @@ export async function loader({ request }: Route.LoaderArgs) {
     km: { median: cell.km_median_s, lower: cell.km_lower_s, upper: cell.km_upper_s },
     steps: cell.km_steps ?? null,
   }));
+  const [bench, units] = await Promise.all([
+    compareBench(
+      db,
+      tools.map((t) => t.slug),
+    ),
+    unitsFor(request),
+  ]);
   return {
     view: "compare" as const,
+    bench,
+    units,
     job,
     psi: q.psi,
     tools,
@@ -65,7 +77,12 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
         problem={loaderData.problem}
       />
     );
-  return <Comparison {...loaderData} />;
+  return (
+    <div className="space-y-6">
+      <Comparison {...loaderData} />
+      <CompareBench tools={loaderData.tools} bench={loaderData.bench} units={loaderData.units} />
+    </div>
+  );
 }
 
 export function meta({ data }: Route.MetaArgs) {

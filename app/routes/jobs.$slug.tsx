@@ -6,6 +6,8 @@ import { ErrorPage } from "~/components/error-page";
 import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
+import { jobForce } from "~/bench/figures-read.server";
+import { ForceCurvePanel } from "~/components/bench-figures/force-curve";
 import { acceptedReports, countAccepted, getJobBySlug } from "~/catalogue/queries.server";
 import { jobStandings } from "~/stats/cells.server";
 import { readSupply } from "~/stats/supply-query";
@@ -36,8 +38,10 @@ export async function loader({ params, request }: Route.LoaderArgs) {
         asked.supply,
       )
     : null;
+  const force = await jobForce(db, job.id);
   return {
     job,
+    force,
     standings,
     reports,
     page,
@@ -79,6 +83,8 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
         setAside={standings.setAside}
         units={loaderData.units}
       />
+
+      <ForceCurvePanel data={loaderData.force} units={loaderData.units} />
 
       <section aria-labelledby="reports-heading">
         <h2 id="reports-heading" className="mb-2 text-lg font-semibold">

@@ -22,7 +22,9 @@ import {
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
 import { runsForModel } from "~/bench/runs.server";
+import { modelAcrossRigs } from "~/bench/figures-read.server";
 import { ModelBenchPanel } from "~/components/bench/model-panel";
+import { AcrossRigsPanel } from "~/components/bench-figures/across-rigs-panel";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/models.$slug";
@@ -41,7 +43,8 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     unitsFor(request),
     runsForModel(db, model.id),
   ]);
-  return { model, jobs, reports, units, bench, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
+  const acrossRigs = await modelAcrossRigs(db, model.id);
+  return { model, jobs, reports, units, bench, acrossRigs, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
@@ -126,6 +129,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
       </p>
 
       <ModelBenchPanel runs={bench} units={units} />
+      <AcrossRigsPanel data={loaderData.acrossRigs} units={units} />
 
       <SafetyCautions action={model.category_action} />
 
