@@ -15,7 +15,7 @@ type Point = JobForce["curve"][number];
 
 export function ForceCurvePanel({ data, units }: { data: JobForce | null; units: Units }) {
   if (!data) return null;
-  const q = data.quantity as BenchQuantity;
+  const q = data.quantity;
   const u = benchUnit(q, units);
   const f = (v: number | null) => formatBench(q, v, units);
   const x = scaleLinear()

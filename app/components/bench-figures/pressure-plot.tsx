@@ -4,10 +4,13 @@ import { scaleLinear } from "d3-scale";
 import { area, line } from "d3-shape";
 import { benchUnit, type BenchQuantity } from "~/bench/terms";
 import { formatPressure, type Units } from "~/domain";
-import type { BandPointRow, PressurePointRow } from "../../../db/bench-figures-schema";
+import type { ModelAcrossRigs } from "~/bench/figures-read.server";
 import { Axes, BAND, Figure, INK, M, W } from "./svg";
 
 const H = 220;
+type Slope = NonNullable<ModelAcrossRigs["slope"]>;
+type PressurePointRow = Slope["points"][number];
+type BandPointRow = Slope["band"][number];
 
 export function PressurePlot({
   quantity,
