@@ -3,7 +3,7 @@
 // curve — by their bench force, or, without bench data, where the curve meets their field success.
 import { scaleLinear } from "d3-scale";
 import { area, line } from "d3-shape";
-import { benchUnit, formatBench, type BenchQuantity } from "~/bench/terms";
+import { benchUnit, formatBench } from "~/bench/terms";
 import type { JobForce } from "~/bench/figures-read.server";
 import { Link } from "react-router";
 import { formatChance, toolName, type Units } from "~/domain";
