@@ -2,6 +2,7 @@
 // analysis runs in the browser (a preview before submitting) and on the server (the stored figures),
 // so it uses nothing but the language: no Node APIs, no DOM.
 import { peakSummary, type PeakSummary } from "./figures";
+import { medianOf } from "./quickselect";
 
 export { parseTraceCsv, TraceError, type ParseTraceOptions } from "./trace-csv";
 export { synthesizeTrace, type SynthesizeTraceOptions } from "./trace-synthetic";
@@ -15,7 +16,7 @@ export const NOISE_MULTIPLE = 8;
 /** …and at least this fraction of the median candidate peak, so ring-down and bounces are not blows. */
 export const PEAK_FRACTION = 0.25;
 /** Samples per window from which the quiet level is measured. */
-const WINDOW_SUBSAMPLE = 2048;
+const WINDOW_SUBSAMPLE = 1024;
 
 export interface TraceBlow {
   timeS: number;
@@ -46,7 +47,7 @@ export interface AnalyseTraceOptions {
  *
  * Baseline: the trace is cut into 0.5 s windows; in each, the quiet samples are those within 3 robust
  * SDs (1.4826·MAD) of the window's median, and the window's level is their median (each window
- * measured on an evenly strided subsample of about 2,048 of its samples). The level is
+ * measured on an evenly strided subsample of about 1,024 of its samples). The level is
  * interpolated linearly between window centres and subtracted, which removes a slow drift too.
  * `baseline` reports the median of the window levels. Noise σ: the median over windows of 1.4826·MAD
  * of the quiet samples. Each step is a quickselect, so the whole analysis is linear in the samples.
@@ -55,11 +56,14 @@ export interface AnalyseTraceOptions {
  * (default 60/7200 s; within the spacing the larger peak is kept). Default threshold: above 8σ, and
  * then at least 25 % of the median of those candidate peaks (our rules). Peak height and time are
  * refined by a parabola through the top sample and its neighbours; a flat top (a clipped blow) keeps
- * its level and its middle. clipped: the raw reading reached the capacity.
+ * its level and its middle. clipped: the raw reading reached the capacity; such a peak is the
+ * clipped reading above the baseline, a lower bound, never extrapolated.
  *
  * blowsPerMinute: 60 / the median interval between consecutive blows (after discardBlows when two
  * or more remain), robust to a missed or an extra blow, unlike a count over the trace's length.
  * summary: median, p10 and p90 of the peaks after discardBlows. Times are from the first sample.
+ * Throws RangeError on a bad rate, an empty trace or a non-finite sample (programmer errors: a parsed
+ * trace has none).
  */
 export function analyseTrace(
   samples: ArrayLike<number>,
@@ -74,23 +78,31 @@ export function analyseTrace(
 
   // One typed array from here on: every loop below then reads the same kind of array.
   const raw = samples instanceof Float64Array ? samples : Float64Array.from(samples);
-  const { detrended, baseline, noise } = removeBaseline(raw, rateHz);
+  for (let i = 0; i < n; i++) {
+    if (raw[i]! - raw[i]! !== 0) throw new RangeError(`sample ${i} is not a finite number`);
+  }
+  const { detrended, baseline, noise, lowest } = removeBaseline(raw, rateHz);
   let found: Peak[];
   if (options.threshold !== undefined) {
-    found = findPeaks(detrended, n, options.threshold, spacing);
+    found = findPeaks(raw, detrended, options.threshold + lowest, options.threshold, spacing);
   } else {
-    const candidates = findPeaks(detrended, n, NOISE_MULTIPLE * noise, spacing);
+    // A noiseless trace (σ = 0) still needs a floor above rounding residue: a millionth of its range.
+    let top = -Infinity;
+    for (let i = 0; i < n; i++) if (raw[i]! > top) top = raw[i]!;
+    const floor = Math.max(NOISE_MULTIPLE * noise, 1e-6 * (top - lowest));
+    const candidates = findPeaks(raw, detrended, floor + lowest, floor, spacing);
     const typical = candidates.length ? peakSummary(candidates.map((c) => c.height)).median : 0;
-    const threshold = Math.max(NOISE_MULTIPLE * noise, PEAK_FRACTION * typical);
+    const threshold = Math.max(floor, PEAK_FRACTION * typical);
     found = candidates.filter((c) => c.height >= threshold);
   }
 
   const capacity = options.capacity;
-  const blows = found.map((p) => ({
-    timeS: p.position / rateHz,
-    peak: p.height,
-    clipped: capacity !== undefined && raw[p.top]! >= capacity,
-  }));
+  // A clipped blow's true peak is unknown (at least the capacity): report the clipped reading, not a
+  // parabola through it.
+  const blows = found.map((p) => {
+    const clipped = capacity !== undefined && raw[p.top]! >= capacity;
+    return { timeS: p.position / rateHz, peak: clipped ? detrended(p.top) : p.height, clipped };
+  });
   const kept = blows.length - discard >= 2 ? blows.slice(discard) : blows;
   const intervals: number[] = [];
   for (let i = 1; i < kept.length; i++) intervals.push(kept[i]!.timeS - kept[i - 1]!.timeS);
@@ -132,6 +144,7 @@ function removeBaseline(samples: Float64Array, rateHz: number) {
 
   return {
     detrended: detrender(samples, centres, levels),
+    lowest: levels.reduce((m, v) => Math.min(m, v), Infinity),
     baseline: medianOf(Float64Array.from(levels), windows),
     noise: medianOf(noises, windows),
   };
@@ -161,24 +174,27 @@ interface Peak {
   top: number;
 }
 
-function findPeaks(d: (i: number) => number, n: number, threshold: number, spacing: number): Peak[] {
+/**
+ * Local maxima of d above the threshold, at least `spacing` samples apart (the larger kept). d(i) is
+ * never above raw[i] − the lowest window level, so a sample at or below `gate` (threshold + that
+ * level) is passed over by one comparison: the scan reads the raw samples, and d is computed only
+ * near the blows.
+ */
+function findPeaks(raw: Float64Array, d: (i: number) => number, gate: number, threshold: number, spacing: number) {
   const peaks: Peak[] = [];
-  let before = d(0);
-  let v = n > 1 ? d(1) : 0;
+  const n = raw.length;
   for (let i = 1; i < n - 1; i++) {
-    const after = d(i + 1);
-    if (!(v > threshold) || !(v > before) || after > v) {
-      before = v;
-      v = after;
-      continue;
-    }
+    if (!(raw[i]! > gate)) continue;
+    const v = d(i);
+    if (!(v > threshold)) continue;
+    const before = d(i - 1);
+    if (!(v > before)) continue;
+    let after = d(i + 1);
+    if (after > v) continue;
     // A flat top: walk to its end; a peak only if the trace falls after it.
     let j = i;
-    let next = after;
-    while (next === v && j + 1 < n - 1) next = d(++j + 1);
-    if (!(next < v)) {
-      before = v;
-      v = next;
+    while (after === v && j + 1 < n - 1) after = d(++j + 1);
+    if (!(after < v)) {
       i = j;
       continue;
     }
@@ -198,48 +214,9 @@ function findPeaks(d: (i: number) => number, n: number, threshold: number, spaci
     } else {
       peaks.push({ position, height, top: i });
     }
-    before = v;
-    v = next;
     i = j;
   }
   return peaks;
-}
-
-/** Median of the first `len` values of a scratch array (reordered in place); NaN when len is 0. */
-function medianOf(a: Float64Array, len: number): number {
-  if (len === 0) return NaN;
-  const mid = len >> 1;
-  const upper = select(a, len, mid);
-  if (len % 2) return upper;
-  let lower = -Infinity;
-  for (let i = 0; i < mid; i++) if (a[i]! > lower) lower = a[i]!;
-  return (lower + upper) / 2;
-}
-
-/** k-th smallest of a[0..len) by Hoare's quickselect, in place, O(len) expected. */
-function select(a: Float64Array, len: number, k: number): number {
-  let lo = 0;
-  let hi = len - 1;
-  while (lo < hi) {
-    const pivot = a[(lo + hi) >> 1]!;
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (a[i]! < pivot) i++;
-      while (a[j]! > pivot) j--;
-      if (i <= j) {
-        const t = a[i]!;
-        a[i] = a[j]!;
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else return a[k]!;
-  }
-  return a[k]!;
 }
 
 /**

@@ -23,7 +23,7 @@ export default function ProtocolPage({ loaderData }: Route.ComponentProps) {
     <div className="space-y-6">
       <header>
         <p className="text-sm">
-          <Link to="/bench" className="text-bay-700 underline">
+          <Link to="/bench" className="inline-flex min-h-11 items-center text-bay-700 underline">
             Bench runs
           </Link>
         </p>

@@ -39,7 +39,7 @@ export default function RunPage({ loaderData }: Route.ComponentProps) {
     <div className="space-y-6">
       <header>
         <p className="text-sm">
-          <Link to="/bench" className="text-bay-700 underline">
+          <Link to="/bench" className="inline-flex min-h-11 items-center text-bay-700 underline">
             Bench runs
           </Link>
         </p>
@@ -66,7 +66,10 @@ export default function RunPage({ loaderData }: Route.ComponentProps) {
         )}
         {own && (run.status === "draft" || run.status === "returned") && (
           <p className="mt-1">
-            <Link to={`/bench/runs/${run.id}/edit`} className="text-bay-700 underline">
+            <Link
+              to={`/bench/runs/${run.id}/edit`}
+              className="inline-flex min-h-11 items-center text-bay-700 underline"
+            >
               Edit this run
             </Link>
           </p>

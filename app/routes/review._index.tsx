@@ -4,6 +4,8 @@ import { ErrorPage } from "~/components/error-page";
 import { JumpToReport, QueueFilters } from "~/components/review/queue-filters";
 import { QueueList, QueuePager } from "~/components/review/queue-list";
 import { Card } from "~/components/ui";
+import { BenchQueue } from "~/components/bench/bench-review";
+import { benchQueue } from "~/bench/moderation.server";
 import { db } from "~/db.server";
 import { QUEUE_SORTS, readQueueFilter } from "~/moderation/queue-filter";
 import { queuePage } from "~/moderation/queue-page.server";
@@ -16,16 +18,17 @@ export async function loader({ request }: Route.LoaderArgs) {
   const search = new URL(request.url).searchParams;
   const read = readQueueFilter(search);
   if (!read.ok) refuse(read.message);
-  const [page, jobs] = await Promise.all([
+  const [page, jobs, bench] = await Promise.all([
     queuePage(db, moderator.id, read.filter, search.get("report")),
     jobTypesByCategory(db),
+    benchQueue(db, moderator.id),
   ]);
   if (page.redirectTo) throw redirect(page.redirectTo);
-  return data({ ...page, jobs, filter: read.filter }, { status: page.jumpError ? 400 : 200 });
+  return data({ ...page, jobs, bench, filter: read.filter }, { status: page.jumpError ? 400 : 200 });
 }
 
 export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
-  const { queue, counts, jobs, filter, waitDays, jump, jumpError } = loaderData;
+  const { queue, counts, jobs, bench, filter, waitDays, jump, jumpError } = loaderData;
   return (
     <div className="space-y-4">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
@@ -49,6 +52,7 @@ export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
       </div>
       <QueueList rows={queue.rows} filter={{ ...filter, page: queue.page }} />
       <QueuePager paging={queue} filter={filter} position="bottom" />
+      <BenchQueue rows={bench} />
     </div>
   );
 }

@@ -1,6 +1,7 @@
 // A raw trace drawn for reading: the signal decimated to a min–max band per pixel column, each
 // detected blow marked, and clipped blows (at the sensor's capacity) marked apart. Used on a run's
 // page (from the server's analysis) and in the filing form's preview (from the browser's).
+import { useId } from "react";
 import { scaleLinear } from "d3-scale";
 import { area } from "d3-shape";
 
@@ -22,6 +23,7 @@ export function TracePlot({
   perSi: number;
   title: string;
 }) {
+  const titleId = useId();
   const W = 360,
     H = 190,
     m = { l: 52, r: 8, t: 10, b: 34 };
@@ -43,8 +45,8 @@ export function TracePlot({
   const clipped = blows.filter((b) => b.clipped).length;
   return (
     <figure className="rounded-lg border border-stone-200 bg-white p-2">
-      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby={`${title}-t`} className="h-auto w-full">
-        <title id={`${title}-t`}>{`${title}: the raw signal with ${blows.length} detected blows marked`}</title>
+      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby={titleId} className="h-auto w-full">
+        <title id={titleId}>{`${title}: the raw signal with ${blows.length} detected blows marked`}</title>
         {y.ticks(4).map((t) => (
           <g key={t}>
             <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke="#e7e5e4" />
