@@ -5,6 +5,7 @@ import type { Db } from "../../db/database";
 import { RATED_INLET_KPA } from "~/domain";
 import type { LogisticFit } from "~/stats";
 import { benchForces } from "./figures.server";
+import { runsForModel } from "./runs.server";
 import { forceCurve } from "./force-for-job";
 import { benchForceAt } from "./stored-figures";
 import type { BenchQuantity } from "./terms";
@@ -182,3 +183,9 @@ export async function compareBench(db: Db, modelSlugs: readonly string[]) {
 }
 
 export type CompareBenchRow = Awaited<ReturnType<typeof compareBench>>[number];
+
+/** A model page's bench reads: its accepted runs and its figures across rigs. */
+export async function benchForModel(db: Db, modelId: number) {
+  const [runs, acrossRigs] = await Promise.all([runsForModel(db, modelId), modelAcrossRigs(db, modelId)]);
+  return { runs, acrossRigs };
+}

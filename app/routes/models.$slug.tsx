@@ -21,10 +21,8 @@ import {
 } from "~/domain";
 import { acceptedReports, countAccepted, getModelBySlug } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
-import { runsForModel } from "~/bench/runs.server";
-import { modelAcrossRigs } from "~/bench/figures-read.server";
+import { benchForModel } from "~/bench/figures-read.server";
 import { ModelBenchPanel } from "~/components/bench/model-panel";
-import { AcrossRigsPanel } from "~/components/bench-figures/across-rigs-panel";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
 import type { Route } from "./+types/models.$slug";
@@ -41,10 +39,9 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { modelId: model.id }),
     unitsFor(request),
-    runsForModel(db, model.id),
+    benchForModel(db, model.id),
   ]);
-  const acrossRigs = await modelAcrossRigs(db, model.id);
-  return { model, jobs, reports, units, bench, acrossRigs, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
+  return { model, jobs, reports, units, bench, page, pages: Math.max(1, Math.ceil(total / PER_PAGE)) };
 }
 
 export default function ModelPage({ loaderData }: Route.ComponentProps) {
@@ -128,8 +125,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
         </Link>
       </p>
 
-      <ModelBenchPanel runs={bench} units={units} />
-      <AcrossRigsPanel data={loaderData.acrossRigs} units={units} />
+      <ModelBenchPanel runs={bench.runs} acrossRigs={bench.acrossRigs} units={units} />
 
       <SafetyCautions action={model.category_action} />
 
