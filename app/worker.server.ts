@@ -8,6 +8,7 @@ import type { Db } from "../db/database";
 import { removeOrphanedEvidence } from "~/reports/evidence.server";
 import { sendDecisionMail } from "~/moderation/mail.server";
 import { refreshCell } from "~/stats/refresh.server";
+import { refreshBenchFigures } from "~/bench/figures.server";
 import { indexReport } from "~/search/search.server";
 import { latestSnapshot, writeSnapshot } from "~/feed/snapshot.server";
 import { defaultStore } from "~/storage/s3.server";
@@ -32,6 +33,9 @@ export async function startWorker(connectionString: string, db: Db, pool: pg.Poo
   });
   await work(boss, QUEUES.statsRefresh, async ({ modelId, jobTypeId }) => {
     await refreshCell(db, modelId, jobTypeId);
+  });
+  await work(boss, QUEUES.benchFigures, async () => {
+    await refreshBenchFigures(db);
   });
   await work(boss, QUEUES.searchIndex, async ({ reportId }) => {
     await indexReport(db, reportId);

@@ -51,6 +51,67 @@ export interface BenchDecisions {
   run_version: number;
 }
 
+export interface BenchJobForce {
+  computed_at: Generated<Timestamp>;
+  confidence: Generated<number>;
+  converged: boolean;
+  cov_intercept_slope: number;
+  ed50: number;
+  ed50_lower: number | null;
+  ed50_upper: number | null;
+  firth: boolean;
+  force_max: number;
+  force_min: number;
+  intercept: number;
+  job_type_id: number;
+  method: string;
+  models: number;
+  quantity: string;
+  reports: number;
+  slope: number;
+  var_intercept: number;
+  var_slope: number;
+}
+
+export interface BenchPooledFigures {
+  computed_at: Generated<Timestamp>;
+  confidence: Generated<number>;
+  estimate: number;
+  figure: string;
+  i2: number;
+  lower: number;
+  method: string;
+  prediction_lower: number | null;
+  prediction_upper: number | null;
+  protocol_id: number;
+  rigs: number;
+  runs: number;
+  series_id: number;
+  standard_error: number;
+  tau2: number;
+  tool_model_id: number;
+  upper: number;
+}
+
+export interface BenchPressureSlopes {
+  at_kpa: number;
+  band: object;
+  computed_at: Generated<Timestamp>;
+  confidence: Generated<number>;
+  intercept: number;
+  n: number;
+  points: object;
+  predicted: number;
+  predicted_lower: number;
+  predicted_upper: number;
+  protocol_id: number;
+  residual_sd: number;
+  slope: number;
+  slope_lower: number;
+  slope_upper: number;
+  tool_model_id: number;
+}
+
 export interface BenchProtocols {
   attachment: string;
   blows_discarded: Generated<number>;
@@ -82,6 +143,31 @@ export interface BenchProtocolSeries {
   position: number;
   protocol_id: number;
   trigger: string;
+}
+
+export interface BenchRigAgreement {
+  between_rig_sd: number;
+  computed_at: Generated<Timestamp>;
+  confidence: Generated<number>;
+  grand_mean: number;
+  id: Generated<number>;
+  readings: number;
+  repeatability_sd: number;
+  reproducibility_sd: number;
+  rigs: number;
+  series_id: number | null;
+  source: string;
+  tool_model_id: number;
+}
+
+export interface BenchRigBias {
+  agreement_id: number;
+  bias: number;
+  lower: number;
+  mean: number;
+  n: number;
+  rig_id: number;
+  upper: number;
 }
 
 export interface BenchRuns {
@@ -457,8 +543,13 @@ export interface DB {
   app_secrets: AppSecrets;
   ban_changes: BanChanges;
   bench_decisions: BenchDecisions;
+  bench_job_force: BenchJobForce;
+  bench_pooled_figures: BenchPooledFigures;
+  bench_pressure_slopes: BenchPressureSlopes;
   bench_protocol_series: BenchProtocolSeries;
   bench_protocols: BenchProtocols;
+  bench_rig_agreement: BenchRigAgreement;
+  bench_rig_bias: BenchRigBias;
   bench_run_series: BenchRunSeries;
   bench_runs: BenchRuns;
   bench_trials: BenchTrials;

@@ -2,6 +2,7 @@
 // their values. db/schema-check.ts holds it to db/generated.ts (kysely-codegen's reading of the
 // migrated database), and tests/integration/schema-matches-database.test.ts keeps that file current.
 import type { ColumnType, Generated, Insertable, Selectable } from "kysely";
+import type { BenchFiguresTables } from "./bench-figures-schema";
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type TextArray = ColumnType<string[], string[] | undefined, string[]>;
@@ -213,7 +214,7 @@ export interface NoticesTable {
   read_at: Date | string | null;
 }
 
-export interface Database {
+export interface Database extends BenchFiguresTables {
   shops: ShopsTable;
   users: UsersTable;
   roles: RolesTable;

@@ -6,6 +6,7 @@ import { migrateToLatest } from "../db/migrate";
 import type { Database } from "../db/schema";
 import { loadDemoScenario } from "../seeds/index";
 import { refreshAll } from "../app/stats/refresh.server";
+import { refreshBenchFiguresWhenEmpty } from "./refresh-bench";
 
 export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => void = console.log) {
   const applied = await migrateToLatest(db);
@@ -23,6 +24,7 @@ export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => 
     const t1 = Date.now();
     log(`Computed ${await refreshAll(db)} stats cells in ${((Date.now() - t1) / 1000).toFixed(1)} s`);
   }
+  await refreshBenchFiguresWhenEmpty(db, log);
 }
 
 // `npm run db:prepare`: the same against DATABASE_URL (a database npm start does not manage).

@@ -1,5 +1,6 @@
 // Bench runs in review: the queue of submitted runs, one run's review facts, and the decision, which
 // locks the run, checks the version the moderator saw and appends to the run's log in one transaction.
+import { enqueueBenchFiguresRefresh } from "./figures.server";
 import { sql } from "kysely";
 import type { Db } from "../../db/database";
 import { toolName } from "../domain";
@@ -129,6 +130,7 @@ export async function decideBenchRun(db: Db, d: BenchDecision) {
       })
       .where("id", "=", run.id)
       .execute();
+    if (d.action === "accept") await enqueueBenchFiguresRefresh(trx);
     return STATUS[d.action];
   });
 }

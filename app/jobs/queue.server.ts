@@ -11,6 +11,7 @@ export const QUEUES = {
   statsRefresh: "stats-refresh",
   searchIndex: "search-index",
   feedSnapshot: "feed-snapshot",
+  benchFigures: "bench-figures-refresh",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
@@ -21,6 +22,7 @@ export interface JobPayloads {
   [QUEUES.statsRefresh]: { modelId: number; jobTypeId: number };
   [QUEUES.searchIndex]: { reportId: number };
   [QUEUES.feedSnapshot]: Record<string, never>;
+  [QUEUES.benchFigures]: Record<string, never>;
 }
 
 /**
@@ -50,6 +52,7 @@ export const JOB_OPTIONS: Record<QueueName, PgBoss.SendOptions> = {
   [QUEUES.statsRefresh]: { retryLimit: 5, retryDelay: 5, retryBackoff: true },
   [QUEUES.searchIndex]: { retryLimit: 10, retryDelay: 5, retryBackoff: true, retentionDays: 2 },
   [QUEUES.feedSnapshot]: { retryLimit: 3, retryDelay: 300, expireInSeconds: 60 * 60 },
+  [QUEUES.benchFigures]: { retryLimit: 5, retryDelay: 5, retryBackoff: true },
 };
 
 /**
@@ -62,8 +65,11 @@ export const WORKER_OPTIONS = {
   deleteAfterDays: 7,
 } as const;
 
-/** The snapshot queue holds at most one waiting and one running job, however many workers ask. */
-const POLICY: Partial<Record<QueueName, PgBoss.QueuePolicy>> = { [QUEUES.feedSnapshot]: "stately" };
+/** The snapshot and bench-figures queues hold at most one waiting and one running job, however many workers ask. */
+const POLICY: Partial<Record<QueueName, PgBoss.QueuePolicy>> = {
+  [QUEUES.feedSnapshot]: "stately",
+  [QUEUES.benchFigures]: "stately",
+};
 
 /** Creates every queue (a no-op for those that exist), in the app and in the worker alike. */
 export async function createQueues(b: PgBoss) {

@@ -4,6 +4,8 @@ import { getUser } from "~/auth/session.server";
 import { listProtocols } from "~/bench/protocols.server";
 import { listRigs } from "~/bench/rigs.server";
 import { latestAcceptedRuns } from "~/bench/runs.server";
+import { rigAgreements } from "~/bench/figures-read.server";
+import { RigAgreementSection } from "~/components/bench-figures/rig-agreement";
 import { BenchIntro } from "~/components/bench/bench-intro";
 import { BenchSafetyCautions } from "~/components/bench/bench-safety";
 import { ProtocolCard } from "~/components/bench/protocol";
@@ -23,7 +25,8 @@ export async function loader({ request }: Route.LoaderArgs) {
     latestAcceptedRuns(db, 15),
   ]);
   const ownsRig = user != null && rigs.some((r) => r.owner_id === user.id);
-  return { units, protocols, rigs, runs, ownsRig };
+  const agreements = await rigAgreements(db);
+  return { units, protocols, rigs, runs, ownsRig, agreements };
 }
 
 export default function BenchPage({ loaderData }: Route.ComponentProps) {
@@ -62,6 +65,8 @@ export default function BenchPage({ loaderData }: Route.ComponentProps) {
         </p>
         <RigList rigs={rigs} units={units} />
       </section>
+
+      <RigAgreementSection rows={loaderData.agreements} units={units} />
 
       <section aria-labelledby="runs-heading" className="space-y-2">
         <h2 id="runs-heading" className="text-lg font-semibold">

@@ -4,6 +4,9 @@ import { readDb } from "~/db.server";
 import { ErrorPage } from "~/components/error-page";
 import { ChooseJob, ChooseTools, type CompareTool, Comparison } from "~/components/compare-view";
 import { CURVE_COLOURS } from "~/components/pressure-curves";
+import { compareBench } from "~/bench/figures-read.server";
+import { CompareBench } from "~/components/bench-figures/compare-bench";
+import { unitsFor } from "~/auth/units.server";
 import { getJobBySlug, listJobs } from "~/catalogue/queries.server";
 import { compareOnJob } from "~/stats/cells.server";
 import { CompareExposurePanel } from "~/components/exposure/compare-exposure";
@@ -45,8 +48,17 @@ export async function loader({ request }: Route.LoaderArgs) {
     km: { median: cell.km_median_s, lower: cell.km_lower_s, upper: cell.km_upper_s },
     steps: cell.km_steps ?? null,
   }));
+  const [bench, units] = await Promise.all([
+    compareBench(
+      readDb,
+      tools.map((t) => t.slug),
+    ),
+    unitsFor(request),
+  ]);
   return {
     view: "compare" as const,
+    bench,
+    units,
     job,
     psi: q.psi,
     tools,
@@ -68,10 +80,11 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
         problem={loaderData.problem}
       />
     );
-  const { exposure, ...comparison } = loaderData;
+  const { exposure, bench, units, ...comparison } = loaderData;
   return (
     <div className="space-y-6">
       <Comparison {...comparison} />
+      <CompareBench tools={comparison.tools} bench={bench} units={units} />
       <CompareExposurePanel exposure={exposure} job={comparison.job} psi={comparison.psi} />
     </div>
   );

@@ -6,6 +6,8 @@ import { ErrorPage } from "~/components/error-page";
 import { Pager } from "~/components/pager";
 import { ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
+import { jobForce } from "~/bench/figures-read.server";
+import { ForceCurvePanel } from "~/components/bench-figures/force-curve";
 import { acceptedReports, countAccepted, getJobBySlug } from "~/catalogue/queries.server";
 import { jobShortlist } from "~/exposure/shortlist.server";
 import { jobStandings } from "~/stats/cells.server";
@@ -28,9 +30,13 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     unitsFor(request),
   ]);
   // The shopper's supply and shortlist: read what parses, and say what did not rather than fail the page.
-  const shortlist = await jobShortlist(readDb, standings, search, units);
+  const [shortlist, force] = await Promise.all([
+    jobShortlist(readDb, standings, search, units),
+    jobForce(readDb, job.id),
+  ]);
   return {
     job,
+    force,
     standings,
     reports,
     page,
@@ -69,6 +75,8 @@ export default function JobPage({ loaderData }: Route.ComponentProps) {
         setAside={standings.setAside}
         units={loaderData.units}
       />
+
+      <ForceCurvePanel data={loaderData.force} units={loaderData.units} />
 
       <section aria-labelledby="reports-heading">
         <h2 id="reports-heading" className="mb-2 text-lg font-semibold">

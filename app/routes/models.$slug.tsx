@@ -14,7 +14,7 @@ import { acceptedReports, countAccepted, getModelBySlug, publishedEvidenceForMod
 import { cellsForModel } from "~/stats/cells.server";
 import { ModelExposurePanel } from "~/components/exposure/model-exposure-panel";
 import { modelExposure } from "~/exposure/pages.server";
-import { runsForModel } from "~/bench/runs.server";
+import { benchForModel } from "~/bench/figures-read.server";
 import { ModelBenchPanel } from "~/components/bench/model-panel";
 import { invariantResponse } from "~/utils/http";
 import { parsePage, parseSlug } from "~/utils/params";
@@ -33,7 +33,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     unitsFor(request),
     publishedEvidenceForModel(db, model.id),
     modelExposure(db, model.id, new URL(request.url)),
-    runsForModel(db, model.id),
+    benchForModel(db, model.id),
   ]);
   return {
     model,
@@ -86,7 +86,7 @@ export default function ModelPage({ loaderData }: Route.ComponentProps) {
         </Link>
       </p>
 
-      <ModelBenchPanel runs={loaderData.bench} units={units} />
+      <ModelBenchPanel runs={loaderData.bench.runs} acrossRigs={loaderData.bench.acrossRigs} units={units} />
       <ModelExposurePanel exposure={loaderData.exposure} modelSlug={model.slug} />
       <SafetyCautions action={model.category_action} />
       <EvidenceGallery files={loaderData.published} />

@@ -5,8 +5,18 @@ import { formatBench } from "~/bench/terms";
 import type { RunListItem } from "~/bench/runs.server";
 import type { Units } from "~/domain";
 import { RunList } from "./run-list";
+import type { ModelAcrossRigs } from "~/bench/figures-read.server";
+import { AcrossRigsPanel } from "../bench-figures/across-rigs-panel";
 
-export function ModelBenchPanel({ runs, units }: { runs: RunListItem[]; units: Units }) {
+export function ModelBenchPanel({
+  runs,
+  units,
+  acrossRigs,
+}: {
+  runs: RunListItem[];
+  units: Units;
+  acrossRigs?: ModelAcrossRigs;
+}) {
   const means = runs.flatMap((r) => (r.full_trigger_mean == null ? [] : [r.full_trigger_mean]));
   const rigs = new Set(runs.map((r) => r.rig_id)).size;
   const quantity = runs[0]?.quantity;
@@ -35,6 +45,7 @@ export function ModelBenchPanel({ runs, units }: { runs: RunListItem[]; units: U
             </Link>
           </p>
           <RunList runs={runs} units={units} show={["rig"]} />
+          {acrossRigs && <AcrossRigsPanel data={acrossRigs} units={units} />}
         </>
       )}
     </section>
