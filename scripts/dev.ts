@@ -10,7 +10,6 @@ const supervisor = new Supervisor(log, () => void control?.exit(1));
 control = await runStartCommand(
   async () => {
     const services = await startServices();
-    await services.indexed;
     const env = { ...process.env, ...services.env };
     supervisor.run("dev", () => {
       const child = spawn(

@@ -72,30 +72,16 @@ export async function startServices() {
   const db = createDb(databaseUrl, 2);
   try {
     await prepareDatabase(db, log);
-  } catch (error) {
+    const placed = await ensureDemoEvidence(db, fakes.env);
+    if (placed) log(`Placed ${placed} demo evidence files in the local object store`);
+    // The local search fake keeps its index in memory: fill it on every start.
+    log(`Indexed ${await reindexAll(db, searchClient(fakes.env.SEARCH_URL))} documents in the local search service`);
+  } finally {
     await db.destroy();
-    throw error;
   }
-  // The demo evidence files and the local search index are not needed to start the app server:
-  // they are filled while it boots, and `indexed` says when they are done.
-  const indexed = (async () => {
-    try {
-      const [placed, documents] = await Promise.all([
-        ensureDemoEvidence(db, fakes.env),
-        // The local search fake keeps its index in memory: fill it on every start.
-        reindexAll(db, searchClient(fakes.env.SEARCH_URL)),
-      ]);
-      if (placed) log(`Placed ${placed} demo evidence files in the local object store`);
-      log(`Indexed ${documents} documents in the local search service`);
-    } finally {
-      await db.destroy();
-    }
-  })();
-  onStop(() => indexed.catch(() => {}));
   return {
     env: { DATABASE_URL: databaseUrl, ...fakes.env, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true" },
     runState,
-    indexed,
   };
 }
 

@@ -43,7 +43,6 @@ control = await runStartCommand(
       record("worker", child.pid);
       return child;
     });
-    await services.indexed;
     await waitForHttp(
       `http://${host}:${port}/`,
       {
