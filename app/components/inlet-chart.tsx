@@ -1,4 +1,4 @@
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import { line } from "d3-shape";
 import { inletAlongLengths } from "~/air/analysis";
 import type { ToolAir } from "~/air/line";

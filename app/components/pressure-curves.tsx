@@ -1,7 +1,7 @@
 // Predicted share freed against inlet pressure, per tool, from the job's pooled fit: drawn in the
 // browser from the stored fit (no round trip as the pressure moves). Each curve spans only the
 // 10th–90th percentile of the tool's own known inlet pressures.
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import { area, line } from "d3-shape";
 import { kpaToPsi, psiToKpa } from "~/domain";
 import { predictAt, type PooledCellFit } from "~/stats/predict";

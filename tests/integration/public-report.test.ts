@@ -24,7 +24,13 @@ describe("/reports/:id", () => {
     const html = await res.text();
     expect(html).toContain("What the reporter recorded");
     expect(html).toContain("Published videos and photos");
-    expect(html).toMatch(/X-Amz-Signature=/);
+    // Pages link to the feed's stable address of each file, which redirects to a fresh signed link.
+    const link =
+      /href="(\/api\/v1\/evidence\/\d+)"/.exec(html)?.[1] ?? /src="(\/api\/v1\/evidence\/\d+)"/.exec(html)?.[1];
+    expect(link).toBeDefined();
+    const file = await new Browserish().get(link!);
+    expect(file.status).toBe(302);
+    expect(file.headers.get("location")).toMatch(/X-Amz-Signature=/);
     const model = await (await new Browserish().get(`/models/${withFile.slug}`)).text();
     expect(model).toContain("From the bay: published videos and photos");
   });

@@ -1,7 +1,7 @@
 // The pressure along the line while the tool runs, as a waterfall: the regulator setting, what each
 // segment takes (couplers and hoses in the order the air meets them), and what is left at the tool
 // inlet. Drawn on the server like the bore chart; every figure is written out beside its bar.
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import type { SegmentPressure } from "~/air/line";
 import { formatPressure, kpaTo, type PressureUnit } from "~/domain";
 

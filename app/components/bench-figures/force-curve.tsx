@@ -1,7 +1,7 @@
 // "The force this job takes": the chance that a report frees the job against the tool's bench force,
 // with its band, the force at which half do (ED50) with its interval, and the models placed on the
 // curve — by their bench force, or, without bench data, where the curve meets their field success.
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import { area, line } from "d3-shape";
 import { benchUnit, formatBench } from "~/bench/terms";
 import type { JobForce } from "~/bench/figures-read.server";

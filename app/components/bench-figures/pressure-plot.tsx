@@ -1,6 +1,6 @@
 // A model's force against the running inlet pressure: each run's mean as a point, the fitted line
 // and its pointwise band, and the force predicted at 90 psi.
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import { area, line } from "d3-shape";
 import { benchUnit, type BenchQuantity } from "~/bench/terms";
 import { formatPressure, type Units } from "~/domain";

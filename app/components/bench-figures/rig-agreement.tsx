@@ -1,6 +1,6 @@
 // "How well the rigs agree" on /bench: repeatability and reproducibility from the rigs' readings of
 // one reference tool, and each rig's bias against the consensus as a dot with its interval.
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import { benchUnit, formatBench } from "~/bench/terms";
 import type { RigAgreementRow } from "~/bench/figures-read.server";
 import type { Units } from "~/domain";

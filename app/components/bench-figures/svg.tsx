@@ -1,7 +1,7 @@
 // Shared drawing pieces of the bench figures: the frame, the axes and the number format. Figures are
 // drawn on the server as SVG (no JavaScript needed), scaled to the width of a phone, each with a
 // title and description and a table beside it.
-import { type scaleLinear } from "d3-scale";
+import { type scaleLinear } from "~/components/linear-scale";
 
 export const INK = "#2f6b5f";
 export const BAND = "#cfe3dd";

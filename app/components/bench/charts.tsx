@@ -1,6 +1,6 @@
 // The bench's pictures, drawn as SVG on the server (they work without JavaScript); every figure is
 // also given as text beside the picture. Values arrive in SI and are drawn in the reader's unit.
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import { line } from "d3-shape";
 
 const W = 360;

@@ -2,7 +2,7 @@
 // detected blow marked, and clipped blows (at the sensor's capacity) marked apart. Used on a run's
 // page (from the server's analysis) and in the filing form's preview (from the browser's).
 import { useId } from "react";
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import { area } from "d3-shape";
 
 export interface TraceDrawing {

@@ -2,7 +2,7 @@
 // against its share of the day's vibration action value), with the 95 % band of the chance, and the
 // tools no other candidate beats on every weighted criterion drawn solid. Server-rendered SVG with a
 // title and description, and a table of the same figures.
-import { scaleLinear } from "d3-scale";
+import { scaleLinear } from "~/components/linear-scale";
 import { formatChance, formatShare, formatWeight, KG_PER_LB, type Units } from "~/domain";
 import type { Candidate, Shortlist } from "~/exposure/shortlist";
 import { CRITERION_LABELS } from "~/exposure/shortlist-form";
