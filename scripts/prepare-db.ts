@@ -6,7 +6,6 @@ import { migrateToLatest } from "../db/migrate";
 import type { Database } from "../db/schema";
 import { loadDemoScenario } from "../seeds/index";
 import { refreshAll } from "../app/stats/refresh.server";
-import { refreshBenchFiguresWhenEmpty } from "./refresh-bench";
 
 export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => void = console.log) {
   const applied = await migrateToLatest(db);
@@ -24,6 +23,10 @@ export async function prepareDatabase(db: Kysely<Database>, log: (s: string) => 
     const t1 = Date.now();
     log(`Computed ${await refreshAll(db)} stats cells in ${((Date.now() - t1) / 1000).toFixed(1)} s`);
   }
+  // Imported here, not at the top: the bench refresh reaches the job queue, which reads the app's
+  // configuration from the environment when first imported, and tests set that environment after
+  // importing this file.
+  const { refreshBenchFiguresWhenEmpty } = await import("./refresh-bench");
   await refreshBenchFiguresWhenEmpty(db, log);
 }
 
