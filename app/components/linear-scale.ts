@@ -61,6 +61,7 @@ export interface LinearScale {
   range(r: readonly [number, number] | readonly number[]): LinearScale;
   nice(count?: number): LinearScale;
   ticks(count?: number): number[];
+  copy(): LinearScale;
 }
 
 export function scaleLinear<_R = number, _O = number>(): LinearScale {
@@ -83,6 +84,7 @@ export function scaleLinear<_R = number, _O = number>(): LinearScale {
     return scale;
   }) as LinearScale["range"];
   scale.ticks = (count = 10) => ticks(d0, d1, count);
+  scale.copy = () => scaleLinear().domain([d0, d1]).range([r0, r1]);
   scale.nice = (count = 10) => {
     let start = d0;
     let stop = d1;

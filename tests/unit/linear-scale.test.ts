@@ -25,6 +25,13 @@ describe("linear scale", () => {
     );
   });
 
+  it("copies a scale so a change to the copy leaves the original", () => {
+    const a = scaleLinear().domain([0, 10]).range([0, 100]);
+    const b = a.copy().range([0, 50]);
+    expect(a(5)).toBe(50);
+    expect(b(5)).toBe(25);
+  });
+
   it("handles a domain of one point without dividing by zero", () => {
     expect(scaleLinear().domain([3, 3]).range([0, 10])(3)).toBe(5);
   });
