@@ -2,13 +2,9 @@
 // the trial's air supply, temperature and setup, so intervals are built on trial means, and the
 // blow-to-blow spread is shown as a distribution beside them, not folded into the interval.
 import { meanIntervalFromSummary, tCritical } from "~/stats";
+import { peakSummary, type PeakSummary } from "./peaks";
 
-export interface PeakSummary {
-  median: number;
-  p10: number;
-  p90: number;
-  n: number;
-}
+export { peakSummary, type PeakSummary };
 
 /**
  * Student t interval for a mean: x̄ ± t(1 − α/2, n − 1)·s/√n, through the stats module's
@@ -25,23 +21,6 @@ export function meanInterval(
   const sd = Math.sqrt(values.reduce((s, v) => s + (v - mean) ** 2, 0) / (n - 1));
   const { lower, upper } = meanIntervalFromSummary(mean, sd, n, confidence);
   return { mean, lower, upper, sd, n };
-}
-
-/**
- * Linear-interpolation quantiles (Hyndman & Fan 1996 type 7, the common default) of the values:
- * median, 10th and 90th percentiles. NaN for all three when there are no values.
- */
-export function peakSummary(values: ArrayLike<number>): PeakSummary {
-  const sorted = Float64Array.from(values).sort();
-  const n = sorted.length;
-  const q = (p: number) => {
-    if (n === 0) return NaN;
-    const h = (n - 1) * p;
-    const lo = Math.floor(h);
-    const hi = Math.min(lo + 1, n - 1);
-    return sorted[lo]! + (h - lo) * (sorted[hi]! - sorted[lo]!);
-  };
-  return { median: q(0.5), p10: q(0.1), p90: q(0.9), n };
 }
 
 /**

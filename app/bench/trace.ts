@@ -1,7 +1,7 @@
 // A raw bench trace: the force (or torque) a load cell saw, sampled at a fixed rate. The same
 // analysis runs in the browser (a preview before submitting) and on the server (the stored figures),
 // so it uses nothing but the language: no Node APIs, no DOM.
-import { peakSummary, type PeakSummary } from "./figures";
+import { peakSummary, type PeakSummary } from "./peaks";
 import { medianOf } from "./quickselect";
 
 export { parseTraceCsv, TraceError, type ParseTraceOptions } from "./trace-csv";

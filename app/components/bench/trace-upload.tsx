@@ -2,7 +2,7 @@
 // runs on submit) and drawn with its blows marked, then sent straight to storage through a presigned
 // PUT; the hidden field carries the upload's key. Without JavaScript the typed peaks are the way.
 import { useState } from "react";
-import { analyseTrace, decimateForDrawing, parseTraceCsv, TraceError } from "~/bench";
+import { analyseTrace, decimateForDrawing, parseTraceCsv, TraceError } from "~/bench/trace";
 import { benchUnit, formatBench, type BenchQuantity } from "~/bench/terms";
 import type { Units } from "~/domain";
 import { FieldError } from "../field";
