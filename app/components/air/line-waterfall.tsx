@@ -61,7 +61,7 @@ export function LineWaterfall({
     .nice()
     .range([14, W - 14]);
   const [d0] = x.domain();
-  const toX = (kpa: number) => x(Math.max(d0!, kpaTo(kpa, pressureUnit)));
+  const toX = (kpa: number) => x(Math.max(d0, kpaTo(kpa, pressureUnit)));
   const H = TOP + rows.length * ROW + AXIS;
   const summary = rows.map((r) => `${r.label}: ${r.text}`).join("; ");
 

@@ -83,7 +83,7 @@ export function CalibrationPlot({
     .domain([0, Math.max(...residuals.map((r) => r.reading * perSi)) * 1.05])
     .range([H - m.b, m.t])
     .nice();
-  const curve = Array.from({ length: 40 }, (_, i) => (x.domain()[1]! * i) / 39);
+  const curve = Array.from({ length: 40 }, (_, i) => (x.domain()[1] * i) / 39);
   const predict = (refSi: number) => coefficients.reduce((sum, c, k) => sum + c * refSi ** k, 0);
   const path = line<number>()
     .x((r) => x(r))
