@@ -95,6 +95,10 @@ export async function startOidcProvider({ port, accounts }: { port: number; acco
   });
   return {
     url: base,
-    stop: () => new Promise<void>((resolve) => server.close(() => resolve())),
+    stop: () =>
+      new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      }),
   };
 }

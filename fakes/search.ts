@@ -192,5 +192,12 @@ export async function startSearchService({ port }: { port: number }) {
     server.once("error", reject);
     server.listen(port, "127.0.0.1", () => resolve());
   });
-  return { url: `http://127.0.0.1:${port}`, stop: () => new Promise<void>((resolve) => server.close(() => resolve())) };
+  return {
+    url: `http://127.0.0.1:${port}`,
+    stop: () =>
+      new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      }),
+  };
 }

@@ -29,12 +29,25 @@ const stops: (() => void | Promise<void>)[] = [];
 export function onStop(stop: () => void | Promise<void>) {
   stops.push(stop);
 }
+/** How long one clean-up may take before the next runs anyway (PostgreSQL's own stop waits longer inside). */
+const STOP_STEP_MS = 30_000;
+
+/** Runs every clean-up, last first. One that hangs (a fake waiting on a connection) is left behind after
+ * STOP_STEP_MS, so the ones before it, PostgreSQL's stop among them, still run. */
 export async function stopServices() {
   while (stops.length) {
+    const stop = stops.pop()!;
+    let timer: NodeJS.Timeout | undefined;
     try {
-      await stops.pop()!();
+      const gaveUp = new Promise<"gave up">((resolve) => {
+        timer = setTimeout(() => resolve("gave up"), STOP_STEP_MS);
+      });
+      if ((await Promise.race([Promise.resolve(stop()), gaveUp])) === "gave up")
+        log(`a clean-up did not finish in ${STOP_STEP_MS / 1000} s; going on with the rest`);
     } catch (error) {
       log(`while stopping: ${(error as Error).message}`);
+    } finally {
+      clearTimeout(timer);
     }
   }
 }
