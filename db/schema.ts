@@ -379,13 +379,15 @@ export interface StatsCellsTable {
   km_steps: ColumnType<{ time: number; survival: number }[] | null, string | null, string | null>;
 }
 
-/** A model's share of its job's pooled pressure fit (app/stats/pressure.ts: `PooledCellFit`). */
+/** A model's share of its job's pooled pressure fit: all the browser needs to predict at any pressure (app/stats/predict.ts). */
 export interface PressureFit {
   intercept: number;
   slope: number;
+  /** Arrowhead inverse of the information (pooledLogisticFit().inverse): d of the model, its r, and σ. */
   d: number;
   r: number;
   sigma: number;
+  /** The model's reports with a known inlet pressure in the fit, and their pressures (10th, 90th percentile, range). */
   n: number;
   p10Kpa: number;
   p90Kpa: number;
