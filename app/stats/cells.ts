@@ -3,15 +3,14 @@
 // job's pooled fit (pressure.ts), not from the cell alone.
 import { clusteredWilson } from "./clustered";
 import { medianIntervalOfTally, medianOfTally } from "./median";
-import { REFERENCE_INLET_KPA } from "./pressure";
+import { REFERENCE_INLET_KPA } from "./predict";
 import type { Group } from "./proportions";
 import { kaplanMeierOfTally, type SurvivalTally, tallySurvival } from "./survival";
 
 /** A stored cell as the pages read it (the `stats_cells` row). */
 export type { StatsCell } from "../../db/schema";
 
-export { predictAt, pressureX, REFERENCE_INLET_KPA, type PooledCellFit } from "./pressure";
-export { FEW_REPORTS } from "./standings";
+export { predictAt, REFERENCE_INLET_KPA } from "./predict";
 
 export interface CellReport {
   outcome: "freed" | "freed_with_help" | "not_freed";
