@@ -129,18 +129,28 @@ export interface JobTypesTable {
   seized: ColumnType<boolean, boolean | undefined, boolean>;
 }
 
+/** What a report and a bench run share: the moderation lifecycle, its optimistic version and its times. */
+interface ModeratedTable {
+  status: ColumnType<ReportStatus, ReportStatus | undefined, ReportStatus>;
+  version: ColumnType<number, number | undefined, number>;
+  flags: TextArray;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+  submitted_at: Date | string | null;
+  decided_at: Date | string | null;
+  accepted_at: Date | string | null;
+}
+
 /**
  * CHECK reports_complete_unless_draft: every job column and submitted_at are set, except on a
  * draft and on a withdrawn report that was never submitted (a draft withdrawn as it stood).
  */
-export interface ReportsTable {
+export interface ReportsTable extends ModeratedTable {
   id: Generated<number>;
   reporter_id: number;
   tool_model_id: number;
   category_id: number;
   job_type_id: number;
-  status: ColumnType<ReportStatus, ReportStatus | undefined, ReportStatus>;
-  version: ColumnType<number, number | undefined, number>;
   vehicle_class: VehicleClass | null;
   component_age_years: number | null;
   corrosion_level: CorrosionLevel | null;
@@ -163,12 +173,6 @@ export interface ReportsTable {
   /** The units the reporter typed in (migration 2026-12-02T15.00); values are stored in SI. */
   entered_pressure_unit: PressureUnit | null;
   entered_length_unit: "in" | "mm" | null;
-  flags: TextArray;
-  created_at: Timestamp;
-  updated_at: Timestamp;
-  submitted_at: Date | string | null;
-  decided_at: Date | string | null;
-  accepted_at: Date | string | null;
 }
 
 export interface EvidenceTable {
@@ -379,13 +383,15 @@ export interface StatsCellsTable {
   km_steps: ColumnType<{ time: number; survival: number }[] | null, string | null, string | null>;
 }
 
-/** A model's share of its job's pooled pressure fit (app/stats/pressure.ts: `PooledCellFit`). */
+/** A model's share of its job's pooled pressure fit: all the browser needs to predict at any pressure (app/stats/predict.ts). */
 export interface PressureFit {
   intercept: number;
   slope: number;
+  /** Arrowhead inverse of the information (pooledLogisticFit().inverse): d of the model, its r, and σ. */
   d: number;
   r: number;
   sigma: number;
+  /** The model's reports with a known inlet pressure in the fit, and their pressures (10th, 90th percentile, range). */
   n: number;
   p10Kpa: number;
   p90Kpa: number;
@@ -502,14 +508,12 @@ export interface BenchProtocolSeriesTable {
   coupler_profile: CouplerProfile | null;
 }
 
-export interface BenchRunsTable {
+export interface BenchRunsTable extends ModeratedTable {
   id: Generated<number>;
   rig_id: number;
   protocol_id: number;
   tool_model_id: number;
   filed_by: number;
-  status: ColumnType<ReportStatus, ReportStatus | undefined, ReportStatus>;
-  version: ColumnType<number, number | undefined, number>;
   unit_serial: string;
   unit_condition: "new" | "used";
   unit_hours: number | null;
@@ -518,12 +522,6 @@ export interface BenchRunsTable {
   ambient_c: number;
   video_key: string | null;
   notes: string | null;
-  flags: TextArray;
-  created_at: Timestamp;
-  updated_at: Timestamp;
-  submitted_at: Date | string | null;
-  decided_at: Date | string | null;
-  accepted_at: Date | string | null;
 }
 
 export interface BenchRunSeriesTable {

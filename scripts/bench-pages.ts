@@ -17,8 +17,8 @@ import path from "node:path";
 import { parseArgs } from "node:util";
 import autocannon from "autocannon";
 import { sql } from "kysely";
-import { randomToken, sha256Hex } from "../app/utils/tokens.server";
 import { startFakes } from "../fakes/index";
+import { newSession } from "../tests/support/sessions";
 import { benchCluster } from "./bench-cluster";
 import { buildApp } from "./build-app";
 import { freePort } from "./free-port";
@@ -168,25 +168,11 @@ await benchCluster(
     children.push(server);
     await waitForHttp(`${origin}/`, server);
 
-    // A reporter's session (the cookie carries only the random token) and an API key.
-    const user = await db
-      .selectFrom("users")
-      .select("id")
-      .where("email", "like", "reporter@%")
-      .executeTakeFirstOrThrow();
-    const token = randomToken();
-    await db
-      .insertInto("sessions")
-      .values({
-        id_hash: sha256Hex(token),
-        user_id: user.id,
-        expires_at: new Date(Date.now() + 24 * 3600_000),
-        sign_in_method: "email_link",
-      })
-      .execute();
-    const cookie = `bayproof_session=${encodeURIComponent(Buffer.from(JSON.stringify(token)).toString("base64"))}`;
+    // A reporter's session and an API key.
+    const session = await newSession(db, "reporter@demo.bayproof.test", 24 * 3600_000);
+    const cookie = `bayproof_session=${session.cookie}`;
     const { createApiKey } = await import("../app/auth/api-keys.server");
-    const key = await createApiKey(db, user.id, "bench");
+    const key = await createApiKey(db, session.userId, "bench");
     const job =
       (await db
         .selectFrom("job_types")

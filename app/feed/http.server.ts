@@ -1,8 +1,8 @@
 // The feed's HTTP habits: JSON errors naming the parameter at fault, strict query parameters,
 // ETags with 304s, and the cache lifetimes of each kind of answer.
-import { createHash } from "node:crypto";
 import type { z } from "zod";
 import { AppError, failureAnswer } from "~/utils/errors";
+import { etagOf } from "~/http-cache/page-cache.server";
 import { matchesIfNoneMatch } from "~/utils/http";
 import { hasControlCharacters } from "~/utils/text";
 
@@ -72,8 +72,6 @@ export const CACHE = {
   /** Schemas and documents describing the feed. */
   document: "public, max-age=3600",
 } as const;
-
-const etagOf = (body: string) => `"${createHash("sha256").update(body).digest("base64url").slice(0, 32)}"`;
 
 export { matchesIfNoneMatch };
 

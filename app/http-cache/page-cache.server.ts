@@ -32,7 +32,9 @@ export interface PageCacheOptions {
   variant(request: Request): Promise<string> | string;
 }
 
-const etagOf = (body: Uint8Array) => `"${createHash("sha256").update(body).digest("base64url").slice(0, 32)}"`;
+/** A strong ETag over exact bytes (RFC 9110 §8.8.3): the cached pages' and the feed's answers. */
+export const etagOf = (body: string | Uint8Array) =>
+  `"${createHash("sha256").update(body).digest("base64url").slice(0, 32)}"`;
 
 const INLINE_SCRIPT = /<script\b([^>]*)>([\s\S]*?)<\/script>/gi;
 /** The 'sha256-…' source of every inline script, as CSP Level 2 hashes them (the text between the tags). */

@@ -3,15 +3,14 @@
 // job's pooled fit (pressure.ts), not from the cell alone.
 import { clusteredWilson } from "./clustered";
 import { medianIntervalOfTally, medianOfTally } from "./median";
-import { REFERENCE_INLET_KPA } from "./pressure";
+import { REFERENCE_INLET_KPA } from "./predict";
 import type { Group } from "./proportions";
-import { kaplanMeierOfTally, type SurvivalTally } from "./survival";
+import { kaplanMeierOfTally, type SurvivalTally, tallySurvival } from "./survival";
 
 /** A stored cell as the pages read it (the `stats_cells` row). */
 export type { StatsCell } from "../../db/schema";
 
-export { predictAt, pressureX, REFERENCE_INLET_KPA, type PooledCellFit } from "./pressure";
-export { FEW_REPORTS } from "./standings";
+export { predictAt, REFERENCE_INLET_KPA } from "./predict";
 
 export interface CellReport {
   outcome: "freed" | "freed_with_help" | "not_freed";
@@ -76,30 +75,17 @@ export function tallyReports(all: readonly CellReport[]): CellTally {
     if (r.outcome === "freed") c.successes++;
     byReporter.set(r.reporterId, c);
   }
-  const km = kaplanMeierTally(reports);
   return {
     setAside: all.length - reports.length,
     measured: reports.filter((r) => r.inletSource === "measured_at_inlet").length,
     estimated: reports.filter((r) => r.inletSource === "estimated").length,
     clusters: [...byReporter.entries()].sort((a, b) => a[0] - b[0]).map(([, c]) => c),
-    times: km,
+    times: tallySurvival(
+      reports,
+      (r) => r.timeS,
+      (r) => r.outcome === "freed",
+    ),
   };
-}
-
-function kaplanMeierTally(reports: readonly CellReport[]): SurvivalTally {
-  const sorted = [...reports].sort((a, b) => a.timeS - b.timeS);
-  const out: SurvivalTally = { times: [], events: [], censored: [] };
-  for (const r of sorted) {
-    const last = out.times.length - 1;
-    if (last < 0 || out.times[last] !== r.timeS) {
-      out.times.push(r.timeS);
-      out.events.push(0);
-      out.censored.push(0);
-    }
-    if (r.outcome === "freed") out.events[out.events.length - 1]!++;
-    else out.censored[out.censored.length - 1]!++;
-  }
-  return out;
 }
 
 /** The cell's figures, or null where every report was set aside. */

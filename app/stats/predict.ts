@@ -1,6 +1,7 @@
 // A model's predicted success at any inlet pressure from its stored share of the job's pooled fit.
 // The compare and job pages run it in the browser as the shopper moves the pressure, so it imports
-// nothing: the fit itself (pressure.ts, pooled-logistic.ts) and jStat stay on the server.
+// nothing at run time: the fit itself (pressure.ts, pooled-logistic.ts) and jStat stay on the server.
+import type { PressureFit } from "../../db/schema";
 import type { Interval } from "./proportions";
 
 export const REFERENCE_INLET_KPA = 620.5; // 90 psi, the trade's rating point (common practice)
@@ -11,21 +12,8 @@ export const pressureX = (kpa: number) => (kpa - REFERENCE_INLET_KPA) / 100;
 /** The two-sided 95 % normal quantile, 1.959964 (published tables). */
 export const Z_95 = 1.959963984540054;
 
-/** A model's share of its job's pooled fit: all the browser needs to predict at any pressure. */
-export interface PooledCellFit {
-  intercept: number;
-  slope: number;
-  /** Arrowhead inverse of the information (pooledLogisticFit().inverse): d of the model, its r, and σ. */
-  d: number;
-  r: number;
-  sigma: number;
-  /** The model's reports with a known inlet pressure in the fit, and their pressures (10th, 90th percentile, range). */
-  n: number;
-  p10Kpa: number;
-  p90Kpa: number;
-  minKpa: number;
-  maxKpa: number;
-}
+/** A model's share of its job's pooled fit, as stats_cells.fit stores it. */
+export type PooledCellFit = PressureFit;
 
 /** Wald on the logit scale at the normal quantile `z`. */
 export function predictWith(fit: PooledCellFit, inletKpa: number, z: number): Interval {

@@ -39,18 +39,11 @@ export function kaplanMeier(times: readonly number[], events: readonly boolean[]
   if (times.length !== events.length) throw new RangeError("times and events must have the same length");
   if (times.some((t) => !(Number.isFinite(t) && t >= 0))) throw new RangeError("times must be finite and ≥ 0");
   checkConfidence(confidence);
-  const order = times.map((_, i) => i).sort((a, b) => times[a]! - times[b]!);
-  const tallied: SurvivalTally = { times: [], events: [], censored: [] };
-  for (const i of order) {
-    const last = tallied.times.length - 1;
-    if (last < 0 || tallied.times[last] !== times[i]) {
-      tallied.times.push(times[i]!);
-      tallied.events.push(0);
-      tallied.censored.push(0);
-    }
-    if (events[i]) tallied.events[tallied.events.length - 1]!++;
-    else tallied.censored[tallied.censored.length - 1]!++;
-  }
+  const tallied = tallySurvival(
+    times.map((_, i) => i),
+    (i) => times[i]!,
+    (i) => events[i]!,
+  );
   return kaplanMeierOfTally(tallied, confidence);
 }
 
@@ -59,6 +52,26 @@ export interface SurvivalTally {
   times: number[];
   events: number[];
   censored: number[];
+}
+
+/** Items (reports, or indices into lists) as a survival tally: by distinct time, ascending. */
+export function tallySurvival<T>(
+  items: readonly T[],
+  time: (item: T) => number,
+  event: (item: T) => boolean,
+): SurvivalTally {
+  const out: SurvivalTally = { times: [], events: [], censored: [] };
+  for (const item of [...items].sort((a, b) => time(a) - time(b))) {
+    const last = out.times.length - 1;
+    if (last < 0 || out.times[last] !== time(item)) {
+      out.times.push(time(item));
+      out.events.push(0);
+      out.censored.push(0);
+    }
+    if (event(item)) out.events[out.events.length - 1]!++;
+    else out.censored[out.censored.length - 1]!++;
+  }
+  return out;
 }
 
 /**

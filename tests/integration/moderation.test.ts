@@ -4,6 +4,7 @@ import { writeFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { testDb } from "../support/db";
+import { fileFirstReport } from "../support/first-report";
 import { Browserish, signedInAs } from "../support/http";
 import { latestMailTo } from "../support/mail";
 import { validReport } from "../support/reports";
@@ -19,20 +20,6 @@ const CHECKS = {
   check_gauge_readable: "on",
   check_matches_outcome: "on",
 };
-
-/** A new reporter files a report; it comes back flagged (first report, no evidence). */
-async function freshReport() {
-  const stamp = `${Date.now()}${Math.floor(Math.random() * 1000)}`;
-  const email = `mod-test-${stamp}@demo.bayproof.test`;
-  await db
-    .insertInto("users")
-    .values({ email, handle: `modtest-${stamp.slice(-9)}` })
-    .execute();
-  const reporter = await signedInAs(db, email);
-  const res = await reporter.post("/reports/new", validReport());
-  const id = Number(res.headers.get("location")!.match(/submitted=(\d+)/)![1]);
-  return { id, email, reporter };
-}
 
 async function state(id: number) {
   const r = await db.selectFrom("reports").select(["status", "version"]).where("id", "=", id).executeTakeFirstOrThrow();
@@ -62,7 +49,7 @@ beforeAll(async () => {
 
 describe("who may decide", () => {
   it("refuses reporters and sends visitors to sign in", async () => {
-    const { id, reporter } = await freshReport();
+    const { id, reporter } = await fileFirstReport(db, "mod");
     expect((await reporter.get(`/review/${id}`)).status).toBe(403);
     expect(
       (
@@ -91,7 +78,7 @@ describe("who may decide", () => {
   });
 
   it("asks for a reason, and for what to change on a return", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     expect((await decideAs(mod1, id, { action: "reject", reasonCode: "" })).status).toBe(400);
     expect((await decideAs(mod1, id, { action: "reject", reasonCode: "evidence_clear" })).status).toBe(400);
     const noNote = await decideAs(mod1, id, { action: "return", reasonCode: "gauge_unreadable", note: "" });
@@ -112,7 +99,7 @@ describe("who may decide", () => {
 
 describe("what moderators never see", () => {
   it("answers 404 for a reporter's draft: no notes shown, no claim taken, no decision possible", async () => {
-    const { reporter } = await freshReport();
+    const { reporter } = await fileFirstReport(db, "mod");
     const secret = `draft note ${Date.now()}`;
     const saved = await reporter.post("/reports/new", { ...validReport(), notes: secret, intent: "save-draft" });
     const id = Number(saved.headers.get("location")!.match(/reports\/(\d+)\/edit/)![1]);
@@ -131,7 +118,7 @@ describe("what moderators never see", () => {
   });
 
   it("answers 404 for a withdrawn report", async () => {
-    const { id, reporter } = await freshReport();
+    const { id, reporter } = await fileFirstReport(db, "mod");
     expect((await reporter.post(`/reports/${id}/edit`, { intent: "withdraw" })).status).toBe(302);
     expect((await state(id)).status).toBe("withdrawn");
     expect((await mod1.get(`/review/${id}`)).status).toBe(404);
@@ -141,7 +128,7 @@ describe("what moderators never see", () => {
 
 describe("claims and concurrency", () => {
   it("claims a report for the first moderator who starts the review and shows others who holds it", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     expect((await mod1.get(`/review/${id}`)).status).toBe(200);
     // Opening the page only reads: the claim is taken by starting the review (a POST).
     expect(
@@ -160,7 +147,7 @@ describe("claims and concurrency", () => {
   });
 
   it("lets only the holder of a live claim decide, and anyone once it has run out", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     expect((await startReview(mod1, id)).status).toBe(200); // mod1 now holds the claim
     const blocked = await decideAs(mod2, id, { action: "reject", reasonCode: "job_not_shown" });
     expect(blocked.status).toBe(409);
@@ -178,7 +165,7 @@ describe("claims and concurrency", () => {
   });
 
   it("lets the holder of the claim decide", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     expect((await startReview(mod1, id)).status).toBe(200);
     expect((await decideAs(mod1, id, { action: "reject", reasonCode: "job_not_shown" })).status).toBe(200);
     expect((await state(id)).status).toBe("rejected");
@@ -188,7 +175,7 @@ describe("claims and concurrency", () => {
   });
 
   it("refuses to start a review another moderator holds, or one not waiting, and writes nothing", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     expect((await startReview(mod1, id)).status).toBe(200);
     expect((await startReview(mod1, id)).status).toBe(200); // renewing one's own claim
     const taken = await startReview(mod2, id);
@@ -211,7 +198,7 @@ describe("claims and concurrency", () => {
   });
 
   it("lets one of two simultaneous decisions win and tells the other", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     const s = await state(id);
     const form = (action: string, reasonCode: string, note = "") => ({
       version: String(s.version),
@@ -235,7 +222,7 @@ describe("claims and concurrency", () => {
 
 describe("the second look", () => {
   it("needs two different moderators to accept a flagged report, then refreshes its stats", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     const first = await decideAs(mod1, id, { action: "accept", reasonCode: "evidence_clear", ...CHECKS });
     expect(first.status).toBe(200);
     expect(await first.text()).toMatch(/needs a second look/);
@@ -269,14 +256,14 @@ describe("the second look", () => {
   });
 
   it("ends with a reject from either moderator", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     await decideAs(mod1, id, { action: "accept", reasonCode: "evidence_clear", ...CHECKS });
     expect((await decideAs(mod2, id, { action: "reject", reasonCode: "tool_not_shown" })).status).toBe(200);
     expect((await state(id)).status).toBe("rejected");
   });
 
   it("refuses to accept without the checklist, or with failed evidence", async () => {
-    const { id } = await freshReport();
+    const { id } = await fileFirstReport(db, "mod");
     expect((await decideAs(mod1, id, { action: "accept", reasonCode: "evidence_clear" })).status).toBe(400);
     const evidence = await db
       .insertInto("evidence")
@@ -310,7 +297,7 @@ describe("the second look", () => {
 
 describe("the reporter hears of it", () => {
   it("gets the mail even when the first delivery fails, and an in-app notice", async () => {
-    const { id, email, reporter } = await freshReport();
+    const { id, email, reporter } = await fileFirstReport(db, "mod");
     writeFileSync(path.join(inject("mailDir"), `.reject-next-${email}`), "");
     const since = Date.now();
     const res = await decideAs(mod1, id, {

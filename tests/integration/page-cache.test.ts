@@ -10,8 +10,8 @@ import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { freePort } from "../../scripts/free-port";
 import { waitForHttp } from "../../scripts/wait-http";
 import { testDb } from "../support/db";
+import { fileFirstReport } from "../support/first-report";
 import { Browserish, signedInAs } from "../support/http";
-import { validReport } from "../support/reports";
 
 const root = path.resolve(import.meta.dirname, "../..");
 const db = testDb();
@@ -144,15 +144,7 @@ describe("the page cache", () => {
 
   it("shows an accepted report on every process within a second of the accept", async () => {
     // A new reporter files a report for the job; it needs two moderators' accepts.
-    const stamp = `${Date.now()}${Math.floor(Math.random() * 1000)}`;
-    const email = `cache-test-${stamp}@demo.bayproof.test`;
-    await db
-      .insertInto("users")
-      .values({ email, handle: `cachetest-${stamp.slice(-9)}` })
-      .execute();
-    const reporter = await signedInAs(db, email);
-    const filed = await reporter.post("/reports/new", validReport());
-    const id = Number(filed.headers.get("location")!.match(/submitted=(\d+)/)![1]);
+    const { id } = await fileFirstReport(db, "cache");
     const marker = `id="report-${id}"`;
     const decide = async (moderator: string, reasonCode: string) => {
       const client = await signedInAs(db, moderator);

@@ -4,8 +4,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "kysely";
 import { testDb } from "../support/db";
+import { fileFirstReport } from "../support/first-report";
 import { type Browserish, signedInAs } from "../support/http";
-import { validReport } from "../support/reports";
 
 const db = testDb();
 let mod1: Browserish;
@@ -31,18 +31,6 @@ beforeAll(async () => {
       .executeTakeFirstOrThrow()
   ).id;
 });
-
-async function freshReport() {
-  const stamp = `${Date.now()}${Math.floor(Math.random() * 1000)}`;
-  const email = `queue-test-${stamp}@demo.bayproof.test`;
-  await db
-    .insertInto("users")
-    .values({ email, handle: `queuetest-${stamp.slice(-9)}` })
-    .execute();
-  const reporter = await signedInAs(db, email);
-  const res = await reporter.post("/reports/new", validReport());
-  return Number(res.headers.get("location")!.match(/submitted=(\d+)/)![1]);
-}
 
 async function decideAs(client: Browserish, id: number, form: Record<string, string>) {
   const r = await db.selectFrom("reports").select("version").where("id", "=", id).executeTakeFirstOrThrow();
@@ -165,7 +153,7 @@ describe("the queue's pages", () => {
 
 describe("the second look", () => {
   it("lists only reports accepted once and waiting for a second moderator", async () => {
-    const id = await freshReport();
+    const { id } = await fileFirstReport(db, "queue");
     expect((await decideAs(mod2, id, { action: "accept", reasonCode: "evidence_clear", ...CHECKS })).status).toBe(200);
     const page = await queue("/review?second=1&sort=newest");
     expect(page.ids).toContain(id);
@@ -184,7 +172,7 @@ describe("the second look", () => {
 
 describe("opening a report by its number", () => {
   it("goes straight to it, keeping the queue's filters, and says why when it cannot", async () => {
-    const id = await freshReport();
+    const { id } = await fileFirstReport(db, "queue");
     const res = await mod1.get(`/review?sort=newest&report=${id}`);
     expect(res.status).toBe(302);
     expect(res.headers.get("location")).toBe(`/review/${id}?sort=newest`);
@@ -203,7 +191,7 @@ describe("opening a report by its number", () => {
 
 describe("a duplicate-evidence flag", () => {
   it("needs the moderator's acknowledgement before an accept, as a field message", async () => {
-    const id = await freshReport();
+    const { id } = await fileFirstReport(db, "queue");
     await db
       .updateTable("reports")
       .set({ flags: sql`array_append(flags, 'duplicate_evidence')` })
@@ -245,7 +233,7 @@ describe("a duplicate-evidence flag", () => {
   });
 
   it("asks nothing of a return", async () => {
-    const id = await freshReport();
+    const { id } = await fileFirstReport(db, "queue");
     await db
       .updateTable("reports")
       .set({ flags: sql`array_append(flags, 'duplicate_evidence')` })

@@ -10,8 +10,7 @@ import type {
 import { afterAll, expect, it } from "vitest";
 import { getUser, withSessions } from "../../app/auth/session.server";
 import { testDb } from "../support/db";
-import { cookieValue } from "../support/http";
-import { randomToken, sha256Hex } from "../../app/utils/tokens.server";
+import { newSession } from "../support/sessions";
 
 const db = testDb();
 afterAll(() => db.destroy());
@@ -29,25 +28,8 @@ class SessionReads implements KyselyPlugin {
 }
 
 async function signedInRequest(method: string) {
-  const user = await db
-    .selectFrom("users")
-    .select("id")
-    .where("email", "=", "reporter@demo.bayproof.test")
-    .executeTakeFirstOrThrow();
-  const token = randomToken();
-  await db
-    .insertInto("sessions")
-    .values({
-      id_hash: sha256Hex(token),
-      user_id: user.id,
-      expires_at: new Date(Date.now() + 3600_000),
-      sign_in_method: "email_link",
-    })
-    .execute();
-  return new Request("http://127.0.0.1/me/reports", {
-    method,
-    headers: { cookie: `bayproof_session=${cookieValue(token)}` },
-  });
+  const { cookie } = await newSession(db, "reporter@demo.bayproof.test");
+  return new Request("http://127.0.0.1/me/reports", { method, headers: { cookie: `bayproof_session=${cookie}` } });
 }
 
 it("reads the session once for every loader of a GET", async () => {

@@ -1,8 +1,10 @@
 // A tiny cookie-keeping HTTP client for driving the served app the way a browser would.
 import { inject } from "vitest";
-import { randomToken, sha256Hex } from "../../app/utils/tokens.server";
 import type { Kysely } from "kysely";
 import type { Database } from "../../db/schema";
+import { newSession } from "./sessions";
+
+export { cookieValue } from "./sessions";
 
 export const baseUrl = () => inject("baseUrl");
 
@@ -47,23 +49,9 @@ export class Browserish {
   }
 }
 
-/** The cookie value React Router's createCookie writes for a string (base64 of its JSON). */
-export const cookieValue = (token: string) => encodeURIComponent(Buffer.from(JSON.stringify(token)).toString("base64"));
-
 /** Signs a client in as the user with this e-mail by creating a session row directly. */
 export async function signedInAs(db: Kysely<Database>, email: string) {
-  const user = await db.selectFrom("users").select("id").where("email", "=", email).executeTakeFirstOrThrow();
-  const token = randomToken();
-  await db
-    .insertInto("sessions")
-    .values({
-      id_hash: sha256Hex(token),
-      user_id: user.id,
-      expires_at: new Date(Date.now() + 3600_000),
-      sign_in_method: "email_link",
-    })
-    .execute();
   const client = new Browserish();
-  client.cookies.set("bayproof_session", cookieValue(token));
+  client.cookies.set("bayproof_session", (await newSession(db, email)).cookie);
   return client;
 }
