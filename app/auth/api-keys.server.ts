@@ -45,16 +45,3 @@ export async function revokeApiKey(db: Db, userId: number, keyId: number) {
     .executeTakeFirst();
   return r.numUpdatedRows > 0n;
 }
-
-/** The key's owner, recording its use; null for an unknown or revoked key, or a banned owner's. */
-export async function verifyApiKey(db: Db, key: string) {
-  const row = await db
-    .updateTable("api_keys")
-    .set({ last_used_at: sql`now()` })
-    .where("key_hash", "=", sha256Hex(key))
-    .where("revoked_at", "is", null)
-    .where("user_id", "not in", db.selectFrom("users").select("id").where("banned_at", "is not", null))
-    .returning(["id", "user_id"])
-    .executeTakeFirst();
-  return row ?? null;
-}

@@ -73,8 +73,6 @@ export const CACHE = {
   document: "public, max-age=3600",
 } as const;
 
-export { matchesIfNoneMatch };
-
 /** A JSON answer with a strong ETag over its exact bytes, or a 304 when the client has them. */
 export function jsonResponse(
   request: Request,

@@ -1,6 +1,7 @@
 import { Readable } from "node:stream";
 import { readDb } from "~/db.server";
-import { answer, feedError, matchesIfNoneMatch, readParams } from "~/feed/http.server";
+import { answer, feedError, readParams } from "~/feed/http.server";
+import { matchesIfNoneMatch } from "~/utils/http";
 import { findSnapshot, readSnapshotObject } from "~/feed/snapshot.server";
 import { defaultStore } from "~/storage/s3.server";
 import type { Route } from "./+types/api.v1.snapshots.$snapshot.$file";

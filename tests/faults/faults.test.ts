@@ -4,8 +4,8 @@
 // upload completion in tests/integration/evidence-uploads.test.ts, and a server that dies under
 // `npm start` being started again alone in tests/start/start-command.test.ts.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { randomToken, sha256Hex } from "../../app/utils/tokens.server";
-import { Browserish, cookieValue } from "../support/http";
+import { Browserish } from "../support/http";
+import { newSession } from "../support/sessions";
 import { validReport } from "../support/reports";
 import { startPrivateStack } from "./private-stack";
 
@@ -16,20 +16,10 @@ beforeAll(async () => {
 afterAll(() => stack?.stop());
 
 async function signIn(email: string) {
-  const user = await stack.db.selectFrom("users").select("id").where("email", "=", email).executeTakeFirstOrThrow();
-  const token = randomToken();
-  await stack.db
-    .insertInto("sessions")
-    .values({
-      id_hash: sha256Hex(token),
-      user_id: user.id,
-      expires_at: new Date(Date.now() + 3600_000),
-      sign_in_method: "email_link",
-    })
-    .execute();
+  const { userId, cookie } = await newSession(stack.db, email);
   const client = new Browserish(stack.baseUrl);
-  client.cookies.set("bayproof_session", cookieValue(token));
-  return { client, userId: user.id };
+  client.cookies.set("bayproof_session", cookie);
+  return { client, userId };
 }
 
 describe("the app server killed in the middle of submissions", () => {
