@@ -5,6 +5,7 @@ import { randomEffects, type RandomEffects, type Study } from "./across-rigs";
 import { rigAgreement, type RigAgreement } from "./agreement";
 import { meanInterval } from "./figures";
 import { pressureSlope, type PressureSlope } from "./pressure-slope";
+import { groupBy } from "~/utils/group";
 
 /** One accepted run's series, with each trial's blow peaks. */
 export interface RunSeriesData {
@@ -42,17 +43,6 @@ export interface PooledFigure {
   pooled: RandomEffects;
   runs: number;
   rigs: number;
-}
-
-function groupBy<T>(items: readonly T[], key: (item: T) => string) {
-  const groups = new Map<string, T[]>();
-  for (const item of items) {
-    const k = key(item);
-    const list = groups.get(k) ?? [];
-    list.push(item);
-    groups.set(k, list);
-  }
-  return groups;
 }
 
 /** The full-trigger series a lightest-steady one is compared with: same inlet, else the first regulated one. */
