@@ -74,8 +74,6 @@ export async function listProtocols(db: Db) {
   );
 }
 
-export type ProtocolListItem = Awaited<ReturnType<typeof listProtocols>>[number];
-
 /** Every version of one protocol, newest first, each with its series; null when the slug is unknown. */
 export async function protocolVersions(db: Db, slug: string) {
   const rows = await protocolsBase(db)
@@ -96,8 +94,6 @@ export async function protocolVersions(db: Db, slug: string) {
     rows.map((p) => ({ ...p, accepted_runs: p.accepted_runs ?? 0 })),
   );
 }
-
-export type ProtocolVersion = NonNullable<Awaited<ReturnType<typeof protocolVersions>>>[number];
 
 /** One version by slug and number, with its series; null when there is no such version. */
 export async function getProtocol(db: Db, slug: string, version: number) {
