@@ -14,4 +14,4 @@ export type { ParseTraceOptions, SynthesizeTraceOptions, TraceAnalysis, TraceBlo
 export { meanInterval, seriesFigures, triggerControlRange, blowRateAgreement, peakSummary } from "./figures";
 export type { PeakSummary } from "./figures";
 export { BLOW_RATE_TOLERANCE } from "./figures";
-export { mulberry32, normalSource } from "./random";
+export { mulberry32 } from "~/utils/random";

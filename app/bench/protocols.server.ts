@@ -43,6 +43,15 @@ function seriesOf(db: Db, protocolIds: number[]) {
 
 export type ProtocolSeries = Awaited<ReturnType<typeof seriesOf>>[number];
 
+/** Protocol versions with their series in position order, read in one query for all of them. */
+async function withSeries<P extends { id: number }>(db: Db, protocols: P[]) {
+  const series = await seriesOf(
+    db,
+    protocols.map((p) => p.id),
+  );
+  return protocols.map((p) => ({ ...p, series: series.filter((s) => s.protocol_id === p.id) }));
+}
+
 /** The newest version of every protocol, with its series and how many accepted runs use any version. */
 export async function listProtocols(db: Db) {
   const rows = await protocolsBase(db)
@@ -59,18 +68,11 @@ export async function listProtocols(db: Db) {
     .orderBy("p.slug")
     .orderBy("p.version", "desc")
     .execute();
-  const series = await seriesOf(
+  return withSeries(
     db,
-    rows.map((r) => r.id),
+    rows.map((p) => ({ ...p, accepted_runs: p.accepted_runs ?? 0 })),
   );
-  return rows.map((p) => ({
-    ...p,
-    accepted_runs: p.accepted_runs ?? 0,
-    series: series.filter((s) => s.protocol_id === p.id),
-  }));
 }
-
-export type ProtocolListItem = Awaited<ReturnType<typeof listProtocols>>[number];
 
 /** Every version of one protocol, newest first, each with its series; null when the slug is unknown. */
 export async function protocolVersions(db: Db, slug: string) {
@@ -87,30 +89,21 @@ export async function protocolVersions(db: Db, slug: string) {
     .orderBy("p.version", "desc")
     .execute();
   if (rows.length === 0) return null;
-  const series = await seriesOf(
+  return withSeries(
     db,
-    rows.map((r) => r.id),
+    rows.map((p) => ({ ...p, accepted_runs: p.accepted_runs ?? 0 })),
   );
-  return rows.map((p) => ({
-    ...p,
-    accepted_runs: p.accepted_runs ?? 0,
-    series: series.filter((s) => s.protocol_id === p.id),
-  }));
 }
-
-export type ProtocolVersion = NonNullable<Awaited<ReturnType<typeof protocolVersions>>>[number];
 
 /** One version by slug and number, with its series; null when there is no such version. */
 export async function getProtocol(db: Db, slug: string, version: number) {
   const p = await protocolsBase(db).where("p.slug", "=", slug).where("p.version", "=", version).executeTakeFirst();
-  if (!p) return null;
-  return { ...p, series: await seriesOf(db, [p.id]) };
+  return p ? (await withSeries(db, [p]))[0]! : null;
 }
 
 export async function getProtocolById(db: Db, id: number) {
   const p = await protocolsBase(db).where("p.id", "=", id).executeTakeFirst();
-  if (!p) return null;
-  return { ...p, series: await seriesOf(db, [p.id]) };
+  return p ? (await withSeries(db, [p]))[0]! : null;
 }
 
 /** Freezes the version a run is about to use; a frozen version never changes again. */

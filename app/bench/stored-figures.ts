@@ -5,6 +5,7 @@ import { randomEffects, type RandomEffects, type Study } from "./across-rigs";
 import { rigAgreement, type RigAgreement } from "./agreement";
 import { meanInterval } from "./figures";
 import { pressureSlope, type PressureSlope } from "./pressure-slope";
+import { groupBy } from "~/utils/group";
 
 /** One accepted run's series, with each trial's blow peaks. */
 export interface RunSeriesData {
@@ -44,17 +45,6 @@ export interface PooledFigure {
   rigs: number;
 }
 
-function groupBy<T>(items: readonly T[], key: (item: T) => string) {
-  const groups = new Map<string, T[]>();
-  for (const item of items) {
-    const k = key(item);
-    const list = groups.get(k) ?? [];
-    list.push(item);
-    groups.set(k, list);
-  }
-  return groups;
-}
-
 /** The full-trigger series a lightest-steady one is compared with: same inlet, else the first regulated one. */
 function partnerOf<T extends RunSeriesData>(light: T, run: readonly T[]): T | null {
   const full = run.filter((s) => s.trigger === "full");
@@ -65,33 +55,42 @@ function partnerOf<T extends RunSeriesData>(light: T, run: readonly T[]): T | nu
   );
 }
 
-/**
- * Per model and series, the runs' means pooled by `randomEffects`; and per model and lightest-steady
- * series, the trigger control range (full minus lightest steady) of each run pooled the same way, its
- * variance per run the sum of the two series' s²/n.
- */
-export function pooledFigures(series: readonly RunSeriesData[], confidence = 0.95): PooledFigure[] {
-  const out: PooledFigure[] = [];
-  const studied = series.flatMap((s) => {
-    const study = runStudy(s.trials);
-    return study ? [{ ...s, study }] : [];
-  });
-  for (const group of groupBy(studied, (s) => `${s.modelId}:${s.seriesId}`).values()) {
+type SeriesStudy = { modelId: number; protocolId: number; seriesId: number; rigId: number; study: Study };
+
+/** One random-effects figure per model and series, pooling the runs' studies. */
+function poolBySeries(
+  studies: readonly SeriesStudy[],
+  figure: PooledFigure["figure"],
+  confidence: number,
+): PooledFigure[] {
+  return [...groupBy(studies, (s) => `${s.modelId}:${s.seriesId}`).values()].map((group) => {
     const first = group[0]!;
-    out.push({
+    return {
       modelId: first.modelId,
       protocolId: first.protocolId,
       seriesId: first.seriesId,
-      figure: "force",
+      figure,
       pooled: randomEffects(
         group.map((s) => s.study),
         confidence,
       ),
       runs: group.length,
       rigs: new Set(group.map((s) => s.rigId)).size,
-    });
-  }
-  const ranges: { modelId: number; protocolId: number; seriesId: number; rigId: number; study: Study }[] = [];
+    };
+  });
+}
+
+/**
+ * Per model and series, the runs' means pooled by `randomEffects`; and per model and lightest-steady
+ * series, the trigger control range (full minus lightest steady) of each run pooled the same way, its
+ * variance per run the sum of the two series' s²/n.
+ */
+export function pooledFigures(series: readonly RunSeriesData[], confidence = 0.95): PooledFigure[] {
+  const studied = series.flatMap((s) => {
+    const study = runStudy(s.trials);
+    return study ? [{ ...s, study }] : [];
+  });
+  const ranges: SeriesStudy[] = [];
   for (const run of groupBy(studied, (s) => String(s.runId)).values()) {
     for (const light of run.filter((s) => s.trigger === "lightest_steady")) {
       const full = partnerOf(light, run);
@@ -105,22 +104,7 @@ export function pooledFigures(series: readonly RunSeriesData[], confidence = 0.9
       });
     }
   }
-  for (const group of groupBy(ranges, (s) => `${s.modelId}:${s.seriesId}`).values()) {
-    const first = group[0]!;
-    out.push({
-      modelId: first.modelId,
-      protocolId: first.protocolId,
-      seriesId: first.seriesId,
-      figure: "trigger_range",
-      pooled: randomEffects(
-        group.map((s) => s.study),
-        confidence,
-      ),
-      runs: group.length,
-      rigs: new Set(group.map((s) => s.rigId)).size,
-    });
-  }
-  return out;
+  return [...poolBySeries(studied, "force", confidence), ...poolBySeries(ranges, "trigger_range", confidence)];
 }
 
 export interface AgreementFigure {

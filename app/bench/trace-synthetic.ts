@@ -1,6 +1,6 @@
 // Synthetic traces with known blows, for the tests and the demo. Seeded, so the same options give
 // the same samples everywhere.
-import { mulberry32, normalSource } from "./random";
+import { mulberry32, normalSource } from "~/utils/random";
 
 export interface SynthesizeTraceOptions {
   rateHz: number;

@@ -12,6 +12,9 @@
 // criterion's rank in that draw (1 = best, ties share the mean rank; missing weights count 1), the
 // lowest sum first. Ranks, not raw values, so no criterion's unit outweighs another's. It counts how
 // often each comes first; candidates tied for first share the draw.
+import { mulberry32 } from "~/utils/random";
+
+export { mulberry32 };
 
 export type Draw =
   | { kind: "beta"; successes: number; trials: number }
@@ -48,18 +51,6 @@ export interface BestPick {
 
 /** z for a two-sided 95 % interval (published normal quantile). */
 const Z95 = 1.959963984540054;
-
-/** mulberry32: a small, fast 32-bit seeded generator; uniform in [0, 1). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** A standard normal by Box–Muller (one of the pair). */
 function normal(rand: () => number): number {

@@ -2,6 +2,7 @@
 import seedrandom from "seedrandom";
 import { checkConfidence, tCritical } from "./distributions";
 import type { Interval } from "./proportions";
+import { select } from "../utils/quickselect";
 
 /** Student t interval for a mean from summary statistics: x̄ ± t(1−α/2, n−1) · s/√n. */
 export function meanIntervalFromSummary(
@@ -26,38 +27,12 @@ export function meanInterval(values: number[], confidence = 0.95): Interval & { 
   return meanIntervalFromSummary(mean, sd, n, confidence);
 }
 
-/** k-th smallest of a (scratch) array by quickselect, in place: O(n), for bootstrap medians. */
-function select(a: Float64Array, k: number): number {
-  let lo = 0,
-    hi = a.length - 1;
-  while (lo < hi) {
-    const pivot = a[(lo + hi) >> 1]!;
-    let i = lo,
-      j = hi;
-    while (i <= j) {
-      while (a[i]! < pivot) i++;
-      while (a[j]! > pivot) j--;
-      if (i <= j) {
-        const t = a[i]!;
-        a[i] = a[j]!;
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else return a[k]!;
-  }
-  return a[k]!;
-}
-
 export function median(values: readonly number[]): number {
   if (values.length === 0) throw new RangeError("need at least one value");
   const a = Float64Array.from(values);
   const mid = a.length >> 1;
-  if (a.length % 2) return select(a, mid);
-  const upper = select(a, mid);
+  if (a.length % 2) return select(a, a.length, mid);
+  const upper = select(a, a.length, mid);
   let lower = -Infinity;
   for (let i = 0; i < mid; i++) if (a[i]! > lower) lower = a[i]!; // after select, a[0..mid) ≤ a[mid]
   return (lower + upper) / 2;

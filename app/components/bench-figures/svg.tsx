@@ -17,16 +17,23 @@ export type Scale = ReturnType<typeof scaleLinear<number, number>>;
 export const tick = (x: number) =>
   Math.abs(x) >= 1000 ? Math.round(x).toLocaleString("en-US") : String(Number(x.toPrecision(3)));
 
+export type Margins = { l: number; r: number; t: number; b: number };
+
+/** Grid lines with the y ticks, the x ticks and the x label; the frame is the figures' own unless given. */
 export function Axes({
   x,
   y,
   H,
+  W: width = W,
+  m = M,
   xLabel,
   yFormat = tick,
 }: {
   x: Scale;
   y: Scale;
   H: number;
+  W?: number;
+  m?: Margins;
   xLabel: string;
   yFormat?: (v: number) => string;
 }) {
@@ -34,18 +41,18 @@ export function Axes({
     <g aria-hidden="true">
       {y.ticks(4).map((t) => (
         <g key={`y${t}`}>
-          <line x1={M.l} x2={W - M.r} y1={y(t)} y2={y(t)} stroke={GRID} />
-          <text x={M.l - 5} y={y(t)} textAnchor="end" dominantBaseline="middle" fontSize="11" fill={AXIS}>
+          <line x1={m.l} x2={width - m.r} y1={y(t)} y2={y(t)} stroke={GRID} />
+          <text x={m.l - 5} y={y(t)} textAnchor="end" dominantBaseline="middle" fontSize="11" fill={AXIS}>
             {yFormat(t)}
           </text>
         </g>
       ))}
       {x.ticks(4).map((t) => (
-        <text key={`x${t}`} x={x(t)} y={H - M.b + 14} textAnchor="middle" fontSize="11" fill={AXIS}>
+        <text key={`x${t}`} x={x(t)} y={H - m.b + 14} textAnchor="middle" fontSize="11" fill={AXIS}>
           {tick(t)}
         </text>
       ))}
-      <text x={(M.l + W - M.r) / 2} y={H - 3} textAnchor="middle" fontSize="11" fill={AXIS}>
+      <text x={(m.l + width - m.r) / 2} y={H - 3} textAnchor="middle" fontSize="11" fill={AXIS}>
         {xLabel}
       </text>
     </g>

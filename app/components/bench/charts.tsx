@@ -2,11 +2,9 @@
 // also given as text beside the picture. Values arrive in SI and are drawn in the reader's unit.
 import { scaleLinear } from "~/components/linear-scale";
 import { line } from "d3-shape";
+import { AXIS, Axes, GRID, INK, tick } from "~/components/bench-figures/svg";
 
 const W = 360;
-const AXIS = "#57534e";
-const GRID = "#e7e5e4";
-const INK = "#2f6b5f";
 const ALARM = "#b91c1c";
 
 interface Frame {
@@ -17,46 +15,6 @@ interface Frame {
 
 function frame({ width = W, height, left = 52 }: Frame) {
   return { W: width, H: height, m: { l: left, r: 10, t: 10, b: 34 } };
-}
-
-const fmt = (x: number) =>
-  Math.abs(x) >= 1000 ? Math.round(x).toLocaleString("en-US") : String(Number(x.toPrecision(3)));
-
-function Axes({
-  x,
-  y,
-  H,
-  W: width,
-  m,
-  xLabel,
-}: {
-  x: ReturnType<typeof scaleLinear<number, number>>;
-  y: ReturnType<typeof scaleLinear<number, number>>;
-  H: number;
-  W: number;
-  m: { l: number; r: number; t: number; b: number };
-  xLabel: string;
-}) {
-  return (
-    <>
-      {y.ticks(4).map((t) => (
-        <g key={`y${t}`}>
-          <line x1={m.l} x2={width - m.r} y1={y(t)} y2={y(t)} stroke={GRID} />
-          <text x={m.l - 5} y={y(t)} textAnchor="end" dominantBaseline="middle" fontSize="11" fill={AXIS}>
-            {fmt(t)}
-          </text>
-        </g>
-      ))}
-      {x.ticks(4).map((t) => (
-        <text key={`x${t}`} x={x(t)} y={H - m.b + 14} textAnchor="middle" fontSize="11" fill={AXIS}>
-          {fmt(t)}
-        </text>
-      ))}
-      <text x={(m.l + width - m.r) / 2} y={H - 3} textAnchor="middle" fontSize="11" fill={AXIS}>
-        {xLabel}
-      </text>
-    </>
-  );
 }
 
 /** A calibration: the rig's readings against the reference loads with the fitted curve, and the residuals below. */
@@ -253,7 +211,7 @@ export function BlowStrip({
         <g key={t}>
           <line x1={x(t)} x2={x(t)} y1={m.t} y2={H - m.b} stroke={GRID} />
           <text x={x(t)} y={H - m.b + 14} textAnchor="middle" fontSize="11" fill={AXIS}>
-            {fmt(t)}
+            {tick(t)}
           </text>
         </g>
       ))}

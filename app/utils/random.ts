@@ -1,5 +1,5 @@
-// A small seeded generator for synthetic traces and the demo: the same seed gives the same trace in
-// the browser, on the server and in a test. No dependency.
+// A small seeded generator for synthetic traces, the demo and simulated draws: the same seed gives the same
+// numbers in the browser, on the server and in a test. No imports, so the browser's trace preview stays light.
 
 /**
  * mulberry32: a 32-bit generator by Tommy Ettinger (public domain, widely copied; from memory).
