@@ -13,6 +13,7 @@ import {
   UNIT_SYSTEMS,
   type UnitSystem,
 } from "~/domain";
+import { VIBRATION_BASES, type VibrationBasis } from "./in-use";
 
 /** The criteria a shopper can weigh, in the order the form lists them. */
 export const SHORTLIST_CRITERIA = ["chance", "time", "weight", "price", "vibration"] as const;
@@ -51,8 +52,6 @@ export const DEFAULT_WEIGHTS: Record<ShortlistCriterion, number> = {
 };
 export const weightParam = (c: ShortlistCriterion) => `w_${c}`;
 
-export const VIBRATION_BASIS_LABELS = { declared: "the maker's declared value", "in-use": "an in-use estimate" };
-
 export interface ShortlistAsk {
   system: UnitSystem;
   bits: "shank-0.401" | "shank-0.498" | null;
@@ -66,7 +65,7 @@ export interface ShortlistAsk {
   jobsPerDay: number;
   /** 0–10 (share of the daily action value; 1 = all of it). */
   maxVibrationShare: number | null;
-  basis: "declared" | "in-use";
+  basis: VibrationBasis;
   weights: Record<ShortlistCriterion, number>;
   seed: number;
 }
@@ -117,7 +116,7 @@ function fieldSchemas(system: UnitSystem) {
         .max(MAX_JOBS_PER_DAY, `Jobs a day: 1–${MAX_JOBS_PER_DAY}`),
     ),
     maxv: positive(1000, "Most vibration: more than 0, at most 1,000 % of the action value").transform((p) => p / 100),
-    vb: z.enum(["declared", "in-use"], { error: "Vibration value: declared or in-use" }),
+    vb: z.enum(VIBRATION_BASES, { error: "Vibration value: declared or in-use" }),
     seed: z.preprocess(
       parseMeasure,
       z
