@@ -8,6 +8,8 @@ import {
   parseMeasure,
   RANGES,
   rangeShort,
+  SHANKS,
+  type Shank,
   SYSTEM_UNITS,
   toSi,
   UNIT_SYSTEMS,
@@ -54,7 +56,7 @@ export const weightParam = (c: ShortlistCriterion) => `w_${c}`;
 
 export interface ShortlistAsk {
   system: UnitSystem;
-  bits: "shank-0.401" | "shank-0.498" | null;
+  bits: Shank | null;
   maxWeightKg: number | null;
   maxLengthMm: number | null;
   maxPriceCents: number | null;
@@ -81,7 +83,7 @@ function fieldSchemas(system: UnitSystem) {
   const lu = system === "us" ? "in" : "mm";
   const flowUnit = SYSTEM_UNITS[lu].flow;
   return {
-    bits: z.enum(["shank-0.401", "shank-0.498"], { error: "Bits: 0.401 or 0.498 in shank" }),
+    bits: z.enum(SHANKS, { error: "Bits: 0.401 or 0.498 in shank" }),
     maxw: positive(
       system === "us" ? 100 : 45,
       `Maximum weight: more than 0, at most ${system === "us" ? "100 lb" : "45 kg"}`,
