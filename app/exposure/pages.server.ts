@@ -23,7 +23,7 @@ const declaredColumns = [
   "m.sound_power_source",
 ] as const;
 
-export async function declaredFigures(db: Db, modelIds: readonly number[]) {
+async function declaredFigures(db: Db, modelIds: readonly number[]) {
   if (modelIds.length === 0) return [];
   return db
     .selectFrom("tool_models as m")

@@ -72,8 +72,8 @@ export interface ShortlistAsk {
   seed: number;
 }
 
-export const MAX_JOBS_PER_DAY = 100;
-export const MAX_SEED = 2 ** 31 - 1;
+const MAX_JOBS_PER_DAY = 100;
+const MAX_SEED = 2 ** 31 - 1;
 
 const positive = (max: number, message: string) =>
   z.preprocess(parseMeasure, z.number({ error: message }).positive(message).max(max, message));
