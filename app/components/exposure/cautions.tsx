@@ -2,8 +2,8 @@
 // rules and occupational-health practice; sources as in the exposure module.
 import { IN_USE_FACTOR } from "~/exposure";
 
-export function ExposureCautions({ headingLevel = 3 }: { headingLevel?: 2 | 3 | 4 }) {
-  const Heading = `h${headingLevel}` as const;
+export function ExposureCautions({ headingLevel = 3 }: { headingLevel?: 2 | 3 }) {
+  const Heading = headingLevel === 2 ? "h2" : "h3";
   return (
     <aside
       aria-label="About these exposure figures"

@@ -1,16 +1,16 @@
 // A day on each candidate: trigger time = the job's median time to free it with that tool (Kaplan–Meier,
 // give-ups counted) × jobs a day, and what that time does to the hands and ears, with intervals carried
 // from the time's interval. The cautions say what the figures mean and defer to local rules.
-import { formatDose, formatDuration, formatShare } from "~/domain";
+import { formatDuration, formatShare } from "~/domain";
 import type { CarriedInterval } from "~/exposure/day";
-import type { VibrationBasis } from "~/exposure/in-use";
 import type { Shortlist } from "~/exposure/shortlist";
-import { ExposureCautions } from "../exposure/cautions";
 
 const band = (x: CarriedInterval, f: (v: number) => string) =>
   x.lower != null && x.upper != null
     ? `${f(x.estimate)} (${f(x.lower)}–${f(x.upper)})`
     : `${f(x.estimate)} (no interval)`;
+const pct = (v: number) => `${Math.round(v)} %`;
+const share = (v: number) => formatShare(v);
 
 export function DayExposure({
   shortlist,
@@ -19,7 +19,7 @@ export function DayExposure({
 }: {
   shortlist: Shortlist;
   jobsPerDay: number;
-  basis: VibrationBasis;
+  basis: "declared" | "in-use";
 }) {
   return (
     <section aria-labelledby="day-heading" className="space-y-2">
@@ -46,7 +46,7 @@ export function DayExposure({
                     : "no median yet: fewer than half its reports freed it"}
                 </td>
                 <td className="px-3 py-2">
-                  {c.day ? band(c.day.shareOfActionValue, formatShare) : "—"}
+                  {c.day ? band(c.day.shareOfActionValue, share) : "—"}
                   {c.ahv != null && (
                     <div className="text-xs text-stone-600">
                       a_hv {c.ahv.toFixed(1)}
@@ -56,9 +56,7 @@ export function DayExposure({
                   )}
                 </td>
                 <td className="px-3 py-2">
-                  {c.day
-                    ? `${band(c.day.nioshDosePercent, formatDose)} · ${band(c.day.oshaDosePercent, formatDose)}`
-                    : "—"}
+                  {c.day ? `${band(c.day.nioshDosePercent, pct)} · ${band(c.day.oshaDosePercent, pct)}` : "—"}
                   {c.lpa != null && (
                     <div className="text-xs text-stone-600">
                       L_pA {c.lpa.toFixed(0)}
@@ -81,7 +79,47 @@ export function DayExposure({
           ? `In-use estimate: declared × ${shortlist.vibrationFactor.factor} (${shortlist.vibrationFactor.source}).`
           : "Declared values (ISO 28927, ISO 15744) as the maker measured them on a standard task."}
       </p>
-      <ExposureCautions headingLevel={4} />
+      <ExposureCautions />
     </section>
+  );
+}
+
+/** What the exposure figures mean and do not: cautions beside every day's figures. */
+export function ExposureCautions() {
+  return (
+    <aside
+      aria-labelledby="exposure-cautions-heading"
+      className="rounded-lg border-l-4 border-signal-500 bg-signal-100 p-3 text-sm text-stone-800"
+    >
+      <h4 id="exposure-cautions-heading" className="mb-1 font-semibold">
+        Reading these figures
+      </h4>
+      <ul className="list-disc space-y-1 pl-5">
+        <li>
+          The action value is where an employer must start reducing exposure; the limit value must not be exceeded
+          (Directive 2002/44/EC, in the EU; other places set their own values and duties).
+        </li>
+        <li>
+          Declared values come from a standard test task. A seized ball joint, a worn bit or an awkward angle often
+          vibrates more, so a declared figure can understate the real day — try the in-use estimate.
+        </li>
+        <li>
+          Anti-vibration gloves are no substitute for less time on the trigger: a tool that frees the job sooner, or
+          fewer jobs a day on it, cuts the dose.
+        </li>
+        <li>
+          Wear hearing protection with percussive tools; the doses here count only this tool, not the rest of the shop's
+          noise.
+        </li>
+        <li>
+          Tingling, numbness or white fingers after work are reasons to see occupational health; people regularly
+          exposed should be under health surveillance.
+        </li>
+      </ul>
+      <p className="mt-1 text-stone-700">
+        These are estimates for planning. Local regulations, your occupational-health service and the maker's
+        instructions come first.
+      </p>
+    </aside>
   );
 }
