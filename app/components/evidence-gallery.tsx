@@ -1,7 +1,6 @@
 // Videos and photos reporters published with the open data, each linked to the report it belongs to.
 import { Link } from "react-router";
 import type { PublishedFile } from "~/reports/public.server";
-import { EvidenceFile } from "./review/evidence-media";
 
 export function EvidenceGallery({
   files,
@@ -24,7 +23,17 @@ export function EvidenceGallery({
           return (
             <li key={f.id}>
               <figure className="rounded-lg border border-stone-200 bg-white p-2">
-                <EvidenceFile kind={f.kind} url={f.url} label={what} videoLabel={what} lazy />
+                {f.kind === "video" ? (
+                  <video
+                    src={f.url}
+                    controls
+                    preload="metadata"
+                    className="w-full rounded bg-black"
+                    aria-label={what}
+                  />
+                ) : (
+                  <img src={f.url} alt={what} loading="lazy" className="w-full rounded" />
+                )}
                 <figcaption className="mt-1 text-xs text-stone-600">
                   {showReportLinks ? (
                     <Link to={`/reports/${f.reportId}`} className="text-bay-700 underline">
