@@ -14,8 +14,8 @@ export const IN_USE_SOURCE =
   "CEN/TR 15350 multiplication factors for estimating in-use vibration from declared values (1.5–2 for pneumatic percussive and impact tools; the factor 2 from memory)";
 export const DECLARED_SOURCE = "the maker's declared value under the ISO 28927 test code";
 
-export type VibrationBasis = "declared" | "in-use";
-export const VIBRATION_BASES: readonly VibrationBasis[] = ["declared", "in-use"];
+export const VIBRATION_BASES = ["declared", "in-use"] as const;
+export type VibrationBasis = (typeof VIBRATION_BASES)[number];
 
 export interface InUseValue {
   value: number;

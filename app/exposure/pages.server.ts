@@ -3,6 +3,7 @@
 // out from them. Reads stats_cells directly (not through app/stats), so app/stats may use this module's
 // pure functions without an import circle.
 import type { Db } from "../../db/database";
+import { modelsBase } from "~/catalogue/queries.server";
 import { toolName } from "~/domain";
 import { invariantResponse } from "~/utils/http";
 import { dayExposure, type CarriedInterval, type DayExposure } from "./day";
@@ -22,7 +23,7 @@ const declaredColumns = [
   "m.sound_power_source",
 ] as const;
 
-export async function declaredFigures(db: Db, modelIds: readonly number[]) {
+async function declaredFigures(db: Db, modelIds: readonly number[]) {
   if (modelIds.length === 0) return [];
   return db
     .selectFrom("tool_models as m")
@@ -156,22 +157,7 @@ export type CompareExposure = Awaited<ReturnType<typeof compareExposure>>;
 /** Everything the day calculator shows: the choices, the rows as typed with their errors, and the day. */
 export async function dayCalculator(db: Db, url: URL) {
   const [models, jobs] = await Promise.all([
-    db
-      .selectFrom("tool_models as m")
-      .innerJoin("makers as mk", "mk.id", "m.maker_id")
-      .innerJoin("tool_categories as c", "c.id", "m.category_id")
-      .select([
-        "m.id",
-        "m.slug",
-        "m.model_code",
-        "mk.name as maker_name",
-        "c.slug as category",
-        "c.name as category_name",
-      ])
-      .orderBy("c.name")
-      .orderBy("mk.name")
-      .orderBy("m.model_code")
-      .execute(),
+    modelsBase(db).orderBy("c.name").orderBy("mk.name").orderBy("m.model_code").execute(),
     db
       .selectFrom("job_types as j")
       .innerJoin("tool_categories as c", "c.id", "j.category_id")
@@ -180,13 +166,18 @@ export async function dayCalculator(db: Db, url: URL) {
       .orderBy("j.name")
       .execute(),
   ]);
-  const tools = models.map((m) => ({ ...m, label: toolName(m.maker_name, m.model_code) }));
-  const query: DayQuery = readDayQuery(url.searchParams, {
-    tools: new Map(tools.map((t) => [t.slug, t])),
-    jobs: new Map(jobs.map((j) => [j.slug, j])),
-  });
+  const tools = models.map((m) => ({
+    id: m.id,
+    slug: m.slug,
+    model_code: m.model_code,
+    maker_name: m.maker_name,
+    category: m.category_slug,
+    category_name: m.category_name,
+    label: toolName(m.maker_name, m.model_code),
+  }));
   const toolBySlug = new Map(tools.map((t) => [t.slug, t]));
   const jobBySlug = new Map(jobs.map((j) => [j.slug, j]));
+  const query: DayQuery = readDayQuery(url.searchParams, { tools: toolBySlug, jobs: jobBySlug });
   const ids = [...new Set(query.valid.map((r) => toolBySlug.get(r.tool)!.id))];
   const [declared, cells] = await Promise.all([
     declaredFigures(db, ids),

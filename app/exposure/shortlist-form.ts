@@ -8,11 +8,14 @@ import {
   parseMeasure,
   RANGES,
   rangeShort,
+  SHANKS,
+  type Shank,
   SYSTEM_UNITS,
   toSi,
   UNIT_SYSTEMS,
   type UnitSystem,
 } from "~/domain";
+import { VIBRATION_BASES, type VibrationBasis } from "./in-use";
 
 /** The criteria a shopper can weigh, in the order the form lists them. */
 export const SHORTLIST_CRITERIA = ["chance", "time", "weight", "price", "vibration"] as const;
@@ -51,11 +54,9 @@ export const DEFAULT_WEIGHTS: Record<ShortlistCriterion, number> = {
 };
 export const weightParam = (c: ShortlistCriterion) => `w_${c}`;
 
-export const VIBRATION_BASIS_LABELS = { declared: "the maker's declared value", "in-use": "an in-use estimate" };
-
 export interface ShortlistAsk {
   system: UnitSystem;
-  bits: "shank-0.401" | "shank-0.498" | null;
+  bits: Shank | null;
   maxWeightKg: number | null;
   maxLengthMm: number | null;
   maxPriceCents: number | null;
@@ -66,13 +67,13 @@ export interface ShortlistAsk {
   jobsPerDay: number;
   /** 0–10 (share of the daily action value; 1 = all of it). */
   maxVibrationShare: number | null;
-  basis: "declared" | "in-use";
+  basis: VibrationBasis;
   weights: Record<ShortlistCriterion, number>;
   seed: number;
 }
 
-export const MAX_JOBS_PER_DAY = 100;
-export const MAX_SEED = 2 ** 31 - 1;
+const MAX_JOBS_PER_DAY = 100;
+const MAX_SEED = 2 ** 31 - 1;
 
 const positive = (max: number, message: string) =>
   z.preprocess(parseMeasure, z.number({ error: message }).positive(message).max(max, message));
@@ -82,7 +83,7 @@ function fieldSchemas(system: UnitSystem) {
   const lu = system === "us" ? "in" : "mm";
   const flowUnit = SYSTEM_UNITS[lu].flow;
   return {
-    bits: z.enum(["shank-0.401", "shank-0.498"], { error: "Bits: 0.401 or 0.498 in shank" }),
+    bits: z.enum(SHANKS, { error: "Bits: 0.401 or 0.498 in shank" }),
     maxw: positive(
       system === "us" ? 100 : 45,
       `Maximum weight: more than 0, at most ${system === "us" ? "100 lb" : "45 kg"}`,
@@ -117,7 +118,7 @@ function fieldSchemas(system: UnitSystem) {
         .max(MAX_JOBS_PER_DAY, `Jobs a day: 1–${MAX_JOBS_PER_DAY}`),
     ),
     maxv: positive(1000, "Most vibration: more than 0, at most 1,000 % of the action value").transform((p) => p / 100),
-    vb: z.enum(["declared", "in-use"], { error: "Vibration value: declared or in-use" }),
+    vb: z.enum(VIBRATION_BASES, { error: "Vibration value: declared or in-use" }),
     seed: z.preprocess(
       parseMeasure,
       z

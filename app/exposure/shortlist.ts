@@ -149,7 +149,7 @@ function reasonsAgainst(tool: ShortlistTool, c: Candidate, ask: ShortlistAsk, un
 }
 
 /** A criterion's value for the front and the picture (point estimates), null when unknown. */
-export function criterionValue(c: Candidate, k: ShortlistCriterion): number | null {
+function criterionValue(c: Candidate, k: ShortlistCriterion): number | null {
   switch (k) {
     case "chance":
       return c.chance.estimate;
@@ -195,7 +195,7 @@ function criterionDraw(
   }
 }
 
-export const BEST_PICK_DRAWS = 4000;
+const BEST_PICK_DRAWS = 4000;
 
 export function buildShortlist(
   tools: readonly ShortlistTool[],

@@ -8,9 +8,7 @@ const browser = sharedBrowser();
 const PHONE = { width: 390, height: 844 };
 
 describe("a day on the tools", () => {
-  // Skipped until mended: after switching to in-use vibration with JavaScript on, the in-use note never
-  // appears, though the address carries vib=in-use (the same switch works without JavaScript, below).
-  it.skip("works out an example day at phone width, then switches to in-use vibration, without sideways scroll", async () => {
+  it("works out an example day at phone width, then switches to in-use vibration, without sideways scroll", async () => {
     const { page, assertClean, close } = await newCheckedPage(browser(), PHONE);
     await page.goto(`${baseUrl}/day`);
     await hydrated(page);

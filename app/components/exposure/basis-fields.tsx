@@ -1,4 +1,5 @@
 // The two settings every exposure view takes from the URL: jobs per day and declared or in-use vibration.
+import { Form } from "react-router";
 import { IN_USE_FACTOR, JOBS_PER_DAY, type VibrationBasis } from "~/exposure";
 
 export function BasisChoice({ basis }: { basis: VibrationBasis }) {
@@ -17,7 +18,7 @@ export function BasisChoice({ basis }: { basis: VibrationBasis }) {
   );
 }
 
-export function PerDayField({ perDay, id }: { perDay: number; id: string }) {
+function PerDayField({ perDay, id }: { perDay: number; id: string }) {
   return (
     <label htmlFor={id} className="block text-sm font-semibold">
       Jobs a day
@@ -44,5 +45,37 @@ export function BasisNote({ basis }: { basis: VibrationBasis }) {
         : `Using the declared vibration values × ${IN_USE_FACTOR}, for tasks rougher than the standard test (CEN/TR 15350's factors; the figure ${IN_USE_FACTOR} from memory).`}{" "}
       Time on the trigger is taken as the median time to free it, counting give-ups as the time spent before giving up.
     </p>
+  );
+}
+
+/**
+ * The panels' settings form (a GET form, so the settings live in the URL) and the note on the basis;
+ * `keep` carries the page's own query along.
+ */
+export function ExposureSettings({
+  perDay,
+  basis,
+  id,
+  keep = [],
+}: {
+  perDay: number;
+  basis: VibrationBasis;
+  id: string;
+  keep?: readonly (readonly [string, string])[];
+}) {
+  return (
+    <>
+      <Form method="get" preventScrollReset className="flex flex-wrap items-end gap-4">
+        {keep.map(([name, value]) => (
+          <input key={`${name}=${value}`} type="hidden" name={name} value={value} />
+        ))}
+        <PerDayField perDay={perDay} id={id} />
+        <BasisChoice basis={basis} />
+        <button type="submit" className="rounded bg-bay-700 px-4 py-2 font-semibold text-white">
+          Work out the day
+        </button>
+      </Form>
+      <BasisNote basis={basis} />
+    </>
   );
 }

@@ -1,9 +1,8 @@
 // The compare page's exposure columns: each tool's declared vibration and noise beside the share of the
 // day's action dose and the noise doses it would use for N of the compared job.
-import { Form } from "react-router";
 import { formatDecibels, formatDose, formatDuration, formatVibration } from "~/domain";
 import type { CompareExposure } from "~/exposure/pages.server";
-import { BasisChoice, BasisNote, PerDayField } from "./basis-fields";
+import { ExposureSettings } from "./basis-fields";
 import { ExposureCautions } from "./cautions";
 import { shareText, withInterval } from "./figures";
 
@@ -18,7 +17,7 @@ export function CompareExposurePanel({
 }) {
   const { perDay, basis, tools } = exposure;
   // The compare page's own query, kept when the exposure settings change.
-  const keep = [["job", job.slug], ["psi", String(psi)], ...tools.map((t) => ["models", t.slug])];
+  const keep = [["job", job.slug], ["psi", String(psi)], ...tools.map((t) => ["models", t.slug] as const)] as const;
   const pm = (v: number | null, k: number | null, f: (x: number) => string, kText: (x: number) => string) =>
     v == null ? "not declared" : `${f(v)}${k == null ? "" : ` ± ${kText(k)}`}`;
   return (
@@ -26,17 +25,7 @@ export function CompareExposurePanel({
       <h2 id="exposure-heading" className="text-lg font-semibold">
         {`Hands and ears: ${perDay} × ${job.name} a day`}
       </h2>
-      <Form method="get" preventScrollReset className="flex flex-wrap items-end gap-4">
-        {keep.map(([name, value]) => (
-          <input key={`${name}=${value}`} type="hidden" name={name} value={value} />
-        ))}
-        <PerDayField perDay={perDay} id="compare-perday" />
-        <BasisChoice basis={basis} />
-        <button type="submit" className="rounded bg-bay-700 px-4 py-2 font-semibold text-white">
-          Work out the day
-        </button>
-      </Form>
-      <BasisNote basis={basis} />
+      <ExposureSettings perDay={perDay} basis={basis} id="compare-perday" keep={keep} />
       <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Exposure table, scrolls sideways">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">

@@ -43,7 +43,14 @@ export function DayView({ tools, jobs, rows, basis, errors, worked, day }: DayCa
         )}
       </header>
 
-      <Form method="get" className="space-y-4" aria-describedby={problems ? "day-problems" : undefined}>
+      {/* Keyed by what it was filled from: the fields take their values as defaults, and a select keeps
+          its first default, so a day reached by a link or a submit with JavaScript starts a fresh form. */}
+      <Form
+        key={JSON.stringify([rows, basis])}
+        method="get"
+        className="space-y-4"
+        aria-describedby={problems ? "day-problems" : undefined}
+      >
         {problems > 0 && (
           <p id="day-problems" role="alert" className="text-red-700">
             {problems === 1 ? "One thing needs" : `${problems} things need`} changing before the day can be worked out.

@@ -1,6 +1,6 @@
 // A dose against its reference values, drawn on the server (no JavaScript): the interval as a band, the
 // estimate as a bar, and each reference value as a labelled line. The same figures are given as text.
-export interface DoseMark {
+interface DoseMark {
   at: number;
   label: string;
 }

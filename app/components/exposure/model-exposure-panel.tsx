@@ -1,10 +1,10 @@
 // The model page's exposure panel: the declared vibration and noise, and a day of N jobs of each job
 // type reported with this tool, timed by the job's median time to free it (give-ups counted).
-import { Form, Link } from "react-router";
+import { Link } from "react-router";
 import { formatDuration } from "~/domain";
 import type { ModelExposure } from "~/exposure/pages.server";
 import { Card } from "../ui";
-import { BasisChoice, BasisNote, PerDayField } from "./basis-fields";
+import { ExposureSettings } from "./basis-fields";
 import { ExposureCautions } from "./cautions";
 import { DayFigures, DeclaredValues, shareText, TIME_FROM, withInterval } from "./figures";
 
@@ -16,14 +16,7 @@ export function ModelExposurePanel({ exposure, modelSlug }: { exposure: ModelExp
         Hands and ears: a day with this tool
       </h2>
       {declared ? <DeclaredValues d={declared} /> : <p className="text-sm">No declared figures yet.</p>}
-      <Form method="get" preventScrollReset className="flex flex-wrap items-end gap-4">
-        <PerDayField perDay={perDay} id="exposure-perday" />
-        <BasisChoice basis={basis} />
-        <button type="submit" className="rounded bg-bay-700 px-4 py-2 font-semibold text-white">
-          Work out the day
-        </button>
-      </Form>
-      <BasisNote basis={basis} />
+      <ExposureSettings perDay={perDay} basis={basis} id="exposure-perday" />
       {jobs.length === 0 && <p className="text-sm text-stone-600">No accepted reports yet, so no job times.</p>}
       <ul className="space-y-4">
         {jobs.map((j, i) => (

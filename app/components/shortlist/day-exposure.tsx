@@ -1,7 +1,7 @@
 // A day on each candidate: trigger time = the job's median time to free it with that tool (Kaplan–Meier,
 // give-ups counted) × jobs a day, and what that time does to the hands and ears, with intervals carried
 // from the time's interval. The cautions say what the figures mean and defer to local rules.
-import { formatDuration, formatShare } from "~/domain";
+import { formatDose, formatDuration, formatShare } from "~/domain";
 import type { CarriedInterval } from "~/exposure/day";
 import type { Shortlist } from "~/exposure/shortlist";
 
@@ -9,8 +9,6 @@ const band = (x: CarriedInterval, f: (v: number) => string) =>
   x.lower != null && x.upper != null
     ? `${f(x.estimate)} (${f(x.lower)}–${f(x.upper)})`
     : `${f(x.estimate)} (no interval)`;
-const pct = (v: number) => `${Math.round(v)} %`;
-const share = (v: number) => formatShare(v);
 
 export function DayExposure({
   shortlist,
@@ -46,7 +44,7 @@ export function DayExposure({
                     : "no median yet: fewer than half its reports freed it"}
                 </td>
                 <td className="px-3 py-2">
-                  {c.day ? band(c.day.shareOfActionValue, share) : "—"}
+                  {c.day ? band(c.day.shareOfActionValue, formatShare) : "—"}
                   {c.ahv != null && (
                     <div className="text-xs text-stone-600">
                       a_hv {c.ahv.toFixed(1)}
@@ -56,7 +54,9 @@ export function DayExposure({
                   )}
                 </td>
                 <td className="px-3 py-2">
-                  {c.day ? `${band(c.day.nioshDosePercent, pct)} · ${band(c.day.oshaDosePercent, pct)}` : "—"}
+                  {c.day
+                    ? `${band(c.day.nioshDosePercent, formatDose)} · ${band(c.day.oshaDosePercent, formatDose)}`
+                    : "—"}
                   {c.lpa != null && (
                     <div className="text-xs text-stone-600">
                       L_pA {c.lpa.toFixed(0)}
