@@ -73,6 +73,8 @@ describe("PostgreSQL restarted under steady load", () => {
   it("answers every read without a server error while the database comes back", async () => {
     const paths = ["/", "/jobs", "/models", "/api/v1/reports?limit=5", "/api/v1/job-types"];
     const statuses: number[] = [];
+    // Which request failed, by path, so a failure says where to look (and the server's log follows it).
+    const failures: string[] = [];
     let restarting = false;
     let restarted = false;
     let afterRestart = 0;
@@ -86,6 +88,8 @@ describe("PostgreSQL restarted under steady load", () => {
           signal: AbortSignal.timeout(60_000),
         }).catch(() => null);
         statuses.push(res?.status ?? 0);
+        if (!res || (res.status >= 500 && res.status !== 503))
+          failures.push(`${res?.status ?? 0} ${paths[i % paths.length]}`);
         if (restarting && !restarted) duringRestart++;
         if (res && res.status === 503) expect(res.headers.get("retry-after")).toBeTruthy();
         await res?.body?.cancel();
@@ -100,8 +104,8 @@ describe("PostgreSQL restarted under steady load", () => {
     await stack.restartDatabase();
     restarted = true;
     await Promise.all(load);
-    expect(statuses.filter((s) => s >= 500 && s !== 503)).toEqual([]);
-    expect(statuses.filter((s) => s === 0)).toEqual([]);
+    if (failures.length) console.error(stack.serverLog());
+    expect(failures).toEqual([]);
     console.log(
       `PostgreSQL restart under load: ${statuses.length} requests, ${duringRestart} of them while it restarted, ${statuses.filter((s) => s === 200).length} answered 200, ${statuses.filter((s) => s === 503).length} answered 503`,
     );

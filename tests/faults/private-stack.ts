@@ -1,7 +1,7 @@
 // A stack of the fault suite's own — PostgreSQL with the demo data, the fakes, server.js — so it
 // can kill the server and restart the database without disturbing the shared test stack.
 import { type ChildProcess, spawn } from "node:child_process";
-import { closeSync, openSync } from "node:fs";
+import { closeSync, openSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { reindexAll, searchClient } from "../../app/search/search.server";
 import { createDb } from "../../db/database";
@@ -23,7 +23,8 @@ export async function startPrivateStack() {
   if (!build.ok) throw new Error(`build failed:\n${build.output}`);
 
   // The server's errors, for a look after a failed run.
-  const serverLog = openSync(path.join(dataDir, "server.log"), "a");
+  const serverLogPath = path.join(dataDir, "server.log");
+  const serverLog = openSync(serverLogPath, "a");
   cleanups.push(() => closeSync(serverLog));
   let server: ChildProcess | undefined;
   const startServer = async () => {
@@ -57,6 +58,17 @@ export async function startPrivateStack() {
     db,
     baseUrl,
     restartDatabase: () => database.restart(),
+    /** The server's stderr so far, without Node's version notices, for a failed test to print. */
+    serverLog: () =>
+      readFileSync(serverLogPath, "utf8")
+        .split("\n")
+        .filter(
+          (line) =>
+            line.trim() &&
+            !/AWS|node >=22|upgrade to node|a\.co\/|security updates|first week|continue receiving/i.test(line),
+        )
+        .slice(-200)
+        .join("\n"),
     startServer,
     /** kill -9 of the app server, as the machine's out-of-memory killer would. */
     killServer: () => stopServer("SIGKILL"),
