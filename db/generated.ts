@@ -437,7 +437,6 @@ export interface StatsCells {
   km_lower_s: number | null;
   km_median_s: number | null;
   km_n: Generated<number>;
-  km_steps: object | null;
   km_upper_s: number | null;
   lower: number;
   measured_share: number;

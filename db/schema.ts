@@ -380,7 +380,6 @@ export interface StatsCellsTable {
   km_median_s: number | null;
   km_lower_s: number | null;
   km_upper_s: number | null;
-  km_steps: ColumnType<{ time: number; survival: number }[] | null, string | null, string | null>;
 }
 
 /** A model's share of its job's pooled pressure fit: all the browser needs to predict at any pressure (app/stats/predict.ts). */

@@ -46,7 +46,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     fit: cell.fit,
     adjReason: cell.adj_reason,
     km: { median: cell.km_median_s, lower: cell.km_lower_s, upper: cell.km_upper_s },
-    steps: cell.km_steps ?? null,
+    steps: c.steps.get(cell.tool_model_id) ?? null,
   }));
   const [bench, units] = await Promise.all([
     compareBench(

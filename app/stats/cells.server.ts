@@ -1,5 +1,6 @@
 // Reads of the stored cells for pages and the API. Pages never recompute from raw reports.
 import type { Db } from "../../db/database";
+import { survivalSteps } from "./refresh.server";
 import { orderCells, tellApart } from "./standings";
 
 /** The stored figures of a cell, as every reader (pages, compare, the feed) selects them. */
@@ -47,13 +48,14 @@ export async function cellsForModel(db: Db, modelId: number) {
 }
 
 /** A job's cells in one query (the order is `orderCells`'s business). */
-export async function cellsForJob(db: Db, jobTypeId: number, { steps = false } = {}) {
+export async function cellsForJob(db: Db, jobTypeId: number) {
   return db
     .selectFrom("stats_cells as s")
     .innerJoin("tool_models as m", "m.id", "s.tool_model_id")
     .innerJoin("makers as mk", "mk.id", "m.maker_id")
     .select([
       ...cellColumns,
+      "s.tool_model_id",
       "m.slug as model_slug",
       "m.model_code",
       "m.fitting",
@@ -65,7 +67,6 @@ export async function cellsForJob(db: Db, jobTypeId: number, { steps = false } =
       "m.running_air_factor",
       "mk.name as maker_name",
     ])
-    .$if(steps, (q) => q.select("s.km_steps"))
     .where("s.job_type_id", "=", jobTypeId)
     .execute();
 }
@@ -79,24 +80,30 @@ export async function jobFit(db: Db, jobTypeId: number) {
 }
 
 /** A job's tools in the one order every page uses, with each tool's mark against the top tool. */
-export async function jobStandings(db: Db, jobTypeId: number, options: { steps?: boolean } = {}) {
-  const [cells, fit] = await Promise.all([cellsForJob(db, jobTypeId, options), jobFit(db, jobTypeId)]);
+export async function jobStandings(db: Db, jobTypeId: number) {
+  const [cells, fit] = await Promise.all([cellsForJob(db, jobTypeId), jobFit(db, jobTypeId)]);
   const { basis, rows } = orderCells(cells, fit?.slope != null);
   return { basis, rows, fit: fit ?? null, setAside: fit?.set_aside ?? 0 };
 }
 
 /**
  * The compare page's figures: the chosen tools' standings on the job (the same rule as the job
- * page: one read of the job's cells) and every pair between them. Unknown or empty slugs are dropped.
+ * page: one read of the job's cells), every pair between them, and the chosen tools' time-to-free
+ * curves (worked out from their reports: only this page draws them). Unknown or empty slugs are dropped.
  */
 export async function compareOnJob(db: Db, jobTypeId: number, modelSlugs: readonly string[]) {
-  const standings = await jobStandings(db, jobTypeId, { steps: true });
+  const standings = await jobStandings(db, jobTypeId);
   const top = standings.rows.find((r) => r.mark === "top")?.cell ?? null;
   const chosen = modelSlugs.map((s) => standings.rows.find((r) => r.cell.model_slug === s)).filter((r) => r != null);
   const pairs = chosen.flatMap((a, i) =>
     chosen.slice(i + 1).map((b) => ({ a: a.cell.model_slug, b: b.cell.model_slug, ...tellApart(a.cell, b.cell) })),
   );
-  return { ...standings, top, chosen, pairs };
+  const steps = await survivalSteps(
+    db,
+    jobTypeId,
+    chosen.map((r) => r.cell.tool_model_id),
+  );
+  return { ...standings, top, chosen, pairs, steps };
 }
 
 export async function cellBySlugs(db: Db, modelSlug: string, jobSlug: string) {

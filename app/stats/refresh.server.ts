@@ -187,7 +187,6 @@ function cellRow(modelId: number, jobTypeId: number, f: CellFigures, now: Date) 
     km_median_s: f.km?.median ?? null,
     km_lower_s: f.km?.lower ?? null,
     km_upper_s: f.km?.upper ?? null,
-    km_steps: f.km ? f.km.steps : null,
     measured_share: f.measuredShare,
     estimated_share: f.estimatedShare,
     computed_at: now,
@@ -214,25 +213,67 @@ type CellRow = ReturnType<typeof withPressure> & {
   shrunk_upper: number | null;
 };
 
+/** The cells' column types that are not double precision, for the typed arrays below. */
+const CELL_TYPES: Record<string, string> = {
+  tool_model_id: "int4",
+  job_type_id: "int4",
+  n: "int4",
+  successes: "int4",
+  reporters: "int4",
+  set_aside: "int4",
+  time_n: "int4",
+  km_n: "int4",
+  adj_reason: "text",
+  fit: "jsonb",
+  computed_at: "timestamptz",
+};
+
 /**
- * Writes many rows in one statement: the rows go as one JSON parameter that PostgreSQL turns into
- * records of the table (json_populate_recordset), then one INSERT … ON CONFLICT. JSON numbers are
- * the shortest text that reads back as the same double, so every stored figure is exact.
+ * Writes many cells in one statement: one typed array per column, unnested into rows, then one
+ * INSERT … ON CONFLICT. Far less to send and parse than a JSON object per row (the column names
+ * once, not once per row). node-pg writes each number as its shortest round-trip text, so every
+ * stored figure is exact; a non-finite number is stored as null, as JSON would have it.
  */
-async function upsertRows(db: Db, table: "stats_cells" | "stats_jobs", key: string[], rows: Record<string, unknown>[]) {
+async function upsertCells(db: Db, rows: CellRow[]) {
   if (rows.length === 0) return;
-  const columns = Object.keys(rows[0]!);
+  const columns = Object.keys(rows[0]!) as (keyof CellRow)[];
+  const key = ["tool_model_id", "job_type_id"];
+  const arrays = columns.map((c) => {
+    const type = CELL_TYPES[c] ?? "float8";
+    const values = rows.map((r) => {
+      const v = r[c];
+      if (typeof v === "number") return Number.isFinite(v) ? v : null;
+      if (type === "jsonb") return v == null ? null : JSON.stringify(v);
+      return v ?? null;
+    });
+    return sql`${values}::${sql.raw(type)}[]`;
+  });
   const list = sql.join(columns.map((c) => sql.ref(c)));
   const updates = sql.join(
     columns.filter((c) => !key.includes(c)).map((c) => sql`${sql.ref(c)} = excluded.${sql.ref(c)}`),
   );
   await sql`
-    insert into ${sql.table(table)} (${list})
-    select ${list} from json_populate_recordset(null::${sql.table(table)}, ${JSON.stringify(rows)}::json)
-    on conflict (${sql.join(key.map((c) => sql.ref(c)))}) do update set ${updates}`.execute(db);
+    insert into stats_cells (${list})
+    select * from unnest(${sql.join(arrays)})
+    on conflict (tool_model_id, job_type_id) do update set ${updates}`.execute(db);
 }
 
-const upsertCells = (db: Db, rows: CellRow[]) => upsertRows(db, "stats_cells", ["tool_model_id", "job_type_id"], rows);
+/**
+ * Writes the jobs' rows (one per job type, a few dozen) in one statement: the rows go as one JSON
+ * parameter that PostgreSQL turns into records of the table (json_populate_recordset).
+ */
+async function upsertJobs(db: Db, rows: Record<string, unknown>[]) {
+  if (rows.length === 0) return;
+  const columns = Object.keys(rows[0]!);
+  const list = sql.join(columns.map((c) => sql.ref(c)));
+  const updates = sql.join(
+    columns.filter((c) => c !== "job_type_id").map((c) => sql`${sql.ref(c)} = excluded.${sql.ref(c)}`),
+  );
+  await sql`
+    insert into stats_jobs (${list})
+    select ${list} from json_populate_recordset(null::stats_jobs, ${JSON.stringify(rows)}::json)
+    on conflict (job_type_id) do update set ${updates}`.execute(db);
+}
 
 interface JobResult {
   jobTypeId: number;
@@ -288,11 +329,9 @@ async function storeJobs(trx: Trx, results: readonly JobResult[], scope: Scope) 
         select * from unnest(${rows.map((r) => r.tool_model_id)}::int[], ${rows.map((r) => r.job_type_id)}::int[]))`.execute(
     trx,
   );
-  for (let i = 0; i < rows.length; i += 2000) await upsertCells(trx, rows.slice(i, i + 2000));
-  await upsertRows(
+  for (let i = 0; i < rows.length; i += 5000) await upsertCells(trx, rows.slice(i, i + 5000));
+  await upsertJobs(
     trx,
-    "stats_jobs",
-    ["job_type_id"],
     results.map((r) => r.job),
   );
 }
@@ -303,6 +342,22 @@ async function refreshJob(trx: Trx, jobTypeId: number) {
   const result = computeJob(jobTypeId, tallies.get(jobTypeId) ?? [], new Date());
   await storeJobs(trx, [result], { job: jobTypeId });
   return result.rows.length;
+}
+
+/**
+ * The Kaplan–Meier steps of a few cells of one job, from their reports as they are now: only
+ * /compare draws the curves, for two to four tools, so they are not stored with every cell.
+ */
+export async function survivalSteps(db: Db, jobTypeId: number, modelIds: readonly number[]) {
+  const out = new Map<number, { time: number; survival: number }[]>();
+  await Promise.all(
+    modelIds.map(async (model) => {
+      const mine = (await readTallies(db, { job: jobTypeId, model })).get(jobTypeId)?.[0];
+      const km = mine ? cellFiguresOfTally(mine.tally)?.km : null;
+      if (km) out.set(model, km.steps);
+    }),
+  );
+  return out;
 }
 
 /** A job whose pooled fit is older than this is refitted whole on its next accept. */
