@@ -165,6 +165,8 @@ export function pooledLogisticFit(
     const stepA = uA.map((u, k) => u / d[k]! - r[k]! * stepB);
     const largest = Math.max(Math.abs(stepB), ...stepA.map(Math.abs));
     if (!Number.isFinite(largest)) break; // information singular: ML under separation
+    // UᵀVU: a step s·V·U gains (s − s²/2)·UᵀVU on the quadratic model of the (penalised) likelihood.
+    const curvatureGain = stepA.reduce((acc, step, k) => acc + step * uA[k]!, stepB * uB);
     let scale = largest > 5 ? 5 / largest : 1;
     let accepted = false;
     const tryScale = (k: number) => {
@@ -177,8 +179,13 @@ export function pooledLogisticFit(
       if (!(Number.isFinite(trial.next.penalised) && trial.next.penalised >= state.penalised - 1e-12)) continue;
       // The expected information can overshoot the penalised likelihood's curvature by up to 2× (a
       // model seen in one report: the step then flips back and forth); take the half step if better.
-      const half = tryScale(scale / 2);
-      if (half.next.penalised > trial.next.penalised) trial = half;
+      // Where the step gained at least 2/3 of what the quadratic model promised, the curvature is
+      // under 4/3 of the model's and the half step cannot gain more, so it is not tried.
+      const gain = trial.next.penalised - state.penalised;
+      if (!(gain >= (2 / 3) * (scale - (scale * scale) / 2) * curvatureGain)) {
+        const half = tryScale(scale / 2);
+        if (half.next.penalised > trial.next.penalised) trial = half;
+      }
       [alpha, beta, state, accepted] = [trial.a, trial.b, trial.next, true];
     }
     if (!accepted) break;
