@@ -159,6 +159,14 @@ export const JSON_TARGETS: JsonTarget[] = [
   },
   { kind: "json", path: () => "/api/evidence/1/complete", fields: [], who: ALL, base: () => ({}) },
   { kind: "json", path: () => "/api/evidence/1/publish", fields: ["public"], who: ALL, base: () => ({ public: true }) },
+  // A presigned upload for a bench trace: refused unless the caller owns the rig (none of the suite's callers do).
+  {
+    kind: "json",
+    path: () => "/api/bench/traces",
+    fields: ["rigId", "size"],
+    who: ALL,
+    base: () => ({ rigId: 1, size: 1000 }),
+  },
 ];
 
 export const QUERY_TARGETS: QueryTarget[] = [
@@ -176,9 +184,35 @@ export const QUERY_TARGETS: QueryTarget[] = [
   {
     kind: "query",
     path: () => "/jobs/ball-joint-separation",
-    fields: ["reg", "hid", "hlen", "cc", "cp", "bits", "page"],
+    // The air calculator's fields, then the shortlist's (app/exposure/shortlist-form.ts).
+    fields: [
+      "reg",
+      "hid",
+      "hlen",
+      "cc",
+      "cp",
+      "bits",
+      "page",
+      "maxw",
+      "maxl",
+      "maxp",
+      "comp",
+      "minc",
+      "jobs",
+      "maxv",
+      "vb",
+      "seed",
+      "w_chance",
+      "w_time",
+      "w_weight",
+      "w_price",
+      "w_vibration",
+    ],
     who: ["anonymous"],
   },
+  // A day on the tools (app/exposure/day-query.ts): rows of tool, job, count and minutes.
+  { kind: "query", path: () => "/day", fields: ["tool", "job", "n", "min", "vib", "perday"], who: ["anonymous"] },
+  { kind: "query", path: () => "/bench/runs/new", fields: ["rig", "protocol"], who: SIGNED_IN },
   { kind: "query", path: () => "/admin/users", fields: fieldsOf(userSearchSchema), who: ["admin", "moderator"] },
   { kind: "query", path: () => "/me/reports", fields: ["submitted", "withdrawn"], who: SIGNED_IN },
   {
