@@ -3,7 +3,7 @@
 import { Link } from "react-router";
 import type { SnapshotInfo } from "~/feed/documents";
 import { type Field, RECORD_TYPES, type RecordType } from "~/feed/fields";
-import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "~/feed/params";
+import { ANONYMOUS_LIMIT, DEFAULT_LIMIT, MAX_LIMIT } from "~/feed/params";
 import { DataTable } from "./ui";
 
 const TYPE_LABEL: Record<Field["type"], string> = {
@@ -12,8 +12,11 @@ const TYPE_LABEL: Record<Field["type"], string> = {
   string: "text",
   boolean: "true/false",
   datetime: "date-time (UTC)",
+  date: "date",
   "string-array": "list of text",
+  "number-array": "list of numbers",
   object: "object",
+  "object-array": "list of objects",
 };
 
 export function SnapshotSection({ snapshot, origin }: { snapshot: SnapshotInfo | null; origin: string }) {
@@ -215,7 +218,7 @@ export function EndpointsSection() {
   );
 }
 
-export function UsingItSection({ origin }: { origin: string }) {
+export function UsingItSection({ origin, keyLimit }: { origin: string; keyLimit: number }) {
   return (
     <section aria-labelledby="use" className="space-y-2">
       <h2 id="use" className="text-lg font-semibold">
@@ -229,8 +232,8 @@ export function UsingItSection({ origin }: { origin: string }) {
           it returns each one exactly once even while new reports are accepted.
         </li>
         <li>
-          Anonymous clients may make {LIMITS.anonymous.points} requests a minute; with an API key, {LIMITS.key.points}.
-          Every answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get{" "}
+          Anonymous clients may make {ANONYMOUS_LIMIT.points} requests a minute; with an API key, {keyLimit}. Every
+          answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get{" "}
           <code>429</code> with <code>Retry-After</code>.
         </li>
         <li>

@@ -3,7 +3,7 @@
 import { SLUG_PATTERN } from "~/domain";
 import { type Field, REPORT_FIELDS } from "./fields";
 import { componentSchema, SCHEMA_NAMES } from "./schemas";
-import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "./params";
+import { ANONYMOUS_LIMIT, DEFAULT_LIMIT, MAX_LIMIT } from "./params";
 
 export const LICENCE = {
   name: "CC-BY-4.0",
@@ -69,13 +69,14 @@ function withLink(responses: ReturnType<typeof cached>) {
   return { ...responses, "200": { ...responses["200"], headers: { ...responses["200"].headers, Link: link } } };
 }
 
-export function openApi(origin: string): Json {
+/** The OpenAPI document; `keyLimit` is the configured requests a minute per API key. */
+export function openApi(origin: string, keyLimit: number): Json {
   return {
     openapi: "3.1.0",
     info: {
       title: "Bayproof open data feed",
       version: FEED_VERSION,
-      description: `Accepted reports of air tools on real repair jobs, the tool models and job types, and the computed stats. Units are SI. Anonymous clients may make ${LIMITS.anonymous.points} requests a minute, API keys ${LIMITS.key.points}. See ${origin}/data.`,
+      description: `Accepted reports of air tools on real repair jobs, the tool models and job types, and the computed stats. Units are SI. Anonymous clients may make ${ANONYMOUS_LIMIT.points} requests a minute, API keys ${keyLimit}. See ${origin}/data.`,
       license: { name: LICENCE.title, identifier: LICENCE.name },
     },
     servers: [{ url: origin }],
@@ -274,8 +275,11 @@ const tableType: Record<Field["type"], string> = {
   string: "string",
   boolean: "boolean",
   datetime: "datetime",
+  date: "date",
   "string-array": "array",
+  "number-array": "array",
   object: "object",
+  "object-array": "array",
 };
 
 /** A Table Schema field; `unit` is our own property beside the standard ones. */

@@ -17,13 +17,17 @@ const base: Record<Field["type"], Json> = {
   string: { type: "string" },
   boolean: { type: "boolean" },
   datetime: { type: "string", format: "date-time" },
+  date: { type: "string", format: "date" },
   "string-array": { type: "array", items: { type: "string" } },
+  "number-array": { type: "array", items: { type: "number" } },
   object: { type: "object" },
+  "object-array": { type: "array" },
 };
 
 function fieldSchema(f: Field): Json {
   const s: Json = { ...base[f.type], description: f.unit ? `${f.description} Unit: ${f.unit}.` : f.description };
-  if (f.fields) Object.assign(s, objectOf(f.fields));
+  if (f.fields && f.type === "object-array") s.items = objectOf(f.fields);
+  else if (f.fields) Object.assign(s, objectOf(f.fields));
   if (f.enum) s.enum = f.nullable ? [...f.enum, null] : [...f.enum];
   if (f.pattern) s.pattern = f.pattern;
   if (f.minimum !== undefined) s[f.minimumExclusive ? "exclusiveMinimum" : "minimum"] = f.minimum;

@@ -9,6 +9,7 @@ export async function loader() {
   const day = new Date().toISOString().slice(0, 10);
   return {
     origin: config.appOrigin,
+    keyLimit: config.feed.keyLimit,
     citation: citation(config.appOrigin, day),
     snapshot: await latestSnapshot(readDb),
   };
@@ -50,7 +51,7 @@ export default function Data({ loaderData }: Route.ComponentProps) {
 
       <EndpointsSection />
 
-      <UsingItSection origin={origin} />
+      <UsingItSection origin={origin} keyLimit={loaderData.keyLimit} />
 
       <section aria-labelledby="privacy" className="space-y-1">
         <h2 id="privacy" className="text-lg font-semibold">
