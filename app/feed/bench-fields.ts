@@ -102,7 +102,7 @@ export const BENCH_TRIAL_FIELDS: Field[] = [
     nullable: true,
     unit: "1/min",
     minimum: 0,
-    description: "Blow rate measured from the spacing of the trace's blows; null for typed peaks.",
+    description: "Blow rate measured from the spacing of the trace's blows; null where none was measured.",
   },
   {
     name: "trace_rate_hz",

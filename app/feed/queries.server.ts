@@ -8,7 +8,8 @@ import { statRecords as statRecordsOfStats } from "~/stats/feed.server";
 import { REPORT_FIELDS } from "./fields";
 import { feedError } from "./http.server";
 
-const iso = (column: RawBuilder<unknown>) =>
+/** A timestamp as the feed writes it: UTC, microseconds, RFC 3339. */
+export const iso = (column: RawBuilder<unknown>) =>
   sql`to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
 
 /**
@@ -115,10 +116,10 @@ const reportWhere = (f: ReportFilters) =>
   );
 
 /** Microseconds since 1970 as timestamptz, exactly (no float on the way). */
-const fromMicros = (micros: string) => sql`(timestamptz 'epoch' + ${micros}::bigint * interval '1 microsecond')`;
+export const fromMicros = (micros: string) => sql`(timestamptz 'epoch' + ${micros}::bigint * interval '1 microsecond')`;
 
 /** Reports accepted this long ago are safe to page over: any transaction accepting one has ended. */
-const SETTLE = "5 seconds";
+export const SETTLE = "5 seconds";
 
 /** The horizon of a new walk: the newest accepted time that has settled, in microseconds. */
 export async function newHorizon(db: Db): Promise<string> {
