@@ -102,9 +102,16 @@ export function DataDictionary() {
   );
 }
 
+/** Fields with those of their objects (and of each item of their lists of objects) as `outer.inner`. */
+const flatten = (fields: Field[], prefix = ""): Field[] =>
+  fields.flatMap((f) => {
+    const named = { ...f, name: `${prefix}${f.name}` };
+    return [named, ...(f.fields ? flatten(f.fields, `${named.name}.`) : [])];
+  });
+
 function RecordFields({ type }: { type: RecordType }) {
   const t = RECORD_TYPES[type];
-  const rows = t.fields.flatMap((f) => [f, ...(f.fields ?? []).map((g) => ({ ...g, name: `${f.name}.${g.name}` }))]);
+  const rows = flatten(t.fields);
   return (
     <div>
       <h3 className="font-semibold">
@@ -128,7 +135,8 @@ function RecordFields({ type }: { type: RecordType }) {
       >
         {rows.map((f) => (
           <tr key={f.name} className="border-b border-stone-100 align-top">
-            <td className="py-1 pr-3 font-mono text-xs">{f.name}</td>
+            {/* Long dotted names break anywhere, so the table fits a phone without scrolling sideways. */}
+            <td className="py-1 pr-3 font-mono text-xs [overflow-wrap:anywhere]">{f.name}</td>
             <td className="py-1 pr-3">
               {TYPE_LABEL[f.type]}
               {f.nullable ? ", may be empty" : ""}
@@ -172,6 +180,25 @@ const ENDPOINTS = [
   ["/api/v1/models", "model-list", "Tool models and their specs (filter category)"],
   ["/api/v1/job-types", "job-type-list", "Job types (filter category)"],
   ["/api/v1/stats", "stat-list", "Stats cells per tool model and job type (filters model, job, category)"],
+  [
+    "/api/v1/bench-runs",
+    "bench-run-page",
+    "Accepted bench runs with their series and trials, a page at a time (filters model, rig, protocol; limit, cursor)",
+  ],
+  ["/api/v1/bench-runs/{id}", "bench-run", "One accepted bench run"],
+  ["/api/v1/bench-runs.ndjson", "bench-run", "Every accepted bench run, one JSON object per line (API key)"],
+  [
+    "/api/v1/bench-runs.csv",
+    "bench-trial-row",
+    "Every trial of every accepted bench run as CSV, a row per trial with its run and series (API key)",
+  ],
+  ["/api/v1/rigs", "rig-list", "Rigs: sensor, calibration and its standing today, check standard"],
+  ["/api/v1/bench-protocols", "bench-protocol-list", "Bench protocol versions and their series"],
+  [
+    "/api/v1/bench-figures",
+    "bench-figure-list",
+    "Bench figures across rigs per tool model and series, with the pressure line (filters model, protocol, series)",
+  ],
 ] as const;
 
 export function EndpointsSection() {
@@ -193,7 +220,7 @@ export function EndpointsSection() {
       >
         {ENDPOINTS.map(([path, schema, what]) => (
           <tr key={path} className="border-b border-stone-100 align-top">
-            <td className="py-1 pr-3 font-mono text-xs">{path}</td>
+            <td className="py-1 pr-3 font-mono text-xs [overflow-wrap:anywhere]">{path}</td>
             <td className="py-1 pr-3">
               <a className="underline" href={`/api/v1/schema/${schema}.json`}>
                 {schema}.json
