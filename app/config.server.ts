@@ -7,6 +7,16 @@ const env = process.env;
 
 const port = env.PORT ?? "3000";
 
+/** A whole number from the environment between min and max, or its default; anything else stops the start. */
+function wholeNumber(name: string, fallback: number, min: number, max: number): number {
+  const raw = env[name];
+  if (raw === undefined || raw.trim() === "") return fallback;
+  const value = /^\d{1,10}$/.test(raw.trim()) ? Number(raw.trim()) : NaN;
+  if (!(value >= min && value <= max))
+    throw new Error(`${name} must be a whole number from ${min} to ${max} (it is "${raw}"); unset, it is ${fallback}.`);
+  return value;
+}
+
 export const config = {
   /** Where server.js listens. */
   listen: { host: env.HOST ?? "127.0.0.1", port: Number(port) },
@@ -22,6 +32,10 @@ export const config = {
    * unset, those reads go to the primary too.
    */
   databaseReadUrl: env.DATABASE_READ_URL || null,
+  feed: {
+    /** Requests a minute per API key on the open feed (anonymous clients have a fixed 60). */
+    keyLimit: wholeNumber("BAYPROOF_FEED_KEY_LIMIT", 600, 1, 1_000_000_000),
+  },
   /** The in-process cache of anonymous public pages, in MB (0 turns it off; docs/decisions/012). */
   pageCacheMb: Number(env.BAYPROOF_PAGE_CACHE_MB ?? "64"),
   oidc: {

@@ -3,7 +3,7 @@
 import { Link } from "react-router";
 import type { SnapshotInfo } from "~/feed/documents";
 import { type Field, RECORD_TYPES, type RecordType } from "~/feed/fields";
-import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "~/feed/params";
+import { ANONYMOUS_LIMIT, DEFAULT_LIMIT, MAX_LIMIT } from "~/feed/params";
 import { DataTable } from "./ui";
 
 const TYPE_LABEL: Record<Field["type"], string> = {
@@ -12,8 +12,11 @@ const TYPE_LABEL: Record<Field["type"], string> = {
   string: "text",
   boolean: "true/false",
   datetime: "date-time (UTC)",
+  date: "date",
   "string-array": "list of text",
+  "number-array": "list of numbers",
   object: "object",
+  "object-array": "list of objects",
 };
 
 export function SnapshotSection({ snapshot, origin }: { snapshot: SnapshotInfo | null; origin: string }) {
@@ -99,9 +102,16 @@ export function DataDictionary() {
   );
 }
 
+/** Fields with those of their objects (and of each item of their lists of objects) as `outer.inner`. */
+const flatten = (fields: Field[], prefix = ""): Field[] =>
+  fields.flatMap((f) => {
+    const named = { ...f, name: `${prefix}${f.name}` };
+    return [named, ...(f.fields ? flatten(f.fields, `${named.name}.`) : [])];
+  });
+
 function RecordFields({ type }: { type: RecordType }) {
   const t = RECORD_TYPES[type];
-  const rows = t.fields.flatMap((f) => [f, ...(f.fields ?? []).map((g) => ({ ...g, name: `${f.name}.${g.name}` }))]);
+  const rows = flatten(t.fields);
   return (
     <div>
       <h3 className="font-semibold">
@@ -125,7 +135,8 @@ function RecordFields({ type }: { type: RecordType }) {
       >
         {rows.map((f) => (
           <tr key={f.name} className="border-b border-stone-100 align-top">
-            <td className="py-1 pr-3 font-mono text-xs">{f.name}</td>
+            {/* Long dotted names break anywhere, so the table fits a phone without scrolling sideways. */}
+            <td className="py-1 pr-3 font-mono text-xs [overflow-wrap:anywhere]">{f.name}</td>
             <td className="py-1 pr-3">
               {TYPE_LABEL[f.type]}
               {f.nullable ? ", may be empty" : ""}
@@ -169,6 +180,25 @@ const ENDPOINTS = [
   ["/api/v1/models", "model-list", "Tool models and their specs (filter category)"],
   ["/api/v1/job-types", "job-type-list", "Job types (filter category)"],
   ["/api/v1/stats", "stat-list", "Stats cells per tool model and job type (filters model, job, category)"],
+  [
+    "/api/v1/bench-runs",
+    "bench-run-page",
+    "Accepted bench runs with their series and trials, a page at a time (filters model, rig, protocol; limit, cursor)",
+  ],
+  ["/api/v1/bench-runs/{id}", "bench-run", "One accepted bench run"],
+  ["/api/v1/bench-runs.ndjson", "bench-run", "Every accepted bench run, one JSON object per line (API key)"],
+  [
+    "/api/v1/bench-runs.csv",
+    "bench-trial-row",
+    "Every trial of every accepted bench run as CSV, a row per trial with its run and series (API key)",
+  ],
+  ["/api/v1/rigs", "rig-list", "Rigs: sensor, calibration and its standing today, check standard"],
+  ["/api/v1/bench-protocols", "bench-protocol-list", "Bench protocol versions and their series"],
+  [
+    "/api/v1/bench-figures",
+    "bench-figure-list",
+    "Bench figures across rigs per tool model and series, with the pressure line (filters model, protocol, series)",
+  ],
 ] as const;
 
 export function EndpointsSection() {
@@ -190,7 +220,7 @@ export function EndpointsSection() {
       >
         {ENDPOINTS.map(([path, schema, what]) => (
           <tr key={path} className="border-b border-stone-100 align-top">
-            <td className="py-1 pr-3 font-mono text-xs">{path}</td>
+            <td className="py-1 pr-3 font-mono text-xs [overflow-wrap:anywhere]">{path}</td>
             <td className="py-1 pr-3">
               <a className="underline" href={`/api/v1/schema/${schema}.json`}>
                 {schema}.json
@@ -215,7 +245,7 @@ export function EndpointsSection() {
   );
 }
 
-export function UsingItSection({ origin }: { origin: string }) {
+export function UsingItSection({ origin, keyLimit }: { origin: string; keyLimit: number }) {
   return (
     <section aria-labelledby="use" className="space-y-2">
       <h2 id="use" className="text-lg font-semibold">
@@ -229,8 +259,8 @@ export function UsingItSection({ origin }: { origin: string }) {
           it returns each one exactly once even while new reports are accepted.
         </li>
         <li>
-          Anonymous clients may make {LIMITS.anonymous.points} requests a minute; with an API key, {LIMITS.key.points}.
-          Every answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get{" "}
+          Anonymous clients may make {ANONYMOUS_LIMIT.points} requests a minute; with an API key, {keyLimit}. Every
+          answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get{" "}
           <code>429</code> with <code>Retry-After</code>.
         </li>
         <li>

@@ -1,5 +1,6 @@
 // Who is calling the feed and how much they may: anonymous clients 60 requests a minute each,
-// API keys (Authorization: Bearer …) 600 a minute each, counted in PostgreSQL so every app
+// API keys (Authorization: Bearer …) BAYPROOF_FEED_KEY_LIMIT a minute each (600 unless configured),
+// counted in PostgreSQL so every app
 // server shares the counts. Answers carry RateLimit-Policy / RateLimit in the structured-field
 // form of draft-ietf-httpapi-ratelimit-headers-10 (from memory), and a 429 carries Retry-After.
 //
@@ -9,12 +10,19 @@
 // memory until its window ends, without touching the database.
 import { sql } from "kysely";
 import { RateLimiterPostgres, RateLimiterRes } from "rate-limiter-flexible";
+import { config } from "~/config.server";
 import { clientKey } from "~/utils/client-address.server";
 import { sha256Hex } from "~/utils/tokens.server";
 import type pg from "pg";
 import type { Db } from "../../db/database";
 import { feedError } from "./http.server";
-import { LIMITS } from "./params";
+import { ANONYMOUS_LIMIT, KEY_LIMIT_WINDOW } from "./params";
+
+/** Requests a minute per anonymous client and per API key, as configured. */
+export const LIMITS = {
+  anonymous: ANONYMOUS_LIMIT,
+  key: { points: config.feed.keyLimit, duration: KEY_LIMIT_WINDOW },
+} as const;
 
 type Tier = keyof typeof LIMITS;
 

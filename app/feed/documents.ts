@@ -1,9 +1,10 @@
 // The feed described for machines: an OpenAPI 3.1 document and a Frictionless Data Package
 // descriptor of the bulk files, both made from fields.ts and schemas.ts.
 import { SLUG_PATTERN } from "~/domain";
+import { BENCH_TRIAL_ROW_FIELDS } from "./bench-fields";
 import { type Field, REPORT_FIELDS } from "./fields";
 import { componentSchema, SCHEMA_NAMES } from "./schemas";
-import { DEFAULT_LIMIT, LIMITS, MAX_LIMIT } from "./params";
+import { ANONYMOUS_LIMIT, DEFAULT_LIMIT, MAX_LIMIT } from "./params";
 
 export const LICENCE = {
   name: "CC-BY-4.0",
@@ -69,13 +70,14 @@ function withLink(responses: ReturnType<typeof cached>) {
   return { ...responses, "200": { ...responses["200"], headers: { ...responses["200"].headers, Link: link } } };
 }
 
-export function openApi(origin: string): Json {
+/** The OpenAPI document; `keyLimit` is the configured requests a minute per API key. */
+export function openApi(origin: string, keyLimit: number): Json {
   return {
     openapi: "3.1.0",
     info: {
       title: "Bayproof open data feed",
       version: FEED_VERSION,
-      description: `Accepted reports of air tools on real repair jobs, the tool models and job types, and the computed stats. Units are SI. Anonymous clients may make ${LIMITS.anonymous.points} requests a minute, API keys ${LIMITS.key.points}. See ${origin}/data.`,
+      description: `Accepted reports of air tools on real repair jobs, the tool models and job types, and the computed stats; accepted bench runs (peak force or torque measured on calibrated rigs under declared protocols), the rigs, the protocols and the bench figures across rigs. Units are SI. Anonymous clients may make ${ANONYMOUS_LIMIT.points} requests a minute, API keys ${keyLimit}. See ${origin}/data.`,
       license: { name: LICENCE.title, identifier: LICENCE.name },
     },
     servers: [{ url: origin }],
@@ -229,6 +231,7 @@ export function openApi(origin: string): Json {
           },
         },
       },
+      ...benchPaths(),
       "/api/v1/schema/{name}.json": {
         get: {
           summary: "JSON Schema (2020-12) of a record or response",
@@ -268,14 +271,114 @@ export function openApi(origin: string): Json {
   };
 }
 
+const idPath = (what: string) => [
+  { name: "id", in: "path", required: true, description: what, schema: { type: "integer", minimum: 1 } },
+];
+
+/** The bench endpoints (issue 19 item 8, issue 20 item 6). */
+function benchPaths(): Json {
+  return {
+    "/api/v1/bench-runs": {
+      get: {
+        summary: "Accepted bench runs, a page at a time",
+        description:
+          "Each run with its series and trials. Ordered by (accepted_at, id); follow `next_cursor` (or the Link rel=next header) until it is null, as for reports.",
+        parameters: [
+          slugQ("model", "runs of the tool model"),
+          q("rig", "Only runs measured on this rig (see /api/v1/rigs).", { type: "integer", minimum: 1 }),
+          slugQ("protocol", "runs under any version of the protocol"),
+          q("limit", `Runs per page (default ${DEFAULT_LIMIT}).`, {
+            type: "integer",
+            minimum: 1,
+            maximum: MAX_LIMIT,
+            default: DEFAULT_LIMIT,
+          }),
+          q("cursor", "The next_cursor of the previous page; keep the other parameters the same."),
+        ],
+        responses: withLink(cached("bench-run-page", "A page of bench runs")),
+      },
+    },
+    "/api/v1/bench-runs/{id}": {
+      get: {
+        summary: "One accepted bench run",
+        parameters: idPath("The bench run's number."),
+        responses: {
+          ...cached("bench-run", "The bench run"),
+          "404": json("error", "No accepted bench run has this number."),
+        },
+      },
+    },
+    "/api/v1/bench-runs.ndjson": {
+      get: {
+        summary: "Every accepted bench run, one JSON object per line (API key needed)",
+        security: [{ apiKey: [] }],
+        responses: {
+          "200": { description: "The file", content: { "application/x-ndjson": { schema: ref("bench-run") } } },
+          ...errors,
+        },
+      },
+    },
+    "/api/v1/bench-runs.csv": {
+      get: {
+        summary: "Every trial of every accepted bench run as CSV, RFC 4180, with its run and series (API key needed)",
+        security: [{ apiKey: [] }],
+        responses: {
+          "200": {
+            description: "The file; one row per trial, columns as in the datapackage descriptor (bench-trial-row)",
+            content: { "text/csv": { schema: { type: "string" } } },
+          },
+          ...errors,
+        },
+      },
+    },
+    "/api/v1/bench-traces/{id}": {
+      get: {
+        summary: "The raw trace of a trial of an accepted bench run (redirects to it)",
+        parameters: idPath("The trial's number, as in its trace_url."),
+        responses: {
+          "302": { description: "To a short-lived link to the CSV (time in s, then force in N or torque in N·m)" },
+          "404": json("error", "No traced trial of an accepted run has this number."),
+          ...errors,
+        },
+      },
+    },
+    "/api/v1/rigs": {
+      get: { summary: "Rigs, with their calibration and check standard", responses: cached("rig-list", "Rigs") },
+    },
+    "/api/v1/bench-protocols": {
+      get: {
+        summary: "Bench protocol versions, with their series",
+        responses: cached("bench-protocol-list", "Bench protocol versions"),
+      },
+    },
+    "/api/v1/bench-figures": {
+      get: {
+        summary: "Bench figures across rigs, per tool model and protocol series",
+        parameters: [
+          slugQ("model", "figures of the tool model"),
+          slugQ("protocol", "figures under any version of the protocol"),
+          q("series", "Only figures of this protocol series (an id from /api/v1/bench-protocols).", {
+            type: "integer",
+            minimum: 1,
+          }),
+        ],
+        responses: cached("bench-figure-list", "Bench figures"),
+      },
+    },
+  };
+}
+
 const tableType: Record<Field["type"], string> = {
   integer: "integer",
   number: "number",
   string: "string",
   boolean: "boolean",
   datetime: "datetime",
+  date: "date",
   "string-array": "array",
+  "number-array": "array",
   object: "object",
+  "object-array": "array",
 };
 
 /** A Table Schema field; `unit` is our own property beside the standard ones. */
@@ -320,12 +423,17 @@ function snapshotResources(origin: string, snapshot: SnapshotInfo, schema: Json)
 
 export function dataPackage(origin: string, day: string, snapshot: SnapshotInfo | null = null): Json {
   const schema = { fields: REPORT_FIELDS.map(tableField), primaryKey: ["id"], missingValues: [""] };
+  const benchSchema = {
+    fields: BENCH_TRIAL_ROW_FIELDS.map(tableField),
+    primaryKey: ["run", "series", "trial"],
+    missingValues: [""],
+  };
   return {
     profile: "tabular-data-package",
     name: "bayproof-reports",
-    title: "Bayproof: accepted air-tool job reports",
+    title: "Bayproof: accepted air-tool job reports and bench runs",
     description:
-      "Every report a moderator accepted: the tool, the job, the air supply at the tool (SI units), the outcome and the time it took. Reporters appear under stable pseudonyms. The daily snapshot files (gzipped, with size and SHA-256) are open to anyone; the live files need an API key (free, from an account page) sent as Authorization: Bearer <key>.",
+      "Every report a moderator accepted: the tool, the job, the air supply at the tool (SI units), the outcome and the time it took. Bench runs (peak force or torque on calibrated rigs) come as a file of trials and a file of nested runs. Reporters and rig owners appear under stable pseudonyms. The daily snapshot files (gzipped, with size and SHA-256) are open to anyone; the live files need an API key (free, from an account page) sent as Authorization: Bearer <key>.",
     version: FEED_VERSION,
     homepage: `${origin}/data`,
     created: `${day}T00:00:00Z`,
@@ -351,6 +459,27 @@ export function dataPackage(origin: string, day: string, snapshot: SnapshotInfo 
         mediatype: "application/x-ndjson",
         encoding: "utf-8",
         schema,
+      },
+      {
+        profile: "tabular-data-resource",
+        name: "bench-runs-csv",
+        title: "Every trial of every accepted bench run, with its run's and series' columns repeated",
+        path: `${origin}/api/v1/bench-runs.csv`,
+        format: "csv",
+        mediatype: "text/csv",
+        encoding: "utf-8",
+        dialect: CSV_DIALECT,
+        schema: benchSchema,
+      },
+      {
+        profile: "data-resource",
+        name: "bench-runs-ndjson",
+        title: "Every accepted bench run, one JSON object a line, with its series and trials nested",
+        description: `Each line is a bench-run record; its JSON Schema is ${origin}/api/v1/schema/bench-run.json.`,
+        path: `${origin}/api/v1/bench-runs.ndjson`,
+        format: "ndjson",
+        mediatype: "application/x-ndjson",
+        encoding: "utf-8",
       },
     ],
   };

@@ -2,6 +2,7 @@
 // the OpenAPI document, the Data Package's Table Schemas, the CSV columns and the /data page's
 // dictionary are all made. Units are SI throughout.
 import {
+  BIT_RETAINERS,
   CORROSION_LEVELS,
   COUPLER_PROFILES,
   FITTINGS,
@@ -10,10 +11,28 @@ import {
   RANGES,
   OUTCOMES,
   SLUG_PATTERN,
+  SPEC_SOURCES,
   VEHICLE_CLASSES,
 } from "~/domain";
+import {
+  BENCH_FIGURE_FIELDS,
+  BENCH_PROTOCOL_FIELDS,
+  BENCH_RUN_FIELDS,
+  BENCH_TRIAL_ROW_FIELDS,
+  RIG_FIELDS,
+} from "./bench-fields";
 
-export type FieldType = "integer" | "number" | "string" | "boolean" | "datetime" | "string-array" | "object";
+export type FieldType =
+  | "integer"
+  | "number"
+  | "string"
+  | "boolean"
+  | "datetime"
+  | "date"
+  | "string-array"
+  | "number-array"
+  | "object"
+  | "object-array";
 
 export interface Field {
   name: string;
@@ -28,7 +47,7 @@ export interface Field {
   minimumExclusive?: boolean;
   maximum?: number;
   pattern?: string;
-  /** For "object" fields: their own fields. */
+  /** For "object" fields, and each item of an "object-array": their own fields. */
   fields?: Field[];
 }
 
@@ -173,6 +192,18 @@ export const REPORT_FIELDS: Field[] = [
   },
 ];
 
+/** A catalogue figure (null: not known yet) and the field saying where it came from. */
+const sourced = (name: string, source: string, f: Omit<Field, "name" | "type" | "nullable">): Field[] => [
+  { name, type: "number", nullable: true, ...f },
+  {
+    name: source,
+    type: "string",
+    nullable: true,
+    enum: SPEC_SOURCES,
+    description: `Where ${name} came from: the maker's sheet, measured, or estimated; null when ${name} is.`,
+  },
+];
+
 export const MODEL_FIELDS: Field[] = [
   slug("slug", "The model's slug; its key."),
   slug("maker", "Maker slug."),
@@ -245,6 +276,73 @@ export const MODEL_FIELDS: Field[] = [
     minimum: 0,
     description: "Maker's maximum inlet pressure, gauge, in kilopascals.",
   },
+  ...sourced("running_air_lps", "running_air_source", {
+    unit: "L/s",
+    minimum: 0,
+    minimumExclusive: true,
+    description:
+      "Air use while the tool runs (hammering, impacting), free air, in litres per second at 620.5 kPa (90 psi) inlet.",
+  }),
+  {
+    name: "running_air_factor",
+    type: "number",
+    nullable: true,
+    minimum: 1,
+    maximum: 10,
+    description: "Where running_air_source is estimated: running air use = rated_air_lps × this factor; else null.",
+  },
+  ...sourced("vibration_ahv_ms2", "vibration_source", {
+    ...within(RANGES.vibrationTotal),
+    description: "Declared vibration total value a_hv (ISO 28927), in metres per second squared.",
+  }),
+  {
+    name: "vibration_k_ms2",
+    type: "number",
+    nullable: true,
+    ...within(RANGES.vibrationK),
+    description: "Uncertainty K of the declared a_hv, in metres per second squared.",
+  },
+  {
+    name: "vibration_iso28927_part",
+    type: "integer",
+    nullable: true,
+    ...within(RANGES.iso28927Part),
+    description:
+      "The part of ISO 28927 (the vibration test code) a_hv was measured under; always given for a maker's sheet.",
+  },
+  ...sourced("sound_pressure_db", "sound_pressure_source", {
+    ...within(RANGES.soundPressure),
+    description: "Declared A-weighted emission sound pressure level L_pA (ISO 15744), in decibels.",
+  }),
+  {
+    name: "sound_pressure_k_db",
+    type: "number",
+    nullable: true,
+    ...within(RANGES.soundK),
+    description: "Uncertainty K of L_pA, in decibels.",
+  },
+  ...sourced("sound_power_db", "sound_power_source", {
+    ...within(RANGES.soundPower),
+    description: "Declared A-weighted sound power level L_WA (ISO 15744), in decibels.",
+  }),
+  {
+    name: "sound_power_k_db",
+    type: "number",
+    nullable: true,
+    ...within(RANGES.soundK),
+    description: "Uncertainty K of L_WA, in decibels.",
+  },
+  {
+    name: "bit_retainer",
+    type: "string",
+    nullable: true,
+    enum: BIT_RETAINERS,
+    description: "The bit (or socket) retainer the tool comes with; null where not known.",
+  },
+  ...sourced("weight_with_whip_kg", "weight_with_whip_source", {
+    ...within(RANGES.weightWithWhip),
+    description: "Weight with the hose whip fitted, in kilograms (never below weight_kg).",
+  }),
   {
     name: "measured_specs",
     type: "string-array",
@@ -501,6 +599,19 @@ export const RECORD_TYPES = {
   model: { title: "Tool model", fields: MODEL_FIELDS, key: "slug" },
   "job-type": { title: "Job type", fields: JOB_TYPE_FIELDS, key: "slug" },
   stat: { title: "Stats cell (one tool model on one job type)", fields: STAT_FIELDS, key: null },
+  "bench-run": { title: "Accepted bench run", fields: BENCH_RUN_FIELDS, key: "id" },
+  "bench-trial-row": {
+    title: "Bench trial (one row of bench-runs.csv, with its run and series)",
+    fields: BENCH_TRIAL_ROW_FIELDS,
+    key: null,
+  },
+  rig: { title: "Rig", fields: RIG_FIELDS, key: "id" },
+  "bench-protocol": { title: "Bench protocol version", fields: BENCH_PROTOCOL_FIELDS, key: null },
+  "bench-figure": {
+    title: "Bench figure across rigs (one tool model in one protocol series)",
+    fields: BENCH_FIGURE_FIELDS,
+    key: null,
+  },
 } as const;
 
 export type RecordType = keyof typeof RECORD_TYPES;

@@ -2,11 +2,13 @@
 import { z } from "zod";
 import { SLUG_MAX_LENGTH, SLUG_PATTERN } from "~/domain";
 
-/** Requests a minute: per anonymous client, and per API key. */
-export const LIMITS = {
-  anonymous: { points: 60, duration: 60 },
-  key: { points: 600, duration: 60 },
-} as const;
+/**
+ * Requests a minute per anonymous client. An API key's limit is configured (BAYPROOF_FEED_KEY_LIMIT,
+ * read by app/config.server.ts, 600 unless set): the server passes it to what shows it.
+ */
+export const ANONYMOUS_LIMIT = { points: 60, duration: 60 } as const;
+/** The window of both limits, in seconds. */
+export const KEY_LIMIT_WINDOW = 60;
 
 export const MAX_LIMIT = 500;
 export const DEFAULT_LIMIT = 100;

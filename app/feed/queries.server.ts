@@ -8,7 +8,8 @@ import { statRecords as statRecordsOfStats } from "~/stats/feed.server";
 import { REPORT_FIELDS } from "./fields";
 import { feedError } from "./http.server";
 
-const iso = (column: RawBuilder<unknown>) =>
+/** A timestamp as the feed writes it: UTC, microseconds, RFC 3339. */
+export const iso = (column: RawBuilder<unknown>) =>
   sql`to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
 
 /**
@@ -115,10 +116,10 @@ const reportWhere = (f: ReportFilters) =>
   );
 
 /** Microseconds since 1970 as timestamptz, exactly (no float on the way). */
-const fromMicros = (micros: string) => sql`(timestamptz 'epoch' + ${micros}::bigint * interval '1 microsecond')`;
+export const fromMicros = (micros: string) => sql`(timestamptz 'epoch' + ${micros}::bigint * interval '1 microsecond')`;
 
 /** Reports accepted this long ago are safe to page over: any transaction accepting one has ended. */
-const SETTLE = "5 seconds";
+export const SETTLE = "5 seconds";
 
 /** The horizon of a new walk: the newest accepted time that has settled, in microseconds. */
 export async function newHorizon(db: Db): Promise<string> {
@@ -229,6 +230,22 @@ export async function modelRecords(db: Db, categoryId?: number) {
       "m.air_inlet",
       "m.rated_air_lps",
       "m.max_inlet_kpa",
+      "m.running_air_lps",
+      "m.running_air_source",
+      "m.running_air_factor",
+      "m.vibration_ahv_ms2",
+      "m.vibration_source",
+      "m.vibration_k_ms2",
+      "m.vibration_iso28927_part",
+      "m.sound_pressure_db",
+      "m.sound_pressure_source",
+      "m.sound_pressure_k_db",
+      "m.sound_power_db",
+      "m.sound_power_source",
+      "m.sound_power_k_db",
+      "m.bit_retainer",
+      "m.weight_with_whip_kg",
+      "m.weight_with_whip_source",
       "m.measured_specs",
       sql<number>`coalesce(s.n, 0)`.as("accepted_reports"),
     ])

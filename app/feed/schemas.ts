@@ -7,7 +7,17 @@ type Json = Record<string, unknown>;
 /** How a schema points at another: a file name next to it, or an OpenAPI component. */
 type RefStyle = (name: SchemaName) => string;
 
-export const PAGE_SCHEMAS = ["report-page", "model-list", "job-type-list", "stat-list", "error"] as const;
+export const PAGE_SCHEMAS = [
+  "report-page",
+  "model-list",
+  "job-type-list",
+  "stat-list",
+  "bench-run-page",
+  "rig-list",
+  "bench-protocol-list",
+  "bench-figure-list",
+  "error",
+] as const;
 export const SCHEMA_NAMES = [...(Object.keys(RECORD_TYPES) as RecordType[]), ...PAGE_SCHEMAS];
 export type SchemaName = (typeof SCHEMA_NAMES)[number];
 
@@ -17,13 +27,17 @@ const base: Record<Field["type"], Json> = {
   string: { type: "string" },
   boolean: { type: "boolean" },
   datetime: { type: "string", format: "date-time" },
+  date: { type: "string", format: "date" },
   "string-array": { type: "array", items: { type: "string" } },
+  "number-array": { type: "array", items: { type: "number" } },
   object: { type: "object" },
+  "object-array": { type: "array" },
 };
 
 function fieldSchema(f: Field): Json {
   const s: Json = { ...base[f.type], description: f.unit ? `${f.description} Unit: ${f.unit}.` : f.description };
-  if (f.fields) Object.assign(s, objectOf(f.fields));
+  if (f.fields && f.type === "object-array") s.items = objectOf(f.fields);
+  else if (f.fields) Object.assign(s, objectOf(f.fields));
   if (f.enum) s.enum = f.nullable ? [...f.enum, null] : [...f.enum];
   if (f.pattern) s.pattern = f.pattern;
   if (f.minimum !== undefined) s[f.minimumExclusive ? "exclusiveMinimum" : "minimum"] = f.minimum;
@@ -48,6 +62,25 @@ const list = (item: SchemaName, ref: RefStyle, extra: Json = {}, required: strin
   properties: { data: { type: "array", items: { $ref: ref(item) } }, ...extra },
 });
 
+/** A page of a cursor walk: the records, the next page's cursor and the walk's fixed horizon. */
+const cursorPage = (item: SchemaName, what: string, ref: RefStyle) =>
+  list(
+    item,
+    ref,
+    {
+      next_cursor: {
+        type: ["string", "null"],
+        description: "Pass as `cursor` for the next page; null on the last page.",
+      },
+      as_of: {
+        type: "string",
+        format: "date-time",
+        description: `The walk covers ${what} accepted up to this moment; fixed for all its pages.`,
+      },
+    },
+    ["next_cursor", "as_of"],
+  );
+
 function body(name: SchemaName, ref: RefStyle): Json {
   if (name in RECORD_TYPES) {
     const t = RECORD_TYPES[name as RecordType];
@@ -55,25 +88,15 @@ function body(name: SchemaName, ref: RefStyle): Json {
   }
   switch (name) {
     case "report-page":
-      return {
-        title: "A page of accepted reports",
-        ...list(
-          "report",
-          ref,
-          {
-            next_cursor: {
-              type: ["string", "null"],
-              description: "Pass as `cursor` for the next page; null on the last page.",
-            },
-            as_of: {
-              type: "string",
-              format: "date-time",
-              description: "The walk covers reports accepted up to this moment; fixed for all its pages.",
-            },
-          },
-          ["next_cursor", "as_of"],
-        ),
-      };
+      return { title: "A page of accepted reports", ...cursorPage("report", "reports", ref) };
+    case "bench-run-page":
+      return { title: "A page of accepted bench runs", ...cursorPage("bench-run", "bench runs", ref) };
+    case "rig-list":
+      return { title: "Rigs", ...list("rig", ref) };
+    case "bench-protocol-list":
+      return { title: "Bench protocol versions", ...list("bench-protocol", ref) };
+    case "bench-figure-list":
+      return { title: "Bench figures across rigs", ...list("bench-figure", ref) };
     case "model-list":
       return { title: "Tool models", ...list("model", ref) };
     case "job-type-list":

@@ -8,6 +8,7 @@ import { ApiKeysSection } from "~/components/account/api-keys-section";
 import { ProfileSection } from "~/components/account/profile-section";
 import { SessionsSection } from "~/components/account/sessions-section";
 import { ErrorPage } from "~/components/error-page";
+import { config } from "~/config.server";
 import { db } from "~/db.server";
 import { type FieldErrors, invalid, parseForm, readForm } from "~/utils/forms";
 import { invariantResponse } from "~/utils/http";
@@ -32,6 +33,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       method: s.sign_in_method,
     })),
     keys,
+    keyLimit: config.feed.keyLimit,
   };
 }
 
@@ -66,7 +68,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
-  const { user, sessions, keys } = loaderData;
+  const { user, sessions, keys, keyLimit } = loaderData;
   const busy = useNavigation().state !== "idle";
   const errors: FieldErrors = actionData && !actionData.ok ? actionData.errors : {};
   const values: Record<string, unknown> = actionData && !actionData.ok ? actionData.values : {};
@@ -89,6 +91,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         errors={errors}
         values={values}
         busy={busy}
+        keyLimit={keyLimit}
       />
     </div>
   );

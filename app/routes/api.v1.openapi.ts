@@ -7,6 +7,6 @@ import type { Route } from "./+types/api.v1.openapi";
 export async function loader({ request }: Route.LoaderArgs) {
   return answer(async () => {
     readParams(new URL(request.url), {});
-    return jsonResponse(request, openApi(config.appOrigin), CACHE.document);
+    return jsonResponse(request, openApi(config.appOrigin, config.feed.keyLimit), CACHE.document);
   });
 }

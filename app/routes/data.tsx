@@ -9,6 +9,7 @@ export async function loader() {
   const day = new Date().toISOString().slice(0, 10);
   return {
     origin: config.appOrigin,
+    keyLimit: config.feed.keyLimit,
     citation: citation(config.appOrigin, day),
     snapshot: await latestSnapshot(readDb),
   };
@@ -21,9 +22,10 @@ export default function Data({ loaderData }: Route.ComponentProps) {
       <header className="space-y-2">
         <h1 className="text-2xl font-bold">Open data</h1>
         <p className="max-w-prose text-stone-700">
-          Every report a moderator has accepted, the tool models and job types, and the stats computed from them — as
-          JSON pages, bulk files and documented schemas. <strong>All quantities are in SI units</strong>: pressures in
-          kPa (gauge), lengths in mm or m, air flow in L/s of free air, volumes in L, times in s.
+          Every report a moderator has accepted, the tool models and job types, and the stats computed from them; every
+          accepted bench run, the rigs, the protocols and the bench figures across rigs — as JSON pages, bulk files and
+          documented schemas. <strong>All quantities are in SI units</strong>: pressures in kPa (gauge), lengths in mm
+          or m, air flow in L/s of free air, volumes in L, times in s, forces in N and torques in N·m.
         </p>
       </header>
 
@@ -50,17 +52,18 @@ export default function Data({ loaderData }: Route.ComponentProps) {
 
       <EndpointsSection />
 
-      <UsingItSection origin={origin} />
+      <UsingItSection origin={origin} keyLimit={loaderData.keyLimit} />
 
       <section aria-labelledby="privacy" className="space-y-1">
         <h2 id="privacy" className="text-lg font-semibold">
           Privacy
         </h2>
         <p className="max-w-prose text-sm">
-          The feed carries no e-mail addresses, names, handles, sessions or account data. Each reporter appears as a
-          random, stable pseudonym (<code>rp_…</code>), the same on all their reports and unrelated to their account.
-          Evidence appears as a count; a file is linked only where its reporter chose to publish it. Notes are published
-          as the moderator accepted them.
+          The feed carries no e-mail addresses, people's names, handles, sessions or account data. Each reporter appears
+          as a random, stable pseudonym (<code>rp_…</code>), the same on all their reports and unrelated to their
+          account; the filer of a bench run and the owner of a rig appear the same way. Evidence appears as a count; a
+          file is linked only where its reporter chose to publish it. Notes are published as the moderator accepted
+          them.
         </p>
       </section>
 

@@ -106,6 +106,10 @@ const matrix: [string, string, (() => Record<string, string>) | null, Record<Who
   ["GET", "/data", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["GET", "/api/v1/job-types", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
   ["POST", "/api/v1/job-types", () => ({}), { visitor: 405, reporter: 405, moderator: 405, admin: 405 }],
+  ["GET", "/api/v1/bench-runs", null, { visitor: 200, reporter: 200, moderator: 200, admin: 200 }],
+  // The bulk files take an API key, never a session: signed in or not, a browser gets 401.
+  ["GET", "/api/v1/bench-runs.csv", null, { visitor: 401, reporter: 401, moderator: 401, admin: 401 }],
+  ["POST", "/api/v1/bench-runs", () => ({}), { visitor: 405, reporter: 405, moderator: 405, admin: 405 }],
 ];
 
 describe("access by role", () => {

@@ -361,6 +361,10 @@ describe("documentation", () => {
       "/api/v1/models": "model-list",
       "/api/v1/job-types": "job-type-list",
       "/api/v1/stats": "stat-list",
+      "/api/v1/bench-runs": "bench-run-page",
+      "/api/v1/rigs": "rig-list",
+      "/api/v1/bench-protocols": "bench-protocol-list",
+      "/api/v1/bench-figures": "bench-figure-list",
     };
     for (const path of Object.keys(doc.paths)) {
       if (path.includes("{")) continue;

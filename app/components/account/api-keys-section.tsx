@@ -3,7 +3,7 @@ import { formatDate } from "~/domain";
 import type { listApiKeys } from "~/auth/api-keys.server";
 import { buttonClass, cardClass } from "~/components/ui";
 import { Field, inputClass } from "~/components/field";
-import { LIMITS } from "~/feed/params";
+import { ANONYMOUS_LIMIT } from "~/feed/params";
 import type { FieldErrors } from "~/utils/forms";
 
 /** The user's feed keys: a new key shown once, a form to create one, and each key with its revoke button. */
@@ -13,12 +13,15 @@ export function ApiKeysSection({
   errors,
   values,
   busy,
+  keyLimit,
 }: {
   keys: Awaited<ReturnType<typeof listApiKeys>>;
   newKey: { name: string; key: string } | undefined;
   errors: FieldErrors;
   values: Record<string, unknown>;
   busy: boolean;
+  /** Requests a minute per API key, as the server is configured. */
+  keyLimit: number;
 }) {
   const text = (v: unknown) => (typeof v === "string" ? v : "");
   return (
@@ -27,8 +30,8 @@ export function ApiKeysSection({
         API keys for the open data feed
       </h2>
       <p className="mb-3 text-sm text-stone-600">
-        A key raises your feed limit from {LIMITS.anonymous.points} to {LIMITS.key.points} requests a minute and opens
-        the bulk files; send it as <code>Authorization: Bearer &lt;key&gt;</code>. It is shown once; keep it secret.{" "}
+        A key raises your feed limit from {ANONYMOUS_LIMIT.points} to {keyLimit} requests a minute and opens the bulk
+        files; send it as <code>Authorization: Bearer &lt;key&gt;</code>. It is shown once; keep it secret.{" "}
         <Link className="underline" to="/data">
           How to use the feed
         </Link>
