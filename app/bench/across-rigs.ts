@@ -113,7 +113,8 @@ export function randomEffects(studies: readonly Study[], confidence = 0.95): Ran
   }
   const c = fixed.sumWeights - sw2 / fixed.sumWeights;
   const tau2 = k > 1 && c > 0 ? Math.max(0, (q - (k - 1)) / c) : 0;
-  const i2 = q > 0 ? Math.max(0, (q - (k - 1)) / q) : 0;
+  // One study has no heterogeneity to measure (Q has 0 degrees of freedom; its rounding residue is not one).
+  const i2 = k > 1 && q > 0 ? Math.max(0, (q - (k - 1)) / q) : 0;
 
   const pooled = weighted(studies, tau2);
   const estimate = pooled.mean;

@@ -116,6 +116,12 @@ describe("randomEffects, edge cases and properties", () => {
     variance: fc.double({ min: 1e-3, max: 100, noNaN: true }),
   });
 
+  it("gives I² = 0 for a single study, whatever Q's rounding residue (a case the property once found)", () => {
+    const fit = randomEffects([{ mean: 1.991547284835001e-131, variance: 2.3479831706207275 }]);
+    expect(fit.i2).toBe(0);
+    expect(fit.tau2).toBe(0);
+  });
+
   it("gives τ² = 0 and I² = 0 for identical studies (property)", () => {
     fc.assert(
       fc.property(study, fc.integer({ min: 1, max: 30 }), (s, k) => {
