@@ -5,9 +5,8 @@ import { benchUnit, formatBench, TRIGGER_LABELS } from "~/bench/terms";
 import type { ModelAcrossRigs } from "~/bench/figures-read.server";
 import { formatPressure, formatShare, type Units } from "~/domain";
 import { DataTable } from "../ui";
+import { DerivedValue } from "./derived";
 import { PressurePlot } from "./pressure-plot";
-
-const round = (x: number) => String(Number(x.toPrecision(3)));
 
 export function AcrossRigsPanel({ data, units }: { data: ModelAcrossRigs; units: Units }) {
   const { forces, ranges, slope, derived } = data;
@@ -85,7 +84,7 @@ export function AcrossRigsPanel({ data, units }: { data: ModelAcrossRigs; units:
         <div>
           <h3 className="font-semibold">Derived from the pooled force</h3>
           <p className="text-xs text-stone-600">
-            From “{derived.series}”; the interval carried through. Each figure stands alone.
+            From “{derived.pooled.series}”; the interval carried through. Each figure stands alone.
           </p>
           <dl className="mt-1 grid gap-1 text-sm sm:grid-cols-3">
             <Derived
@@ -164,15 +163,11 @@ function Derived({
   units: Units;
   q: ModelAcrossRigs["forces"][number]["quantity"];
 }) {
-  const u = benchUnit(q, units);
   return (
     <div className="rounded border border-stone-200 p-2">
       <dt className="text-xs text-stone-600">{label}</dt>
       <dd>
-        {round(v.estimate * u.perSi)}{" "}
-        <span className="text-xs text-stone-600">
-          ({round(v.lower * u.perSi)} to {round(v.upper * u.perSi)})
-        </span>
+        <DerivedValue v={v} q={q} units={units} />
       </dd>
     </div>
   );
