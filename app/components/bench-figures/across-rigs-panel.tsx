@@ -1,11 +1,10 @@
 // "Across rigs" on a model's page: each series pooled over the runs of every rig, how much of the
 // spread is the rig (τ, I²), where the next rig's figure should fall, the force against inlet
 // pressure, and figures derived from the pooled force. Each stands alone; none is added to another.
-import { benchUnit, formatBench, TRIGGER_LABELS } from "~/bench/terms";
+import { benchUnit, formatBench, formatDerived, TRIGGER_LABELS } from "~/bench/terms";
 import type { ModelAcrossRigs } from "~/bench/figures-read.server";
 import { formatPressure, formatShare, type Units } from "~/domain";
 import { DataTable } from "../ui";
-import { DerivedValue } from "./derived";
 import { PressurePlot } from "./pressure-plot";
 
 export function AcrossRigsPanel({ data, units }: { data: ModelAcrossRigs; units: Units }) {
@@ -163,11 +162,15 @@ function Derived({
   units: Units;
   q: ModelAcrossRigs["forces"][number]["quantity"];
 }) {
+  const p = formatDerived(v, q, units);
   return (
     <div className="rounded border border-stone-200 p-2">
       <dt className="text-xs text-stone-600">{label}</dt>
       <dd>
-        <DerivedValue v={v} q={q} units={units} />
+        {p.estimate}{" "}
+        <span className="text-xs text-stone-600">
+          ({p.lower} to {p.upper})
+        </span>
       </dd>
     </div>
   );

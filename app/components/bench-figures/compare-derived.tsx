@@ -2,12 +2,11 @@
 // per kg, per 100 mm of length and per $100 of street price from the pooled force, and the trigger
 // control range, each with its interval and never folded into a total. On a phone the table scrolls
 // inside its frame, not the page.
-import { formatBench, TRIGGER_LABELS } from "~/bench/terms";
+import { formatBench, formatDerived, TRIGGER_LABELS } from "~/bench/terms";
 import type { CompareBenchRow } from "~/bench/figures-read.server";
 import type { FromSeries, Interval } from "~/bench/derived-figures";
 import type { Units } from "~/domain";
 import { DataTable } from "../ui";
-import { derivedParts } from "./derived";
 
 type Derived = NonNullable<CompareBenchRow["derived"]>;
 
@@ -98,7 +97,7 @@ export function CompareDerived({
 }
 
 function Ratio({ v, d, units }: { v: Interval; d: Derived; units: Units }) {
-  const p = derivedParts(v, d.quantity, units);
+  const p = formatDerived(v, d.quantity, units);
   return (
     <td className="px-3 py-2">
       {p.estimate} {p.unit}
