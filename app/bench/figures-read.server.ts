@@ -1,39 +1,34 @@
 // Reads of the stored bench figures for the model, job, bench and compare pages and the feed. The
-// derived figures (force per kilogram, per 100 mm, per $100) divide the pooled figure and both ends of
-// its interval by the model's figure, which is taken as exact; they are shown, never added up.
+// derived figures (per kilogram, per 100 mm, per $100, the trigger control range) come from
+// derived-figures.ts, the same for the model page and /compare; they are shown, never added up.
 import type { Db } from "../../db/database";
 import { RATED_INLET_KPA } from "~/domain";
 import type { LogisticFit } from "~/stats";
+import { derivedFigures } from "./derived-figures";
 import { benchForces } from "./figures.server";
 import { runsForModel } from "./runs.server";
 import { forceCurve } from "./force-for-job";
 import { benchForceAt } from "./stored-figures";
 import type { BenchQuantity } from "./terms";
 
-const interval = (estimate: number, lower: number, upper: number, per: number) => ({
-  estimate: estimate / per,
-  lower: lower / per,
-  upper: upper / per,
-});
-
-/** One model's pooled figures per series, its trigger control ranges, pressure line and derived figures. */
-export async function modelAcrossRigs(db: Db, modelId: number) {
-  const model = await db
-    .selectFrom("tool_models")
-    .select(["weight_kg", "length_mm", "street_price_cents"])
-    .where("id", "=", modelId)
-    .executeTakeFirst();
-  const figures = await db
+/** Stored pooled figures with their series and protocol, in the model page's order. */
+const pooledWithSeries = (db: Db) =>
+  db
     .selectFrom("bench_pooled_figures as f")
     .innerJoin("bench_protocol_series as s", "s.id", "f.series_id")
     .innerJoin("bench_protocols as p", "p.id", "f.protocol_id")
     .selectAll("f")
     .select(["s.label", "s.trigger", "s.inlet", "s.inlet_kpa", "s.position", "p.title", "p.version", "p.quantity"])
-    .where("f.tool_model_id", "=", modelId)
     .orderBy("p.slug")
     .orderBy("p.version", "desc")
-    .orderBy("s.position")
-    .execute();
+    .orderBy("s.position");
+
+const MEASURES = ["weight_kg", "length_mm", "street_price_cents"] as const;
+
+/** One model's pooled figures per series, its trigger control ranges, pressure line and derived figures. */
+export async function modelAcrossRigs(db: Db, modelId: number) {
+  const model = await db.selectFrom("tool_models").select(MEASURES).where("id", "=", modelId).executeTakeFirst();
+  const figures = await pooledWithSeries(db).where("f.tool_model_id", "=", modelId).execute();
   const slope = await db
     .selectFrom("bench_pressure_slopes as s")
     .innerJoin("bench_protocols as p", "p.id", "s.protocol_id")
@@ -44,24 +39,7 @@ export async function modelAcrossRigs(db: Db, modelId: number) {
     .executeTakeFirst();
   const forces = figures.filter((f) => f.figure === "force");
   const ranges = figures.filter((f) => f.figure === "trigger_range");
-  // The headline: full trigger, regulated at the tool, the series with the most runs.
-  const headline =
-    [...forces]
-      .filter((f) => f.trigger === "full" && f.inlet === "regulated_at_tool")
-      .sort((a, b) => b.runs - a.runs)[0] ?? null;
-  const derived =
-    headline && model
-      ? {
-          quantity: headline.quantity,
-          perKg: interval(headline.estimate, headline.lower, headline.upper, model.weight_kg),
-          per100mm: interval(headline.estimate, headline.lower, headline.upper, model.length_mm / 100),
-          perHundredDollars:
-            model.street_price_cents && model.street_price_cents > 0
-              ? interval(headline.estimate, headline.lower, headline.upper, model.street_price_cents / 10000)
-              : null,
-          series: headline.label,
-        }
-      : null;
+  const derived = derivedFigures(figures, model);
   return { forces, ranges, slope: slope ?? null, derived };
 }
 
@@ -163,23 +141,31 @@ export async function jobForce(db: Db, jobTypeId: number) {
 
 export type JobForce = NonNullable<Awaited<ReturnType<typeof jobForce>>>;
 
-/** The headline pooled figure (full trigger, regulated at the tool) of each of several models, for /compare. */
+/**
+ * Each compared model's bench figures for /compare, in the order asked: the headline pooled force and
+ * the figures derived from it, as the model page has them; `derived` null where there is no headline.
+ */
 export async function compareBench(db: Db, modelSlugs: readonly string[]) {
   if (modelSlugs.length === 0) return [];
-  const rows = await db
-    .selectFrom("bench_pooled_figures as f")
-    .innerJoin("bench_protocol_series as s", "s.id", "f.series_id")
-    .innerJoin("bench_protocols as p", "p.id", "f.protocol_id")
-    .selectAll("f")
-    .innerJoin("tool_models as m", "m.id", "f.tool_model_id")
-    .select(["s.label", "p.quantity", "m.slug"])
-    .where("m.slug", "in", [...modelSlugs])
-    .where("f.figure", "=", "force")
-    .where("s.trigger", "=", "full")
-    .where("s.inlet", "=", "regulated_at_tool")
-    .orderBy("f.runs", "desc")
+  const models = await db
+    .selectFrom("tool_models")
+    .select(["id", "slug", ...MEASURES])
+    .where("slug", "in", [...modelSlugs])
     .execute();
-  return modelSlugs.flatMap((slug) => rows.find((r) => r.slug === slug) ?? []);
+  const figures = models.length
+    ? await pooledWithSeries(db)
+        .where(
+          "f.tool_model_id",
+          "in",
+          models.map((m) => m.id),
+        )
+        .execute()
+    : [];
+  return modelSlugs.map((slug) => {
+    const model = models.find((m) => m.slug === slug);
+    const own = figures.filter((f) => f.tool_model_id === model?.id);
+    return { slug, benchFigures: own.length, derived: derivedFigures(own, model) };
+  });
 }
 
 export type CompareBenchRow = Awaited<ReturnType<typeof compareBench>>[number];

@@ -37,6 +37,16 @@ export function benchUnit(quantity: BenchQuantity, units: Units): { label: strin
 export const formatBench = (quantity: BenchQuantity, si: number | null | undefined, units: Units) =>
   quantity === "peak_force_n" ? formatForce(si, units) : formatTorque(si, units);
 
+/**
+ * A figure derived from a pooled one (per kg, per 100 mm, per $100) and both ends of its interval, in the
+ * reader's unit to three significant figures: a ratio of a pooled force warrants no more.
+ */
+export function formatDerived(v: { estimate: number; lower: number; upper: number }, q: BenchQuantity, units: Units) {
+  const { label, perSi } = benchUnit(q, units);
+  const round = (x: number) => String(Number((x * perSi).toPrecision(3)));
+  return { unit: label, estimate: round(v.estimate), lower: round(v.lower), upper: round(v.upper) };
+}
+
 /** A rig's sensor capacity, in the quantity its kind measures. */
 export const formatCapacity = (kind: RigKind, si: number, units: Units) =>
   formatBench(kind === "percussive_force" ? "peak_force_n" : "peak_torque_nm", si, units);

@@ -6,6 +6,7 @@ import { ChooseJob, ChooseTools, type CompareTool, Comparison } from "~/componen
 import { CURVE_COLOURS } from "~/components/pressure-curves";
 import { compareBench } from "~/bench/figures-read.server";
 import { CompareBench } from "~/components/bench-figures/compare-bench";
+import { CompareDerived } from "~/components/bench-figures/compare-derived";
 import { unitsFor } from "~/auth/units.server";
 import { getJobBySlug, listJobs } from "~/catalogue/queries.server";
 import { compareOnJob } from "~/stats/cells.server";
@@ -85,6 +86,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
     <div className="space-y-6">
       <Comparison {...comparison} />
       <CompareBench tools={comparison.tools} bench={bench} units={units} />
+      <CompareDerived tools={comparison.tools} bench={bench} units={units} />
       <CompareExposurePanel exposure={exposure} job={comparison.job} psi={comparison.psi} />
     </div>
   );

@@ -1,13 +1,11 @@
 // "Across rigs" on a model's page: each series pooled over the runs of every rig, how much of the
 // spread is the rig (τ, I²), where the next rig's figure should fall, the force against inlet
 // pressure, and figures derived from the pooled force. Each stands alone; none is added to another.
-import { benchUnit, formatBench, TRIGGER_LABELS } from "~/bench/terms";
+import { benchUnit, formatBench, formatDerived, TRIGGER_LABELS } from "~/bench/terms";
 import type { ModelAcrossRigs } from "~/bench/figures-read.server";
 import { formatPressure, formatShare, type Units } from "~/domain";
 import { DataTable } from "../ui";
 import { PressurePlot } from "./pressure-plot";
-
-const round = (x: number) => String(Number(x.toPrecision(3)));
 
 export function AcrossRigsPanel({ data, units }: { data: ModelAcrossRigs; units: Units }) {
   const { forces, ranges, slope, derived } = data;
@@ -85,7 +83,7 @@ export function AcrossRigsPanel({ data, units }: { data: ModelAcrossRigs; units:
         <div>
           <h3 className="font-semibold">Derived from the pooled force</h3>
           <p className="text-xs text-stone-600">
-            From “{derived.series}”; the interval carried through. Each figure stands alone.
+            From “{derived.pooled.series}”; the interval carried through. Each figure stands alone.
           </p>
           <dl className="mt-1 grid gap-1 text-sm sm:grid-cols-3">
             <Derived
@@ -164,14 +162,14 @@ function Derived({
   units: Units;
   q: ModelAcrossRigs["forces"][number]["quantity"];
 }) {
-  const u = benchUnit(q, units);
+  const p = formatDerived(v, q, units);
   return (
     <div className="rounded border border-stone-200 p-2">
       <dt className="text-xs text-stone-600">{label}</dt>
       <dd>
-        {round(v.estimate * u.perSi)}{" "}
+        {p.estimate}{" "}
         <span className="text-xs text-stone-600">
-          ({round(v.lower * u.perSi)} to {round(v.upper * u.perSi)})
+          ({p.lower} to {p.upper})
         </span>
       </dd>
     </div>

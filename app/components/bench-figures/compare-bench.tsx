@@ -4,6 +4,7 @@ import { formatBench } from "~/bench/terms";
 import type { CompareBenchRow } from "~/bench/figures-read.server";
 import { formatChance, type Units } from "~/domain";
 import { DataTable } from "../ui";
+import { noBenchText, runsOnRigs } from "./compare-derived";
 
 interface Tool {
   slug: string;
@@ -30,7 +31,8 @@ export function CompareBench({ tools, bench, units }: { tools: Tool[]; bench: Co
         }
       >
         {tools.map((t) => {
-          const b = bench.find((r) => r.slug === t.slug);
+          const row = bench.find((r) => r.slug === t.slug);
+          const d = row?.derived;
           return (
             <tr key={t.slug} className="border-t border-stone-100 align-top">
               <th scope="row" className="px-3 py-2 font-normal">
@@ -43,16 +45,16 @@ export function CompareBench({ tools, bench, units }: { tools: Tool[]; bench: Co
                 </span>
               </td>
               <td className="px-3 py-2">
-                {b ? (
+                {d ? (
                   <>
-                    {formatBench(b.quantity, b.estimate, units)}
+                    {formatBench(d.quantity, d.pooled.estimate, units)}
                     <span className="block text-xs text-stone-600">
-                      {formatBench(b.quantity, b.lower, units)} to {formatBench(b.quantity, b.upper, units)}; {b.runs}{" "}
-                      runs on {b.rigs} rigs
+                      {formatBench(d.quantity, d.pooled.lower, units)} to{" "}
+                      {formatBench(d.quantity, d.pooled.upper, units)}; {runsOnRigs(d.pooled)}
                     </span>
                   </>
                 ) : (
-                  "No bench runs yet"
+                  noBenchText(row)
                 )}
               </td>
             </tr>
