@@ -35,7 +35,7 @@ const tool = (id: number, force: number, placedFrom: "bench" | "field") => ({
   placedFrom,
 });
 
-function panel(placed: ReturnType<typeof tool>[]) {
+function panel(placed: ReturnType<typeof tool>[], figures: Record<string, number> = {}) {
   const data = {
     quantity: "peak_force_n",
     intercept: fit.intercept,
@@ -43,6 +43,9 @@ function panel(placed: ReturnType<typeof tool>[]) {
     ed50: 4000,
     ed50_lower: 3600,
     ed50_upper: 4500,
+    force_min: 2500,
+    force_max: 5500,
+    ...figures,
     method: "Fieller",
     firth: false,
     reports: 60,
@@ -66,5 +69,15 @@ describe("the force a job takes", () => {
   it("says nothing of the kind when every tool has bench data", () => {
     const html = panel([tool(1, 3000, "bench"), tool(2, 4200, "bench")]);
     expect(html).not.toContain("field reports only");
+  });
+
+  it("gives no half-way force outside the bench forces on record, and says where it lies", () => {
+    const below = panel([tool(1, 3000, "bench")], { ed50: -1200, ed50_lower: -18000, ed50_upper: 2700 });
+    expect(below).toContain("lies below every bench force on record, so it is not given");
+    expect(below).not.toContain("-1200");
+    const above = panel([tool(1, 3000, "bench")], { ed50: 9000, ed50_lower: 6000, ed50_upper: 20000 });
+    expect(above).toContain("lies above every bench force on record, so it is not given");
+    const wide = panel([tool(1, 3000, "bench")], { ed50: 3000, ed50_lower: -500, ed50_upper: 7000 });
+    expect(wide).toContain("(95 % interval from under 2500 N to over 5500 N)");
   });
 });

@@ -33,24 +33,42 @@ export function ForceCurvePanel({ data, units }: { data: JobForce | null; units:
     .y((p) => y(p.estimate))(data.curve);
   const chanceAt = (force: number) => 1 / (1 + Math.exp(-(data.intercept + data.slope * force)));
   const fromField = data.placed.some((m) => m.placedFrom === "field");
+  // A half-way force outside the bench forces on record is an extrapolation (it can even come out
+  // below zero): the page says where it lies instead of printing it.
+  const below = data.ed50 < data.force_min;
+  const above = data.ed50 > data.force_max;
   return (
     <section aria-labelledby="job-force-heading" className="space-y-3">
       <h2 id="job-force-heading" className="text-lg font-semibold">
         The force this job takes
       </h2>
       <p className="text-sm">
-        Half the reports free this job with a tool of about <strong>{f(data.ed50)}</strong>
-        {data.ed50_lower != null && data.ed50_upper != null
-          ? ` (95 % interval ${f(data.ed50_lower)} to ${f(data.ed50_upper)})`
-          : " (the reports do not pin the interval down)"}
-        .
+        {below ? (
+          <>
+            Half or more of the reports free this job even with the weakest tool measured ({f(data.force_min)}): the
+            force at which half do lies below every bench force on record, so it is not given.
+          </>
+        ) : above ? (
+          <>
+            Fewer than half the reports free this job even with the strongest tool measured ({f(data.force_max)}): the
+            force at which half would lies above every bench force on record, so it is not given.
+          </>
+        ) : (
+          <>
+            Half the reports free this job with a tool of about <strong>{f(data.ed50)}</strong>
+            {data.ed50_lower != null && data.ed50_upper != null
+              ? ` (95 % interval ${data.ed50_lower < data.force_min ? `from under ${f(data.force_min)}` : f(data.ed50_lower)} to ${data.ed50_upper > data.force_max ? `over ${f(data.force_max)}` : f(data.ed50_upper)})`
+              : " (the reports do not pin the interval down)"}
+            .
+          </>
+        )}
       </p>
       <figure className="space-y-1">
         <Figure
           id="job-force-curve"
           H={H}
           title={`Chance of freeing the job against bench force (${u.label})`}
-          desc={`A rising curve with its 95 % band; the force at which half the reports free the job is ${f(data.ed50)}. ${data.placed.length} models are marked on the curve.`}
+          desc={`A rising curve with its 95 % band; ${below ? "half or more of the reports free the job at every force on record" : above ? "fewer than half free it at any force on record" : `the force at which half the reports free the job is ${f(data.ed50)}`}. ${data.placed.length} models are marked on the curve.`}
         >
           <Axes
             x={x}
@@ -61,14 +79,16 @@ export function ForceCurvePanel({ data, units }: { data: JobForce | null; units:
           />
           {band && <path d={band} fill={BAND} />}
           {curve && <path d={curve} fill="none" stroke={INK} strokeWidth="2" />}
-          <line
-            x1={x(data.ed50 * u.perSi)}
-            x2={x(data.ed50 * u.perSi)}
-            y1={M.t}
-            y2={H - M.b}
-            stroke={INK}
-            strokeDasharray="3 3"
-          />
+          {!below && !above && (
+            <line
+              x1={x(data.ed50 * u.perSi)}
+              x2={x(data.ed50 * u.perSi)}
+              y1={M.t}
+              y2={H - M.b}
+              stroke={INK}
+              strokeDasharray="3 3"
+            />
+          )}
           {data.placed.map((m) => (
             <circle
               key={m.id}
