@@ -2,8 +2,7 @@
 // and the data dictionary, both made from the feed's own descriptions (app/feed).
 import { Link } from "react-router";
 import type { SnapshotInfo } from "~/feed/documents";
-import { type Field, RECORD_TYPES, type RecordType } from "~/feed/fields";
-import { ANONYMOUS_LIMIT, DEFAULT_LIMIT, MAX_LIMIT } from "~/feed/params";
+import type { Field } from "~/feed/fields";
 import { DataTable } from "./ui";
 
 const TYPE_LABEL: Record<Field["type"], string> = {
@@ -88,15 +87,29 @@ function formatBytes(bytes: number) {
   return unit === 0 ? `${bytes} bytes` : `${value.toFixed(1)} ${units[unit]}`;
 }
 
+/** One record type as the dictionary lists it (the loader sends them: the field lists stay on the server). */
+export interface DictionaryType {
+  type: string;
+  title: string;
+  fields: Field[];
+}
+
+/** The feed's page sizes and anonymous rate, as the loader reads them from the feed's parameters. */
+export interface FeedLimits {
+  defaultLimit: number;
+  maxLimit: number;
+  anonymousPerMinute: number;
+}
+
 /** Every record type's fields: name, type, SI unit, meaning, allowed values and range. */
-export function DataDictionary() {
+export function DataDictionary({ types }: { types: DictionaryType[] }) {
   return (
     <section aria-labelledby="dictionary" className="space-y-6">
       <h2 id="dictionary" className="text-lg font-semibold">
         Data dictionary
       </h2>
-      {(Object.keys(RECORD_TYPES) as RecordType[]).map((type) => (
-        <RecordFields key={type} type={type} />
+      {types.map((t) => (
+        <RecordFields key={t.type} t={t} />
       ))}
     </section>
   );
@@ -109,8 +122,8 @@ const flatten = (fields: Field[], prefix = ""): Field[] =>
     return [named, ...(f.fields ? flatten(f.fields, `${named.name}.`) : [])];
   });
 
-function RecordFields({ type }: { type: RecordType }) {
-  const t = RECORD_TYPES[type];
+function RecordFields({ t }: { t: DictionaryType }) {
+  const { type } = t;
   const rows = flatten(t.fields);
   return (
     <div>
@@ -245,7 +258,7 @@ export function EndpointsSection() {
   );
 }
 
-export function UsingItSection({ origin, keyLimit }: { origin: string; keyLimit: number }) {
+export function UsingItSection({ origin, keyLimit, limits }: { origin: string; keyLimit: number; limits: FeedLimits }) {
   return (
     <section aria-labelledby="use" className="space-y-2">
       <h2 id="use" className="text-lg font-semibold">
@@ -253,13 +266,13 @@ export function UsingItSection({ origin, keyLimit }: { origin: string; keyLimit:
       </h2>
       <ul className="list-disc space-y-1 pl-5 text-sm">
         <li>
-          Pages hold {DEFAULT_LIMIT} reports by default, at most {MAX_LIMIT} (<code>limit</code>). Follow{" "}
+          Pages hold {limits.defaultLimit} reports by default, at most {limits.maxLimit} (<code>limit</code>). Follow{" "}
           <code>next_cursor</code> (or the <code>Link: rel="next"</code> header) until it is <code>null</code>. Keep the
           other parameters the same while you walk; a walk covers the reports accepted up to its <code>as_of</code>, so
           it returns each one exactly once even while new reports are accepted.
         </li>
         <li>
-          Anonymous clients may make {ANONYMOUS_LIMIT.points} requests a minute; with an API key, {keyLimit}. Every
+          Anonymous clients may make {limits.anonymousPerMinute} requests a minute; with an API key, {keyLimit}. Every
           answer carries <code>RateLimit-Policy</code> and <code>RateLimit</code>; beyond the limit you get{" "}
           <code>429</code> with <code>Retry-After</code>.
         </li>

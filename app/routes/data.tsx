@@ -3,6 +3,8 @@ import { config } from "~/config.server";
 import { readDb } from "~/db.server";
 import { latestSnapshot } from "~/feed/snapshot.server";
 import { citation, LICENCE } from "~/feed/documents";
+import { RECORD_TYPES } from "~/feed/fields";
+import { ANONYMOUS_LIMIT, DEFAULT_LIMIT, MAX_LIMIT } from "~/feed/params";
 import type { Route } from "./+types/data";
 
 export async function loader() {
@@ -12,11 +14,16 @@ export async function loader() {
     keyLimit: config.feed.keyLimit,
     citation: citation(config.appOrigin, day),
     snapshot: await latestSnapshot(readDb),
+    licence: LICENCE,
+    // The dictionary and the limits come from the feed's own modules, sent as data: those modules
+    // (and zod with them) stay out of the page's JavaScript.
+    types: Object.entries(RECORD_TYPES).map(([type, t]) => ({ type, title: t.title, fields: t.fields })),
+    limits: { defaultLimit: DEFAULT_LIMIT, maxLimit: MAX_LIMIT, anonymousPerMinute: ANONYMOUS_LIMIT.points },
   };
 }
 
 export default function Data({ loaderData }: Route.ComponentProps) {
-  const { origin } = loaderData;
+  const { origin, licence } = loaderData;
   return (
     <article className="space-y-8">
       <header className="space-y-2">
@@ -35,10 +42,10 @@ export default function Data({ loaderData }: Route.ComponentProps) {
         </h2>
         <p className="mt-1 text-sm">
           The data are published under{" "}
-          <a className="underline" href={LICENCE.path}>
-            {LICENCE.title}
+          <a className="underline" href={licence.path}>
+            {licence.title}
           </a>{" "}
-          ({LICENCE.name}): use them for anything, including commercially, and credit Bayproof's contributors. Cite it
+          ({licence.name}): use them for anything, including commercially, and credit Bayproof's contributors. Cite it
           as:
         </p>
         <blockquote className="mt-2 rounded bg-bay-50 p-3 font-mono text-xs">{loaderData.citation}</blockquote>
@@ -52,7 +59,7 @@ export default function Data({ loaderData }: Route.ComponentProps) {
 
       <EndpointsSection />
 
-      <UsingItSection origin={origin} keyLimit={loaderData.keyLimit} />
+      <UsingItSection origin={origin} keyLimit={loaderData.keyLimit} limits={loaderData.limits} />
 
       <section aria-labelledby="privacy" className="space-y-1">
         <h2 id="privacy" className="text-lg font-semibold">
@@ -67,7 +74,7 @@ export default function Data({ loaderData }: Route.ComponentProps) {
         </p>
       </section>
 
-      <DataDictionary />
+      <DataDictionary types={loaderData.types} />
     </article>
   );
 }
