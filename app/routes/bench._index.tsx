@@ -26,20 +26,25 @@ export async function loader({ request }: Route.LoaderArgs) {
   ]);
   const ownsRig = user != null && rigs.some((r) => r.owner_id === user.id);
   const agreements = await rigAgreements(db);
-  return { units, protocols, rigs, runs, ownsRig, agreements };
+  return { units, protocols, rigs, runs, ownsRig, signedIn: user != null, agreements };
 }
 
 export default function BenchPage({ loaderData }: Route.ComponentProps) {
-  const { units, protocols, rigs, runs, ownsRig } = loaderData;
+  const { units, protocols, rigs, runs, ownsRig, signedIn } = loaderData;
   return (
     <div className="space-y-8">
       <header className="space-y-2">
         <h1 className="text-2xl font-bold">Bench runs</h1>
         <BenchIntro />
-        {ownsRig && (
-          <p>
-            <Link to="/bench/runs/new" className={buttonClass("primary", "md", "inline-block")}>
-              File a bench run
+        {signedIn && (
+          <p className="flex flex-wrap gap-3">
+            {ownsRig && (
+              <Link to="/bench/runs/new" className={buttonClass("primary", "md", "inline-block")}>
+                File a bench run
+              </Link>
+            )}
+            <Link to="/bench/rigs/new" className={buttonClass("secondary", "md", "inline-block")}>
+              Register your rig
             </Link>
           </p>
         )}
