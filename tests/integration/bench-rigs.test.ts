@@ -248,6 +248,9 @@ describe("filing and verifying a calibration", () => {
       .executeTakeFirstOrThrow();
     const verify = { intent: "verify", calibrationId: String(calibration.id) };
     expect((await reporter.post(`/bench/rigs/${rigId}`, verify)).status).toBe(403);
+    const queue = await (await moderator.get("/review")).text();
+    expect(queue).toContain("Calibrations waiting for a moderator");
+    expect(queue).toContain(`action="/bench/rigs/${rigId}"`);
     expect(await (await moderator.get(`/bench/rigs/${rigId}`)).text()).toContain(
       "Calibrations waiting for a moderator",
     );
