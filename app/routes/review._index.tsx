@@ -6,8 +6,6 @@ import { QueueList, QueuePager } from "~/components/review/queue-list";
 import { Card } from "~/components/ui";
 import { BenchQueue } from "~/components/bench/bench-review";
 import { benchQueue } from "~/bench/moderation.server";
-import { unverifiedCalibrations } from "~/bench/rig-registry.server";
-import { PendingCalibrations } from "~/components/bench/calibration-verify";
 import { db } from "~/db.server";
 import { QUEUE_SORTS, readQueueFilter } from "~/moderation/queue-filter";
 import { queuePage } from "~/moderation/queue-page.server";
@@ -20,18 +18,17 @@ export async function loader({ request }: Route.LoaderArgs) {
   const search = new URL(request.url).searchParams;
   const read = readQueueFilter(search);
   if (!read.ok) refuse(read.message);
-  const [page, jobs, bench, calibrations] = await Promise.all([
+  const [page, jobs, bench] = await Promise.all([
     queuePage(db, moderator.id, read.filter, search.get("report")),
     jobTypesByCategory(db),
     benchQueue(db, moderator.id),
-    unverifiedCalibrations(db, moderator.id),
   ]);
   if (page.redirectTo) throw redirect(page.redirectTo);
-  return data({ ...page, jobs, bench, calibrations, filter: read.filter }, { status: page.jumpError ? 400 : 200 });
+  return data({ ...page, jobs, bench, filter: read.filter }, { status: page.jumpError ? 400 : 200 });
 }
 
 export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
-  const { queue, counts, jobs, bench, calibrations, filter, waitDays, jump, jumpError } = loaderData;
+  const { queue, counts, jobs, bench, filter, waitDays, jump, jumpError } = loaderData;
   return (
     <div className="space-y-4">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
@@ -56,7 +53,6 @@ export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
       <QueueList rows={queue.rows} filter={{ ...filter, page: queue.page }} />
       <QueuePager paging={queue} filter={filter} position="bottom" />
       <BenchQueue rows={bench} />
-      <PendingCalibrations pending={calibrations} showRig />
     </div>
   );
 }

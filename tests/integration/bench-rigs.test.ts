@@ -248,7 +248,7 @@ describe("filing and verifying a calibration", () => {
       .executeTakeFirstOrThrow();
     const verify = { intent: "verify", calibrationId: String(calibration.id) };
     expect((await reporter.post(`/bench/rigs/${rigId}`, verify)).status).toBe(403);
-    const queue = await (await moderator.get("/review")).text();
+    const queue = await (await moderator.get("/bench")).text();
     expect(queue).toContain("Calibrations waiting for a moderator");
     expect(queue).toContain(`action="/bench/rigs/${rigId}"`);
     expect(await (await moderator.get(`/bench/rigs/${rigId}`)).text()).toContain(
@@ -290,6 +290,7 @@ describe("filing and verifying a calibration", () => {
     expect(calibration.degree).toBe(1);
     const page = await moderator.get(`/bench/rigs/${own}`);
     expect(await page.text()).not.toContain("Calibrations waiting for a moderator");
+    expect(await (await moderator.get("/bench")).text()).not.toContain(`action="/bench/rigs/${own}"`);
     const res = await moderator.post(`/bench/rigs/${own}`, { intent: "verify", calibrationId: String(calibration.id) });
     expect(res.status).toBe(403);
     const row = await db

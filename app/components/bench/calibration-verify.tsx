@@ -1,7 +1,7 @@
 // Calibrations waiting for a moderator, each with its own verify button (a plain form).
 import { Form, Link } from "react-router";
 import type { PendingCalibration } from "~/bench/rig-registry.server";
-import { formatDate } from "~/domain";
+import { formatDate } from "~/domain/format";
 import { buttonClass, Card } from "../ui";
 
 export function PendingCalibrations({
