@@ -105,15 +105,23 @@ export function explainFit(points: CalibrationPoint[]): FitChoice {
   };
 }
 
-/** Fits the points (SI) and saves the calibration unverified; a degenerate set is a field refusal. */
-export async function fitOrRefuse(points: CalibrationPoint[]) {
+const refuseRows = (why: string) => new AppError(`These rows cannot be fitted: ${why}`, 400, { field: "points" });
+
+/** Fits the points (SI); a set that gives no usable calibration is a field refusal, never a stored NaN. */
+export function fitOrRefuse(points: CalibrationPoint[]) {
+  if (new Set(points.map((p) => p.reading)).size < 2)
+    throw refuseRows("every reading is the same, so the rig does not respond to the load");
+  let choice: FitChoice;
   try {
-    return explainFit(points);
+    choice = explainFit(points);
   } catch (error) {
-    if (error instanceof Error)
-      throw new AppError(`These rows cannot be fitted: ${error.message}`, 400, { field: "points" });
+    if (error instanceof Error) throw refuseRows(error.message);
     throw error;
   }
+  const { fit } = choice;
+  if (![...fit.coefficients, fit.residualSD, fit.rSquared].every(Number.isFinite))
+    throw refuseRows("the values are too large or too close together to fit in double precision");
+  return choice;
 }
 
 export async function saveCalibration(

@@ -37,7 +37,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const parsed = parseForm(calibrationSchema(rigUnit(rig.kind, units).perSi), formData);
   if (!parsed.ok) return invalid(parsed.errors, parsed.values, "Some values need a look; they are marked below.");
   try {
-    const choice = await fitOrRefuse(parsed.data.points);
+    const choice = fitOrRefuse(parsed.data.points);
     if (parsed.values.intent === "save") {
       await saveCalibration(db, rig.id, { ...parsed.data, fit: choice.fit });
       return redirect(`/bench/rigs/${rig.id}`);

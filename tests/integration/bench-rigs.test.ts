@@ -176,6 +176,9 @@ describe("filing and verifying a calibration", () => {
     expect(await res.text()).toContain("At least 3 rows are needed; found 2");
     res = await post(Array.from({ length: 201 }, (_, i) => `${i + 1},${i + 1}`).join("\n"));
     expect(await res.text()).toContain("At most 200 rows; found 201");
+    res = await post("1000,5\n2000,5\n3000,5");
+    expect(res.status).toBe(400);
+    expect(await res.text()).toContain("every reading is the same");
     const tomorrow = new Date(Date.now() + 2 * 86_400_000).toISOString().slice(0, 10);
     res = await post(straightRows, tomorrow);
     expect(res.status).toBe(400);
