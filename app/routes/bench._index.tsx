@@ -1,13 +1,15 @@
 import { Link } from "react-router";
 import { unitsFor } from "~/auth/units.server";
-import { getUser } from "~/auth/session.server";
+import { getUser, hasRole } from "~/auth/session.server";
 import { listProtocols } from "~/bench/protocols.server";
+import { unverifiedCalibrations } from "~/bench/rig-registry.server";
 import { listRigs } from "~/bench/rigs.server";
 import { latestAcceptedRuns } from "~/bench/runs.server";
 import { rigAgreements } from "~/bench/figures-read.server";
 import { RigAgreementSection } from "~/components/bench-figures/rig-agreement";
 import { BenchIntro } from "~/components/bench/bench-intro";
 import { BenchSafetyCautions } from "~/components/bench/bench-safety";
+import { PendingCalibrations } from "~/components/bench/calibration-verify";
 import { ProtocolCard } from "~/components/bench/protocol";
 import { RigList } from "~/components/bench/rig-status";
 import { RunList } from "~/components/bench/run-list";
@@ -25,25 +27,36 @@ export async function loader({ request }: Route.LoaderArgs) {
     latestAcceptedRuns(db, 15),
   ]);
   const ownsRig = user != null && rigs.some((r) => r.owner_id === user.id);
-  const agreements = await rigAgreements(db);
-  return { units, protocols, rigs, runs, ownsRig, agreements };
+  const [agreements, pending] = await Promise.all([
+    rigAgreements(db),
+    // Moderators see the calibrations waiting on other people's rigs (the review queue's page is at its script allowance).
+    user && hasRole(user, "moderator") ? unverifiedCalibrations(db, user.id) : null,
+  ]);
+  return { units, protocols, rigs, runs, ownsRig, signedIn: user != null, agreements, pending };
 }
 
 export default function BenchPage({ loaderData }: Route.ComponentProps) {
-  const { units, protocols, rigs, runs, ownsRig } = loaderData;
+  const { units, protocols, rigs, runs, ownsRig, signedIn, pending } = loaderData;
   return (
     <div className="space-y-8">
       <header className="space-y-2">
         <h1 className="text-2xl font-bold">Bench runs</h1>
         <BenchIntro />
-        {ownsRig && (
-          <p>
-            <Link to="/bench/runs/new" className={buttonClass("primary", "md", "inline-block")}>
-              File a bench run
+        {signedIn && (
+          <p className="flex flex-wrap gap-3">
+            {ownsRig && (
+              <Link to="/bench/runs/new" className={buttonClass("primary", "md", "inline-block")}>
+                File a bench run
+              </Link>
+            )}
+            <Link to="/bench/rigs/new" className={buttonClass("secondary", "md", "inline-block")}>
+              Register your rig
             </Link>
           </p>
         )}
       </header>
+
+      {pending && <PendingCalibrations pending={pending} showRig />}
 
       <BenchSafetyCautions />
 
