@@ -1,7 +1,8 @@
 // `npm run bench:stats`: the stats refresh and the job page at scale. Builds a throwaway database
 // with 1,000,000 accepted reports over 400 models and 40 job types, then prints:
 //   - a bare GROUP BY count over the same rows (the floor a refresh cannot beat),
-//   - the full refresh of every cell, and its ratio to that floor (goal ≤ 5×),
+//   - the full refresh of every cell (best of 3, as the floor; the first, cold, beside it) and its
+//     ratio to that floor (goal ≤ 5×),
 //   - one cell's refresh after an accept (median of 20; goal < 50 ms),
 //   - the /jobs/:slug loader (median of 50), which reads stored cells.
 // Figures only; nothing here passes or fails. The PostgreSQL it starts is stopped and its folder
@@ -34,9 +35,15 @@ await benchCluster(async ({ db, url }) => {
   const floor = Math.min(...floors);
 
   const { refreshAll, refreshCell } = await import("../app/stats/refresh.server");
-  t0 = performance.now();
-  const cells = await refreshAll(db);
-  const full = ms(t0);
+  // As the floor: the best of three, the first (cold: JIT, caches) printed beside it.
+  const fulls: number[] = [];
+  let cells = 0;
+  for (let i = 0; i < 3; i++) {
+    t0 = performance.now();
+    cells = await refreshAll(db);
+    fulls.push(ms(t0));
+  }
+  const full = Math.min(...fulls);
 
   const sample = await sql<{
     m: number;
@@ -69,7 +76,7 @@ await benchCluster(async ({ db, url }) => {
   console.log(`cells                          ${cells}`);
   console.log(`bare GROUP BY (floor)          ${floor.toFixed(0)} ms (best of 3)`);
   console.log(
-    `full refresh of every cell     ${(full / 1000).toFixed(2)} s   (${(full / floor).toFixed(1)}× the floor; goal ≤ 5×)`,
+    `full refresh of every cell     ${(full / 1000).toFixed(2)} s   (${(full / floor).toFixed(1)}× the floor; goal ≤ 5×) best of 3; the first ${(fulls[0]! / 1000).toFixed(2)} s`,
   );
   console.log(`one cell after an accept       ${medianOf(single).toFixed(1)} ms median of 20   (goal < 50 ms)`);
   console.log(`/jobs/:slug loader             ${medianOf(loads).toFixed(1)} ms median of 50   (goal < 30 ms)`);

@@ -128,7 +128,10 @@ export function cellFiguresOfTally(t: CellTally, confidence = 0.95): CellFigures
     median: k.median,
     lower: k.lower,
     upper: k.upper,
-    steps: k.steps.map((s) => ({ time: s.time, survival: s.survival })),
+    // Only /compare draws the curve: the steps are copied out when read, not for every cell refreshed.
+    get steps() {
+      return k.steps.map((s) => ({ time: s.time, survival: s.survival }));
+    },
   };
   return {
     n,

@@ -57,17 +57,41 @@ export function pooledLogisticFit(
   if (rows.some((r) => r.y !== 0 && r.y !== 1)) throw new RangeError("y must be 0 or 1");
   if (rows.some((r) => !Number.isFinite(r.x))) throw new RangeError("x must be finite");
   const index = new Map<string | number, number>();
-  const g = rows.map((r) => {
+  const gi = Int32Array.from(rows, (r) => {
     let k = index.get(r.group);
     if (k === undefined) index.set(r.group, (k = index.size));
     return k;
   });
-  const G = index.size;
-  const N = rows.length;
-  // Typed copies: the loops below run over every row several times per iteration.
-  const gi = Int32Array.from(g);
-  const x = Float64Array.from(rows, (r) => r.x);
-  const y = Float64Array.from(rows, (r) => r.y);
+  return pooledLogisticFitOfColumns(
+    [...index.keys()],
+    gi,
+    Float64Array.from(rows, (r) => r.x),
+    Float64Array.from(rows, (r) => r.y),
+    { firth, maxIterations },
+  );
+}
+
+/**
+ * pooledLogisticFit from columns, without a row object per observation (the stats refresh fits
+ * hundreds of thousands of reports): `groups[gi[i]]` is row i's group, `x[i]` its predictor,
+ * `y[i]` its outcome (0 or 1). Every group must have at least one row.
+ */
+export function pooledLogisticFitOfColumns(
+  groups: readonly (string | number)[],
+  gi: Int32Array,
+  x: Float64Array,
+  y: Float64Array,
+  { firth = true, maxIterations = 100 } = {},
+): PooledLogisticFit {
+  const G = groups.length;
+  const N = gi.length;
+  if (N === 0) throw new RangeError("need at least one row");
+  if (x.length !== N || y.length !== N) throw new RangeError("gi, x and y must have the same length");
+  for (let i = 0; i < N; i++) {
+    if (y[i] !== 0 && y[i] !== 1) throw new RangeError("y must be 0 or 1");
+    if (!Number.isFinite(x[i]!)) throw new RangeError("x must be finite");
+    if (!(gi[i]! >= 0 && gi[i]! < G)) throw new RangeError("gi must index groups");
+  }
   const n = new Array<number>(G).fill(0);
   const s = new Array<number>(G).fill(0);
   const xMin = new Array<number>(G).fill(Infinity);
@@ -79,6 +103,7 @@ export function pooledLogisticFit(
     xMin[k] = Math.min(xMin[k]!, x[i]!);
     xMax[k] = Math.max(xMax[k]!, x[i]!);
   }
+  if (n.some((nk) => nk === 0)) throw new RangeError("every group needs at least one row");
   if (!n.some((_, k) => xMax[k]! > xMin[k]!)) throw new RangeError("x must vary within at least one group");
 
   // Information at θ = (α, β): d = Σ w per group, c = Σ w·x per group, q = Σ w·x².
@@ -157,6 +182,7 @@ export function pooledLogisticFit(
   let state = information(alpha, beta);
   let converged = false;
   let iterations = 0;
+  let previousStep = Infinity;
   for (; iterations < maxIterations; iterations++) {
     // Modified score (plain score when firth is off), gathered with the information.
     const { d, r, sigma, uA, uB } = state;
@@ -167,6 +193,25 @@ export function pooledLogisticFit(
     if (!Number.isFinite(largest)) break; // information singular: ML under separation
     // UᵀVU: a step s·V·U gains (s − s²/2)·UᵀVU on the quadratic model of the (penalised) likelihood.
     const curvatureGain = stepA.reduce((acc, step, k) => acc + step * uA[k]!, stepB * uB);
+    // Where a small step promises less than the (penalised) likelihood can be summed to over all
+    // rows (a few units in its 13th digit), no line search can judge it: the step is taken whole
+    // (Newton's own quadratic convergence) until it stops shrinking — the estimate is then at the
+    // optimum to the precision its score can be summed to. (A large step promising nothing is ML
+    // drifting off under separation: that goes on to the line search below, which gives up.)
+    if (largest < 1e-5 && curvatureGain / 2 < 1e-13 * (1 + Math.abs(state.penalised))) {
+      alpha = alpha.map((v, j) => v + stepA[j]!);
+      beta += stepB;
+      state = information(alpha, beta);
+      const stalled = largest > previousStep / 4;
+      previousStep = largest;
+      if (largest < 1e-8 || stalled) {
+        converged = Number.isFinite(state.penalised);
+        iterations++;
+        break;
+      }
+      continue;
+    }
+    previousStep = largest;
     let scale = largest > 5 ? 5 / largest : 1;
     let accepted = false;
     const tryScale = (k: number) => {
@@ -197,9 +242,8 @@ export function pooledLogisticFit(
   }
 
   const { d, r, sigma } = state;
-  const keys = [...index.keys()];
   const fit = {
-    groups: keys.map((group, k) => ({
+    groups: groups.map((group, k) => ({
       group,
       intercept: alpha[k]!,
       se: Math.sqrt(1 / d[k]! + (r[k]! * r[k]!) / sigma),

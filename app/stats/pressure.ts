@@ -2,7 +2,7 @@
 // model, a common slope on inlet pressure, Firth-penalised; docs/decisions/010), and each model's
 // figure at the rating point where its own reports reach it. Pure.
 import { zCritical } from "./distributions";
-import { pooledLogisticFit } from "./pooled-logistic";
+import { pooledLogisticFitOfColumns } from "./pooled-logistic";
 import { type PooledCellFit, pressureX, predictWith, REFERENCE_INLET_KPA, Z_95 } from "./predict";
 import type { Interval } from "./proportions";
 
@@ -18,6 +18,13 @@ export interface FitReport {
   freed: boolean;
 }
 
+/** One model's reports with a known inlet pressure on a job, as columns: pressure and outcome. */
+export interface FitColumns {
+  kpa: Float64Array;
+  /** 1 freed, 0 not. */
+  freed: Uint8Array;
+}
+
 export interface JobFit {
   /** Inlet-measured reports in the fit and the models they cover. */
   n: number;
@@ -31,7 +38,7 @@ export interface JobFit {
 }
 
 /** Linear-interpolation quantile (type 7) of sorted values. */
-function quantile(sorted: readonly number[], p: number) {
+function quantile(sorted: ArrayLike<number>, p: number) {
   const h = (sorted.length - 1) * p;
   const lo = Math.floor(h);
   const hi = Math.min(lo + 1, sorted.length - 1);
@@ -48,34 +55,76 @@ const psi = (kpa: number) => Math.round(kpa / KPA_PER_PSI);
  * `models` lists every model with counted reports on the job, measured or not.
  */
 export function jobPressureFit(reports: readonly FitReport[], models: readonly number[], confidence = 0.95): JobFit {
-  const perModel: JobFit["perModel"] = new Map();
-  const byModel = new Map<number, number[]>();
+  const lists = new Map<number, { kpa: number[]; freed: number[] }>();
   for (const r of reports) {
-    const list = byModel.get(r.model) ?? [];
-    list.push(r.inletKpa);
-    byModel.set(r.model, list);
+    let list = lists.get(r.model);
+    if (!list) lists.set(r.model, (list = { kpa: [], freed: [] }));
+    list.kpa.push(r.inletKpa);
+    list.freed.push(r.freed ? 1 : 0);
   }
+  const byModel = new Map<number, FitColumns>();
+  for (const [m, list] of lists)
+    byModel.set(m, { kpa: Float64Array.from(list.kpa), freed: Uint8Array.from(list.freed) });
+  return jobPressureFitOfColumns(byModel, models, confidence);
+}
+
+/**
+ * jobPressureFit from each model's reports as columns (the stats refresh reads them so, without an
+ * object per report). Models with no reports in `byModel` are skipped.
+ */
+export function jobPressureFitOfColumns(
+  byModel: ReadonlyMap<number, FitColumns>,
+  models: readonly number[],
+  confidence = 0.95,
+): JobFit {
+  const perModel: JobFit["perModel"] = new Map();
+  const fitted = [...byModel].filter(([, c]) => c.kpa.length > 0);
+  const total = fitted.reduce((acc, [, c]) => acc + c.kpa.length, 0);
   const noFit = (reason: string): JobFit => {
     for (const m of models) perModel.set(m, { fit: null, adjusted: null, reason });
-    return { n: reports.length, models: byModel.size, slope: null, slopeSE: null, converged: false, reason, perModel };
+    return { n: total, models: fitted.length, slope: null, slopeSE: null, converged: false, reason, perModel };
   };
-  if (reports.length < MIN_FIT_REPORTS) {
+  if (total < MIN_FIT_REPORTS) {
     return noFit(
-      `Only ${reports.length} reports on this job have a known inlet pressure (measured at the inlet, or a regulator reading less the predicted line loss); the pressure fit needs ${MIN_FIT_REPORTS}.`,
+      `Only ${total} reports on this job have a known inlet pressure (measured at the inlet, or a regulator reading less the predicted line loss); the pressure fit needs ${MIN_FIT_REPORTS}.`,
     );
   }
-  const spread = [...byModel.values()].some((k) => Math.max(...k) - Math.min(...k) >= 1);
+  const spread = fitted.some(([, c]) => {
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const k of c.kpa) {
+      if (k < lo) lo = k;
+      if (k > hi) hi = k;
+    }
+    return hi - lo >= 1;
+  });
   if (!spread)
     return noFit(
       "No tool's reports with a known inlet pressure on this job differ in pressure; there is no pressure effect to fit.",
     );
-  const fit = pooledLogisticFit(reports.map((r) => ({ group: r.model, x: pressureX(r.inletKpa), y: r.freed ? 1 : 0 })));
+  const gi = new Int32Array(total);
+  const x = new Float64Array(total);
+  const y = new Float64Array(total);
+  let i = 0;
+  fitted.forEach(([, c], k) => {
+    for (let j = 0; j < c.kpa.length; j++, i++) {
+      gi[i] = k;
+      x[i] = pressureX(c.kpa[j]!);
+      y[i] = c.freed[j]!;
+    }
+  });
+  const fit = pooledLogisticFitOfColumns(
+    fitted.map(([m]) => m),
+    gi,
+    x,
+    y,
+  );
   if (!fit.converged || !Number.isFinite(fit.slopeSE))
     return noFit("The job's pressure fit did not settle; no pressure-adjusted figures.");
   const z = zCritical(confidence);
   const { d, r, sigma } = fit.inverse;
   fit.groups.forEach((g, k) => {
-    const kpas = byModel.get(g.group as number)!;
+    const kpas = Float64Array.from(fitted[k]![1].kpa);
     perModel.set(g.group as number, modelFigure(g.intercept, fit.slope, d[k]!, r[k]!, sigma, kpas, z));
   });
   for (const m of models) {
@@ -88,8 +137,8 @@ export function jobPressureFit(reports: readonly FitReport[], models: readonly n
       });
   }
   return {
-    n: reports.length,
-    models: byModel.size,
+    n: total,
+    models: fitted.length,
     slope: fit.slope,
     slopeSE: fit.slopeSE,
     converged: true,
@@ -98,7 +147,15 @@ export function jobPressureFit(reports: readonly FitReport[], models: readonly n
   };
 }
 
-function modelFigure(intercept: number, slope: number, d: number, r: number, sigma: number, kpas: number[], z: number) {
+function modelFigure(
+  intercept: number,
+  slope: number,
+  d: number,
+  r: number,
+  sigma: number,
+  kpas: number[] | Float64Array,
+  z: number,
+) {
   kpas.sort((a, b) => a - b);
   const cell: PooledCellFit = {
     intercept,

@@ -1,15 +1,16 @@
 // Keeps stats_cells and stats_jobs in step with accepted reports. An accept refreshes its own cell
 // and its job's pooled pressure fit (every cell of the job gets its new figure at 90 psi); the
 // job's shrinkage prior is kept from the last full refresh (docs/decisions/010). The full refresh
-// recomputes everything from two reads that tally the reports per cell in SQL (counts, reporters,
-// packed times and pressures), then writes one statement per table (docs/decisions/010).
+// recomputes everything from one read that tallies the reports per cell in SQL (counts, packed
+// times, reporters and pressures; the table's two halves on two connections under one snapshot),
+// then writes one statement per table (docs/decisions/010).
 import { type RawBuilder, sql } from "kysely";
 import type { Db, Trx } from "../../db/database";
 import { operatingInletPressure } from "~/air/supply";
 import type { CouplerProfile } from "~/domain";
 import { notifyPagesChanged } from "~/http-cache/notify.server";
 import { type CellFigures, type CellTally, cellFiguresOfTally } from "./cells";
-import { type FitReport, type JobFit, jobPressureFit, modelAtJobSlope } from "./pressure";
+import { type FitColumns, type JobFit, jobPressureFitOfColumns, modelAtJobSlope } from "./pressure";
 import { type Group, shrinkProportions } from "./proportions";
 import type { SurvivalTally } from "./survival";
 
@@ -17,7 +18,7 @@ import type { SurvivalTally } from "./survival";
 interface ModelTally {
   m: number;
   tally: CellTally;
-  fit: FitReport[];
+  fit: FitColumns;
 }
 
 interface Scope {
@@ -28,67 +29,142 @@ interface Scope {
 const scoped = ({ job, model }: Scope) =>
   sql`${job == null ? sql`` : sql`and job_type_id = ${job}`} ${model == null ? sql`` : sql`and tool_model_id = ${model}`}`;
 
+/** Packed values from one or more parts (one per share of the table), or none. */
+type Packed = Buffer | Buffer[] | null;
+
+const partsOf = (b: Packed): Buffer[] => (b == null ? [] : Array.isArray(b) ? b : [b]);
+
 /** Doubles packed by float8send (big-endian, 8 bytes each), read back exactly. */
-function doubles(b: Buffer | null): Float64Array {
-  if (!b || b.length === 0) return new Float64Array(0);
-  const copy = Buffer.from(b).swap64();
-  const out = new Float64Array(copy.length / 8);
-  new Uint8Array(out.buffer).set(copy);
+function doubles(b: Packed): Float64Array {
+  const parts = partsOf(b);
+  const out = new Float64Array(parts.reduce((acc, p) => acc + p.length / 8, 0));
+  let i = 0;
+  for (const p of parts) {
+    const view = new DataView(p.buffer, p.byteOffset, p.byteLength);
+    for (let o = 0; o < p.length; o += 8) out[i++] = view.getFloat64(o);
+  }
   return out;
 }
 
+/** Reporter ids packed by int4send (big-endian, 4 bytes each). */
+function int32s(b: Packed): Int32Array {
+  const parts = partsOf(b);
+  const out = new Int32Array(parts.reduce((acc, p) => acc + p.length / 4, 0));
+  let i = 0;
+  for (const p of parts) {
+    const view = new DataView(p.buffer, p.byteOffset, p.byteLength);
+    for (let o = 0; o < p.length; o += 4) out[i++] = view.getInt32(o);
+  }
+  return out;
+}
+
+/** A share of the table's pages, [from, to) (to null: to the end), for reads split across connections. */
+type Pages = readonly [from: number, to: number | null];
+
+interface CellRead {
+  j: number;
+  m: number;
+  lps: number | null;
+  aside: number;
+  measured: number;
+  estimated: number;
+  tf: Packed;
+  tc: Packed;
+  rf: Packed;
+  rc: Packed;
+  ff: Packed;
+  fl: Packed;
+  lines: string | null;
+}
+
 /**
- * Every accepted report in scope, tallied in SQL, one row per cell: its counts, the times of the
- * counted reports freed and not freed, and the pressures its pressure fit needs (inlet-measured ones
- * by outcome; regulator readings with their line). Times and pressures come as packed doubles
- * (float8send): exact, and far cheaper on both sides than text or PostgreSQL arrays (node-pg parses
- * those character by character), so a million reports cost little more than a bare count.
+ * Every accepted report in scope, tallied in SQL, one row per cell: its counts, the times and
+ * reporters of the counted reports freed and not freed, and the pressures its pressure fit needs
+ * (inlet-measured ones by outcome; regulator readings with their line). Times, pressures and
+ * reporters come packed (float8send, int4send): exact, and far cheaper on both sides than text or
+ * PostgreSQL arrays (node-pg parses those character by character). `pages` limits the read to a
+ * share of the table (a TID range scan), so the full refresh can read on two connections at once.
  */
-function readCells(db: Db, scope: Scope) {
+function readCells(db: Db, scope: Scope, pages?: Pages) {
   const counted = (and: RawBuilder<unknown> = sql`true`) => sql`filter (where not aside and ${and})`;
-  const packed = (column: string, and?: RawBuilder<unknown>) =>
-    sql`string_agg(float8send(${sql.ref(column)}), ''::bytea) ${counted(and)}`;
+  const packed = (send: "float8send" | "int4send", column: string, and?: RawBuilder<unknown>) =>
+    sql`string_agg(${sql.raw(send)}(${sql.ref(column)}), ''::bytea) ${counted(and)}`;
   const measured = sql`inlet_source = 'measured_at_inlet'`;
-  return sql<{
-    j: number;
-    m: number;
-    lps: number | null;
-    aside: number;
-    measured: number;
-    estimated: number;
-    tf: Buffer | null;
-    tc: Buffer | null;
-    ff: Buffer | null;
-    fl: Buffer | null;
-    lines: string | null;
-  }>`
+  const share = pages
+    ? sql`and ctid >= ${`(${pages[0]},0)`}::tid ${pages[1] == null ? sql`` : sql`and ctid < ${`(${pages[1]},0)`}::tid`}`
+    : sql``;
+  return sql<CellRead>`
     select job_type_id j, tool_model_id m, (select rated_air_lps::float8 from tool_models where id = tool_model_id) lps,
       count(*) filter (where aside)::int aside,
       count(*) ${counted(measured)}::int measured,
       count(*) ${counted(sql`inlet_source = 'estimated'`)}::int estimated,
-      ${packed("time_to_result_s", sql`freed`)} tf,
-      ${packed("time_to_result_s", sql`not freed`)} tc,
-      ${packed("inlet_kpa", sql`freed and ${measured}`)} ff,
-      ${packed("inlet_kpa", sql`not freed and ${measured}`)} fl,
+      ${packed("float8send", "time_to_result_s", sql`freed`)} tf,
+      ${packed("float8send", "time_to_result_s", sql`not freed`)} tc,
+      ${packed("int4send", "reporter_id", sql`freed`)} rf,
+      ${packed("int4send", "reporter_id", sql`not freed`)} rc,
+      ${packed("float8send", "inlet_kpa", sql`freed and ${measured}`)} ff,
+      ${packed("float8send", "inlet_kpa", sql`not freed and ${measured}`)} fl,
       string_agg(concat_ws(' ', inlet_kpa, hose_id_mm, hose_length_m, coupler_profile, coupler_count, freed::int), ';')
         ${counted(sql`inlet_source = 'read_at_regulator' and hose_id_mm is not null and hose_length_m is not null
           and coupler_profile is not null and coupler_count is not null`)} lines
     from (
-      select job_type_id, tool_model_id, time_to_result_s, inlet_kpa, inlet_source, hose_id_mm, hose_length_m,
+      select job_type_id, tool_model_id, reporter_id, time_to_result_s, inlet_kpa, inlet_source, hose_id_mm, hose_length_m,
         coupler_profile, coupler_count, flags @> array['above_rated_inlet'] aside, outcome = 'freed' freed
-      from reports where status = 'accepted' ${scoped(scope)}
+      from reports where status = 'accepted' ${scoped(scope)} ${share}
       offset 0 -- each row's flags worked out once, not once per aggregate above
     ) r
-    group by job_type_id, tool_model_id`.execute(db);
+    group by job_type_id, tool_model_id`
+    .execute(db)
+    .then((r) => r.rows);
 }
 
-/** One (reports, freed) pair per reporter of each cell in scope, counted reports only. */
-function readClusters(db: Db, scope: Scope) {
-  return sql<{ j: number; m: number; k: number; s: number }>`
-    select job_type_id j, tool_model_id m, count(*)::int k, count(*) filter (where outcome = 'freed')::int s
-    from reports
-    where status = 'accepted' and not flags @> array['above_rated_inlet'] ${scoped(scope)}
-    group by job_type_id, tool_model_id, reporter_id`.execute(db);
+/** One cell's rows from several shares of the table, as one. */
+function mergeReads(parts: readonly CellRead[][]): CellRead[] {
+  if (parts.length === 1) return parts[0]!;
+  const byCell = new Map<string, CellRead[]>();
+  for (const part of parts)
+    for (const row of part) {
+      const key = `${row.j}/${row.m}`;
+      const list = byCell.get(key);
+      if (list) list.push(row);
+      else byCell.set(key, [row]);
+    }
+  const joinBytes = (rows: CellRead[], k: "tf" | "tc" | "rf" | "rc" | "ff" | "fl") =>
+    rows.flatMap((r) => partsOf(r[k]));
+  return [...byCell.values()].map((rows) =>
+    rows.length === 1
+      ? rows[0]!
+      : {
+          ...rows[0]!,
+          aside: rows.reduce((a, r) => a + r.aside, 0),
+          measured: rows.reduce((a, r) => a + r.measured, 0),
+          estimated: rows.reduce((a, r) => a + r.estimated, 0),
+          tf: joinBytes(rows, "tf"),
+          tc: joinBytes(rows, "tc"),
+          rf: joinBytes(rows, "rf"),
+          rc: joinBytes(rows, "rc"),
+          ff: joinBytes(rows, "ff"),
+          fl: joinBytes(rows, "fl"),
+          lines: rows.flatMap((r) => (r.lines ? [r.lines] : [])).join(";") || null,
+        },
+  );
+}
+
+/** One (reports, freed) pair per reporter of a cell, in reporter order. */
+function clustersOf(freedBy: Int32Array, notFreedBy: Int32Array): Group[] {
+  const byReporter = new Map<number, Group>();
+  const add = (ids: Int32Array, freed: number) => {
+    for (const id of ids) {
+      const c = byReporter.get(id);
+      if (c) {
+        c.trials++;
+        c.successes += freed;
+      } else byReporter.set(id, { trials: 1, successes: freed });
+    }
+  };
+  add(freedBy, 1);
+  add(notFreedBy, 0);
+  return [...byReporter.entries()].sort((a, b) => a[0] - b[0]).map(([, c]) => c);
 }
 
 /** A cell's times, freed (events) and not (censored), as one ascending tally. */
@@ -111,31 +187,26 @@ function survivalTally(freed: Float64Array, censored: Float64Array): SurvivalTal
   return out;
 }
 
-type Reader = <T>(read: (db: Db) => Promise<T>) => Promise<T>;
-
 /**
- * Every cell in scope, tallied, by job type. `run` runs each read (the full refresh gives each its
- * own connection and room to hash every cell in memory).
+ * Every cell in scope, tallied, by job type. `read` reads the cells (the full refresh splits the
+ * table across two connections).
  */
-async function readTallies(db: Db, scope: Scope, run: Reader = (read) => read(db)): Promise<Map<number, ModelTally[]>> {
-  const [cells, clusters] = await Promise.all([run((q) => readCells(q, scope)), run((q) => readClusters(q, scope))]);
-  const clustersOf = new Map<string, Group[]>();
-  for (const c of clusters.rows) {
-    const key = `${c.j}/${c.m}`;
-    const list = clustersOf.get(key) ?? [];
-    list.push({ trials: c.k, successes: c.s });
-    clustersOf.set(key, list);
-  }
+async function readTallies(
+  db: Db,
+  scope: Scope,
+  read: (scope: Scope) => Promise<CellRead[]> = (s) => readCells(db, s),
+): Promise<Map<number, ModelTally[]>> {
+  const cells = await read(scope);
   const byJob = new Map<number, ModelTally[]>();
   // The inlet pressure app/air predicts for one regulator reading and line, worked out once.
   const corrected = new Map<string, number | null>();
-  for (const row of cells.rows) {
-    const fit: FitReport[] = [];
-    for (const p of doubles(row.ff)) fit.push({ model: row.m, inletKpa: p, freed: true });
-    for (const p of doubles(row.fl)) fit.push({ model: row.m, inletKpa: p, freed: false });
+  for (const row of cells) {
+    const freed = doubles(row.ff);
+    const failed = doubles(row.fl);
+    const regulator: { kpa: number; freed: number }[] = [];
     if (row.lines && row.lps != null && row.lps > 0) {
       for (const line of row.lines.split(";")) {
-        const [p, hid, hlen, cp, cc, freed] = line.split(" ");
+        const [p, hid, hlen, cp, cc, ok] = line.split(" ");
         const key = `${row.lps} ${line.slice(0, -2)}`;
         let at = corrected.get(key);
         if (at === undefined) {
@@ -148,20 +219,34 @@ async function readTallies(db: Db, scope: Scope, run: Reader = (read) => read(db
           at = point.stalled ? null : point.inletKpa;
           corrected.set(key, at);
         }
-        if (at != null) fit.push({ model: row.m, inletKpa: at, freed: freed === "1" });
+        if (at != null) regulator.push({ kpa: at, freed: ok === "1" ? 1 : 0 });
       }
     }
+    const fit: FitColumns = {
+      kpa: new Float64Array(freed.length + failed.length + regulator.length),
+      freed: new Uint8Array(freed.length + failed.length + regulator.length),
+    };
+    fit.kpa.set(freed);
+    fit.freed.fill(1, 0, freed.length);
+    fit.kpa.set(failed, freed.length);
+    regulator.forEach((r, i) => {
+      fit.kpa[freed.length + failed.length + i] = r.kpa;
+      fit.freed[freed.length + failed.length + i] = r.freed;
+    });
     const tally: CellTally = {
       setAside: row.aside,
       measured: row.measured,
       estimated: row.estimated,
-      clusters: clustersOf.get(`${row.j}/${row.m}`) ?? [],
+      clusters: clustersOf(int32s(row.rf), int32s(row.rc)),
       times: survivalTally(doubles(row.tf), doubles(row.tc)),
     };
     const list = byJob.get(row.j) ?? [];
     list.push({ m: row.m, tally, fit });
     byJob.set(row.j, list);
   }
+  // In model order, whatever order the hash aggregate gave: the job's fits and prior then sum in
+  // the same order on every refresh.
+  for (const list of byJob.values()) list.sort((a, b) => a.m - b.m);
   return byJob;
 }
 
@@ -286,8 +371,8 @@ function computeJob(jobTypeId: number, tallies: readonly ModelTally[], now: Date
   const figures = tallies.map((t) => ({ m: t.m, f: cellFiguresOfTally(t.tally) }));
   const setAside = tallies.reduce((acc, t) => acc + t.tally.setAside, 0);
   const kept = figures.filter((x): x is { m: number; f: CellFigures } => x.f != null);
-  const fit = jobPressureFit(
-    tallies.flatMap((t) => t.fit),
+  const fit = jobPressureFitOfColumns(
+    new Map(tallies.map((t) => [t.m, t.fit])),
     kept.map((x) => x.m),
   );
   let prior: { alpha: number; beta: number } | null = null;
@@ -408,7 +493,12 @@ export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
         alpha: job.prior_alpha!,
         beta: job.prior_beta!,
       });
-      const m = modelAtJobSlope(mine!.fit, { slope: job.slope!, sigma: 1 / job.slope_se! ** 2 });
+      const reports = Array.from(mine!.fit.kpa, (inletKpa, i) => ({
+        model: modelId,
+        inletKpa,
+        freed: mine!.fit.freed[i] === 1,
+      }));
+      const m = modelAtJobSlope(reports, { slope: job.slope!, sigma: 1 / job.slope_se! ** 2 });
       await upsertCells(trx, [
         {
           ...cellRow(modelId, jobTypeId, f, new Date()),
@@ -435,27 +525,106 @@ export async function refreshCell(db: Db, modelId: number, jobTypeId: number) {
 }
 
 /**
- * Every cell, recomputed from the accepted reports. Two reads tally every report at once (they run
- * side by side on two connections); JavaScript then works per cell and per job (the pooled fit
- * reads its reports' pressures), and one transaction writes it all, a statement per table.
+ * The full refresh's read: the table's pages in two shares, read side by side on two connections
+ * under one snapshot (the first exports it, the second imports it), each hashing its cells in memory;
+ * the shares' rows of a cell are then joined.
  */
-export async function refreshAll(db: Db) {
-  const now = new Date();
+async function readAllCells(db: Db): Promise<CellRead[]> {
+  const { pages } = (
+    await sql<{ pages: number }>`
+      select (pg_relation_size('reports') / current_setting('block_size')::int)::int pages`.execute(db)
+  ).rows[0]!;
+  const half = Math.ceil(pages / 2);
+  let shareSnapshot!: (id: string) => void;
+  let noSnapshot!: (e: unknown) => void;
+  let snapshotTaken!: () => void;
+  const snapshot = new Promise<string>((resolve, reject) => ((shareSnapshot = resolve), (noSnapshot = reject)));
+  snapshot.catch(() => {}); // the first share's own failure is what the refresh reports
+  const taken = new Promise<void>((resolve) => (snapshotTaken = resolve));
   // Hash aggregation over every cell wants more than the default work_mem, and the planner, not
   // knowing how large the packed arrays grow, still prefers to sort every report by cell (twice
   // the time at a million reports): so more memory, and no sort, for these reads only.
-  const roomy: Reader = (read) =>
-    db.transaction().execute(async (trx) => {
-      await sql`set local work_mem = '256MB'`.execute(trx);
-      await sql`set local enable_sort = off`.execute(trx);
-      return read(trx);
+  const roomy = async (trx: Trx) => {
+    await sql`set local work_mem = '256MB'`.execute(trx);
+    await sql`set local enable_sort = off`.execute(trx);
+  };
+  const first = db
+    .transaction()
+    .setIsolationLevel("repeatable read")
+    .execute(async (trx) => {
+      try {
+        shareSnapshot((await sql<{ id: string }>`select pg_export_snapshot() id`.execute(trx)).rows[0]!.id);
+      } catch (e) {
+        noSnapshot(e);
+        throw e;
+      }
+      await roomy(trx);
+      const rows = await readCells(trx, {}, [0, half]);
+      await taken; // the snapshot lives as long as this transaction: kept until the second has it
+      return rows;
     });
-  const [jobs, tallies] = await Promise.all([
+  const second = db
+    .transaction()
+    .setIsolationLevel("repeatable read")
+    .execute(async (trx) => {
+      try {
+        await sql`set transaction snapshot ${sql.lit(await snapshot)}`.execute(trx);
+      } finally {
+        snapshotTaken();
+      }
+      await roomy(trx);
+      return readCells(trx, {}, [half, null]);
+    });
+  return mergeReads(await Promise.all([first, second]));
+}
+
+/** Every job type, and every cell's tally by job type; `split`: the table read in two shares at once. */
+const readAll = (db: Db, split: boolean) =>
+  Promise.all([
     db.selectFrom("job_types").select("id").orderBy("id").execute(),
-    readTallies(db, {}, roomy),
+    readTallies(db, {}, split ? () => readAllCells(db) : undefined),
   ]);
-  const results = jobs.map((j) => computeJob(j.id, tallies.get(j.id) ?? [], now));
-  await db.transaction().execute((trx) => storeJobs(trx, results, {}));
+
+/**
+ * Every cell's row as the full refresh would store it, not stored: for checks that the table read
+ * in two shares gives what one read of it gives.
+ */
+export async function computeAllCells(db: Db, { split = true } = {}) {
+  const now = new Date();
+  const [jobs, tallies] = await readAll(db, split);
+  return jobs.flatMap((j) => computeJob(j.id, tallies.get(j.id) ?? [], now).rows);
+}
+
+/** Jobs computed per write of the full refresh (each write overlaps the next batch's computing). */
+const JOBS_PER_WRITE = 8;
+
+/**
+ * Every cell, recomputed from the accepted reports. One read tallies every report at once (split
+ * across two connections); JavaScript then works per cell and per job (the pooled fit reads its
+ * reports' pressures), and one transaction writes it all: the cells a batch of jobs at a time,
+ * each batch written while the next is computed (PostgreSQL inserts on one core while JavaScript
+ * works on the other), then the cells no longer backed by reports removed and the jobs' rows.
+ */
+export async function refreshAll(db: Db) {
+  const now = new Date();
+  const [jobs, tallies] = await readAll(db, true);
+  let cells = 0;
+  await db.transaction().execute(async (trx) => {
+    const jobRows: JobResult["job"][] = [];
+    let writing: Promise<void> = Promise.resolve();
+    for (let i = 0; i < jobs.length; i += JOBS_PER_WRITE) {
+      const batch = jobs.slice(i, i + JOBS_PER_WRITE).map((j) => computeJob(j.id, tallies.get(j.id) ?? [], now));
+      await writing;
+      const rows = batch.flatMap((r) => r.rows);
+      cells += rows.length;
+      jobRows.push(...batch.map((r) => r.job));
+      writing = upsertCells(trx, rows);
+    }
+    await writing;
+    // Every cell written above carries this refresh's time; any other has no counted reports left.
+    await trx.deleteFrom("stats_cells").where("computed_at", "<>", now).execute();
+    await upsertJobs(trx, jobRows);
+  });
   await notifyPagesChanged(db, "stats");
-  return results.reduce((acc, r) => acc + r.rows.length, 0);
+  return cells;
 }
