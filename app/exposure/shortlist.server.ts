@@ -4,8 +4,9 @@ import type { Db } from "../../db/database";
 import { toolName, type Units } from "~/domain";
 import type { JobStandings } from "~/stats/cells.server";
 import { readSupply } from "~/stats/supply-query";
-import { buildShortlist, type ShortlistTool } from "./shortlist";
-import { readShortlist } from "./shortlist-form";
+import type { Supply } from "~/stats/which-tool";
+import { buildShortlist, type Shortlist, type ShortlistTool } from "./shortlist";
+import { type ShortlistAsk, readShortlist } from "./shortlist-form";
 
 interface ModelFigures {
   lengthMm: number;
@@ -35,6 +36,31 @@ async function modelFigures(db: Db, slugs: readonly string[]) {
       },
     ]),
   );
+}
+
+/** Shortlists built lately, by their whole input (most recent last). */
+const built = new Map<string, Shortlist>();
+const BUILT_KEPT = 200;
+
+/**
+ * buildShortlist, remembered by its whole input: the best-pick simulation (4,000 draws per tool) is
+ * most of a job page's work, and every signed-in view of the same job and ask would redo it. The
+ * key is the input itself (the tools' stored figures, the ask with its seed, the supply, the
+ * units), so a stats refresh or a catalogue change makes a new key: nothing is served stale.
+ * The result is shared: callers must not change it.
+ */
+function shortlistOf(tools: ShortlistTool[], ask: ShortlistAsk, supply: Supply | null, units: Units): Shortlist {
+  const key = JSON.stringify([tools, ask, supply, units]);
+  const hit = built.get(key);
+  if (hit) {
+    built.delete(key);
+    built.set(key, hit);
+    return hit;
+  }
+  const shortlist = buildShortlist(tools, ask, supply, units);
+  built.set(key, shortlist);
+  if (built.size > BUILT_KEPT) built.delete(built.keys().next().value!);
+  return shortlist;
 }
 
 /**
@@ -83,7 +109,7 @@ export async function jobShortlist(db: Db, standings: JobStandings, search: Reco
     errors,
     supplyNote: asked?.note ?? null,
     hasSupply: supply != null,
-    shortlist: buildShortlist(tools, ask, supply, units),
+    shortlist: shortlistOf(tools, ask, supply, units),
   };
 }
 
