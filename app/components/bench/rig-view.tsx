@@ -14,6 +14,9 @@ export function RigView({ detail, units }: { detail: RigDetail; units: Units }) 
   const { label: unit, perSi } = benchUnit(quantity, units);
   const outside = chart ? checkReadings.filter((_, i) => chart.points[i]?.outOfControl) : [];
   const num = (x: number, digits = 3) => (x * 1).toPrecision(digits);
+  // Calibration values keep their tenths (a reading of 500.2 is not 500) and the residual SD its
+  // three significant figures (it is often under one unit).
+  const fine = (si: number) => `${(si * perSi).toLocaleString("en-US", { maximumFractionDigits: 1 })} ${unit}`;
   return (
     <div className="space-y-6">
       <Card as="section" aria-labelledby="rig-about">
@@ -45,7 +48,7 @@ export function RigView({ detail, units }: { detail: RigDetail; units: Units }) 
             <p className="text-sm">
               Calibrated {formatDate(latest.calibrated_on)}; fitted by least squares as a{" "}
               {fit.degree === 1 ? "straight line" : "quadratic"} over {fit.n} reference loads. Residual standard
-              deviation {formatCapacity(rig.kind, fit.residualSD, units)}, R² {fit.rSquared.toFixed(5)}.{" "}
+              deviation {num(fit.residualSD * perSi)} {unit}, R² {fit.rSquared.toFixed(5)}.{" "}
               {latest.verified_at
                 ? `Verified by ${latest.verified_by_handle ?? "a moderator"} on ${formatDateTime(latest.verified_at)}.`
                 : "Not yet verified by a moderator."}
@@ -77,8 +80,8 @@ export function RigView({ detail, units }: { detail: RigDetail; units: Units }) 
             >
               {fit.residuals.map((p) => (
                 <tr key={p.reference}>
-                  <td className="px-3 py-1">{formatCapacity(rig.kind, p.reference, units)}</td>
-                  <td className="px-3 py-1">{formatCapacity(rig.kind, p.reading, units)}</td>
+                  <td className="px-3 py-1">{fine(p.reference)}</td>
+                  <td className="px-3 py-1">{fine(p.reading)}</td>
                   <td className="px-3 py-1">{`${(p.residual * perSi).toFixed(1)} ${unit}`}</td>
                 </tr>
               ))}
