@@ -17,6 +17,7 @@
 // Plain JavaScript, run by node itself; HOST and PORT (app/config.server.ts) choose where it listens.
 // With WEB_CONCURRENCY above 1 (one per core by default in production) this process is a cluster
 // primary (server-cluster.js) and each worker runs serve() below on the shared socket.
+import { readdirSync } from "node:fs";
 import path from "node:path";
 import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
@@ -131,6 +132,8 @@ async function serve() {
   if (typeof crossSiteRefusal !== "function") throw new Error("app/entry.server.tsx must export crossSiteRefusal");
   /** The app's configuration (app/config.server.ts), read once from the environment by the build. */
   const config = build.entry.module.config;
+  /** The stored bytes of a page-cache hit (app/http-cache/page-cache.server.ts). */
+  const storedBodyOf = build.entry.module.storedBodyOf;
   if (!config?.listen) throw new Error("app/entry.server.tsx must export config");
   const handle = createRequestHandler(build, config.mode);
 
@@ -157,7 +160,12 @@ async function serve() {
     "/assets",
     express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y", setHeaders }),
   );
-  app.use(express.static(path.join(root, "build/client"), { maxAge: "1h", setHeaders }));
+  // The other files of build/client (the favicon, and whatever public/ holds) by their top-level
+  // names, read once: a page's address then never costs a failed file lookup.
+  const clientDir = path.join(root, "build/client");
+  const clientFiles = new Set(readdirSync(clientDir).filter((name) => name !== "assets"));
+  const clientStatic = express.static(clientDir, { maxAge: "1h", setHeaders });
+  app.use((req, res, next) => (clientFiles.has(req.path.split("/")[1]) ? clientStatic(req, res, next) : next()));
   app.all("*", async (req, res, next) => {
     let body;
     if (req.method !== "GET" && req.method !== "HEAD") {
@@ -185,6 +193,9 @@ async function serve() {
       await response.body?.cancel();
       return res.end();
     }
+    // A page from the page cache: its stored bytes in one write, its stream never read.
+    const stored = storedBodyOf?.(response);
+    if (stored) return res.end(stored);
     try {
       await pipeline(Readable.fromWeb(response.body), res);
     } catch (error) {

@@ -9,6 +9,7 @@ export const streamTimeout = 5_000;
 // server.js refuses cross-site writes with this before React Router sees them.
 export { crossSiteRefusal } from "~/security.server";
 export { config } from "~/config.server";
+export { storedBodyOf } from "~/http-cache/page-cache.server";
 
 // React Router's Node entry, plus the CSP nonce for every inline script it writes.
 export default function handleRequest(

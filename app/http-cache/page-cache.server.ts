@@ -12,6 +12,12 @@ interface CachedPage {
   body: Uint8Array;
   /** The same bytes gzipped once when stored, so a hit costs no compression (its own ETag: RFC 9110 §8.8.3). */
   gzipped: Uint8Array;
+  /**
+   * The two as Blobs, made once: a Response over a Blob shares its bytes, where one over a
+   * Uint8Array copies them (undici: ~2 ms for a 170 kB page, most of what a hit used to cost).
+   */
+  bodyBlob: Blob;
+  gzippedBlob: Blob;
   headers: [string, string][];
   etag: string;
   /** CSP sources for the page's inline scripts (their hashes); null for data requests. */
@@ -59,9 +65,10 @@ export class PageCache {
   misses = 0;
 
   constructor(maxBytes: number) {
+    // Each page is held twice: as bytes (written by the server) and as Blobs (the Responses' bodies).
     this.pages = new ByteLru(
       maxBytes,
-      (page, key) => page.body.byteLength + page.gzipped.byteLength + key.length * 2 + 512,
+      (page, key) => 2 * (page.body.byteLength + page.gzipped.byteLength) + key.length * 2 + 512,
     );
   }
 
@@ -144,9 +151,23 @@ function answer(request: Request, page: CachedPage): Response {
     return new Response(null, { status: 304, headers: notModified });
   }
   if (gzip) headers.set("Content-Encoding", "gzip");
-  const body = gzip ? page.gzipped : page.body;
-  headers.set("Content-Length", String(body.byteLength));
-  return new Response(request.method.toUpperCase() === "HEAD" ? null : body.slice(), { status: 200, headers });
+  const bytes = gzip ? page.gzipped : page.body;
+  headers.set("Content-Length", String(bytes.byteLength));
+  if (request.method.toUpperCase() === "HEAD") return new Response(null, { status: 200, headers });
+  const response = new Response(gzip ? page.gzippedBlob : page.bodyBlob, { status: 200, headers });
+  storedBodies.set(response, bytes);
+  return response;
+}
+
+/** The stored bytes behind a cache hit's Response, for the server to write in one go. */
+const storedBodies = new WeakMap<Response, Uint8Array>();
+
+/**
+ * The bytes of a Response answered from the cache (undefined for any other): the production server
+ * writes them to the socket at once instead of reading the Response's stream chunk by chunk.
+ */
+export function storedBodyOf(response: Response): Uint8Array | undefined {
+  return storedBodies.get(response);
 }
 
 const refusesStorage = (response: Response) =>
@@ -166,7 +187,16 @@ async function toPage(response: Response): Promise<CachedPage | null> {
   headers.set("ETag", etag);
   const html = (headers.get("Content-Type") ?? "").startsWith("text/html");
   const scriptSources = html ? inlineScriptSources(new TextDecoder().decode(body)) : null;
-  return { body, gzipped: gzipSync(body), headers: [...headers], etag, scriptSources };
+  const gzipped = gzipSync(body);
+  return {
+    body,
+    gzipped,
+    bodyBlob: new Blob([body]),
+    gzippedBlob: new Blob([gzipped]),
+    headers: [...headers],
+    etag,
+    scriptSources,
+  };
 }
 
 /**
