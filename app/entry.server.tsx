@@ -1,8 +1,8 @@
-import { PassThrough } from "node:stream";
 import { createReadableStreamFromReadable } from "@react-router/node";
 import { isbot } from "isbot";
 import { type RenderToPipeableStreamOptions, renderToPipeableStream } from "react-dom/server";
 import { type EntryContext, type RouterContextProvider, ServerRouter } from "react-router";
+import { CoalescingStream } from "~/utils/coalescing-stream.server";
 import { NonceProvider, nonceContext } from "~/utils/nonce";
 
 export const streamTimeout = 5_000;
@@ -39,7 +39,7 @@ export default function handleRequest(
         nonce,
         [readyOption]() {
           shellRendered = true;
-          const body = new PassThrough({
+          const body = new CoalescingStream({
             final(callback) {
               clearTimeout(timeoutId);
               timeoutId = undefined;
