@@ -23,17 +23,15 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const search = Object.fromEntries(new URL(request.url).searchParams);
   const job = await getJobBySlug(readDb, slug);
   invariantResponse(job, "No such job type", 404);
-  const [standings, reports, total, units] = await Promise.all([
+  const [standings, reports, total, units, force] = await Promise.all([
     jobStandings(readDb, job.id),
     acceptedReports(readDb, { jobId: job.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(readDb, { jobId: job.id }),
     unitsFor(request),
-  ]);
-  // The shopper's supply and shortlist: read what parses, and say what did not rather than fail the page.
-  const [shortlist, force] = await Promise.all([
-    jobShortlist(readDb, standings, search, units),
     jobForce(readDb, job.id),
   ]);
+  // The shopper's supply and shortlist: read what parses, and say what did not rather than fail the page.
+  const shortlist = await jobShortlist(readDb, standings, search, units);
   return {
     job,
     force,
