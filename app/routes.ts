@@ -18,6 +18,7 @@ export default [
   route("bench/runs/:id", "routes/bench.runs.$id.tsx"),
   route("bench/runs/:id/edit", "routes/bench.runs.edit.tsx", { id: "bench-runs-edit" }),
   route("api/bench/traces", "routes/api.bench.traces.ts"),
+  route("api/bench/certificates", "routes/api.bench.certificates.ts"),
   route("search", "routes/search.tsx"),
   route("api/search", "routes/api.search.ts"),
   route("api/stats/cell", "routes/api.stats.cell.ts"),
