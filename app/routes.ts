@@ -14,6 +14,10 @@ export default [
   route("bench/rigs/new", "routes/bench.rigs.new.tsx"),
   route("bench/rigs/:id", "routes/bench.rigs.$id.tsx"),
   route("bench/rigs/:id/calibrations/new", "routes/bench.rigs.$id.calibrations.new.tsx"),
+  route(
+    "bench/rigs/:id/calibrations/:calibrationId/certificate",
+    "routes/bench.rigs.$id.calibrations.$calibrationId.certificate.ts",
+  ),
   route("bench/runs/new", "routes/bench.runs.edit.tsx", { id: "bench-runs-new" }),
   route("bench/runs/:id", "routes/bench.runs.$id.tsx"),
   route("bench/runs/:id/edit", "routes/bench.runs.edit.tsx", { id: "bench-runs-edit" }),

@@ -196,6 +196,10 @@ export async function getRig(db: Db, id: number, now = new Date()) {
 }
 
 export type RigDetail = NonNullable<Awaited<ReturnType<typeof getRig>>>;
+/** A rig as every reader sees it: without where its certificates are stored. */
+export type PublicRigDetail = Omit<RigDetail, "calibrations"> & {
+  calibrations: Omit<RigDetail["calibrations"][number], "certificate_key">[];
+};
 
 /**
  * Whether a run may be filed on the rig today: a verified calibration within its age, and the
