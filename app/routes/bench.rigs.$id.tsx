@@ -39,11 +39,10 @@ export async function loader({ params, request }: Route.LoaderArgs) {
           id: c.id,
           calibratedOn: c.calibrated_on,
           verified: c.verified_at != null,
-          hasCertificate: c.certificate_key != null,
+          hasCertificate: c.has_certificate,
         }))
       : null;
-  const calibrations = detail.calibrations.map(({ certificate_key: _key, ...c }) => c);
-  return { detail: { ...detail, calibrations }, runs, units, owns, pending, certificates };
+  return { detail, runs, units, owns, pending, certificates };
 }
 
 const verifySchema = z.object({ intent: z.literal("verify"), calibrationId: idField("No such calibration") });

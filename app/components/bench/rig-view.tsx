@@ -1,13 +1,13 @@
 // One rig: what it is, its calibration (the fit, its residuals, who verified it) and its check
 // standard's individuals chart with the sessions that fell outside the limits.
 import { benchUnit, formatCapacity, RIG_KIND_LABELS, type BenchQuantity } from "~/bench/terms";
-import type { PublicRigDetail } from "~/bench/rigs.server";
+import type { RigDetail } from "~/bench/rigs.server";
 import { formatDate, formatDateTime, type Units } from "~/domain";
 import { Card, DataTable } from "../ui";
 import { CalibrationPlot, IndividualsChart } from "./charts";
 import { RigStatusBadge } from "./rig-status";
 
-export function RigView({ detail, units }: { detail: PublicRigDetail; units: Units }) {
+export function RigView({ detail, units }: { detail: RigDetail; units: Units }) {
   const { rig, standing, fit, chart, checkReadings } = detail;
   const latest = detail.calibrations[0];
   const quantity: BenchQuantity = rig.kind === "percussive_force" ? "peak_force_n" : "peak_torque_nm";
