@@ -3,6 +3,7 @@
 import { z } from "zod";
 import type { Units } from "../domain";
 import { plainText } from "../utils/text";
+import { isOwnCertificateUpload } from "./certificate";
 import { benchUnit, type RigKind } from "./terms";
 
 /** A force rig reads a load cell; a torque fixture, a torque transducer (the table insists on the pair). */
@@ -129,8 +130,11 @@ export function parseCalibrationRows(text: string): CalibrationRowsResult {
   return { points, errors };
 }
 
-/** The calibration form's schema: the rows (in the reader's unit) and the day, not in the future. */
-export function calibrationSchema(perSi: number, today = new Date().toISOString().slice(0, 10)) {
+/**
+ * The calibration form's schema: the rows (in the reader's unit), the day, not in the future, and
+ * the key of the certificate the user uploaded (optional; only one of their own uploads).
+ */
+export function calibrationSchema(perSi: number, userId: number, today = new Date().toISOString().slice(0, 10)) {
   return z.object({
     points: z
       .string({ error: "Paste the reference loads and the rig's readings" })
@@ -152,5 +156,14 @@ export function calibrationSchema(perSi: number, today = new Date().toISOString(
       }, "Not a real day")
       .refine((s) => s <= today, "The calibration cannot be in the future")
       .refine((s) => s >= "1990-01-01", "A day from 1990 on"),
+    certificate: z
+      .string({ error: "Attach one certificate file" })
+      .max(200, "This certificate is not one of your uploads; choose the file again")
+      .optional()
+      .transform((k) => k?.trim() || null)
+      .refine(
+        (k) => k == null || isOwnCertificateUpload(userId, k),
+        "This certificate is not one of your uploads; choose the file again",
+      ),
   });
 }

@@ -4,7 +4,11 @@ import { sql } from "kysely";
 import type { Db } from "../../db/database";
 import { toolName } from "../domain";
 import { tCritical } from "../stats";
+import { MAX_CERTIFICATE_BYTES } from "../storage/certificate-types";
+import { copyObject, deleteObject, isStorageOutage, objectSize, readHead } from "../storage/s3.server";
+import { sniffCertificateType } from "../storage/sniff.server";
 import { AppError } from "../utils/errors";
+import { randomToken } from "../utils/tokens.server";
 import { fitCalibration, QUADRATIC_SIGNIFICANCE, type CalibrationFit, type CalibrationPoint } from "./calibration";
 import { CATEGORY_FOR_KIND, type RigInput } from "./rig-form";
 
@@ -124,7 +128,64 @@ export function fitOrRefuse(points: CalibrationPoint[]) {
   return choice;
 }
 
+const refuseCertificate = (message: string, status = 400) => new AppError(message, status, { field: "certificate" });
+
+/** A storage call whose outage is a 503 on the certificate field, not a server error. */
+const stored = <T>(work: Promise<T>) =>
+  work.catch((error: unknown) => {
+    throw isStorageOutage(error)
+      ? refuseCertificate("The file store could not be reached; nothing was saved. Try again in a few minutes.", 503)
+      : error;
+  });
+
+/**
+ * Copies the owner's upload to the calibration's own key (no URL is ever signed for it, so what is
+ * checked is what stays) and checks the copy: present, at most 10 MB, a PDF, PNG or JPEG by its
+ * first bytes. A refused copy is removed; the refusal names the certificate field.
+ */
+async function copyCertificate(calibrationId: number, upload: string) {
+  const size = await stored(objectSize(upload));
+  if (size == null) throw refuseCertificate("This certificate has not arrived in storage; choose the file again");
+  const key = `certificates/${calibrationId}/${randomToken(18)}`;
+  await stored(copyObject(upload, key));
+  const refuse = async (message: string) => {
+    await stored(Promise.all([deleteObject(key), deleteObject(upload)]));
+    return refuseCertificate(message);
+  };
+  const copied = (await stored(objectSize(key))) ?? 0;
+  if (copied > MAX_CERTIFICATE_BYTES)
+    throw await refuse(`A certificate may be at most ${MAX_CERTIFICATE_BYTES / 1024 / 1024} MB`);
+  const type = copied > 0 ? await sniffCertificateType(await stored(readHead(key))) : null;
+  if (!type)
+    throw await refuse(
+      "This file is not a PDF, PNG or JPEG, whatever its name says; attach the certificate as one of those",
+    );
+  return key;
+}
+
+/**
+ * Saves a calibration, unverified. With a certificate upload, the row and the checked copy are
+ * written together: a refused certificate saves nothing.
+ */
 export async function saveCalibration(
+  db: Db,
+  rigId: number,
+  args: { calibratedOn: string; points: CalibrationPoint[]; fit: CalibrationFit; certificateUpload?: string | null },
+) {
+  const id = await db.transaction().execute(async (trx) => {
+    const calibrationId = await insertCalibration(trx, rigId, args);
+    if (args.certificateUpload) {
+      const key = await copyCertificate(calibrationId, args.certificateUpload);
+      await trx.updateTable("rig_calibrations").set({ certificate_key: key }).where("id", "=", calibrationId).execute();
+    }
+    return calibrationId;
+  });
+  // Nothing reads the upload again; if this delete fails the object is only clutter.
+  if (args.certificateUpload) await deleteObject(args.certificateUpload).catch(() => {});
+  return id;
+}
+
+async function insertCalibration(
   db: Db,
   rigId: number,
   args: { calibratedOn: string; points: CalibrationPoint[]; fit: CalibrationFit },
@@ -143,6 +204,28 @@ export async function saveCalibration(
     .returning("id")
     .executeTakeFirstOrThrow();
   return id;
+}
+
+/**
+ * The stored certificate of a calibration on this rig, for the rig's owner and moderators only:
+ * anyone else, like a calibration without one, gets null (the route answers 404 either way).
+ */
+export async function certificateFor(
+  db: Db,
+  viewer: { id: number; moderator: boolean } | null,
+  rigId: number,
+  calibrationId: number,
+) {
+  if (!viewer) return null;
+  const row = await db
+    .selectFrom("rig_calibrations as c")
+    .innerJoin("rigs as r", "r.id", "c.rig_id")
+    .select(["c.certificate_key", "r.owner_id"])
+    .where("c.id", "=", calibrationId)
+    .where("c.rig_id", "=", rigId)
+    .executeTakeFirst();
+  if (!row?.certificate_key || (row.owner_id !== viewer.id && !viewer.moderator)) return null;
+  return row.certificate_key;
 }
 
 /** Calibrations waiting for a moderator, oldest first; a moderator's own rigs are left out. */

@@ -159,7 +159,8 @@ export async function getRig(db: Db, id: number, now = new Date()) {
         "c.coefficients",
         "c.residual_sd",
         "c.r_squared",
-        "c.certificate_key",
+        // Whether there is a certificate, never where it is stored (a page sends this to the browser).
+        sql<boolean>`c.certificate_key is not null`.as("has_certificate"),
         "c.verified_at",
         "v.handle as verified_by_handle",
       ])

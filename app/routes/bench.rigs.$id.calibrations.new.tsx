@@ -34,18 +34,23 @@ export async function action({ request, params }: Route.ActionArgs) {
     throw failureAnswer(error, "page");
   }
   const [units, formData] = await Promise.all([unitsFor(request), readForm(request)]);
-  const parsed = parseForm(calibrationSchema(rigUnit(rig.kind, units).perSi), formData);
+  const parsed = parseForm(calibrationSchema(rigUnit(rig.kind, units).perSi, user.id), formData);
   if (!parsed.ok) return invalid(parsed.errors, parsed.values, "Some values need a look; they are marked below.");
   try {
     const choice = fitOrRefuse(parsed.data.points);
     if (parsed.values.intent === "save") {
-      await saveCalibration(db, rig.id, { ...parsed.data, fit: choice.fit });
+      await saveCalibration(db, rig.id, {
+        ...parsed.data,
+        fit: choice.fit,
+        certificateUpload: parsed.data.certificate,
+      });
       return redirect(`/bench/rigs/${rig.id}`);
     }
     return { ok: true as const, choice: { fit: choice.fit, reason: choice.reason }, values: parsed.values };
   } catch (error) {
-    if (error instanceof AppError && error.status === 400)
-      return invalid(error.field ? { [error.field]: [error.message] } : {}, parsed.values, error.message);
+    // A refused certificate, or the file store out of reach while checking it, keeps what was typed.
+    if (error instanceof AppError && (error.status === 400 || error.field === "certificate"))
+      return invalid(error.field ? { [error.field]: [error.message] } : {}, parsed.values, error.message, error.status);
     throw failureAnswer(error, "page");
   }
 }
@@ -73,6 +78,7 @@ export default function FileCalibration({ loaderData, actionData }: Route.Compon
       {preview && <CalibrationPreview choice={preview.choice} unit={unit} perSi={perSi} units={units} />}
       <CalibrationForm
         rigId={rig.id}
+        certificateKey={failed?.errors.certificate ? "" : (values.certificate ?? "")}
         unit={unit}
         values={values}
         errors={failed?.errors ?? {}}

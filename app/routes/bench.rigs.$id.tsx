@@ -6,6 +6,7 @@ import { unverifiedCalibrations, verifyCalibration } from "~/bench/rig-registry.
 import { getRig } from "~/bench/rigs.server";
 import { runsOnRig } from "~/bench/runs.server";
 import { BenchSafetyCautions } from "~/components/bench/bench-safety";
+import { CalibrationCertificates } from "~/components/bench/calibration-certificates";
 import { PendingCalibrations } from "~/components/bench/calibration-verify";
 import { RigView } from "~/components/bench/rig-view";
 import { RunList } from "~/components/bench/run-list";
@@ -28,9 +29,20 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   ]);
   invariantResponse(detail, "No such rig", 404);
   const moderator = user != null && hasRole(user, "moderator");
+  const owns = user?.id === detail.rig.owner_id;
   // A moderator sees what waits on someone else's rig; their own rig waits for another moderator.
   const pending = moderator ? await unverifiedCalibrations(db, user.id, id) : null;
-  return { detail, runs, units, owns: user?.id === detail.rig.owner_id, pending };
+  // Certificates are for the owner and moderators; nobody else learns whether one exists.
+  const certificates =
+    owns || moderator
+      ? detail.calibrations.map((c) => ({
+          id: c.id,
+          calibratedOn: c.calibrated_on,
+          verified: c.verified_at != null,
+          hasCertificate: c.has_certificate,
+        }))
+      : null;
+  return { detail, runs, units, owns, pending, certificates };
 }
 
 const verifySchema = z.object({ intent: z.literal("verify"), calibrationId: idField("No such calibration") });
@@ -50,7 +62,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function RigPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { detail, runs, units, owns, pending } = loaderData;
+  const { detail, runs, units, owns, pending, certificates } = loaderData;
   return (
     <div className="space-y-6">
       <header>
@@ -75,6 +87,9 @@ export default function RigPage({ loaderData, actionData }: Route.ComponentProps
         <PendingCalibrations pending={pending} error={actionData?.formError} />
       )}
       <RigView detail={detail} units={units} />
+      {certificates && certificates.length > 0 && (
+        <CalibrationCertificates rigId={detail.rig.id} certificates={certificates} />
+      )}
       <section aria-labelledby="rig-runs" className="space-y-2">
         <h2 id="rig-runs" className="text-lg font-semibold">
           Accepted runs on this rig

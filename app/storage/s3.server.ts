@@ -69,8 +69,22 @@ export async function presignPut(
   );
 }
 
-export async function presignGet(key: string, expiresIn = 300) {
-  return getSignedUrl(s3, new GetObjectCommand({ Bucket: storageConfig.bucket, Key: key }), { expiresIn });
+/** A short-lived GET; `response` names the Content-Type and Content-Disposition the store answers with. */
+export async function presignGet(
+  key: string,
+  expiresIn = 300,
+  response: { contentType?: string; disposition?: string } = {},
+) {
+  return getSignedUrl(
+    s3,
+    new GetObjectCommand({
+      Bucket: storageConfig.bucket,
+      Key: key,
+      ResponseContentType: response.contentType,
+      ResponseContentDisposition: response.disposition,
+    }),
+    { expiresIn },
+  );
 }
 
 /** Size of a stored object, or null when there is none. */

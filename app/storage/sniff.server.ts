@@ -1,4 +1,5 @@
 import { fileTypeFromBuffer } from "file-type";
+import { type CertificateType, isCertificateType } from "./certificate-types";
 import { type EvidenceType, isEvidenceType } from "./evidence-types";
 
 /**
@@ -10,4 +11,10 @@ export async function sniffEvidenceType(head: Uint8Array): Promise<EvidenceType 
   if (!found) return null;
   const mime = found.mime === "image/heif" ? "image/heic" : found.mime;
   return isEvidenceType(mime) ? mime : null;
+}
+
+/** A calibration certificate's real type from its first bytes: PDF, PNG or JPEG, else null. */
+export async function sniffCertificateType(head: Uint8Array): Promise<CertificateType | null> {
+  const found = await fileTypeFromBuffer(head);
+  return found && isCertificateType(found.mime) ? found.mime : null;
 }

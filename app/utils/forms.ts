@@ -75,6 +75,6 @@ export function formValues(formData: FormData): Record<string, string | string[]
   );
 }
 
-export function invalid(errors: FieldErrors, values: Record<string, unknown>, formError?: string) {
-  return data({ ok: false as const, errors, values, formError }, { status: 400 });
+export function invalid(errors: FieldErrors, values: Record<string, unknown>, formError?: string, status = 400) {
+  return data({ ok: false as const, errors, values, formError }, { status });
 }

@@ -1,5 +1,5 @@
-// On a phone (390 px): a signed-in user registers a rig, files its calibration, sees the fit and
-// its residuals before saving, and the rig then waits for a moderator. No page scrolls sideways.
+// On a phone (390 px): a signed-in user registers a rig, files its calibration with its certificate,
+// sees the fit and its residuals before saving, and the rig then waits for a moderator. No page scrolls sideways.
 // Bad input is covered over HTTP in tests/integration/bench-rigs.test.ts.
 import type { Page } from "playwright-core";
 import { afterAll, describe, expect, inject, it } from "vitest";
@@ -43,12 +43,20 @@ describe("registering a rig on a phone", () => {
       .getByLabel(/Reference loads and readings/)
       .fill("reference,reading\n500,500.2\n1000,1000.9\n2000,2000.6\n3000,3001.3\n4000,4000.8");
     await page.getByLabel("Day of the calibration").fill("2026-11-01");
+    // The certificate goes straight to the store from the browser.
+    await page.getByLabel("Calibration certificate (optional)").setInputFiles({
+      name: "certificate.pdf",
+      mimeType: "application/pdf",
+      buffer: Buffer.from("%PDF-1.4\n1 0 obj<</Type/Catalog>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n", "latin1"),
+    });
+    await page.getByText("certificate.pdf is attached").waitFor();
     await page.getByRole("button", { name: "Fit and show" }).click();
     await page.getByText(/A straight line: no significant curvature/).waitFor();
     await page.getByRole("img", { name: /Residuals of the calibration fit/ }).waitFor();
     expect(await fitsWidth(page)).toBe(true);
     await page.getByRole("button", { name: "Save the calibration" }).click();
     await page.getByText("Calibration awaiting a moderator").first().waitFor();
+    await page.getByRole("link", { name: /^Certificate of the calibration of/ }).waitFor();
     expect(await fitsWidth(page)).toBe(true);
     await assertClean();
     await close();

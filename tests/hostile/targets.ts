@@ -167,6 +167,14 @@ export const JSON_TARGETS: JsonTarget[] = [
     who: ALL,
     base: () => ({ rigId: 1, size: 1000 }),
   },
+  // The same for a calibration certificate, which also names its type.
+  {
+    kind: "json",
+    path: () => "/api/bench/certificates",
+    fields: ["rigId", "type", "size"],
+    who: ALL,
+    base: () => ({ rigId: 1, type: "application/pdf", size: 1000 }),
+  },
 ];
 
 export const QUERY_TARGETS: QueryTarget[] = [
@@ -253,6 +261,8 @@ export const PATH_ID_TARGETS = (own: Own) => [
     `/review/${id}`,
     `/api/v1/reports/${id}`,
     `/api/v1/evidence/${id}`,
+    `/bench/rigs/1/calibrations/${id}/certificate`,
+    `/bench/rigs/${id}/calibrations/1/certificate`,
   ]),
   `/reports/${own.reporterDraft}/edit`,
   `/reports/${own.submittedReport}/history`,

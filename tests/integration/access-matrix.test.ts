@@ -99,6 +99,14 @@ const matrix: [string, string, (() => Record<string, string>) | null, Record<Who
   ["GET", "/bench/rigs/new", null, { visitor: SIGN_IN, reporter: 200, moderator: 200, admin: 200 }],
   ["POST", "/bench/rigs/new", () => ({}), { visitor: SIGN_IN, reporter: 400, moderator: 400, admin: 400 }],
   ["GET", "/bench/rigs/999999/calibrations/new", null, { visitor: SIGN_IN, reporter: 404, moderator: 404, admin: 404 }],
+  // A certificate is the rig owner's and moderators'; to anyone else it does not exist.
+  [
+    "GET",
+    "/bench/rigs/999999/calibrations/1/certificate",
+    null,
+    { visitor: 404, reporter: 404, moderator: 404, admin: 404 },
+  ],
+  ["POST", "/api/bench/certificates", () => ({}), { visitor: 401, reporter: 415, moderator: 415, admin: 415 }],
   [
     "POST",
     "/bench/rigs/999999",

@@ -6,6 +6,7 @@ import type { Units } from "~/domain";
 import { ErrorSummary } from "../error-summary";
 import { Field, inputClass } from "../field";
 import { buttonClass, Card } from "../ui";
+import { CERTIFICATE_LABEL, CertificateUpload } from "./certificate-upload";
 import { CalibrationPlot } from "./charts";
 
 type Errors = Record<string, string[] | undefined>;
@@ -13,16 +14,19 @@ type Errors = Record<string, string[] | undefined>;
 export const CALIBRATION_FIELD_LABELS = {
   points: "Reference loads and readings",
   calibratedOn: "Day of the calibration",
+  certificate: CERTIFICATE_LABEL,
 };
 
 export function CalibrationForm({
   rigId,
+  certificateKey,
   unit,
   values,
   errors,
   formError,
 }: {
   rigId: number;
+  certificateKey: string;
   unit: string;
   values: Record<string, string>;
   errors: Errors;
@@ -32,7 +36,7 @@ export function CalibrationForm({
   return (
     <Form method="post" action={`/bench/rigs/${rigId}/calibrations/new`} className="space-y-4" noValidate>
       <ErrorSummary errors={errors} labels={CALIBRATION_FIELD_LABELS} />
-      {formError && pointErrors.length === 0 && !errors.calibratedOn?.length && (
+      {formError && Object.keys(CALIBRATION_FIELD_LABELS).every((name) => !errors[name]?.length) && (
         <p role="alert" className="rounded border border-red-700 bg-red-50 p-3 text-red-900">
           {formError}
         </p>
@@ -71,6 +75,7 @@ export function CalibrationForm({
           />
         )}
       </Field>
+      <CertificateUpload rigId={rigId} initialKey={certificateKey} error={errors.certificate?.[0]} />
       <div className="flex flex-wrap gap-3">
         <button type="submit" name="intent" value="preview" className={buttonClass("secondary")}>
           Fit and show
