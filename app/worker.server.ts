@@ -45,7 +45,6 @@ export async function startWorker(connectionString: string, db: Db, pool: pg.Poo
   await boss.schedule(QUEUES.feedSnapshot, "15 3 * * *", {}, { ...JOB_OPTIONS[QUEUES.feedSnapshot], tz: "UTC" });
   await work(boss, QUEUES.feedSnapshot, async () => {
     const s = await writeSnapshot(db, pool, defaultStore, config.appOrigin);
-    await notifyPagesChanged(db, "snapshot");
     log(`wrote open-data snapshot ${s.id} (${s.reportCount} reports)`);
   });
   if (!(await latestSnapshot(db))) await boss.send(QUEUES.feedSnapshot, {}, JOB_OPTIONS[QUEUES.feedSnapshot]);

@@ -14,6 +14,7 @@ import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand } from "@aws-sd
 import type pg from "pg";
 import Cursor from "pg-cursor";
 import type { Db } from "../../db/database";
+import { notifyPagesChanged } from "~/http-cache/notify.server";
 import type { Store } from "~/storage/s3.server";
 import type { SnapshotInfo } from "./documents";
 import { BATCH, batchText, type BulkFormat, RAW_TEXT, type RawRow } from "./dump.server";
@@ -112,6 +113,8 @@ export async function writeSnapshot(db: Db, pool: pg.Pool, store: Store, origin:
       .returningAll()
       .executeTakeFirstOrThrow();
     await pruneSnapshots(db, store);
+    // Whoever writes a snapshot (the worker, a script, a test) empties the cached /data pages.
+    await notifyPagesChanged(db, "snapshot");
     return snapshotInfo(row);
   } catch (error) {
     await client.query("rollback").catch(() => {});

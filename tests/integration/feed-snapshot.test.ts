@@ -117,15 +117,25 @@ describe("the daily snapshot", () => {
   });
 
   it("is on /data with sizes and SHA-256, and the latest one downloads without a key", async () => {
-    const html = await (await get("/data")).text();
+    // Writing a snapshot notifies the page caches; the cached /data page is emptied once that
+    // notification arrives (other files may write snapshots meanwhile), so wait for the page to
+    // name the newest one.
+    const deadline = Date.now() + 20_000;
+    let html: string;
+    let sha: string;
+    do {
+      html = await (await get("/data")).text();
+      sha = (
+        await db
+          .selectFrom("feed_snapshots")
+          .select(["ndjson_sha256"])
+          .orderBy("created_at", "desc")
+          .orderBy("id", "desc")
+          .executeTakeFirstOrThrow()
+      ).ndjson_sha256;
+    } while (!html.includes(sha) && Date.now() < deadline && (await new Promise((r) => setTimeout(r, 50, true))));
     expect(html).toContain("Daily snapshot");
-    const latest = await db
-      .selectFrom("feed_snapshots")
-      .select(["ndjson_sha256"])
-      .orderBy("created_at", "desc")
-      .orderBy("id", "desc")
-      .executeTakeFirstOrThrow();
-    expect(html).toContain(latest.ndjson_sha256);
+    expect(html).toContain(sha);
     const res = await get("/api/v1/snapshots/latest/reports.csv.gz");
     expect(res.status).toBe(200);
     await res.body?.cancel();
