@@ -2,12 +2,12 @@
 // presigned PUT under the owner's own upload folder; saving the calibration copies it out and checks
 // the copy's bytes (rig-registry.server.ts, attachCertificate).
 import type { Db } from "../../db/database";
-import { isStorageOutage, presignPut } from "../storage/s3.server";
 import { AppError } from "../utils/errors";
 import { randomToken } from "../utils/tokens.server";
 import { isCertificateType, MAX_CERTIFICATE_BYTES } from "../storage/certificate-types";
 import { certificateUploadPrefix } from "./certificate";
 import { rigForOwner } from "./rig-registry.server";
+import { presignedUpload } from "./trace-uploads.server";
 
 export async function createCertificateUpload(
   db: Db,
@@ -22,11 +22,5 @@ export async function createCertificateUpload(
     throw new AppError(`A certificate may be at most ${MAX_CERTIFICATE_BYTES / 1024 / 1024} MB`, 413, {
       field: "certificate",
     });
-  const key = `${certificateUploadPrefix(userId)}${randomToken(18)}`;
-  try {
-    return { key, url: await presignPut(key, file.type, file.size), headers: { "Content-Type": file.type } };
-  } catch (error) {
-    if (isStorageOutage(error)) throw new AppError("The file store could not be reached; try again shortly", 503);
-    throw error;
-  }
+  return presignedUpload(`${certificateUploadPrefix(userId)}${randomToken(18)}`, file.type, file.size);
 }

@@ -30,7 +30,8 @@ function protocolsBase(db: Db) {
     ]);
 }
 
-function seriesOf(db: Db, protocolIds: number[]) {
+/** The series of the protocol versions, by protocol and position (the pages and the feed read them so). */
+export function protocolSeries(db: Db, protocolIds: readonly number[]) {
   if (protocolIds.length === 0) return Promise.resolve([]);
   return db
     .selectFrom("bench_protocol_series")
@@ -41,11 +42,11 @@ function seriesOf(db: Db, protocolIds: number[]) {
     .execute();
 }
 
-export type ProtocolSeries = Awaited<ReturnType<typeof seriesOf>>[number];
+export type ProtocolSeries = Awaited<ReturnType<typeof protocolSeries>>[number];
 
 /** Protocol versions with their series in position order, read in one query for all of them. */
 async function withSeries<P extends { id: number }>(db: Db, protocols: P[]) {
-  const series = await seriesOf(
+  const series = await protocolSeries(
     db,
     protocols.map((p) => p.id),
   );

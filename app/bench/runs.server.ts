@@ -105,6 +105,18 @@ export async function runsOnRig(db: Db, rigId: number) {
   return rows.map(withName);
 }
 
+/** The trials of the runs' series, by series and trial number (the run page and the feed read them so). */
+export function trialsOfRuns(db: Db, runIds: readonly number[]) {
+  return db
+    .selectFrom("bench_trials as t")
+    .innerJoin("bench_run_series as rs", "rs.id", "t.run_series_id")
+    .select(["t.id", "t.run_series_id", "t.trial_number", "t.peaks", "t.trace_key", "t.rate_hz", "t.blows_per_minute"])
+    .where("rs.run_id", "in", runIds)
+    .orderBy("t.run_series_id")
+    .orderBy("t.trial_number")
+    .execute();
+}
+
 /** One run with its series (in the protocol's order) and each series' trials; null when there is none. */
 export async function getRun(db: Db, id: number) {
   const run = await runsBase(db).where("br.id", "=", id).executeTakeFirst();
@@ -131,22 +143,7 @@ export async function getRun(db: Db, id: number) {
       .where("rs.run_id", "=", id)
       .orderBy("ps.position")
       .execute(),
-    db
-      .selectFrom("bench_trials as t")
-      .innerJoin("bench_run_series as rs", "rs.id", "t.run_series_id")
-      .select([
-        "t.id",
-        "t.run_series_id",
-        "t.trial_number",
-        "t.peaks",
-        "t.trace_key",
-        "t.rate_hz",
-        "t.blows_per_minute",
-      ])
-      .where("rs.run_id", "=", id)
-      .orderBy("t.run_series_id")
-      .orderBy("t.trial_number")
-      .execute(),
+    trialsOfRuns(db, [id]),
   ]);
   return {
     run: withName(run),

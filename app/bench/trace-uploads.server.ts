@@ -11,9 +11,13 @@ export async function createTraceUpload(db: Db, userId: number, rigId: number, s
   await ownedRig(db, userId, rigId);
   if (size > MAX_TRACE_BYTES)
     throw new AppError(`A trace file may be at most ${MAX_TRACE_BYTES / 1024 / 1024} MB; export a shorter trial`, 413);
-  const key = `uploads/bench/${userId}/${randomToken(18)}`;
+  return presignedUpload(`uploads/bench/${userId}/${randomToken(18)}`, "text/csv", size);
+}
+
+/** A presigned PUT for a rig owner's upload under `key` (traces, certificates); 503 while storage is down. */
+export async function presignedUpload(key: string, type: string, size: number) {
   try {
-    return { key, url: await presignPut(key, "text/csv", size), headers: { "Content-Type": "text/csv" } };
+    return { key, url: await presignPut(key, type, size), headers: { "Content-Type": type } };
   } catch (error) {
     if (isStorageOutage(error)) throw new AppError("The file store could not be reached; try again shortly", 503);
     throw error;

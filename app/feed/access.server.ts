@@ -181,3 +181,15 @@ export async function admit(db: Db, pool: pg.Pool, request: Request): Promise<Ca
   if (counted.over) throw limited("key", counted.res);
   return admitted("key", counted.userId, counted.res);
 }
+
+/** Refuses a caller without an API key (the bulk files are for keys: free on any account). */
+export function requireKeyCaller(caller: Caller | null | undefined) {
+  if (caller?.tier !== "key")
+    throw feedError(
+      401,
+      "api_key_required",
+      'The bulk files need an API key: sign in, create one on your account page, and send it as "Authorization: Bearer <key>".',
+      undefined,
+      { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' },
+    );
+}

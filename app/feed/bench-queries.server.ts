@@ -6,7 +6,9 @@ import { sql } from "kysely";
 import type { Db } from "../../db/database";
 import { seriesFigures } from "~/bench/figures";
 import { peakSummary } from "~/bench/peaks";
+import { protocolSeries } from "~/bench/protocols.server";
 import { listRigs } from "~/bench/rigs.server";
+import { trialsOfRuns } from "~/bench/runs.server";
 import { groupBy } from "~/utils/group";
 import { BENCH_UNITS } from "./bench-fields";
 import { feedError } from "./http.server";
@@ -106,22 +108,7 @@ async function runRecords(db: Db, origin: string, runs: RunRow[]) {
       .orderBy("rs.run_id")
       .orderBy("ps.position")
       .execute(),
-    db
-      .selectFrom("bench_trials as t")
-      .innerJoin("bench_run_series as rs", "rs.id", "t.run_series_id")
-      .select([
-        "t.id",
-        "t.run_series_id",
-        "t.trial_number",
-        "t.peaks",
-        "t.trace_key",
-        "t.rate_hz",
-        "t.blows_per_minute",
-      ])
-      .where("rs.run_id", "in", ids)
-      .orderBy("t.run_series_id")
-      .orderBy("t.trial_number")
-      .execute(),
+    trialsOfRuns(db, ids),
   ]);
   const trialsOf = groupBy(trials, (t) => t.run_series_id);
   const seriesOf = groupBy(series, (s) => s.run_id);
@@ -358,31 +345,10 @@ export async function benchProtocolRecords(db: Db) {
     .orderBy("p.slug")
     .orderBy("p.version")
     .execute();
-  const series = protocols.length
-    ? await db
-        .selectFrom("bench_protocol_series")
-        .select([
-          "id",
-          "protocol_id",
-          "position",
-          "label",
-          "trigger",
-          "inlet",
-          "inlet_kpa",
-          "hose_length_m",
-          "hose_id_mm",
-          "coupler_count",
-          "coupler_profile",
-        ])
-        .where(
-          "protocol_id",
-          "in",
-          protocols.map((p) => p.id),
-        )
-        .orderBy("protocol_id")
-        .orderBy("position")
-        .execute()
-    : [];
+  const series = await protocolSeries(
+    db,
+    protocols.map((p) => p.id),
+  );
   const seriesOf = groupBy(series, (s) => s.protocol_id);
   return protocols.map(({ id, frozen_at, accepted_runs, ...p }) => ({
     slug: p.slug,
@@ -402,7 +368,18 @@ export async function benchProtocolRecords(db: Db) {
     frozen: frozen_at !== null,
     frozen_at,
     accepted_runs: accepted_runs ?? 0,
-    series: (seriesOf.get(id) ?? []).map(({ protocol_id: _, ...s }) => s),
+    series: (seriesOf.get(id) ?? []).map((s) => ({
+      id: s.id,
+      position: s.position,
+      label: s.label,
+      trigger: s.trigger,
+      inlet: s.inlet,
+      inlet_kpa: s.inlet_kpa,
+      hose_length_m: s.hose_length_m,
+      hose_id_mm: s.hose_id_mm,
+      coupler_count: s.coupler_count,
+      coupler_profile: s.coupler_profile,
+    })),
   }));
 }
 

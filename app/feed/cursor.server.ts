@@ -1,10 +1,11 @@
-// Opaque page cursors for /api/v1/reports: the last (accepted time, id) seen, the walk's fixed
+// Opaque page cursors for the feed's walks (/api/v1/reports, /api/v1/bench-runs): the last (accepted time, id) seen, the walk's fixed
 // horizon and a digest of its filters, signed with HMAC-SHA256 under a secret kept in PostgreSQL
 // (so every app server accepts every other's cursors). A cursor that was altered, or that is
 // used with other filters, is refused.
 import { createHash, createHmac, timingSafeEqual } from "node:crypto";
 import type { Db } from "../../db/database";
-import { feedError } from "./http.server";
+import { CACHE, feedError, jsonResponse } from "./http.server";
+import { microsToIso } from "./queries.server";
 
 export interface CursorState {
   /** Accepted time of the last report sent, in microseconds since 1970 (a decimal string). */
@@ -89,4 +90,50 @@ export async function decodeCursor(db: Db, cursor: string, filters: string): Pro
       "cursor",
     );
   return { afterMicros, afterId: afterId as number, asOfMicros, filters: digest };
+}
+
+type After = { micros: string; id: number };
+
+/**
+ * One page of a walk (/api/v1/reports, /api/v1/bench-runs): the cursor's horizon or a new one, the
+ * page read after the cursor's position, and the answer with `next_cursor` and a Link to the next
+ * page (the same address and filters, the new cursor). `digest` binds the cursor to the endpoint
+ * and its filters.
+ */
+export async function walkAnswer<R>(
+  request: Request,
+  db: Db,
+  walk: {
+    url: URL;
+    origin: string;
+    cursor: string | undefined;
+    digest: string;
+    horizon: () => Promise<string>;
+    page: (asOfMicros: string, after: After | undefined) => Promise<{ records: R[]; next: After | null }>;
+  },
+): Promise<Response> {
+  const state = walk.cursor ? await decodeCursor(db, walk.cursor, walk.digest) : null;
+  const asOf = state?.asOfMicros ?? (await walk.horizon());
+  const page = await walk.page(asOf, state ? { micros: state.afterMicros, id: state.afterId } : undefined);
+  const nextCursor = page.next
+    ? await encodeCursor(db, {
+        afterMicros: page.next.micros,
+        afterId: page.next.id,
+        asOfMicros: asOf,
+        filters: walk.digest,
+      })
+    : null;
+  const headers: Record<string, string> = {};
+  if (nextCursor) {
+    const next = new URL(`${walk.origin}${walk.url.pathname}`);
+    for (const [k, v] of walk.url.searchParams) if (k !== "cursor") next.searchParams.set(k, v);
+    next.searchParams.set("cursor", nextCursor);
+    headers.Link = `<${next.toString()}>; rel="next"`;
+  }
+  return jsonResponse(
+    request,
+    { data: page.records, next_cursor: nextCursor, as_of: microsToIso(asOf) },
+    CACHE.live,
+    headers,
+  );
 }

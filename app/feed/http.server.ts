@@ -5,6 +5,7 @@ import { AppError, failureAnswer } from "~/utils/errors";
 import { etagOf } from "~/http-cache/page-cache.server";
 import { matchesIfNoneMatch } from "~/utils/http";
 import { hasControlCharacters } from "~/utils/text";
+import { idParam } from "./params";
 
 /** The feed's expected failures: an AppError with the code its JSON answer carries. */
 export const feedError = (
@@ -88,4 +89,21 @@ export function jsonResponse(
   if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag))
     return new Response(null, { status: 304, headers: common });
   return new Response(body, { status: 200, headers: { "Content-Type": "application/json; charset=utf-8", ...common } });
+}
+
+/**
+ * A record endpoint's address: no query parameters, and the path's id a record number; a 400 that
+ * says what to give (`what`: "a report number", …) otherwise.
+ */
+export function readRecordId(request: Request, id: string | undefined, what: string): number {
+  readParams(new URL(request.url), {});
+  const parsed = idParam.safeParse(id);
+  if (!parsed.success)
+    throw feedError(
+      400,
+      "invalid_parameter",
+      `"id" ${parsed.error.issues[0]?.message ?? "cannot be read"}: give ${what}.`,
+      "id",
+    );
+  return parsed.data;
 }

@@ -1,10 +1,9 @@
 import { config } from "~/config.server";
 import { readDb } from "~/db.server";
 import { benchHorizon, benchRunPage, resolveBenchFilters } from "~/feed/bench-queries.server";
-import { decodeCursor, encodeCursor, filtersDigest } from "~/feed/cursor.server";
-import { answer, CACHE, jsonResponse, readParams } from "~/feed/http.server";
+import { filtersDigest, walkAnswer } from "~/feed/cursor.server";
+import { answer, readParams } from "~/feed/http.server";
 import { cursorParam, idParam, limitParam, slugParam } from "~/feed/params";
-import { microsToIso } from "~/feed/queries.server";
 import type { Route } from "./+types/api.v1.bench-runs";
 
 const params = {
@@ -24,36 +23,13 @@ export async function loader({ request }: Route.LoaderArgs) {
     const resolved = await resolveBenchFilters(readDb, filters);
     // The endpoint's name in the digest: a report walk's cursor is refused here, and the other way round.
     const digest = filtersDigest({ endpoint: "bench-runs", ...filters });
-    const state = cursor ? await decodeCursor(readDb, cursor, digest) : null;
-    const asOf = state?.asOfMicros ?? (await benchHorizon(readDb));
-    const page = await benchRunPage(
-      readDb,
-      config.appOrigin,
-      resolved,
-      limit,
-      asOf,
-      state ? { micros: state.afterMicros, id: state.afterId } : undefined,
-    );
-    const nextCursor = page.next
-      ? await encodeCursor(readDb, {
-          afterMicros: page.next.micros,
-          afterId: page.next.id,
-          asOfMicros: asOf,
-          filters: digest,
-        })
-      : null;
-    const headers: Record<string, string> = {};
-    if (nextCursor) {
-      const next = new URL(`${config.appOrigin}/api/v1/bench-runs`);
-      for (const [k, v] of url.searchParams) if (k !== "cursor") next.searchParams.set(k, v);
-      next.searchParams.set("cursor", nextCursor);
-      headers.Link = `<${next.toString()}>; rel="next"`;
-    }
-    return jsonResponse(
-      request,
-      { data: page.records, next_cursor: nextCursor, as_of: microsToIso(asOf) },
-      CACHE.live,
-      headers,
-    );
+    return walkAnswer(request, readDb, {
+      url,
+      origin: config.appOrigin,
+      cursor,
+      digest,
+      horizon: () => benchHorizon(readDb),
+      page: (asOf, after) => benchRunPage(readDb, config.appOrigin, resolved, limit, asOf, after),
+    });
   });
 }

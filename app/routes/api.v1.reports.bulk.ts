@@ -1,8 +1,9 @@
 import { config } from "~/config.server";
 import { readDb, readPool } from "~/db.server";
 import { bulkResponse } from "~/feed/bulk.server";
+import { requireKeyCaller } from "~/feed/access.server";
 import { callerContext } from "~/feed/context";
-import { answer, feedError, readParams } from "~/feed/http.server";
+import { answer, readParams } from "~/feed/http.server";
 import type { Route } from "./+types/api.v1.reports.bulk";
 
 // Every accepted report in one file (reports.ndjson or reports.csv), streamed. Bulk files are
@@ -11,15 +12,7 @@ export async function loader({ request, context }: Route.LoaderArgs) {
   return answer(async () => {
     const url = new URL(request.url);
     readParams(url, {});
-    if (context.get(callerContext)?.tier !== "key") {
-      throw feedError(
-        401,
-        "api_key_required",
-        'The bulk files need an API key: sign in, create one on your account page, and send it as "Authorization: Bearer <key>".',
-        undefined,
-        { "WWW-Authenticate": 'Bearer realm="bayproof-feed"' },
-      );
-    }
+    requireKeyCaller(context.get(callerContext));
     const format = url.pathname.endsWith(".csv") ? "csv" : "ndjson";
     return bulkResponse(readDb, readPool, request, format, config.appOrigin, new Date().toISOString().slice(0, 10));
   });

@@ -1,9 +1,9 @@
 import { config } from "~/config.server";
 import { readDb } from "~/db.server";
-import { decodeCursor, encodeCursor, filtersDigest } from "~/feed/cursor.server";
-import { answer, CACHE, feedError, jsonResponse, readParams } from "~/feed/http.server";
+import { filtersDigest, walkAnswer } from "~/feed/cursor.server";
+import { answer, feedError, readParams } from "~/feed/http.server";
 import { cursorParam, instantParam, limitParam, slugParam } from "~/feed/params";
-import { microsToIso, newHorizon, reportPage, resolveSlugs } from "~/feed/queries.server";
+import { newHorizon, reportPage, resolveSlugs } from "~/feed/queries.server";
 import type { Route } from "./+types/api.v1.reports";
 
 const params = {
@@ -36,36 +36,21 @@ export async function loader({ request }: Route.LoaderArgs) {
       accepted_since: filters.accepted_since?.toISOString(),
       accepted_until: filters.accepted_until?.toISOString(),
     });
-    const state = cursor ? await decodeCursor(readDb, cursor, digest) : null;
-    const asOf = state?.asOfMicros ?? (await newHorizon(readDb));
-    const page = await reportPage(
-      readDb,
-      config.appOrigin,
-      { ...ids, accepted_since: filters.accepted_since, accepted_until: filters.accepted_until },
-      limit,
-      asOf,
-      state ? { micros: state.afterMicros, id: state.afterId } : undefined,
-    );
-    const nextCursor = page.next
-      ? await encodeCursor(readDb, {
-          afterMicros: page.next.micros,
-          afterId: page.next.id,
-          asOfMicros: asOf,
-          filters: digest,
-        })
-      : null;
-    const headers: Record<string, string> = {};
-    if (nextCursor) {
-      const next = new URL(`${config.appOrigin}/api/v1/reports`);
-      for (const [k, v] of url.searchParams) if (k !== "cursor") next.searchParams.set(k, v);
-      next.searchParams.set("cursor", nextCursor);
-      headers.Link = `<${next.toString()}>; rel="next"`;
-    }
-    return jsonResponse(
-      request,
-      { data: page.records, next_cursor: nextCursor, as_of: microsToIso(asOf) },
-      CACHE.live,
-      headers,
-    );
+    return walkAnswer(request, readDb, {
+      url,
+      origin: config.appOrigin,
+      cursor,
+      digest,
+      horizon: () => newHorizon(readDb),
+      page: (asOf, after) =>
+        reportPage(
+          readDb,
+          config.appOrigin,
+          { ...ids, accepted_since: filters.accepted_since, accepted_until: filters.accepted_until },
+          limit,
+          asOf,
+          after,
+        ),
+    });
   });
 }

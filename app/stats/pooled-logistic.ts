@@ -53,9 +53,7 @@ export function pooledLogisticFit(
   rows: readonly PooledRow[],
   { firth = true, maxIterations = 100 } = {},
 ): PooledLogisticFit {
-  if (rows.length === 0) throw new RangeError("need at least one row");
-  if (rows.some((r) => r.y !== 0 && r.y !== 1)) throw new RangeError("y must be 0 or 1");
-  if (rows.some((r) => !Number.isFinite(r.x))) throw new RangeError("x must be finite");
+  // pooledLogisticFitOfColumns checks the values (none, y not 0 or 1, x not finite).
   const index = new Map<string | number, number>();
   const gi = Int32Array.from(rows, (r) => {
     let k = index.get(r.group);

@@ -34,29 +34,39 @@ type Packed = Buffer | Buffer[] | null;
 
 const partsOf = (b: Packed): Buffer[] => (b == null ? [] : Array.isArray(b) ? b : [b]);
 
-/** Doubles packed by float8send (big-endian, 8 bytes each), read back exactly. */
-function doubles(b: Packed): Float64Array {
+/** Values packed big-endian, `width` bytes each, from every part, in order, read back exactly. */
+function unpack<T extends Float64Array | Int32Array>(
+  b: Packed,
+  width: number,
+  make: (length: number) => T,
+  read: (view: DataView, offset: number) => number,
+): T {
   const parts = partsOf(b);
-  const out = new Float64Array(parts.reduce((acc, p) => acc + p.length / 8, 0));
+  const out = make(parts.reduce((acc, p) => acc + p.length / width, 0));
   let i = 0;
   for (const p of parts) {
     const view = new DataView(p.buffer, p.byteOffset, p.byteLength);
-    for (let o = 0; o < p.length; o += 8) out[i++] = view.getFloat64(o);
+    for (let o = 0; o < p.length; o += width) out[i++] = read(view, o);
   }
   return out;
 }
 
-/** Reporter ids packed by int4send (big-endian, 4 bytes each). */
-function int32s(b: Packed): Int32Array {
-  const parts = partsOf(b);
-  const out = new Int32Array(parts.reduce((acc, p) => acc + p.length / 4, 0));
-  let i = 0;
-  for (const p of parts) {
-    const view = new DataView(p.buffer, p.byteOffset, p.byteLength);
-    for (let o = 0; o < p.length; o += 4) out[i++] = view.getInt32(o);
-  }
-  return out;
-}
+/** Doubles packed by float8send. */
+const doubles = (b: Packed) =>
+  unpack(
+    b,
+    8,
+    (n) => new Float64Array(n),
+    (v, o) => v.getFloat64(o),
+  );
+/** Reporter ids packed by int4send. */
+const int32s = (b: Packed) =>
+  unpack(
+    b,
+    4,
+    (n) => new Int32Array(n),
+    (v, o) => v.getInt32(o),
+  );
 
 /** A share of the table's pages, [from, to) (to null: to the end), for reads split across connections. */
 type Pages = readonly [from: number, to: number | null];
@@ -402,30 +412,33 @@ function computeJob(jobTypeId: number, tallies: readonly ModelTally[], now: Date
 }
 
 /**
- * Stores computed jobs: their cells (one statement), the cells in scope that no longer have
- * counted reports deleted, and each job's row.
+ * Stores computed jobs: their cells (one statement), then the cells in scope that were not
+ * rewritten now (no counted reports left) deleted, and each job's row.
  */
-async function storeJobs(trx: Trx, results: readonly JobResult[], scope: Scope) {
+async function storeJobs(trx: Trx, results: readonly JobResult[], scope: Scope, now: Date) {
   const rows = results.flatMap((r) => r.rows);
-  await sql`
-    delete from stats_cells
-    where true ${scope.job == null ? sql`` : sql`and job_type_id = ${scope.job}`}
-      and (tool_model_id, job_type_id) not in (
-        select * from unnest(${rows.map((r) => r.tool_model_id)}::int[], ${rows.map((r) => r.job_type_id)}::int[]))`.execute(
-    trx,
-  );
   for (let i = 0; i < rows.length; i += 5000) await upsertCells(trx, rows.slice(i, i + 5000));
+  await deleteUnwritten(trx, scope, now);
   await upsertJobs(
     trx,
     results.map((r) => r.job),
   );
 }
 
+/** Every cell written by a refresh carries its time; any other in its scope has no counted reports left. */
+const deleteUnwritten = (trx: Trx, scope: Scope, now: Date) =>
+  trx
+    .deleteFrom("stats_cells")
+    .where("computed_at", "<>", now)
+    .$if(scope.job != null, (q) => q.where("job_type_id", "=", scope.job!))
+    .execute();
+
 /** Every cell of one job from one read of its reports. */
 async function refreshJob(trx: Trx, jobTypeId: number) {
   const tallies = await readTallies(trx, { job: jobTypeId });
-  const result = computeJob(jobTypeId, tallies.get(jobTypeId) ?? [], new Date());
-  await storeJobs(trx, [result], { job: jobTypeId });
+  const now = new Date();
+  const result = computeJob(jobTypeId, tallies.get(jobTypeId) ?? [], now);
+  await storeJobs(trx, [result], { job: jobTypeId }, now);
   return result.rows.length;
 }
 
@@ -621,8 +634,7 @@ export async function refreshAll(db: Db) {
       writing = upsertCells(trx, rows);
     }
     await writing;
-    // Every cell written above carries this refresh's time; any other has no counted reports left.
-    await trx.deleteFrom("stats_cells").where("computed_at", "<>", now).execute();
+    await deleteUnwritten(trx, {}, now);
     await upsertJobs(trx, jobRows);
   });
   await notifyPagesChanged(db, "stats");

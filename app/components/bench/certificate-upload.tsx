@@ -4,6 +4,7 @@
 import { useRef, useState, useSyncExternalStore } from "react";
 import { type CertificateType, isCertificateType, MAX_CERTIFICATE_BYTES } from "~/storage/certificate-types";
 import { controlProps, FieldError } from "../field";
+import { presignedUpload } from "./presigned-upload";
 
 type State = { stage: "idle" | "sending" | "sent"; name?: string } | { stage: "failed"; problem: string };
 
@@ -17,24 +18,6 @@ const BY_EXTENSION: Record<string, CertificateType> = {
 function typeOf(file: File): CertificateType | null {
   if (isCertificateType(file.type)) return file.type;
   return file.type ? null : (BY_EXTENSION[file.name.split(".").pop()?.toLowerCase() ?? ""] ?? null);
-}
-
-async function upload(rigId: number, file: File, type: CertificateType): Promise<string> {
-  const res = await fetch("/api/bench/certificates", {
-    method: "POST",
-    headers: { "Content-Type": "application/json" },
-    body: JSON.stringify({ rigId, type, size: file.size }),
-  }).catch(() => null);
-  const body = (res ? await res.json().catch(() => ({})) : {}) as {
-    key?: string;
-    url?: string;
-    headers?: Record<string, string>;
-    error?: string;
-  };
-  if (!res?.ok || !body.url || !body.key) throw new Error(body.error ?? "The upload could not start; try again.");
-  const put = await fetch(body.url, { method: "PUT", headers: body.headers, body: file }).catch(() => null);
-  if (!put?.ok) throw new Error("The file store did not take the file; try again in a moment.");
-  return body.key;
 }
 
 const noSubscription = () => () => {};
@@ -75,7 +58,7 @@ export function CertificateUpload({ rigId, initialKey, error }: { rigId: number;
       return setState({ stage: "failed", problem: `${file.name}: a certificate may be at most ${limit}.` });
     setState({ stage: "sending", name: file.name });
     try {
-      const uploaded = await upload(rigId, file, type);
+      const uploaded = await presignedUpload("/api/bench/certificates", { rigId, type, size: file.size }, file);
       if (turn !== latest.current) return;
       setKey(uploaded);
       setState({ stage: "sent", name: file.name });

@@ -6,6 +6,7 @@ import { analyseTrace, decimateForDrawing, parseTraceCsv, TraceError } from "~/b
 import { benchUnit, formatBench, type BenchQuantity } from "~/bench/terms";
 import type { Units } from "~/domain";
 import { FieldError } from "../field";
+import { presignedUpload } from "./presigned-upload";
 import { TracePlot, type TraceDrawing } from "./trace-plot";
 
 const MAX_BYTES = 40 * 1024 * 1024;
@@ -14,24 +15,6 @@ type State =
   | { stage: "idle" }
   | { stage: "sending" | "sent"; drawing: TraceDrawing; bpm: number | null; median: number }
   | { stage: "failed"; problem: string; drawing?: TraceDrawing };
-
-async function upload(rigId: number, file: File): Promise<string> {
-  const res = await fetch("/api/bench/traces", {
-    method: "POST",
-    headers: { "Content-Type": "application/json" },
-    body: JSON.stringify({ rigId, size: file.size }),
-  }).catch(() => null);
-  const body = (res ? await res.json().catch(() => ({})) : {}) as {
-    key?: string;
-    url?: string;
-    headers?: Record<string, string>;
-    error?: string;
-  };
-  if (!res?.ok || !body.url || !body.key) throw new Error(body.error ?? "The upload could not start; try again.");
-  const put = await fetch(body.url, { method: "PUT", headers: body.headers, body: file }).catch(() => null);
-  if (!put?.ok) throw new Error("The file store did not take the file; try again in a moment.");
-  return body.key;
-}
 
 export function TraceUpload({
   name,
@@ -88,7 +71,7 @@ export function TraceUpload({
     }
     setState({ stage: "sending", drawing, bpm, median });
     try {
-      setKey(await upload(rigId, file));
+      setKey(await presignedUpload("/api/bench/traces", { rigId, size: file.size }, file));
       setState({ stage: "sent", drawing, bpm, median });
     } catch (e) {
       setState({ stage: "failed", problem: (e as Error).message, drawing });
