@@ -18,10 +18,12 @@
 // With WEB_CONCURRENCY above 1 (one per core by default in production) this process is a cluster
 // primary (server-cluster.js) and each worker runs serve() below on the shared socket.
 import { readdirSync } from "node:fs";
+import http from "node:http";
 import path from "node:path";
 import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { fileURLToPath } from "node:url";
+import { constants as zlibConstants } from "node:zlib";
 import cluster from "node:cluster";
 import compression from "compression";
 import express from "express";
@@ -134,6 +136,9 @@ async function serve() {
   const config = build.entry.module.config;
   /** The stored bytes of a page-cache hit (app/http-cache/page-cache.server.ts). */
   const storedBodyOf = build.entry.module.storedBodyOf;
+  /** A page-cache hit answered before Express (app/http-cache/early-hit.server.ts), or null. */
+  const earlyHit = build.entry.module.earlyHit;
+  if (typeof earlyHit !== "function") throw new Error("app/entry.server.tsx must export earlyHit");
   if (!config?.listen) throw new Error("app/entry.server.tsx must export config");
   const handle = createRequestHandler(build, config.mode);
 
@@ -146,7 +151,10 @@ async function serve() {
 
   const app = express();
   app.disable("x-powered-by");
-  app.use(compression());
+  // Brotli at quality 1 for what is rendered per request (a browser asks for br first): a 170 kB job
+  // page shrinks to ~35 kB, against ~31 kB at the package's default quality 4, for a third of the CPU
+  // (docs/decisions/012-page-caching.md). Cached pages carry their own gzip, made once.
+  app.use(compression({ brotli: { params: { [zlibConstants.BROTLI_PARAM_QUALITY]: 1 } } }));
   app.use((req, res, next) => {
     try {
       decodeURIComponent(req.path);
@@ -205,8 +213,22 @@ async function serve() {
     }
   });
 
+  // Anonymous hits of the page cache are answered before Express: the same bytes and headers the
+  // app would send, without its routing, a Fetch Request or React Router's middleware.
+  const onRequest = async (req, res) => {
+    let hit = null;
+    try {
+      hit = await earlyHit(req);
+    } catch (error) {
+      console.error("[server] early cache answer failed; answering the long way:", error);
+    }
+    if (!hit) return app(req, res);
+    res.writeHead(hit.status, hit.headers);
+    res.end(hit.body ?? undefined);
+  };
   const { host, port } = config.listen;
-  const server = app.listen(port, host, () => console.log(`[server] http://${host}:${port}`));
+  const server = http.createServer(onRequest);
+  server.listen(port, host, () => console.log(`[server] http://${host}:${port}`));
   // Requests node's parser refuses before any route sees them (an address or headers over 16 KiB,
   // a malformed request line) get a reason too, in JSON since the path is not known.
   server.on("clientError", (error, socket) => {

@@ -2,6 +2,11 @@ import { createReadableStreamFromReadable } from "@react-router/node";
 import { isbot } from "isbot";
 import { type RenderToPipeableStreamOptions, renderToPipeableStream } from "react-dom/server";
 import { type EntryContext, type RouterContextProvider, ServerRouter } from "react-router";
+import { cookieMayHoldSession } from "~/auth/session.server";
+import { visitorSystemOf } from "~/auth/units.server";
+import { earlyHitFor } from "~/http-cache/early-hit.server";
+import { pageCache } from "~/http-cache/serve.server";
+import { applySecurityHeaders, newNonce } from "~/security.server";
 import { CoalescingStream } from "~/utils/coalescing-stream.server";
 import { NonceProvider, nonceContext } from "~/utils/nonce";
 
@@ -10,6 +15,14 @@ export const streamTimeout = 5_000;
 export { crossSiteRefusal } from "~/security.server";
 export { config } from "~/config.server";
 export { storedBodyOf } from "~/http-cache/page-cache.server";
+
+/** Page-cache hits answered before Express (server.js); the same decisions as the root middleware's. */
+export const earlyHit = earlyHitFor(pageCache, {
+  mayHoldSession: cookieMayHoldSession,
+  variant: visitorSystemOf,
+  securityHeaders: (headers, scriptSources) =>
+    applySecurityHeaders(headers, newNonce(), import.meta.env.DEV, undefined, scriptSources),
+});
 
 // React Router's Node entry, plus the CSP nonce for every inline script it writes.
 export default function handleRequest(
@@ -46,7 +59,7 @@ export default function handleRequest(
               callback();
             },
           });
-          responseHeaders.set("Content-Type", "text/html");
+          responseHeaders.set("Content-Type", "text/html; charset=utf-8");
           pipe(body);
           resolve(
             new Response(createReadableStreamFromReadable(body), {

@@ -10,7 +10,12 @@
 //   npm run bench:pages                      10 s per case
 //   npm run bench:pages -- --quick           3 s per case
 //   npm run bench:pages -- --duration=20 --connections=1,50 --only=/models
+//   npm run bench:pages -- --identity         without Accept-Encoding (uncompressed answers)
+//
+// Every request carries the Accept-Encoding a browser sends (Chromium's), so the server compresses
+// as it does for real visitors; the floor sends the very bytes the app sent, compressed the same way.
 import { type ChildProcess, spawn } from "node:child_process";
+import { get as httpGet } from "node:http";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { availableParallelism, loadavg, tmpdir } from "node:os";
 import path from "node:path";
@@ -31,6 +36,7 @@ const { values: args } = parseArgs({
     duration: { type: "string" },
     connections: { type: "string", default: "1,10,50" },
     only: { type: "string" },
+    identity: { type: "boolean", default: false },
   },
 });
 const duration = Number(args.duration ?? (args.quick ? 3 : 10));
@@ -88,19 +94,51 @@ async function load(url: string, headers: Record<string, string>, connections: n
   };
 }
 
+/** What a browser sends as Accept-Encoding (Chromium). */
+const BROWSER_ENCODINGS = "gzip, deflate, br, zstd";
+
+interface Sent {
+  status: number;
+  type: string;
+  /** Content-Encoding, or "" for none. */
+  encoding: string;
+  /** The bytes as they crossed the wire (compressed when `encoding` says so). */
+  body: Buffer;
+}
+
+/** A GET whose body is kept exactly as sent (fetch would decompress it). */
+function getRaw(url: string, headers: Record<string, string>): Promise<Sent> {
+  return new Promise((resolve, reject) => {
+    httpGet(url, { headers }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on("data", (c: Buffer) => chunks.push(c));
+      res.on("end", () =>
+        resolve({
+          status: res.statusCode ?? 0,
+          type: res.headers["content-type"] ?? "text/html",
+          encoding: res.headers["content-encoding"] ?? "",
+          body: Buffer.concat(chunks),
+        }),
+      );
+    }).on("error", reject);
+  });
+}
+
 /** A plain node:http server in its own process answering each path with the bytes the app sent. */
-async function startStaticServer(pages: { path: string; type: string; body: string }[]) {
+async function startStaticServer(pages: { path: string; type: string; encoding: string; body: Buffer }[]) {
   const file = path.join(tempDir, "pages.json");
-  writeFileSync(file, JSON.stringify(pages));
+  writeFileSync(file, JSON.stringify(pages.map((p) => ({ ...p, body: p.body.toString("base64") }))));
   const port = await freePort();
   const script = `
     const http = require("node:http");
     const pages = new Map(JSON.parse(require("node:fs").readFileSync(${JSON.stringify(file)}, "utf8"))
-      .map((p) => [p.path, { type: p.type, body: Buffer.from(p.body) }]));
+      .map((p) => [p.path, { type: p.type, encoding: p.encoding, body: Buffer.from(p.body, "base64") }]));
     http.createServer((req, res) => {
       const page = pages.get(req.url);
       if (!page) { res.statusCode = 404; return res.end(); }
-      res.writeHead(200, { "content-type": page.type, "content-length": page.body.length });
+      const headers = { "content-type": page.type, "content-length": page.body.length };
+      if (page.encoding) headers["content-encoding"] = page.encoding;
+      res.writeHead(200, headers);
       res.end(page.body);
     }).listen(${port}, "127.0.0.1");`;
   const child = spawn(process.execPath, ["-e", script], { stdio: ["ignore", "ignore", "inherit"] });
@@ -200,23 +238,29 @@ await benchCluster(
         headers: { authorization: `Bearer ${key}` },
       },
     ];
-    const targets = everyTarget.filter((t) => !args.only || t.name.includes(args.only));
+    const targets = everyTarget
+      .filter((t) => !args.only || t.name.includes(args.only))
+      .map((t) => (args.identity ? t : { ...t, headers: { ...t.headers, "accept-encoding": BROWSER_ENCODINGS } }));
 
     // The bytes each page sends, for the floor (keyed by a path of its own: two targets share a path).
-    const pages: { path: string; type: string; body: string }[] = [];
+    const pages: { path: string; type: string; encoding: string; body: Buffer }[] = [];
     for (const [i, t] of targets.entries()) {
-      const res = await fetch(`${origin}${t.path}`, { headers: t.headers });
-      const body = await res.text();
-      if (res.status !== 200) throw new Error(`${t.name} answered ${res.status}: ${body.slice(0, 300)}`);
-      pages.push({ path: `/${i}`, type: res.headers.get("content-type") ?? "text/html", body });
-      log(`${t.name}: ${(Buffer.byteLength(body) / 1024).toFixed(1)} kB`);
+      const sent = await getRaw(`${origin}${t.path}`, t.headers);
+      if (sent.status !== 200)
+        throw new Error(`${t.name} answered ${sent.status}: ${sent.body.toString().slice(0, 300)}`);
+      const plain = (await getRaw(`${origin}${t.path}`, { ...t.headers, "accept-encoding": "identity" })).body;
+      pages.push({ path: `/${i}`, type: sent.type, encoding: sent.encoding, body: sent.body });
+      const kB = (n: number) => `${(n / 1024).toFixed(1)} kB`;
+      log(
+        `${t.name}: ${kB(plain.byteLength)}${sent.encoding ? `, ${kB(sent.body.byteLength)} as ${sent.encoding}` : ""}`,
+      );
     }
     const floorOrigin = await startStaticServer(pages);
 
     const workers = process.env.WEB_CONCURRENCY ?? "the server's default";
     log(
       `${duration} s per case, connections ${levels.join(", ")}; server workers: ${workers}; ` +
-        `${availableParallelism()} cores; load average ${loadavg()
+        `${availableParallelism()} cores; Accept-Encoding: ${args.identity ? "none" : BROWSER_ENCODINGS}; load average ${loadavg()
           .map((l) => l.toFixed(2))
           .join(" ")}`,
     );

@@ -58,8 +58,10 @@ async function readToken(request: Request): Promise<string | null> {
  * Whether the request carries a session cookie at all (valid or not), without reading the database:
  * a request without one is an anonymous visitor's, whose public pages may come from a shared cache.
  */
-export function mayHoldSession(request: Request): boolean {
-  const header = request.headers.get("cookie");
+export const mayHoldSession = (request: Request): boolean => cookieMayHoldSession(request.headers.get("cookie"));
+
+/** mayHoldSession on a raw Cookie header. */
+export function cookieMayHoldSession(header: string | null | undefined): boolean {
   if (!header) return false;
   return header.split(";").some((pair) => {
     const eq = pair.indexOf("=");

@@ -27,15 +27,19 @@ const isSystem = (x: unknown): x is UnitSystem =>
   typeof x === "string" && (UNIT_SYSTEMS as readonly string[]).includes(x);
 
 /** The visitor's remembered choice, or null. */
-async function cookieSystem(request: Request): Promise<UnitSystem | null> {
-  const value: unknown = await unitsCookie.parse(request.headers.get("cookie")).catch(() => null);
+async function cookieSystem(cookieHeader: string | null): Promise<UnitSystem | null> {
+  const value: unknown = await unitsCookie.parse(cookieHeader).catch(() => null);
   return isSystem(value) ? value : null;
 }
 
-/** A visitor's system (not signed in): their remembered choice, else their browser's language's. */
-export async function visitorSystem(request: Request): Promise<UnitSystem> {
-  return (await cookieSystem(request)) ?? systemForLocale(request.headers.get("accept-language"));
+/** A visitor's system from their Cookie and Accept-Language headers (the server's early cache answer reads them raw). */
+export async function visitorSystemOf(cookieHeader: string | null, acceptLanguage: string | null): Promise<UnitSystem> {
+  return (await cookieSystem(cookieHeader)) ?? systemForLocale(acceptLanguage);
 }
+
+/** A visitor's system (not signed in): their remembered choice, else their browser's language's. */
+export const visitorSystem = (request: Request): Promise<UnitSystem> =>
+  visitorSystemOf(request.headers.get("cookie"), request.headers.get("accept-language"));
 
 /** The units every figure on the page is shown in, for whoever is asking. */
 export async function unitsFor(request: Request): Promise<Units> {
@@ -43,6 +47,9 @@ export async function unitsFor(request: Request): Promise<Units> {
   if (user) return unitsOf(systemOfLength(user.lengthUnit), user.pressureUnit);
   return unitsOf(await visitorSystem(request));
 }
+
+/** Units as part of a cache key: two viewers with the same key see the same figures. */
+export const unitsKey = (units: Units) => `${units.system}/${units.pressure}/${units.length}/${units.force}`;
 
 /** A signed-in user's system; `pressure` picks bar or kPa for metric readers (kPa unless asked). */
 export async function saveUserUnits(db: Db, userId: number, system: UnitSystem, pressure?: PressureUnit) {

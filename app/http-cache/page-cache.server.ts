@@ -4,11 +4,15 @@ import { createHash } from "node:crypto";
 import { gzipSync } from "node:zlib";
 import { createContext, type MiddlewareFunction } from "react-router";
 import { matchesIfNoneMatch } from "~/utils/http";
+import { nonceContext } from "~/utils/nonce";
 import { ByteLru } from "./byte-lru";
 import type { ListenerEvents } from "./listener.server";
 import { isPublicPage, PRIVATE_CACHE_CONTROL, PUBLIC_CACHE_CONTROL, PUBLIC_VARY } from "./policy";
 
-interface CachedPage {
+/** How many shared loader results each process keeps (a job page's is ~40 kB of objects). */
+const READS_KEPT = 300;
+
+export interface CachedPage {
   body: Uint8Array;
   /** The same bytes gzipped once when stored, so a hit costs no compression (its own ETag: RFC 9110 §8.8.3). */
   gzipped: Uint8Array;
@@ -53,9 +57,22 @@ export function inlineScriptSources(html: string): string[] {
   return [...sources];
 }
 
+/** Freezes a plain value and everything reachable from it (objects and arrays). */
+export function deepFreeze<T>(value: T): T {
+  if (value === null || typeof value !== "object" || Object.isFrozen(value) || ArrayBuffer.isView(value)) return value;
+  Object.freeze(value);
+  for (const key of Object.keys(value)) deepFreeze((value as Record<string, unknown>)[key]);
+  return value;
+}
+
 export class PageCache {
   private readonly pages: ByteLru<CachedPage>;
   private readonly filling = new Map<string, Promise<CachedPage | null>>();
+  /**
+   * Loader results of public pages, shared by every visitor whatever their session (see remember):
+   * the reads a signed-in visitor's render would repeat. Bounded by count.
+   */
+  private readonly reads = new ByteLru<Promise<unknown>>(READS_KEPT, () => 1);
   /** Bumped by every invalidation: a render begun before it is not stored. */
   private generation = 0;
   private listening = false;
@@ -85,6 +102,26 @@ export class PageCache {
     this.generation++;
     this.pages.clear();
     this.filling.clear();
+    this.reads.clear();
+  }
+
+  /**
+   * A loader's result for a public page, computed once and shared by all who ask until the next
+   * change empties the cache (the same notification, the same wait for the replica). `key` must name
+   * everything the result depends on: the route, the address and the viewer's units, never who the
+   * viewer is. Computed afresh, and not kept, while changes are not heard. A failure is not kept.
+   * The result is frozen, deeply: many renders read it at once, so none may change it.
+   */
+  remember<T>(key: string, compute: () => Promise<T>): Promise<T> {
+    if (!this.usable) return compute();
+    const known = this.reads.get(key);
+    if (known) return known as Promise<T>;
+    const work = compute().then(deepFreeze);
+    this.reads.set(key, work);
+    work.catch(() => {
+      if (this.reads.get(key) === work) this.reads.delete(key);
+    });
+    return work;
   }
 
   /**
@@ -132,29 +169,42 @@ export class PageCache {
 
 const gzipEtag = (etag: string) => `${etag.slice(0, -1)}-gz"`;
 /** Accept-Encoding names gzip without q=0 (RFC 9110 §12.5.3). */
-function acceptsGzip(request: Request): boolean {
-  return (request.headers.get("accept-encoding") ?? "").split(",").some((part) => {
+export function acceptsGzip(acceptEncoding: string | null | undefined): boolean {
+  return (acceptEncoding ?? "").split(",").some((part) => {
     const [coding, ...params] = part.split(";").map((x) => x.trim().toLowerCase());
     const q = params.find((p) => p.startsWith("q="));
     return coding === "gzip" && (!q || Number(q.slice(2)) > 0);
   });
 }
 
-function answer(request: Request, page: CachedPage): Response {
+/** What a stored page answers to a request with these headers: 304, or 200 with the bytes it takes (none for HEAD). */
+export function storedAnswer(
+  page: CachedPage,
+  ask: { method: string; acceptEncoding: string | null | undefined; ifNoneMatch: string | null | undefined },
+): { status: 200 | 304; headers: Headers; bytes: Uint8Array | null; gzip: boolean } {
   const headers = new Headers(page.headers);
-  const gzip = acceptsGzip(request);
+  const gzip = acceptsGzip(ask.acceptEncoding);
   const etag = gzip ? gzipEtag(page.etag) : page.etag;
   headers.set("ETag", etag);
-  if (matchesIfNoneMatch(request.headers.get("if-none-match"), etag)) {
+  if (matchesIfNoneMatch(ask.ifNoneMatch ?? null, etag)) {
     const notModified = new Headers();
     for (const name of ["ETag", "Cache-Control", "Vary"]) notModified.set(name, headers.get(name)!);
-    return new Response(null, { status: 304, headers: notModified });
+    return { status: 304, headers: notModified, bytes: null, gzip };
   }
   if (gzip) headers.set("Content-Encoding", "gzip");
   const bytes = gzip ? page.gzipped : page.body;
   headers.set("Content-Length", String(bytes.byteLength));
-  if (request.method.toUpperCase() === "HEAD") return new Response(null, { status: 200, headers });
-  const response = new Response(gzip ? page.gzippedBlob : page.bodyBlob, { status: 200, headers });
+  return { status: 200, headers, bytes: ask.method.toUpperCase() === "HEAD" ? null : bytes, gzip };
+}
+
+function answer(request: Request, page: CachedPage): Response {
+  const { status, headers, bytes, gzip } = storedAnswer(page, {
+    method: request.method,
+    acceptEncoding: request.headers.get("accept-encoding"),
+    ifNoneMatch: request.headers.get("if-none-match"),
+  });
+  if (!bytes) return new Response(null, { status, headers });
+  const response = new Response(gzip ? page.gzippedBlob : page.bodyBlob, { status, headers });
   storedBodies.set(response, bytes);
   return response;
 }
@@ -176,16 +226,23 @@ const refusesStorage = (response: Response) =>
   /no-store|private/i.test(response.headers.get("Cache-Control") ?? "") ||
   !response.body;
 
-/** Buffers a fresh render into a page to keep, or null when it may not be kept. */
-async function toPage(response: Response): Promise<CachedPage | null> {
+/**
+ * Buffers a fresh render into a page to keep, or null when it may not be kept. A kept page's scripts
+ * are allowed by their hashes, so the render's own nonce is blanked (as the browser's render writes
+ * it): every process then keeps the same bytes under the same ETag, and a visitor's If-None-Match
+ * gets its 304 from whichever worker or machine answers.
+ */
+async function toPage(response: Response, nonce: string): Promise<CachedPage | null> {
   if (refusesStorage(response)) return null;
-  const body = new Uint8Array(await response.arrayBuffer());
+  const html = (response.headers.get("Content-Type") ?? "").startsWith("text/html");
+  let body = new Uint8Array(await response.arrayBuffer());
+  if (html && nonce)
+    body = new TextEncoder().encode(new TextDecoder().decode(body).replaceAll(`nonce="${nonce}"`, 'nonce=""'));
   const headers = new Headers(response.headers);
   headers.set("Cache-Control", PUBLIC_CACHE_CONTROL);
   headers.set("Vary", `${PUBLIC_VARY}, Accept-Encoding`);
   const etag = etagOf(body);
   headers.set("ETag", etag);
-  const html = (headers.get("Content-Type") ?? "").startsWith("text/html");
   const scriptSources = html ? inlineScriptSources(new TextDecoder().decode(body)) : null;
   const gzipped = gzipSync(body);
   return {
@@ -198,6 +255,9 @@ async function toPage(response: Response): Promise<CachedPage | null> {
     scriptSources,
   };
 }
+
+/** A stored page's key: the variant (unit system) and the address as the WHATWG URL parser normalises it. */
+export const pageKey = (variant: string, url: URL) => `${variant} ${url.pathname}${url.search}`;
 
 /**
  * The root middleware's cache step. Public pages for anonymous visitors: served from the cache
@@ -215,7 +275,7 @@ export function pageCacheMiddleware(cache: PageCache, options: PageCacheOptions)
       if (!response.headers.has("Cache-Control")) response.headers.set("Cache-Control", PRIVATE_CACHE_CONTROL);
       return response;
     }
-    const key = `${await options.variant(request)} ${url.pathname}${url.search}`;
+    const key = pageKey(await options.variant(request), url);
     const hit = cache.lookup(key);
     if (hit) {
       cache.hits++;
@@ -228,7 +288,7 @@ export function pageCacheMiddleware(cache: PageCache, options: PageCacheOptions)
       method === "GET"
         ? await cache.fill(key, async () => {
             own = await next();
-            return toPage(own);
+            return toPage(own, context.get(nonceContext));
           })
         : null;
     if (page) {

@@ -41,3 +41,12 @@ export function pageCacheStep(options: PageCacheOptions & { enabled: boolean }):
     return step(args, next);
   };
 }
+
+/**
+ * A public page's loader result shared by its visitors, signed in or not, until the next change
+ * (PageCache.remember). Anonymous visitors mostly get the whole page from the cache; this spares a
+ * signed-in visitor's render the page's reads. `key` names the route, address and units.
+ */
+export function sharedRead<T>(key: string, compute: () => Promise<T>): Promise<T> {
+  return pageCache.remember(key, compute);
+}

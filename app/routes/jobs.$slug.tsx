@@ -1,5 +1,7 @@
 import { readDb } from "~/db.server";
-import { unitsFor } from "~/auth/units.server";
+import { unitsFor, unitsKey } from "~/auth/units.server";
+import type { Units } from "~/domain";
+import { sharedRead } from "~/http-cache/serve.server";
 import { WhichToolPanel } from "~/components/which-tool-panel";
 import { JobTools } from "~/components/job-tools";
 import { ErrorPage } from "~/components/error-page";
@@ -18,16 +20,24 @@ import type { Route } from "./+types/jobs.$slug";
 const PER_PAGE = 20;
 
 export async function loader({ params, request }: Route.LoaderArgs) {
-  const slug = parseSlug(params.slug);
+  const units = await unitsFor(request);
+  const url = new URL(request.url);
+  // The same for every viewer with these units: shared until the next change (app/http-cache).
+  return sharedRead(`jobs/:slug ${url.pathname}${url.search} ${unitsKey(units)}`, () =>
+    jobPageData(params.slug, request, units),
+  );
+}
+
+async function jobPageData(slugParam: string | undefined, request: Request, units: Units) {
+  const slug = parseSlug(slugParam);
   const page = parsePage(request);
   const search = Object.fromEntries(new URL(request.url).searchParams);
   const job = await getJobBySlug(readDb, slug);
   invariantResponse(job, "No such job type", 404);
-  const [standings, reports, total, units, force] = await Promise.all([
+  const [standings, reports, total, force] = await Promise.all([
     jobStandings(readDb, job.id),
     acceptedReports(readDb, { jobId: job.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(readDb, { jobId: job.id }),
-    unitsFor(request),
     jobForce(readDb, job.id),
   ]);
   // The shopper's supply and shortlist: read what parses, and say what did not rather than fail the page.

@@ -8,8 +8,9 @@ import { ModelSpecs } from "~/components/catalogue/model-specs";
 import { EvidenceGallery, ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { buttonClass } from "~/components/ui";
-import { unitsFor } from "~/auth/units.server";
-import { toolName } from "~/domain";
+import { unitsFor, unitsKey } from "~/auth/units.server";
+import { toolName, type Units } from "~/domain";
+import { sharedRead } from "~/http-cache/serve.server";
 import { acceptedReports, countAccepted, getModelBySlug, publishedEvidenceForModel } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
 import { ModelExposurePanel } from "~/components/exposure/model-exposure-panel";
@@ -23,14 +24,22 @@ import type { Route } from "./+types/models.$slug";
 const PER_PAGE = 20;
 
 export async function loader({ params, request }: Route.LoaderArgs) {
+  const units = await unitsFor(request);
+  const url = new URL(request.url);
+  // The same for every viewer with these units: shared until the next change (app/http-cache).
+  return sharedRead(`models/:slug ${url.pathname}${url.search} ${unitsKey(units)}`, () =>
+    modelPageData(params.slug, request, units),
+  );
+}
+
+async function modelPageData(slugParam: string | undefined, request: Request, units: Units) {
   const page = parsePage(request);
-  const model = await getModelBySlug(db, parseSlug(params.slug));
+  const model = await getModelBySlug(db, parseSlug(slugParam));
   invariantResponse(model, "No such tool model", 404);
-  const [jobs, reports, total, units, published, exposure, bench] = await Promise.all([
+  const [jobs, reports, total, published, exposure, bench] = await Promise.all([
     cellsForModel(db, model.id),
     acceptedReports(db, { modelId: model.id, limit: PER_PAGE, offset: (page - 1) * PER_PAGE }),
     countAccepted(db, { modelId: model.id }),
-    unitsFor(request),
     publishedEvidenceForModel(db, model.id),
     modelExposure(db, model.id, new URL(request.url)),
     benchForModel(db, model.id),

@@ -1,9 +1,11 @@
-// The page cache's pure parts: which paths are public pages, the byte-bounded LRU, and the CSP hash
-// sources of a kept page's inline scripts (CSP Level 3 §8.3: base64 of SHA-256 over the script's text).
+// The page cache's parts that need no server: which paths are public pages, the byte-bounded LRU, the CSP hash
+// sources of a kept page's inline scripts (CSP Level 3 §8.3: base64 of SHA-256 over the script's text), the
+// loader results shared between visitors, and the early answer's Content-Type.
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { ByteLru } from "../../app/http-cache/byte-lru";
-import { inlineScriptSources } from "../../app/http-cache/page-cache.server";
+import { withCharset } from "../../app/http-cache/early-hit.server";
+import { inlineScriptSources, PageCache } from "../../app/http-cache/page-cache.server";
 import { isPublicPage, pagePath } from "../../app/http-cache/policy";
 
 describe("public pages", () => {
@@ -48,5 +50,55 @@ describe("inline script sources", () => {
     const html = '<script nonce="n">a()</script><script type="module" src="/x.js"></script><script>b()</script>';
     const sha = (s: string) => `'sha256-${createHash("sha256").update(s).digest("base64")}'`;
     expect(inlineScriptSources(html)).toEqual([sha("a()"), sha("b()")]);
+  });
+});
+
+describe("shared loader results (PageCache.remember)", () => {
+  /** A cache that hears changes, as one whose listener is connected. */
+  function listeningCache() {
+    const cache = new PageCache(1024 * 1024);
+    const events = cache.events(() => Promise.resolve());
+    events.listening(true);
+    return { cache, events };
+  }
+
+  it("computes once for all who ask, until a change empties it", async () => {
+    const { cache, events } = listeningCache();
+    let computed = 0;
+    const compute = () => Promise.resolve({ rate: ++computed, rows: [{ n: 1 }] });
+    const [a, b] = await Promise.all([cache.remember("k", compute), cache.remember("k", compute)]);
+    expect(a).toBe(b);
+    expect(computed).toBe(1);
+    // Shared by many renders at once, so nothing may change it.
+    expect(Object.isFrozen(a.rows[0])).toBe(true);
+    expect(() => (a.rows as { n: number }[]).push({ n: 2 })).toThrow(TypeError);
+    events.changed("reports");
+    await Promise.resolve();
+    expect((await cache.remember("k", compute)).rate).toBe(2);
+  });
+
+  it("keeps nothing while changes are not heard, and never keeps a failure", async () => {
+    const deaf = new PageCache(1024 * 1024);
+    let computed = 0;
+    const compute = () => Promise.resolve(++computed);
+    await deaf.remember("k", compute);
+    expect(await deaf.remember("k", compute)).toBe(2);
+
+    const { cache } = listeningCache();
+    let fail = true;
+    const flaky = () => (fail ? Promise.reject(new Error("database gone")) : Promise.resolve("fine"));
+    await expect(cache.remember("k", flaky)).rejects.toThrow("database gone");
+    fail = false;
+    expect(await cache.remember("k", flaky)).toBe("fine");
+  });
+});
+
+describe("the early answer's Content-Type", () => {
+  it("adds the charset Express adds to text, JavaScript and JSON, and leaves the rest", () => {
+    expect(withCharset("text/html")).toBe("text/html; charset=utf-8");
+    expect(withCharset("text/x-script")).toBe("text/x-script; charset=utf-8");
+    expect(withCharset("application/json")).toBe("application/json; charset=utf-8");
+    expect(withCharset("text/html; charset=utf-8")).toBe("text/html; charset=utf-8");
+    expect(withCharset("image/png")).toBe("image/png");
   });
 });
