@@ -1,4 +1,5 @@
 import { Kysely, type Transaction } from "kysely";
+import { createHash } from "node:crypto";
 import pg from "pg";
 import { ConnectionLossDialect, type ConnectionLossPolicy, guardedPool, NO_RETRY } from "./connection-loss";
 import type { Database } from "./schema";
@@ -22,7 +23,27 @@ export function createPool(connectionString: string, max = 10, applicationName?:
   // An idle client losing its connection (a database restart) must not take the process down;
   // the pool replaces it and the next query reports any real outage.
   pool.on("error", (error) => console.warn(`[db] idle connection lost: ${error.message}`));
+  pool.on("connect", preparesMarkedQueries);
   return pool;
+}
+
+/**
+ * Put first in a query's text (a `sql` template), it asks for the query to be prepared: parsed and
+ * planned once per connection and then only bound and executed (PostgreSQL: PREPARE; node-postgres:
+ * a named query). For the few statements every feed answer and signed-in page runs, where parsing
+ * and planning cost more than executing. The statement is named by a digest of its text, so each
+ * distinct text (a filter present or absent) is its own statement; keep such variants few.
+ * Named statements need a session of their own: behind a pooler in transaction mode, leave it out.
+ */
+export const PREPARED = "/* prepared */";
+
+/** Sends queries whose text starts with PREPARED as named queries on this connection. */
+function preparesMarkedQueries(client: pg.PoolClient) {
+  const query = client.query.bind(client) as (...args: unknown[]) => unknown;
+  (client as { query: unknown }).query = (config: unknown, values?: unknown, callback?: unknown) =>
+    typeof config === "string" && config.startsWith(PREPARED) && callback === undefined
+      ? query({ name: `bp_${createHash("sha1").update(config).digest("base64url")}`, text: config, values })
+      : query(config, values, callback);
 }
 
 export function createDb(

@@ -6,7 +6,7 @@ import { sql } from "kysely";
 import { isHttps } from "~/config.server";
 import type { ForceUnit, LengthUnit, PressureUnit } from "~/domain";
 import { invariantResponse } from "~/utils/http";
-import type { Db } from "../../db/database";
+import { type Db, PREPARED } from "../../db/database";
 import { randomToken, sha256Hex } from "~/utils/tokens.server";
 
 export const IDLE_TIMEOUT_MS = 14 * 24 * 3600_000;
@@ -74,28 +74,25 @@ async function readSessionUser(db: Db, request: Request): Promise<SessionUser | 
   const token = await readToken(request);
   if (!token) return null;
   const hash = sha256Hex(token);
-  const row = await db
-    .selectFrom("sessions as s")
-    .innerJoin("users as u", "u.id", "s.user_id")
-    .select([
-      "u.id",
-      "u.handle",
-      "u.email",
-      "u.pressure_unit",
-      "u.length_unit",
-      "u.force_unit",
-      "s.last_seen_at",
-      sql<
-        Role[]
-      >`coalesce((select array_agg(ur.role order by ur.role) from user_roles ur where ur.user_id = u.id), '{}')`.as(
-        "roles",
-      ),
-    ])
-    .where("s.id_hash", "=", hash)
-    .where("s.expires_at", ">", sql<Date>`now()`)
-    .where("s.last_seen_at", ">", sql<Date>`now() - ${`${IDLE_TIMEOUT_MS / 1000} seconds`}::interval`)
-    .where("u.banned_at", "is", null)
-    .executeTakeFirst();
+  // Every signed-in request runs this: prepared once per connection (db/database.ts, PREPARED).
+  const idleSeconds = `${IDLE_TIMEOUT_MS / 1000} seconds`;
+  const row = (
+    await sql<{
+      id: number;
+      handle: string;
+      email: string;
+      pressure_unit: PressureUnit;
+      length_unit: LengthUnit;
+      force_unit: ForceUnit;
+      last_seen_at: Date;
+      roles: Role[];
+    }>`${sql.raw(PREPARED)}
+      select u.id, u.handle, u.email, u.pressure_unit, u.length_unit, u.force_unit, s.last_seen_at,
+        coalesce((select array_agg(ur.role order by ur.role) from user_roles ur where ur.user_id = u.id), '{}') as roles
+      from sessions s join users u on u.id = s.user_id
+      where s.id_hash = ${hash} and s.expires_at > now() and s.last_seen_at > now() - ${idleSeconds}::interval
+        and u.banned_at is null`.execute(db)
+  ).rows[0];
   if (!row) return null;
   if (Date.now() - new Date(row.last_seen_at).getTime() > TOUCH_EVERY_MS) {
     await db

@@ -14,7 +14,7 @@ import { config } from "~/config.server";
 import { clientKey } from "~/utils/client-address.server";
 import { sha256Hex } from "~/utils/tokens.server";
 import type pg from "pg";
-import type { Db } from "../../db/database";
+import { type Db, PREPARED } from "../../db/database";
 import { feedError } from "./http.server";
 import { ANONYMOUS_LIMIT, KEY_LIMIT_WINDOW } from "./params";
 
@@ -70,7 +70,7 @@ function block(hash: string, until: number) {
 async function countKeyedRequest(db: Db, hash: string) {
   const now = Date.now();
   const expire = now + LIMITS.key.duration * 1000;
-  const { rows } = await sql<{ id: number; user_id: number; points: number; expire: string }>`
+  const { rows } = await sql<{ id: number; user_id: number; points: number; expire: string }>`${sql.raw(PREPARED)}
     with k as (
       select a.id, a.user_id from api_keys a join users u on u.id = a.user_id
       where a.key_hash = ${hash} and a.revoked_at is null and u.banned_at is null

@@ -3,7 +3,7 @@
 // NDJSON file has PostgreSQL concatenate each line from the same columns (reportLine) and the
 // CSV takes them as text — see docs/decisions/005-open-feed.md.
 import { type RawBuilder, sql } from "kysely";
-import type { Db } from "../../db/database";
+import { type Db, PREPARED } from "../../db/database";
 import { statRecords as statRecordsOfStats } from "~/stats/feed.server";
 import { REPORT_FIELDS } from "./fields";
 import { feedError } from "./http.server";
@@ -123,7 +123,7 @@ export const SETTLE = "5 seconds";
 
 /** The horizon of a new walk: the newest accepted time that has settled, in microseconds. */
 export async function newHorizon(db: Db): Promise<string> {
-  const r = await sql<{ micros: string }>`
+  const r = await sql<{ micros: string }>`${sql.raw(PREPARED)}
     select (extract(epoch from coalesce(
       (select max(accepted_at) from reports where status = 'accepted' and accepted_at <= now() - ${SETTLE}::interval),
       now() - ${SETTLE}::interval)) * 1000000)::bigint::text as micros`.execute(db);
@@ -144,7 +144,7 @@ export async function reportPage(
   asOfMicros: string,
   after?: { micros: string; id: number },
 ) {
-  const rows = await sql<Record<string, unknown> & { feed_cursor_micros: string; id: number }>`
+  const rows = await sql<Record<string, unknown> & { feed_cursor_micros: string; id: number }>`${sql.raw(PREPARED)}
     select ${reportColumns()}, (extract(epoch from r.accepted_at) * 1000000)::bigint::text as feed_cursor_micros
     ${reportFrom(origin)}
     where ${reportWhere(f)} and r.accepted_at <= ${fromMicros(asOfMicros)}
