@@ -48,9 +48,6 @@ export async function unitsFor(request: Request): Promise<Units> {
   return unitsOf(await visitorSystem(request));
 }
 
-/** Units as part of a cache key: two viewers with the same key see the same figures. */
-export const unitsKey = (units: Units) => `${units.system}/${units.pressure}/${units.length}/${units.force}`;
-
 /** A signed-in user's system; `pressure` picks bar or kPa for metric readers (kPa unless asked). */
 export async function saveUserUnits(db: Db, userId: number, system: UnitSystem, pressure?: PressureUnit) {
   const u = unitsOf(system, pressure);

@@ -101,6 +101,9 @@ export function unitsOf(system: UnitSystem, pressure?: PressureUnit): Units {
   return { system, pressure: pressure === "bar" ? "bar" : "kPa", length: "mm", force: "N" };
 }
 
+/** Units as part of a cache key: two viewers with the same key see the same figures. */
+export const unitsKey = (units: Units) => `${units.system}/${units.pressure}/${units.length}/${units.force}`;
+
 export const systemOfLength = (length: LengthUnit): UnitSystem => (length === "in" ? "us" : "metric");
 
 /**

@@ -3,6 +3,7 @@
 import { sql } from "kysely";
 import type { MiddlewareFunction } from "react-router";
 import { config } from "~/config.server";
+import { type Units, unitsKey } from "~/domain";
 import { db, readDb } from "~/db.server";
 import { listenForPageChanges, type PageChangeListener } from "./listener.server";
 import { PageCache, pageCacheMiddleware, type PageCacheOptions } from "./page-cache.server";
@@ -45,8 +46,10 @@ export function pageCacheStep(options: PageCacheOptions & { enabled: boolean }):
 /**
  * A public page's loader result shared by its visitors, signed in or not, until the next change
  * (PageCache.remember). Anonymous visitors mostly get the whole page from the cache; this spares a
- * signed-in visitor's render the page's reads. `key` names the route, address and units.
+ * signed-in visitor's render the page's reads. The key is the route, the address and the units:
+ * `compute` may read nothing else of the request (never the session).
  */
-export function sharedRead<T>(key: string, compute: () => Promise<T>): Promise<T> {
-  return pageCache.remember(key, compute);
+export function sharedPageRead<T>(route: string, request: Request, units: Units, compute: () => Promise<T>) {
+  const url = new URL(request.url);
+  return pageCache.remember(`${route} ${url.pathname}${url.search} ${unitsKey(units)}`, compute);
 }

@@ -1,7 +1,7 @@
 import { readDb } from "~/db.server";
-import { unitsFor, unitsKey } from "~/auth/units.server";
+import { unitsFor } from "~/auth/units.server";
 import type { Units } from "~/domain";
-import { sharedRead } from "~/http-cache/serve.server";
+import { sharedPageRead } from "~/http-cache/serve.server";
 import { WhichToolPanel } from "~/components/which-tool-panel";
 import { JobTools } from "~/components/job-tools";
 import { ErrorPage } from "~/components/error-page";
@@ -21,11 +21,8 @@ const PER_PAGE = 20;
 
 export async function loader({ params, request }: Route.LoaderArgs) {
   const units = await unitsFor(request);
-  const url = new URL(request.url);
   // The same for every viewer with these units: shared until the next change (app/http-cache).
-  return sharedRead(`jobs/:slug ${url.pathname}${url.search} ${unitsKey(units)}`, () =>
-    jobPageData(params.slug, request, units),
-  );
+  return sharedPageRead("jobs/:slug", request, units, () => jobPageData(params.slug, request, units));
 }
 
 async function jobPageData(slugParam: string | undefined, request: Request, units: Units) {

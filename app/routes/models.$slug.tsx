@@ -8,9 +8,9 @@ import { ModelSpecs } from "~/components/catalogue/model-specs";
 import { EvidenceGallery, ReportList } from "~/components/report-table";
 import { SafetyCautions } from "~/components/safety-cautions";
 import { buttonClass } from "~/components/ui";
-import { unitsFor, unitsKey } from "~/auth/units.server";
+import { unitsFor } from "~/auth/units.server";
 import { toolName, type Units } from "~/domain";
-import { sharedRead } from "~/http-cache/serve.server";
+import { sharedPageRead } from "~/http-cache/serve.server";
 import { acceptedReports, countAccepted, getModelBySlug, publishedEvidenceForModel } from "~/catalogue/queries.server";
 import { cellsForModel } from "~/stats/cells.server";
 import { ModelExposurePanel } from "~/components/exposure/model-exposure-panel";
@@ -25,11 +25,8 @@ const PER_PAGE = 20;
 
 export async function loader({ params, request }: Route.LoaderArgs) {
   const units = await unitsFor(request);
-  const url = new URL(request.url);
   // The same for every viewer with these units: shared until the next change (app/http-cache).
-  return sharedRead(`models/:slug ${url.pathname}${url.search} ${unitsKey(units)}`, () =>
-    modelPageData(params.slug, request, units),
-  );
+  return sharedPageRead("models/:slug", request, units, () => modelPageData(params.slug, request, units));
 }
 
 async function modelPageData(slugParam: string | undefined, request: Request, units: Units) {
