@@ -37,12 +37,20 @@ export function createPool(connectionString: string, max = 10, applicationName?:
  */
 export const PREPARED = "/* prepared */";
 
+/** Statement names by text, shared by every connection: the marked texts are few, so this stays small. */
+const statementNames = new Map<string, string>();
+const statementName = (text: string) => {
+  let name = statementNames.get(text);
+  if (!name) statementNames.set(text, (name = `bp_${createHash("sha1").update(text).digest("base64url")}`));
+  return name;
+};
+
 /** Sends queries whose text starts with PREPARED as named queries on this connection. */
 function preparesMarkedQueries(client: pg.PoolClient) {
   const query = client.query.bind(client) as (...args: unknown[]) => unknown;
   (client as { query: unknown }).query = (config: unknown, values?: unknown, callback?: unknown) =>
     typeof config === "string" && config.startsWith(PREPARED) && callback === undefined
-      ? query({ name: `bp_${createHash("sha1").update(config).digest("base64url")}`, text: config, values })
+      ? query({ name: statementName(config), text: config, values })
       : query(config, values, callback);
 }
 

@@ -30,12 +30,6 @@ const header = (headers: IncomingHttpHeaders, name: string): string | null => {
   return typeof value === "string" ? value : null;
 };
 
-/** Content-Type as the long way's Express writes it: text, JavaScript and JSON get "; charset=utf-8" when they name none. */
-export const withCharset = (type: string) =>
-  /;\s*charset\s*=/i.test(type) || !/^(text\/|application\/(javascript|json))/i.test(type.split(";")[0]!.trim())
-    ? type
-    : `${type}; charset=utf-8`;
-
 /**
  * Encodings the early answer can honour as the long way would: gzip (the stored copy), or no coding
  * at all when the client names none. Anything else (br only, say) goes through the compression
@@ -71,8 +65,6 @@ export function earlyHitFor(cache: PageCache, options: EarlyHitOptions) {
     const answer = storedAnswer(page, { method, acceptEncoding, ifNoneMatch: header(req.headers, "if-none-match") });
     // As the root middleware does: hashes for a page, a fresh nonce on a 304 (it has no body to allow).
     options.securityHeaders(answer.headers, answer.status === 304 ? null : page.scriptSources);
-    const type = answer.headers.get("Content-Type");
-    if (type) answer.headers.set("Content-Type", withCharset(type));
     return { status: answer.status, headers: [...answer.headers], body: answer.bytes };
   };
 }

@@ -234,16 +234,20 @@ const refusesStorage = (response: Response) =>
  */
 async function toPage(response: Response, nonce: string): Promise<CachedPage | null> {
   if (refusesStorage(response)) return null;
-  const html = (response.headers.get("Content-Type") ?? "").startsWith("text/html");
-  let body = new Uint8Array(await response.arrayBuffer());
-  if (html && nonce)
-    body = new TextEncoder().encode(new TextDecoder().decode(body).replaceAll(`nonce="${nonce}"`, 'nonce=""'));
   const headers = new Headers(response.headers);
+  const type = headers.get("Content-Type");
+  if (type) headers.set("Content-Type", withCharset(type));
+  let body = new Uint8Array(await response.arrayBuffer());
+  let scriptSources: string[] | null = null;
+  if (type?.startsWith("text/html")) {
+    const html = nonce ? new TextDecoder().decode(body).replaceAll(`nonce="${nonce}"`, 'nonce=""') : null;
+    if (html != null) body = new TextEncoder().encode(html);
+    scriptSources = inlineScriptSources(html ?? new TextDecoder().decode(body));
+  }
   headers.set("Cache-Control", PUBLIC_CACHE_CONTROL);
   headers.set("Vary", `${PUBLIC_VARY}, Accept-Encoding`);
   const etag = etagOf(body);
   headers.set("ETag", etag);
-  const scriptSources = html ? inlineScriptSources(new TextDecoder().decode(body)) : null;
   const gzipped = gzipSync(body);
   return {
     body,
@@ -255,6 +259,16 @@ async function toPage(response: Response, nonce: string): Promise<CachedPage | n
     scriptSources,
   };
 }
+
+/**
+ * Content-Type as Express writes it on the long way (text, JavaScript and JSON get
+ * "; charset=utf-8" when they name none). A page is stored so, and every answer of it, early or
+ * not, sends the same header.
+ */
+export const withCharset = (type: string) =>
+  /;\s*charset\s*=/i.test(type) || !/^(text\/|application\/(javascript|json))/i.test(type.split(";")[0]!.trim())
+    ? type
+    : `${type}; charset=utf-8`;
 
 /** A stored page's key: the variant (unit system) and the address as the WHATWG URL parser normalises it. */
 export const pageKey = (variant: string, url: URL) => `${variant} ${url.pathname}${url.search}`;

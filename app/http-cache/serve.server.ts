@@ -6,7 +6,7 @@ import { config } from "~/config.server";
 import { type Units, unitsKey } from "~/domain";
 import { db, readDb } from "~/db.server";
 import { listenForPageChanges, type PageChangeListener } from "./listener.server";
-import { PageCache, pageCacheMiddleware, type PageCacheOptions } from "./page-cache.server";
+import { PageCache, pageCacheMiddleware, type PageCacheOptions, pageKey } from "./page-cache.server";
 
 export const pageCache = new PageCache(Math.max(0, config.pageCacheMb) * 1024 * 1024);
 
@@ -50,6 +50,5 @@ export function pageCacheStep(options: PageCacheOptions & { enabled: boolean }):
  * `compute` may read nothing else of the request (never the session).
  */
 export function sharedPageRead<T>(route: string, request: Request, units: Units, compute: () => Promise<T>) {
-  const url = new URL(request.url);
-  return pageCache.remember(`${route} ${url.pathname}${url.search} ${unitsKey(units)}`, compute);
+  return pageCache.remember(pageKey(`${route} ${unitsKey(units)}`, new URL(request.url)), compute);
 }

@@ -1,11 +1,10 @@
 // The page cache's parts that need no server: which paths are public pages, the byte-bounded LRU, the CSP hash
 // sources of a kept page's inline scripts (CSP Level 3 §8.3: base64 of SHA-256 over the script's text), the
-// loader results shared between visitors, and the early answer's Content-Type.
+// loader results shared between visitors, and a stored page's Content-Type.
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { ByteLru } from "../../app/http-cache/byte-lru";
-import { withCharset } from "../../app/http-cache/early-hit.server";
-import { inlineScriptSources, PageCache } from "../../app/http-cache/page-cache.server";
+import { inlineScriptSources, PageCache, withCharset } from "../../app/http-cache/page-cache.server";
 import { isPublicPage, pagePath } from "../../app/http-cache/policy";
 
 describe("public pages", () => {
@@ -93,7 +92,7 @@ describe("shared loader results (PageCache.remember)", () => {
   });
 });
 
-describe("the early answer's Content-Type", () => {
+describe("a stored page's Content-Type", () => {
   it("adds the charset Express adds to text, JavaScript and JSON, and leaves the rest", () => {
     expect(withCharset("text/html")).toBe("text/html; charset=utf-8");
     expect(withCharset("text/x-script")).toBe("text/x-script; charset=utf-8");
